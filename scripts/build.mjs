@@ -1,0 +1,13 @@
+// Bundles the client, the server, the command line and the benchmarks with esbuild.
+import { build } from 'esbuild';
+
+const common = { bundle: true, platform: 'node', target: 'node20', format: 'cjs', sourcemap: true, logLevel: 'warning' };
+const watch = process.argv.includes('--watch');
+
+await Promise.all([
+  build({ ...common, entryPoints: ['client/src/extension.ts'], outfile: 'dist/extension.js', external: ['vscode'] }),
+  build({ ...common, entryPoints: ['server/src/server/main.ts'], outfile: 'dist/server.js' }),
+  build({ ...common, entryPoints: ['server/src/cli/bin.ts'], outfile: 'dist/cli.js', banner: { js: '#!/usr/bin/env node' } }),
+  ...(process.argv.includes('--bench') ? [build({ ...common, entryPoints: ['bench/run.ts'], outfile: 'dist/bench.js' })] : []),
+]);
+if (watch) console.log('watch mode is not provided; run npm run build again');

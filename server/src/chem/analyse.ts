@@ -1,0 +1,85 @@
+/**
+ * Everything the core knows about one formula, computed once per formula text (memoised).
+ */
+import type { ChemDiagnostic } from './diagnostic';
+import type { Formula } from './formula/ast';
+import { composition, displayFormula, formulaAtoms, hillFormula, molarMass, type AtomCounts, type CompositionRow, type MolarMass } from './formula/compute';
+import { parseFormula } from './formula/parse';
+import { chooseReading } from './ions/reading';
+import { assessCharge, type ChargeAssessment } from './charge/balance';
+import { assessBond, type BondAssessment } from './bond';
+import { estimateLattice, type LatticeAssessment } from './lattice/lattice';
+import type { ChemSettings } from './settings';
+import { DEFAULT_CHEM_SETTINGS } from './settings';
+
+export interface FormulaAnalysis {
+  input: string;
+  /** Null when the text could not be read as a formula. */
+  formula: Formula | null;
+  ok: boolean;
+  display: string;
+  ascii: string;
+  hill: string;
+  charge: number;
+  atoms: AtomCounts;
+  molarMass: MolarMass | null;
+  composition: CompositionRow[];
+  charges: ChargeAssessment | null;
+  bond: BondAssessment | null;
+  lattice: LatticeAssessment | null;
+  diagnostics: ChemDiagnostic[];
+}
+
+const cache = new Map<string, FormulaAnalysis>();
+let cacheSettings: ChemSettings = DEFAULT_CHEM_SETTINGS;
+const CACHE_LIMIT = 50_000;
+
+/**
+ * Analyse a formula. Offsets in diagnostics are relative to `text`. Results are shared: treat them as
+ * read-only.
+ */
+export function analyseFormula(text: string, settings: ChemSettings = DEFAULT_CHEM_SETTINGS): FormulaAnalysis {
+  if (settings !== cacheSettings) {
+    cache.clear();
+    cacheSettings = settings;
+  }
+  const hit = cache.get(text);
+  if (hit) return hit;
+  const result = compute(text, settings);
+  if (cache.size >= CACHE_LIMIT) cache.clear();
+  cache.set(text, result);
+  return result;
+}
+
+export function clearFormulaCache() {
+  cache.clear();
+}
+
+function compute(text: string, settings: ChemSettings): FormulaAnalysis {
+  const parsed = parseFormula(text);
+  const diagnostics = [...parsed.diagnostics];
+  if (!parsed.ok || !parsed.formula) {
+    return {
+      input: text, formula: parsed.formula, ok: false, display: text, ascii: text, hill: '', charge: 0, atoms: {},
+      molarMass: null, composition: [], charges: null, bond: null, lattice: null, diagnostics,
+    };
+  }
+  const formula = chooseReading(parsed.formula);
+  const atoms = formulaAtoms(formula);
+  const mm = molarMass(atoms);
+  const charges = assessCharge(formula, atoms);
+  for (const d of charges.diagnostics) diagnostics.push(d);
+  const bond = assessBond(formula, atoms, charges, settings);
+  const lattice = estimateLattice(formula, atoms, charges, settings);
+  if (mm.nominal.length) {
+    diagnostics.push({
+      code: 'no-standard-weight', severity: 'information', start: 0, end: text.length,
+      message: `${mm.nominal.join(', ')} ${mm.nominal.length === 1 ? 'has' : 'have'} no standard atomic weight; the mass number of a long-lived isotope was used.`,
+    });
+  }
+  return {
+    input: text, formula, ok: true, display: displayFormula(formula, true), ascii: displayFormula(formula, false),
+    hill: hillFormula(atoms), charge: formula.charge, atoms, molarMass: mm, composition: composition(atoms, mm.value),
+    charges, bond, lattice, diagnostics,
+  };
+}

@@ -1,0 +1,20 @@
+/** A finding of the chemistry core, with offsets into the text it was given (UTF-16 code units). */
+export type Severity = 'error' | 'warning' | 'information' | 'hint';
+
+export interface ChemDiagnostic {
+  code: string;
+  severity: Severity;
+  message: string;
+  /** Offset of the first character the finding is about. */
+  start: number;
+  /** Offset just past the last character. */
+  end: number;
+  /** Machine-readable extras (suggestions, balanced form, …). */
+  data?: Record<string, unknown>;
+}
+
+export const SEVERITY_NUMBER: Record<Severity, 1 | 2 | 3 | 4> = { error: 1, warning: 2, information: 3, hint: 4 };
+
+export function shiftDiagnostic(d: ChemDiagnostic, by: number): ChemDiagnostic {
+  return by === 0 ? d : { ...d, start: d.start + by, end: d.end + by };
+}

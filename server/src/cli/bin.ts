@@ -1,0 +1,3 @@
+import { run } from './main';
+
+process.exitCode = run(process.argv.slice(2));

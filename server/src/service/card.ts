@@ -1,0 +1,131 @@
+/**
+ * The card of a formula: the contract's JSON object, and the same facts as text (CLI) and Markdown (hover,
+ * "copy card").
+ */
+import { analyseFormula, type FormulaAnalysis } from '../chem/analyse';
+import type { ChemDiagnostic } from '../chem/diagnostic';
+import { SEVERITY_NUMBER } from '../chem/diagnostic';
+import { LineIndex, type Range } from './positions';
+import { DEFAULT_SETTINGS, type ServiceSettings } from './settings';
+
+export interface CardDiagnostic {
+  range: Range;
+  severity: 1 | 2 | 3 | 4;
+  code: string;
+  message: string;
+  source: 'ionwright';
+  data?: Record<string, unknown>;
+}
+
+export interface CardJson {
+  input: string;
+  formula: string;
+  formulaAscii: string;
+  hill: string;
+  charge: number;
+  atoms: Record<string, number>;
+  molarMass: number | null;
+  molarMassUncertainty: number | null;
+  composition: Array<{ element: string; count: number; massFraction: number }>;
+  oxidationStates: Record<string, number> | null;
+  chargeBalance: { balanced: boolean; message: string; suggestions: string[] };
+  bond: { pair: [string, string]; deltaEN: number; type: string; percentIonic: number; note?: string } | null;
+  latticeEnergy: { kJPerMol: number; method: string; inputs: Record<string, unknown>; alternatives: Array<{ method: string; kJPerMol: number }>; estimate: boolean; typicalError: string } | null;
+  diagnostics: CardDiagnostic[];
+}
+
+/** Round for output: enough digits for any check, none of the binary noise. */
+export const round = (x: number, places = 6) => {
+  const r = Number(x.toFixed(places));
+  return Object.is(r, -0) ? 0 : r;
+};
+
+function cardDiagnostics(input: string, list: readonly ChemDiagnostic[]): CardDiagnostic[] {
+  const lines = new LineIndex(input);
+  return list.map((d) => ({
+    range: lines.range(d.start, d.end),
+    severity: SEVERITY_NUMBER[d.severity],
+    code: d.code,
+    message: d.message,
+    source: 'ionwright' as const,
+    ...(d.data ? { data: d.data } : {}),
+  }));
+}
+
+export function cardJson(a: FormulaAnalysis): CardJson {
+  return {
+    input: a.input,
+    formula: a.display,
+    formulaAscii: a.ascii,
+    hill: a.hill,
+    charge: a.charge,
+    atoms: a.atoms,
+    molarMass: a.molarMass ? round(a.molarMass.value) : null,
+    molarMassUncertainty: a.molarMass?.uncertainty == null ? null : round(a.molarMass.uncertainty, 6),
+    composition: a.composition.map((c) => ({ element: c.element, count: c.count, massFraction: round(c.massFraction, 6) })),
+    oxidationStates: a.charges?.oxidationStates ?? null,
+    chargeBalance: a.charges
+      ? { balanced: a.charges.balanced, message: a.charges.message, suggestions: a.charges.suggestions }
+      : { balanced: false, message: 'The formula could not be read.', suggestions: [] },
+    bond: a.bond ? { ...a.bond, deltaEN: round(a.bond.deltaEN, 3), percentIonic: round(a.bond.percentIonic, 1) } : null,
+    latticeEnergy: a.lattice
+      ? {
+          kJPerMol: round(a.lattice.kJPerMol, 0),
+          method: a.lattice.method,
+          inputs: a.lattice.inputs,
+          alternatives: a.lattice.alternatives.map((x) => ({ method: x.method, kJPerMol: round(x.kJPerMol, 0) })),
+          estimate: a.lattice.estimate,
+          typicalError: a.lattice.typicalError,
+        }
+      : null,
+    diagnostics: cardDiagnostics(a.input, a.diagnostics),
+  };
+}
+
+export function card(input: string, settings: ServiceSettings = DEFAULT_SETTINGS): CardJson {
+  return cardJson(analyseFormula(input.trim(), settings.chem));
+}
+
+export const fmt = (x: number, places: number) => x.toFixed(places);
+export const pct = (x: number, places = 2) => `${(x * 100).toFixed(places)} %`;
+const KCAL = 4.184;
+
+export function energy(kJ: number, settings: ServiceSettings): string {
+  return settings.energyUnit === 'kcal/mol' ? `${Math.round(kJ / KCAL)} kcal/mol` : `${Math.round(kJ)} kJ/mol`;
+}
+
+function signed(x: number): string {
+  const r = Number.isInteger(x) ? String(x) : x.toFixed(3).replace(/0+$/, '');
+  return x > 0 ? `+${r}` : r;
+}
+
+export function oxidationText(states: Record<string, number>): string {
+  return Object.entries(states)
+    .map(([el, v]) => `${el} ${signed(v)}`)
+    .join(', ');
+}
+
+/** The card as plain text, for the terminal. */
+export function cardText(a: FormulaAnalysis, settings: ServiceSettings = DEFAULT_SETTINGS): string {
+  const out: string[] = [];
+  if (!a.ok || !a.molarMass) {
+    out.push(`${a.input}: not a readable formula`);
+    for (const d of a.diagnostics) out.push(`  ${d.severity} [${d.code}] col ${d.start + 1}-${d.end}: ${d.message}`);
+    return out.join('\n');
+  }
+  const mm = a.molarMass;
+  out.push(`${a.display}   (Hill: ${a.hill}${a.charge ? `, charge ${signed(a.charge)}` : ''})`);
+  out.push(`  molar mass      ${fmt(mm.value, settings.decimals + 2)}${mm.uncertainty !== null ? ` ± ${mm.uncertainty.toPrecision(1)}` : ' (nominal)'} g/mol`);
+  out.push(`  composition     ${a.composition.map((c) => `${c.element} ${pct(c.massFraction)}`).join(', ')}`);
+  if (a.charges) {
+    out.push(`  oxidation       ${a.charges.oxidationStates ? oxidationText(a.charges.oxidationStates) : 'not assigned'}`);
+    out.push(`  charge balance  ${a.charges.balanced ? 'balanced' : 'NOT balanced'}: ${a.charges.message}${a.charges.suggestions.length ? ` Try: ${a.charges.suggestions.join(', ')}` : ''}`);
+  }
+  if (a.bond) out.push(`  bonding         ${a.bond.type} (ΔEN ${a.bond.pair.join('–')} = ${a.bond.deltaEN.toFixed(2)}, ${a.bond.percentIonic.toFixed(0)} % ionic)`);
+  if (a.lattice) {
+    out.push(`  lattice energy  ≈ ${energy(a.lattice.kJPerMol, settings)} (estimate, ${a.lattice.method}; typical error ${a.lattice.typicalError})`);
+    for (const alt of a.lattice.alternatives) out.push(`                  ${alt.method}: ${energy(alt.kJPerMol, settings)}`);
+  }
+  for (const d of a.diagnostics) out.push(`  ${d.severity} [${d.code}]: ${d.message}`);
+  return out.join('\n');
+}
