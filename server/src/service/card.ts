@@ -30,7 +30,10 @@ export interface CardJson {
   oxidationStates: Record<string, number> | null;
   chargeBalance: { balanced: boolean; message: string; suggestions: string[] };
   bond: { pair: [string, string]; deltaEN: number; type: string; percentIonic: number; note?: string } | null;
-  latticeEnergy: { kJPerMol: number; method: string; inputs: Record<string, unknown>; alternatives: Array<{ method: string; kJPerMol: number }>; estimate: boolean; typicalError: string } | null;
+  latticeEnergy: {
+    kJPerMol: number; method: string; inputs: Record<string, unknown>; alternatives: Array<{ method: string; kJPerMol: number }>;
+    estimate: boolean; typicalError: string; salt: string; meltingPointC: number | null; meltingPointSource: string | null;
+  } | null;
   diagnostics: CardDiagnostic[];
 }
 
@@ -76,6 +79,9 @@ export function cardJson(a: FormulaAnalysis): CardJson {
           alternatives: a.lattice.alternatives.map((x) => ({ method: x.method, kJPerMol: round(x.kJPerMol, 0) })),
           estimate: a.lattice.estimate,
           typicalError: a.lattice.typicalError,
+          salt: a.lattice.salt,
+          meltingPointC: a.lattice.meltingPointC ?? null,
+          meltingPointSource: a.lattice.meltingPointSource ?? null,
         }
       : null,
     diagnostics: cardDiagnostics(a.input, a.diagnostics),
