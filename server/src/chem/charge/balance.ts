@@ -76,7 +76,7 @@ function decisive(segs: Segment[], target: number): boolean {
   if (hasRealCation(segs) && anion) return true;
   if (target !== 0 && segs.length === 1) {
     const s = segs[0];
-    return (s.kind === 'polyatomic' && !!s.ion) || s.kind === 'complex' || s.kind === 'metal' || (s.kind === 'monatomic-anion' && s.multiplicity === 1);
+    return (s.kind === 'polyatomic' && !!s.ion) || s.kind === 'complex' || s.kind === 'metal' || ((s.kind === 'monatomic-anion' || s.kind === 'proton') && s.multiplicity === 1);
   }
   return false;
 }

@@ -228,7 +228,7 @@ export function plausible(segs: Segment[]): boolean {
     if (el === 'H' && monoAnions.some((x) => x !== 'H')) return false;
     if (el === 'H' && segs.some((s) => s.role === 'anion' && s.kind !== 'monatomic-anion')) return false;
   }
-  if (segs.some((s) => s.kind === 'proton') && !segs.some((s) => s.role === 'anion' && !(s.kind === 'monatomic-anion' && s.element === 'H'))) return false;
+  if (segs.length > 1 && segs.some((s) => s.kind === 'proton') && !segs.some((s) => s.role === 'anion' && !(s.kind === 'monatomic-anion' && s.element === 'H'))) return false;
   if (segs.some((s) => s.kind === 'proton') && monoAnions.includes('H')) return false;
   return true;
 }

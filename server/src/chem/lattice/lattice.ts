@@ -56,12 +56,16 @@ export const METHODS = {
   bornHaber: 'Born–Haber cycle',
 } as const;
 
-/** Typical errors against the CRC table, as measured by test/lattice.test.ts over its reference set. */
+/**
+ * Typical errors against the CRC lattice energy table (alkali halides, alkaline-earth oxides and fluorides,
+ * silver halides), as measured by test/lattice.test.ts. The models are purely ionic: they run low, most of
+ * all for salts with covalent character such as the silver halides.
+ */
 export const TYPICAL_ERROR: Record<string, string> = {
-  [METHODS.kapustinskii]: 'median 3 %, up to 10 % (estimate)',
-  [METHODS.bornLande]: 'median 4 %, up to 9 % (estimate)',
-  [METHODS.bornMayer]: 'median 3 %, up to 8 % (estimate)',
-  [METHODS.bornHaber]: 'about 1 % (from tabulated enthalpies)',
+  [METHODS.kapustinskii]: 'estimate: median 6 % low, up to 9 % for alkali and alkaline-earth salts, ~25 % low for silver halides',
+  [METHODS.bornLande]: 'estimate: median 5 % low, up to 8 % for alkali and alkaline-earth salts, ~25 % low for silver halides',
+  [METHODS.bornMayer]: 'estimate: median 6 % low, up to 9 % for alkali and alkaline-earth salts, ~25 % low for silver halides',
+  [METHODS.bornHaber]: 'about 1 % (lattice enthalpy at 298 K from tabulated enthalpies)',
 };
 
 interface Method {
