@@ -19,7 +19,8 @@
  *    the species ends there: the end of the side, another `+` (`Ca++`, or `Na+ + …` after spaces), or a
  *    state symbol (`Na+(aq)`); the same holds after digits written straight after it (`Ca+2`, `Ca+2 + …`).
  *    When a species starts after it instead (a letter, a bracket, a fraction, a coefficient), directly or
- *    after spaces, it is a separator: `H2+O2`, `H2+ O2`, `H2+2O2`.
+ *    after spaces, it is a separator: `H2+O2`, `H2+ O2`, `H2+2O2`. After anything else (`Na+-`) it stays
+ *    part of the species, and the formula parser reports what follows the charge.
  * So `Na+ + Cl-`, `2H+ + CO3^2-`, `Fe^3+ + e^-` read as ions, and `H2+O2` as two species. A charged species
  * followed directly by another species (`H+Cl-`) reads as `H + Cl-`: write spaces around separators.
  */
