@@ -4,6 +4,8 @@
  * caches it; the CLI makes one per file).
  */
 import { analyseFormula, type FormulaAnalysis } from '../chem/analyse';
+import { analyseBatch, type BatchAnalysis } from '../chem/batch';
+import { analyseReaction, type ReactionAnalysis } from '../chem/equation';
 import type { ChemDiagnostic } from '../chem/diagnostic';
 import { scanDocument } from '../notes/scan';
 import type { BatchRef, FormulaRef, NotesLanguage, ReactionRef, ScanResult, SectionRef } from '../notes/types';
@@ -17,10 +19,12 @@ export interface FormulaOccurrence {
 
 export interface ReactionOccurrence {
   ref: ReactionRef;
+  analysis: ReactionAnalysis;
 }
 
 export interface BatchOccurrence {
   ref: BatchRef;
+  analysis: BatchAnalysis;
 }
 
 export interface AnalysedDocument {
@@ -59,9 +63,16 @@ export function analyseDocument(text: string, language: NotesLanguage, settings:
         diagnostics.push({ ...d, start: d.start + item.start, end: d.end + item.start });
       }
     } else if (item.kind === 'reaction') {
-      reactions.push({ ref: item });
+      const analysis = analyseReaction(item.text);
+      reactions.push({ ref: item, analysis });
+      for (const d of analysis.diagnostics) diagnostics.push({ ...d, start: d.start + item.start, end: d.end + item.start });
     } else {
-      batches.push({ ref: item });
+      const analysis = analyseBatch(item.lines, item.openName?.text ?? null, settings.chem);
+      batches.push({ ref: item, analysis });
+      diagnostics.push(...analysis.diagnostics);
+      if (!item.closed) {
+        diagnostics.push({ code: 'batch-unclosed', severity: 'warning', start: item.open.start, end: item.open.end, message: language === 'fnote' ? "This batch has no 'end' line; it runs to the end of the file." : 'This batch block is never closed; it runs to the end of the document.' });
+      }
     }
   }
   diagnostics.sort((a, b) => a.start - b.start || a.end - b.end);

@@ -1,0 +1,133 @@
+/**
+ * The computed tables Ionwright inserts into a report, as Markdown: one for the formulas of a section and
+ * one per batch (ingredients, then ions and ionic strength, with the model's notes and the cautions).
+ */
+import type { BatchAnalysis } from '../chem/batch';
+import { CAUTION_FOOTNOTE } from '../chem/cautions';
+import type { FormulaAnalysis } from '../chem/analyse';
+import { subscriptDigits } from '../chem/formula/compute';
+import { oxidationText, energy } from './card';
+import type { AnalysedDocument, BatchOccurrence, FormulaOccurrence } from './document';
+import { DEFAULT_SETTINGS, type ServiceSettings } from './settings';
+
+/** Escape a table cell. */
+const cell = (t: string) => t.replace(/\|/g, '\\|').replace(/\n/g, ' ');
+const row = (cells: string[]) => `| ${cells.map(cell).join(' | ')} |`;
+
+/** Significant figures without exponent noise for the quantities a chemist weighs. */
+export function sig(x: number | null | undefined, digits = 4): string {
+  if (x === null || x === undefined || !Number.isFinite(x)) return '—';
+  if (x === 0) return '0';
+  const abs = Math.abs(x);
+  if (abs >= 1e6 || abs < 1e-4) return x.toExponential(digits - 1).replace('e', '×10^').replace('^+', '^');
+  return Number(x.toPrecision(digits)).toString();
+}
+
+function latticeCell(a: FormulaAnalysis, s: ServiceSettings): string {
+  const L = a.lattice;
+  if (!L) return '—';
+  const short = L.method.replace(' equation', '').replace(' cycle', '');
+  const salt = a.formula && a.formula.parts.length > 1 ? `${subscriptDigits(L.salt)}, ` : '';
+  return `${L.estimate ? '≈ ' : ''}${energy(L.kJPerMol, s)} (${salt}${short}${L.estimate ? ', est.' : ''})`;
+}
+
+/** Markdown table of formulas (unique, in order of appearance, readable ones only). */
+export function formulaTable(formulas: readonly FormulaAnalysis[], settings: ServiceSettings = DEFAULT_SETTINGS, title?: string): string {
+  const seen = new Set<string>();
+  const list = formulas.filter((a) => a.ok && a.molarMass && !seen.has(a.ascii) && seen.add(a.ascii));
+  if (list.length === 0) return '';
+  const lines: string[] = [];
+  if (title) lines.push(`**${title}** (computed by Ionwright)`, '');
+  lines.push(row(['Formula', 'Molar mass (g/mol)', 'Bond type', 'ΔEN (pair)', 'Lattice energy', 'Oxidation states']));
+  lines.push('|---|---:|---|---|---|---|');
+  for (const a of list) {
+    lines.push(row([
+      a.display,
+      (a.molarMass as { value: number }).value.toFixed(settings.decimals),
+      a.bond?.type ?? '—',
+      a.bond ? `${a.bond.deltaEN.toFixed(2)} (${a.bond.pair.join('–')})` : '—',
+      latticeCell(a, settings),
+      a.charges?.oxidationStates ? oxidationText(a.charges.oxidationStates) : '—',
+    ]));
+  }
+  const notes: string[] = [];
+  if (list.some((a) => a.lattice?.estimate)) notes.push('Lattice energies marked ≈ are model estimates (typically 5–10 % low; more for salts with covalent character).');
+  if (list.some((a) => a.charges && !a.charges.balanced)) notes.push('Some formulas are not charge-balanced; see the warnings in the notes.');
+  if (notes.length) lines.push('', ...notes.map((n) => `_${n}_`));
+  return lines.join('\n');
+}
+
+/** Markdown tables of a batch. */
+export function batchTable(b: BatchAnalysis, settings: ServiceSettings = DEFAULT_SETTINGS): string {
+  const lines: string[] = [];
+  const head = [b.name ?? 'Batch', b.volumeL !== null ? `final volume ${sig(b.volumeL * 1000)} mL` : null, b.totalMassG !== null ? `total ${sig(b.totalMassG)} g` : null].filter(Boolean).join(', ');
+  lines.push(`**${head}** (computed by Ionwright)`, '');
+  lines.push(row(['Ingredient', 'Amount', 'Molar mass (g/mol)', 'To weigh (g)', 'Moles (mol)', 'Concentration (M)', 'Mass fraction']));
+  lines.push('|---|---|---:|---:|---:|---:|---:|');
+  for (const i of b.ingredients) {
+    lines.push(row([
+      i.formula,
+      i.amount.text + (i.assay < 1 ? ` @ ${sig(i.assay * 100)} %` : ''),
+      i.molarMass.toFixed(settings.decimals),
+      sig(i.massG),
+      sig(i.moles),
+      sig(i.concentrationM),
+      i.massFraction === null ? '—' : `${(i.massFraction * 100).toFixed(1)} %`,
+    ]));
+  }
+  if (b.ions.length) {
+    lines.push('', row(['Ion', 'Charge', 'Concentration (M)']), '|---|---:|---:|');
+    for (const ion of b.ions) lines.push(row([ion.ion, ion.charge > 0 ? `+${ion.charge}` : String(ion.charge), sig(ion.concentrationM)]));
+  }
+  lines.push('');
+  if (b.ionicStrengthM !== null) lines.push(`Ionic strength I = ½ Σ cᵢzᵢ² = ${sig(b.ionicStrengthM)} M; net charge ${sig(b.netChargeEqPerL ?? 0, 2)} eq/L.`);
+  const undissociated = b.ingredients.filter((i) => i.undissociated && i.ions.length === 0).map((i) => i.formula);
+  if (undissociated.length) lines.push(`Not split into ions: ${undissociated.join(', ')}.`);
+  for (const n of b.notes) lines.push(`_${n}_`);
+  if (b.cautions.length) {
+    lines.push('', '**Cautions**', ...b.cautions.map((c) => `- ${c.text}`), '', `_${CAUTION_FOOTNOTE}_`);
+  }
+  return lines.join('\n');
+}
+
+export interface SectionTables {
+  title: string;
+  start: number;
+  end: number;
+  formulas: FormulaOccurrence[];
+  batches: BatchOccurrence[];
+}
+
+/** Formulas and batches grouped by section (items before the first heading form a section of their own). */
+export function sectionsOf(doc: AnalysedDocument): SectionTables[] {
+  const out: SectionTables[] = [];
+  const first = doc.sections[0]?.start ?? doc.text.length;
+  const pre: SectionTables = { title: 'Notes', start: 0, end: first, formulas: [], batches: [] };
+  if (first > 0) out.push(pre);
+  for (const s of doc.sections) out.push({ title: s.title, start: s.start, end: s.end, formulas: [], batches: [] });
+  const find = (offset: number) => {
+    let lo = 0;
+    let hi = out.length - 1;
+    while (lo < hi) {
+      const mid = (lo + hi + 1) >> 1;
+      if (out[mid].start <= offset) lo = mid;
+      else hi = mid - 1;
+    }
+    return out[lo];
+  };
+  if (out.length === 0) out.push(pre);
+  for (const f of doc.formulas) find(f.ref.start).formulas.push(f);
+  for (const b of doc.batches) find(b.ref.start).batches.push(b);
+  return out;
+}
+
+/** All tables of a document, as `ionwright table` prints them. */
+export function documentTables(doc: AnalysedDocument, settings: ServiceSettings = doc.settings): string {
+  const parts: string[] = [];
+  for (const s of sectionsOf(doc)) {
+    const ft = formulaTable(s.formulas.map((f) => f.analysis), settings, `Formulas — ${s.title}`);
+    if (ft) parts.push(ft);
+    for (const b of s.batches) parts.push(batchTable(b.analysis, settings));
+  }
+  return parts.join('\n\n');
+}
