@@ -121,16 +121,18 @@ export function cardText(a: FormulaAnalysis, settings: ServiceSettings = DEFAULT
   }
   const mm = a.molarMass;
   out.push(`${a.display}   (Hill: ${a.hill}${a.charge ? `, charge ${signed(a.charge)}` : ''})`);
-  out.push(`  molar mass      ${fmt(mm.value, settings.decimals + 2)}${mm.uncertainty !== null ? ` ± ${mm.uncertainty.toPrecision(1)}` : ' (nominal)'} g/mol`);
+  out.push(`  molar mass      ${fmt(mm.value, settings.decimals + 1)}${mm.uncertainty !== null ? ` ± ${mm.uncertainty.toPrecision(1)}` : ' (nominal)'} g/mol`);
   out.push(`  composition     ${a.composition.map((c) => `${c.element} ${pct(c.massFraction)}`).join(', ')}`);
   if (a.charges) {
     out.push(`  oxidation       ${a.charges.oxidationStates ? oxidationText(a.charges.oxidationStates) : 'not assigned'}`);
-    out.push(`  charge balance  ${a.charges.balanced ? 'balanced' : 'NOT balanced'}: ${a.charges.message}${a.charges.suggestions.length ? ` Try: ${a.charges.suggestions.join(', ')}` : ''}`);
+    out.push(`  charge balance  ${a.charges.balanced ? '' : 'NOT BALANCED: '}${a.charges.message}${a.charges.suggestions.length ? ` Try: ${a.charges.suggestions.join(', ')}` : ''}`);
   }
   if (a.bond) out.push(`  bonding         ${a.bond.type} (ΔEN ${a.bond.pair.join('–')} = ${a.bond.deltaEN.toFixed(2)}, ${a.bond.percentIonic.toFixed(0)} % ionic)`);
   if (a.lattice) {
-    out.push(`  lattice energy  ≈ ${energy(a.lattice.kJPerMol, settings)} (estimate, ${a.lattice.method}; typical error ${a.lattice.typicalError})`);
-    for (const alt of a.lattice.alternatives) out.push(`                  ${alt.method}: ${energy(alt.kJPerMol, settings)}`);
+    const L = a.lattice;
+    out.push(`  lattice energy  ${L.estimate ? '≈ ' : ''}${energy(L.kJPerMol, settings)} — ${L.method}${a.formula && a.formula.parts.length > 1 ? ` (for ${L.salt})` : ''}; ${L.typicalError}`);
+    for (const alt of L.alternatives) out.push(`                  ${alt.method}: ${energy(alt.kJPerMol, settings)}`);
+    if (L.meltingPointC !== undefined) out.push(`  melting point   ${L.meltingPointC} °C (${L.meltingPointSource})`);
   }
   for (const d of a.diagnostics) out.push(`  ${d.severity} [${d.code}]: ${d.message}`);
   return out.join('\n');

@@ -67,7 +67,7 @@ export function metalCharges(symbol: string, fallback: boolean): Array<{ charge:
   };
   e.commonStates.forEach((q) => add(q, 0));
   e.icsdStates.forEach((q) => add(q, 1));
-  (EXTRA_USUAL[symbol] ?? []).forEach((q) => add(q, 1));
+  (EXTRA_USUAL[symbol] ?? []).forEach((q) => add(q, 2));
   if (fallback && D_OR_F_BLOCK(e.z)) e.otherStates.forEach((q) => add(q, 4));
   if (out.length === 0 && fallback) e.otherStates.forEach((q) => add(q, 4));
   return out;

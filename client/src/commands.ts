@@ -1,0 +1,56 @@
+/**
+ * Client-side command logic that needs no VS Code: which server command to call with which arguments.
+ * extension.ts feeds it the active editor's state.
+ */
+export const CLIENT_COMMANDS = {
+  insertTable: 'ionwright.insertTable',
+  insertSectionTable: 'ionwright.insertSectionTable',
+  copyCard: 'ionwright.copyCard',
+  restartServer: 'ionwright.restartServer',
+  showOutput: 'ionwright.showOutput',
+} as const;
+
+export const SERVER_COMMANDS = {
+  insertTable: 'ionwright.server.insertTable',
+  insertSectionTable: 'ionwright.server.insertSectionTable',
+  insertTableAt: 'ionwright.server.insertTableAt',
+  cardMarkdown: 'ionwright.server.cardMarkdown',
+} as const;
+
+export interface EditorState {
+  uri: string;
+  languageId: string;
+  selection: { start: { line: number; character: number }; end: { line: number; character: number } };
+}
+
+export const NOTES_LANGUAGES = ['markdown', 'fnote'];
+
+export type Plan =
+  | { kind: 'server'; command: string; args: unknown[] }
+  | { kind: 'error'; message: string };
+
+/** What a client command asks of the server, for the editor state it runs in. */
+export function planCommand(command: string, editor: EditorState | undefined): Plan {
+  if (!editor) return { kind: 'error', message: 'Open a Markdown or .fnote notes file first.' };
+  if (!NOTES_LANGUAGES.includes(editor.languageId)) return { kind: 'error', message: `Ionwright works on Markdown and .fnote notes, not on '${editor.languageId}' files.` };
+  const { uri, selection } = editor;
+  switch (command) {
+    case CLIENT_COMMANDS.insertTable:
+      return { kind: 'server', command: SERVER_COMMANDS.insertTable, args: [{ uri, range: selection }] };
+    case CLIENT_COMMANDS.insertSectionTable:
+      return { kind: 'server', command: SERVER_COMMANDS.insertSectionTable, args: [{ uri, position: selection.start }] };
+    case CLIENT_COMMANDS.copyCard:
+      return { kind: 'server', command: SERVER_COMMANDS.cardMarkdown, args: [{ uri, position: selection.start }] };
+    default:
+      return { kind: 'error', message: `Unknown command ${command}.` };
+  }
+}
+
+/** The message to show after a server command ran. */
+export function resultMessage(command: string, result: unknown): string | undefined {
+  if (command === CLIENT_COMMANDS.copyCard) return typeof result === 'string' ? 'Ionwright card copied as Markdown.' : 'No formula under the cursor.';
+  const r = result as { applied?: boolean; reason?: string } | null;
+  if (!r) return 'Nothing to tabulate here.';
+  if (r.applied === false) return r.reason ? `Ionwright: ${r.reason}.` : 'The edit was not applied.';
+  return undefined;
+}

@@ -1,0 +1,134 @@
+/**
+ * Hover cards in Markdown: the headline numbers first, then the method, inputs and sources.
+ */
+import type { FormulaAnalysis } from '../chem/analyse';
+import type { BatchAnalysis, Ingredient } from '../chem/batch';
+import { CAUTION_FOOTNOTE, cautionsFor } from '../chem/cautions';
+import type { ReactionAnalysis } from '../chem/equation';
+import { subscriptDigits } from '../chem/formula/compute';
+import { energy, oxidationText } from './card';
+import type { AnalysedDocument } from './document';
+import { targetAt } from './lookup';
+import type { Range } from './positions';
+import type { ServiceSettings } from './settings';
+import { sig } from './tables';
+
+export interface HoverResult {
+  markdown: string;
+  range: Range;
+}
+
+const esc = (t: string) => t.replace(/([\\`*_[\]<>|])/g, '\\$1');
+const minus = (t: string) => t.replace(/(^|[\s(,])-(?=\d)/g, '$1−');
+
+function latticeLine(a: FormulaAnalysis, s: ServiceSettings): string | undefined {
+  const L = a.lattice;
+  if (!L) return undefined;
+  const forSalt = a.formula && a.formula.parts.length > 1 ? ` for ${subscriptDigits(L.salt)}` : '';
+  return `Lattice energy ${L.estimate ? '≈ ' : ''}**${energy(L.kJPerMol, s)}**${forSalt} — ${L.method}${L.estimate ? ' (estimate)' : ''}${L.meltingPointC !== undefined ? ` · mp ${L.meltingPointC} °C` : ''}`;
+}
+
+function latticeInputs(a: FormulaAnalysis, s: ServiceSettings): string[] {
+  const L = a.lattice;
+  if (!L) return [];
+  const i = L.inputs as Record<string, any>;
+  const bits: string[] = [];
+  if (i.charges) bits.push(`z₊ ${i.charges.cation > 0 ? '+' : ''}${i.charges.cation}, z₋ ${String(i.charges.anion).replace('-', '−')}`);
+  if (i.radii) bits.push(`r₊ ${i.radii.cation} Å, r₋ ${i.radii.anion} Å`);
+  if (i.r0) bits.push(`r₀ ${i.r0} Å`);
+  if (i.nu) bits.push(`ν ${i.nu}`);
+  if (i.madelung) bits.push(`M ${i.madelung} (${i.structure})`);
+  if (i.bornExponent) bits.push(`n ${i.bornExponent}`);
+  if (i.formationEnthalpy !== undefined) bits.push(`ΔfH° ${i.formationEnthalpy} kJ/mol, IE ${i.ionisationEnergies.join(' + ')}, EA ${i.electronAffinity}`);
+  const out = [`Inputs: ${bits.join(' · ')}`];
+  if (i.radiusSources) out.push(`Radii: ${i.radiusSources.cation}; ${i.radiusSources.anion}`);
+  if (i.source) out.push(`Data: ${i.source}`);
+  if (L.alternatives.length) out.push(`Also: ${L.alternatives.map((x) => `${x.method.replace(' equation', '')} ${energy(x.kJPerMol, s)}`).join(' · ')}`);
+  out.push(`Typical error: ${L.typicalError}`);
+  if (L.meltingPointC !== undefined) out.push(`Melting point: ${L.meltingPointSource}`);
+  return out;
+}
+
+/** The card of a formula as Markdown (hover and "copy card"). */
+export function formulaCardMarkdown(a: FormulaAnalysis, s: ServiceSettings): string {
+  if (!a.ok || !a.molarMass) {
+    return [`**${esc(a.input)}** — not a readable formula`, '', ...a.diagnostics.map((d) => `- ${esc(d.message)}`)].join('\n');
+  }
+  const mm = a.molarMass;
+  const head = `**${esc(a.display)}** · **${mm.value.toFixed(s.decimals)} g/mol**${a.charge ? ` · charge ${a.charge > 0 ? '+' : '−'}${Math.abs(a.charge)}` : ''}`;
+  const lines = [head, ''];
+  const c = a.charges;
+  if (c) {
+    if (!c.balanced) lines.push(`⚠ **Not charge-balanced:** ${esc(c.message)}${c.suggestions.length ? ` Try ${c.suggestions.map((x) => `\`${x}\``).join(', ')}.` : ''}`, '');
+    else if (c.basis === 'ionic') lines.push(`${esc(c.message)}`, '');
+    if (c.oxidationStates) lines.push(`Oxidation states: ${minus(oxidationText(c.oxidationStates))}${c.mixedValence.length ? ' (averages: mixed valence)' : ''}`, '');
+  }
+  if (a.bond) lines.push(`Bonding: **${a.bond.type}** — ΔEN ${a.bond.pair.join('–')} ${a.bond.deltaEN.toFixed(2)}, ${a.bond.percentIonic.toFixed(0)} % ionic`, '');
+  const lat = latticeLine(a, s);
+  if (lat) lines.push(lat, '');
+  const cautions = cautionsFor(a);
+  if (cautions.length) lines.push(`⚠ ${cautions.map((x) => esc(x.text)).join('; ')}. _${CAUTION_FOOTNOTE}_`, '');
+  lines.push('---', '');
+  const detail: string[] = [];
+  detail.push(`Hill ${a.hill} · ± ${mm.uncertainty === null ? '— (no standard atomic weight for ' + mm.nominal.join(', ') + ')' : mm.uncertainty.toPrecision(1)} g/mol (CIAAW 2021 weights)`);
+  detail.push(`Composition: ${a.composition.map((x) => `${x.element} ${(x.massFraction * 100).toFixed(2)} %`).join(', ')}`);
+  if (a.bond?.note) detail.push(a.bond.note);
+  detail.push(...latticeInputs(a, s));
+  lines.push(detail.map((d) => esc(d)).join('  \n'));
+  return lines.join('\n');
+}
+
+function ingredientMarkdown(i: Ingredient, b: BatchAnalysis, s: ServiceSettings): string {
+  const lines = [`**${esc(i.formula)}** · ${esc(i.amount.text)}${i.assay < 1 ? ` @ ${sig(i.assay * 100)} %` : ''}`, ''];
+  const bits = [`weigh **${sig(i.massG)} g**`, `${sig(i.moles)} mol`];
+  if (i.concentrationM !== null) bits.push(`**${sig(i.concentrationM)} M** in ${sig((b.volumeL as number) * 1000)} mL`);
+  if (i.massFraction !== null) bits.push(`${(i.massFraction * 100).toFixed(1)} % of the weighed mass`);
+  lines.push(bits.join(' · '), '');
+  lines.push(i.ions.length ? `Dissociates to ${i.ions.map((x) => `${x.count === 1 ? '' : x.count + ' '}${x.ion}`).join(' + ')}` : `Not split into ions (${i.undissociated ?? 'undissociated'})`, '');
+  lines.push(`Molar mass ${i.molarMass.toFixed(s.decimals)} g/mol${i.analysis.formula && i.analysis.formula.parts.length > 1 ? ' (hydrate water included)' : ''}`);
+  if (i.cautions.length) lines.push('', `⚠ ${i.cautions.map((c) => esc(c.text)).join('; ')}. _${CAUTION_FOOTNOTE}_`);
+  return lines.join('\n');
+}
+
+export function batchSummaryMarkdown(b: BatchAnalysis, _s: ServiceSettings): string {
+  const total = b.ingredients.reduce((x, i) => x + (i.massG ?? 0), 0);
+  const lines = [`**${esc(b.name ?? 'Batch')}** · ${b.ingredients.length} ingredient${b.ingredients.length === 1 ? '' : 's'} · ${sig(total)} g to weigh${b.volumeL !== null ? ` · ${sig(b.volumeL * 1000)} mL` : ''}`, ''];
+  if (b.ionicStrengthM !== null) lines.push(`Ionic strength **${sig(b.ionicStrengthM)} M** · net charge ${sig(b.netChargeEqPerL ?? 0, 2)} eq/L`, '');
+  if (b.ions.length) lines.push(b.ions.map((x) => `${x.ion} ${sig(x.concentrationM)} M`).join(' · '), '');
+  lines.push('| Ingredient | To weigh (g) | mol | M |', '|---|---:|---:|---:|');
+  for (const i of b.ingredients) lines.push(`| ${esc(i.formula)} | ${sig(i.massG)} | ${sig(i.moles)} | ${sig(i.concentrationM)} |`);
+  lines.push('', ...b.notes.map((n) => `_${n}_`));
+  if (b.cautions.length) lines.push('', ...b.cautions.map((c) => `⚠ ${esc(c.text)}`), '', `_${CAUTION_FOOTNOTE}_`);
+  return lines.join('\n');
+}
+
+export function reactionMarkdown(r: ReactionAnalysis): string {
+  const b = r.balance;
+  const lines: string[] = [];
+  if (!r.ok) {
+    lines.push('**Equation** — not readable', '', ...r.parsed.diagnostics.map((d) => `- ${esc(d.message)}`));
+    return lines.join('\n');
+  }
+  if (b.status === 'already-balanced') lines.push('**Balanced** ✓', '', esc(b.message));
+  else {
+    lines.push(`**Not balanced** (${b.status})`, '');
+    const diff = b.differences.filter((d) => d.left !== d.right).map((d) => `${d.element} ${d.left} → ${d.right}`);
+    if (diff.length) lines.push(`As written: ${diff.join(', ')}`, '');
+    if (b.charge.left !== b.charge.right) lines.push(`Charge ${b.charge.left} → ${b.charge.right}`, '');
+    if (b.balancedText) lines.push('Balanced:', '', '```', b.balancedText, '```');
+    else lines.push(esc(b.message));
+  }
+  return lines.join('\n');
+}
+
+export function hover(doc: AnalysedDocument, offset: number): HoverResult | null {
+  const t = targetAt(doc, offset);
+  if (!t) return null;
+  const s = doc.settings;
+  let markdown: string;
+  if (t.kind === 'formula') markdown = formulaCardMarkdown(t.occ.analysis, s);
+  else if (t.kind === 'reaction') markdown = reactionMarkdown(t.occ.analysis);
+  else if (t.kind === 'batch-line') markdown = ingredientMarkdown(t.ingredient, t.occ.analysis, s);
+  else markdown = batchSummaryMarkdown(t.occ.analysis, s);
+  return { markdown, range: doc.lines.range(t.start, t.end) };
+}

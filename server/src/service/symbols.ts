@@ -1,0 +1,79 @@
+/** Outline (document symbols) and code lenses: sections, batches and reactions. */
+import type { AnalysedDocument } from './document';
+import type { Range } from './positions';
+import { sig } from './tables';
+
+/** LSP SymbolKind values used here. */
+export const SymbolKind = { Namespace: 3, Struct: 23, Event: 24 } as const;
+
+export interface DocumentSymbol {
+  name: string;
+  detail?: string;
+  kind: number;
+  range: Range;
+  selectionRange: Range;
+  children: DocumentSymbol[];
+}
+
+export function documentSymbols(doc: AnalysedDocument): DocumentSymbol[] {
+  const top: DocumentSymbol[] = [];
+  const sections = doc.sections.map((s) => ({
+    name: s.title || '(untitled section)',
+    kind: SymbolKind.Namespace,
+    range: doc.lines.range(s.start, s.end),
+    selectionRange: doc.lines.range(s.start, s.headingEnd),
+    children: [] as DocumentSymbol[],
+    start: s.start,
+  }));
+  const home = (offset: number) => [...sections].reverse().find((s) => s.start <= offset)?.children ?? top;
+  const items: Array<{ offset: number; sym: DocumentSymbol }> = [];
+  for (const b of doc.batches) {
+    const a = b.analysis;
+    items.push({
+      offset: b.ref.start,
+      sym: {
+        name: a.name ?? 'batch',
+        detail: `${a.ingredients.length} ingredient${a.ingredients.length === 1 ? '' : 's'}${a.volumeL !== null ? `, ${sig(a.volumeL * 1000)} mL` : ''}`,
+        kind: SymbolKind.Struct,
+        range: doc.lines.range(b.ref.start, b.ref.end),
+        selectionRange: doc.lines.range(b.ref.open.start, b.ref.open.end),
+        children: [],
+      },
+    });
+  }
+  for (const r of doc.reactions) {
+    items.push({
+      offset: r.ref.start,
+      sym: {
+        name: r.ref.text.length > 60 ? r.ref.text.slice(0, 57) + '…' : r.ref.text,
+        detail: r.analysis.balance.status === 'already-balanced' ? 'balanced' : 'not balanced',
+        kind: SymbolKind.Event,
+        range: doc.lines.range(r.ref.start, r.ref.end),
+        selectionRange: doc.lines.range(r.ref.start, r.ref.end),
+        children: [],
+      },
+    });
+  }
+  items.sort((x, y) => x.offset - y.offset);
+  for (const it of items) home(it.offset).push(it.sym);
+  return [...sections.map(({ start: _s, ...rest }) => rest), ...top].sort((a, b) => a.range.start.line - b.range.start.line);
+}
+
+export interface CodeLens {
+  range: Range;
+  title: string;
+  /** Offset the lens's command acts on. */
+  offset: number;
+}
+
+/** One lens per batch: its totals at a glance; the command inserts its table. */
+export function codeLenses(doc: AnalysedDocument): CodeLens[] {
+  return doc.batches.map((b) => {
+    const a = b.analysis;
+    const weigh = a.ingredients.reduce((s, i) => s + (i.massG ?? 0), 0);
+    const bits = [`${a.ingredients.length} ingredient${a.ingredients.length === 1 ? '' : 's'}`, `${sig(weigh)} g to weigh`];
+    if (a.ionicStrengthM !== null) bits.push(`I = ${sig(a.ionicStrengthM, 3)} M`);
+    if (a.cautions.length) bits.push('⚠ cautions');
+    return { range: doc.lines.range(b.ref.open.start, b.ref.open.end), title: `${bits.join(' · ')} — insert table`, offset: b.ref.open.start };
+  });
+}
