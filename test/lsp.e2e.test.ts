@@ -20,7 +20,6 @@ import {
   HoverRequest,
   InitializedNotification,
   InitializeRequest,
-  PublishDiagnosticsNotification,
   ShutdownRequest,
   StreamMessageReader,
   StreamMessageWriter,
@@ -59,7 +58,9 @@ beforeAll(async () => {
   proc = spawn('node', [SERVER, '--stdio'], { stdio: ['pipe', 'pipe', 'pipe'] });
   proc.stderr!.on('data', (d) => (stderr += d));
   conn = createProtocolConnection(new StreamMessageReader(proc.stdout!), new StreamMessageWriter(proc.stdin!));
-  conn.onNotification(PublishDiagnosticsNotification.type, (p) => published.push(p));
+  conn.onNotification('textDocument/publishDiagnostics', (p: PublishDiagnosticsParams) => {
+    published.push(p);
+  });
   conn.onRequest(ApplyWorkspaceEditRequest.type, (p) => {
     applied.push(p.edit);
     return { applied: true };
