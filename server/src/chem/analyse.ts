@@ -69,17 +69,24 @@ function compute(text: string, settings: ChemSettings): FormulaAnalysis {
   const mm = molarMass(atoms);
   const charges = assessCharge(formula, atoms);
   for (const d of charges.diagnostics) diagnostics.push(d);
-  const bond = assessBond(formula, atoms, charges, settings);
-  const lattice = estimateLattice(formula, atoms, charges, settings);
   if (mm.nominal.length) {
     diagnostics.push({
       code: 'no-standard-weight', severity: 'information', start: 0, end: text.length,
       message: `${mm.nominal.join(', ')} ${mm.nominal.length === 1 ? 'has' : 'have'} no standard atomic weight; the mass number of a long-lived isotope was used.`,
     });
   }
+  // Bonding and lattice energy are shown in cards, not needed for diagnostics: computed on first use.
+  let bond: BondAssessment | null | undefined;
+  let lattice: LatticeAssessment | null | undefined;
   return {
     input: text, formula, ok: true, display: displayFormula(formula, true), ascii: displayFormula(formula, false),
     hill: hillFormula(atoms), charge: formula.charge, atoms, molarMass: mm, composition: composition(atoms, mm.value),
-    charges, bond, lattice, diagnostics,
+    charges, diagnostics,
+    get bond() {
+      return bond === undefined ? (bond = assessBond(formula, atoms, charges, settings)) : bond;
+    },
+    get lattice() {
+      return lattice === undefined ? (lattice = estimateLattice(formula, atoms, charges, settings)) : lattice;
+    },
   };
 }

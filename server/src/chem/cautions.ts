@@ -27,8 +27,16 @@ const TOXIC_METALS: Record<string, string> = {
   Co: 'cobalt compound: sensitiser, suspected carcinogen', Os: 'osmium compound: OsO4 is volatile and very toxic',
 };
 
-/** Cautions for one substance, from its analysis. */
+const memo = new WeakMap<FormulaAnalysis, Caution[]>();
+
+/** Cautions for one substance, from its analysis (memoised per analysis; treat as read-only). */
 export function cautionsFor(a: FormulaAnalysis): Caution[] {
+  let hit = memo.get(a);
+  if (!hit) memo.set(a, (hit = compute(a)));
+  return hit;
+}
+
+function compute(a: FormulaAnalysis): Caution[] {
   if (!a.ok || !a.formula) return [];
   const out: Caution[] = [];
   const ascii = a.formula.parts.length === 1 ? a.ascii.replace(/\^.*$/, '').replace(/\(.*\)$/, '') : '';

@@ -78,7 +78,8 @@ const HTML_TAG = /<\/?[A-Za-z][A-Za-z0-9-]{0,40}(?:\s+[A-Za-z_:][A-Za-z0-9_.:-]{
 /** [start, end) of raw HTML tags and autolinks, in order (bounded patterns: no backtracking blow-up). */
 function opaqueRanges(text: string, start: number, end: number): Array<[number, number]> {
   const out: Array<[number, number]> = [];
-  for (let i = text.indexOf('<', start); i >= 0 && i < end; i = text.indexOf('<', i + 1)) {
+  for (let i = start; i < end; i++) {
+    if (text.charCodeAt(i) !== 60) continue;
     for (const re of [AUTOLINK, HTML_TAG]) {
       re.lastIndex = i;
       const m = re.exec(text);

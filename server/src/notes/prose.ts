@@ -69,12 +69,24 @@ function countSymbols(items: readonly FormulaItem[]): { tokens: number; elements
   return { tokens, elements };
 }
 
-/** Is this word (already trimmed) a formula a chemist would recognise? */
+const verdicts: Record<ProseMode, Map<string, boolean>> = { off: new Map(), conservative: new Map(), eager: new Map() };
+
+/** Is this word (already trimmed) a formula a chemist would recognise? Memoised per word. */
 export function isProseFormula(word: string, mode: ProseMode): boolean {
   if (mode === 'off' || word.length < 2 || word.length > 80) return false;
   const c0 = word.charCodeAt(0);
-  const startsOk = (c0 >= 65 && c0 <= 90) || word[0] === '(' || word[0] === '[';
-  if (!startsOk || !FORMULA_CHARS.test(word) || STOPLIST.has(word) || ROMAN_GROUP.test(word)) return false;
+  if (!((c0 >= 65 && c0 <= 90) || c0 === 40 || c0 === 91)) return false;
+  const memo = verdicts[mode];
+  const hit = memo.get(word);
+  if (hit !== undefined) return hit;
+  const v = judge(word, mode);
+  if (memo.size > 100_000) memo.clear();
+  memo.set(word, v);
+  return v;
+}
+
+function judge(word: string, mode: ProseMode): boolean {
+  if (!FORMULA_CHARS.test(word) || STOPLIST.has(word) || ROMAN_GROUP.test(word)) return false;
   const hasLower = /[a-z]/.test(word);
   const hasDigit = /[0-9₀-₉]/.test(word);
   const hasCharge = /[\^⁺⁻]|[+\-−]$/.test(word);
@@ -101,8 +113,15 @@ export function scanProse(text: string, start: number, end: number, mode: ProseM
   while (i < end) {
     while (i < end && isSpace(text[i])) i++;
     const ws = i;
-    while (i < end && !isSpace(text[i])) i++;
+    let upper = false;
+    while (i < end && !isSpace(text[i])) {
+      const c = text.charCodeAt(i);
+      if (c >= 65 && c <= 90) upper = true;
+      i++;
+    }
     if (i === ws) break;
+    // Every formula has a capital letter: most words are skipped here.
+    if (!upper) continue;
     // Split on '/', '–' and on a hyphen that joins a word ("NaOH-treated"), not on a charge ("Cl-").
     let a = ws;
     for (let k = ws; k <= i; k++) {
@@ -117,4 +136,9 @@ export function scanProse(text: string, start: number, end: number, mode: ProseM
       a = k + 1;
     }
   }
+}
+
+/** Forget the memoised verdicts (for benchmarks that measure a cold start). */
+export function clearProseCache() {
+  for (const m of Object.values(verdicts)) m.clear();
 }

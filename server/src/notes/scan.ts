@@ -162,30 +162,59 @@ export interface MdBlock {
   fence?: Fence;
 }
 
+/** The line that starts at `pos` (\n, \r\n and \r end a line). */
+export function readLine(text: string, pos: number): Line {
+  for (let i = pos; i < text.length; i++) {
+    const c = text.charCodeAt(i);
+    if (c === 10) return { start: pos, end: i, next: i + 1 };
+    if (c === 13) return { start: pos, end: i, next: text.charCodeAt(i + 1) === 10 ? i + 2 : i + 1 };
+  }
+  return { start: pos, end: text.length, next: text.length };
+}
+
 /** Split a Markdown document into blocks. */
 export function markdownBlocks(text: string): MdBlock[] {
-  const lines = splitLines(text);
+  return markdownBlocksFrom(text, 0).blocks;
+}
+
+/**
+ * Split into blocks from `from` (a line start after a blank line, or 0). `stopAt(pos)` is asked at every
+ * line start where the state is clean (no open paragraph, the previous line blank); when it says yes,
+ * splitting stops there and `stoppedAt` says where.
+ */
+export function markdownBlocksFrom(text: string, from: number, stopAt?: (pos: number) => boolean): { blocks: MdBlock[]; stoppedAt: number | null } {
   const blocks: MdBlock[] = [];
-  let para: { start: number; end: number; lines: number } | undefined;
+  let para: { start: number; end: number } | undefined;
   const endPara = () => {
     if (para) blocks.push({ kind: 'paragraph', start: para.start, end: para.end });
     para = undefined;
   };
-  for (let n = 0; n < lines.length; n++) {
-    const l = lines[n];
-    if (isBlankLine(text, l)) {
+  let pos = from;
+  let prevBlank = true;
+  while (pos < text.length) {
+    if (stopAt && !para && prevBlank && pos > from && stopAt(pos)) return { blocks, stoppedAt: pos };
+    const l = readLine(text, pos);
+    const blank = isBlankLine(text, l);
+    if (blank) {
       endPara();
+      prevBlank = true;
+      pos = l.next;
       continue;
     }
+    prevBlank = false;
     const { cols, at } = indentOf(text, l);
     if (cols >= 4 && !para) {
       // Indented code block: runs over following indented or blank lines.
       let last = l;
-      while (n + 1 < lines.length && (isBlankLine(text, lines[n + 1]) || indentOf(text, lines[n + 1]).cols >= 4)) {
-        n++;
-        if (!isBlankLine(text, lines[n])) last = lines[n];
+      let p = l.next;
+      while (p < text.length) {
+        const nl = readLine(text, p);
+        if (!isBlankLine(text, nl) && indentOf(text, nl).cols < 4) break;
+        if (!isBlankLine(text, nl)) last = nl;
+        p = nl.next;
       }
       blocks.push({ kind: 'code', start: l.start, end: last.end });
+      pos = last.next;
       continue;
     }
     if (cols <= 3) {
@@ -195,23 +224,28 @@ export function markdownBlocks(text: string): MdBlock[] {
         const fence: Fence = { ...f, open: l, lines: [] };
         let end = l.end;
         let closed = false;
-        while (n + 1 < lines.length) {
-          n++;
-          if (isFenceClose(text, lines[n], fence)) {
-            end = lines[n].end;
+        let p = l.next;
+        let next = l.next;
+        while (p < text.length) {
+          const nl = readLine(text, p);
+          next = nl.next;
+          end = nl.end;
+          if (isFenceClose(text, nl, fence)) {
             closed = true;
             break;
           }
-          fence.lines.push(lines[n]);
-          end = lines[n].end;
+          fence.lines.push(nl);
+          p = nl.next;
         }
         blocks.push({ kind: 'fence', start: l.start, end, fence: Object.assign(fence, { closed }) });
+        pos = next;
         continue;
       }
       const h = atxHeading(text, l, at);
       if (h) {
         endPara();
         blocks.push({ kind: 'heading', start: l.start, end: l.end, ...h });
+        pos = l.next;
         continue;
       }
       if (para) {
@@ -219,28 +253,27 @@ export function markdownBlocks(text: string): MdBlock[] {
         if (lvl) {
           blocks.push({ kind: 'heading', start: para.start, end: l.end, level: lvl, titleStart: indentOf(text, { start: para.start, end: para.end, next: para.end }).at, titleEnd: para.end });
           para = undefined;
+          pos = l.next;
           continue;
         }
       }
       if (text.startsWith('<!--', at)) {
         endPara();
         const close = text.indexOf('-->', at + 4);
-        let k = n;
-        if (close < 0) k = lines.length - 1;
-        else while (k + 1 < lines.length && lines[k].end < close) k++;
-        n = k;
-        blocks.push({ kind: 'html', start: l.start, end: lines[k].end });
+        let last = l;
+        while (last.next < text.length && (close < 0 || last.end < close)) last = readLine(text, last.next);
+        blocks.push({ kind: 'html', start: l.start, end: last.end });
+        pos = last.next;
         continue;
       }
       if (para && startsContainer(text, at, l.end)) endPara();
     }
-    if (para) {
-      para.end = l.end;
-      para.lines++;
-    } else para = { start: l.start, end: l.end, lines: 1 };
+    if (para) para.end = l.end;
+    else para = { start: l.start, end: l.end };
+    pos = l.next;
   }
   endPara();
-  return blocks;
+  return { blocks, stoppedAt: null };
 }
 
 /** Scan one Markdown block; items have absolute offsets. */

@@ -17,7 +17,7 @@ import { TextDocument } from 'vscode-languageserver-textdocument';
 import type { NotesLanguage } from '../notes/types';
 import { codeActions, sectionTableEdit, tableEditAt, tableEditForSelection, type TextEdit } from '../service/actions';
 import { documentDiagnostics } from '../service/diagnostics';
-import { analyseDocument, type AnalysedDocument } from '../service/document';
+import { analyseDocument, updateDocument, type AnalysedDocument, type ChangeHint } from '../service/document';
 import { formulaCardMarkdown, hover } from '../service/hover';
 import { targetAt } from '../service/lookup';
 import type { Position, Range } from '../service/positions';
@@ -47,7 +47,24 @@ export interface ServerOptions {
 }
 
 export function startServer(connection: Connection, options: ServerOptions = {}) {
-  const documents = new TextDocuments(TextDocument);
+  // The edited range of each change is recorded, so that re-analysis only redoes the blocks around it.
+  const hints = new Map<string, ChangeHint | null>();
+  const documents = new TextDocuments<TextDocument>({
+    create: TextDocument.create,
+    update: (doc, changes, version) => {
+      const prevHint = hints.get(doc.uri);
+      let hint: ChangeHint | null = null;
+      if (changes.length === 1 && 'range' in changes[0] && prevHint === undefined) {
+        const c = changes[0];
+        const start = doc.offsetAt(c.range.start);
+        const oldEnd = doc.offsetAt(c.range.end);
+        hint = { start, oldEnd, newEnd: start + c.text.length };
+      }
+      // Several changes between two analyses: let the analysis find the region itself.
+      hints.set(doc.uri, prevHint === undefined ? hint : null);
+      return TextDocument.update(doc, changes, version);
+    },
+  });
   const cache = new Map<string, { version: number; settings: ServerSettings; doc: AnalysedDocument }>();
   const settingsByUri = new Map<string, Promise<ServerSettings>>();
   let canReadConfiguration = false;
@@ -90,7 +107,12 @@ export function startServer(connection: Connection, options: ServerOptions = {})
     const settings = currentSettings.get(uri) ?? defaults;
     const hit = cache.get(uri);
     if (hit && hit.version === td.version && hit.settings === settings) return hit.doc;
-    const doc = analyseDocument(td.getText(), lang, settings.service);
+    const hint = hints.get(uri);
+    hints.delete(uri);
+    const doc =
+      hit && hit.settings === settings && hit.doc.language === lang
+        ? updateDocument(hit.doc, td.getText(), hint ?? undefined)
+        : analyseDocument(td.getText(), lang, settings.service);
     cache.set(uri, { version: td.version, settings, doc });
     return doc;
   };
@@ -154,6 +176,7 @@ export function startServer(connection: Connection, options: ServerOptions = {})
       validator.cancel(e.document.uri);
       justOpened.delete(e.document.uri);
       cache.delete(e.document.uri);
+      hints.delete(e.document.uri);
       settingsByUri.delete(e.document.uri);
       currentSettings.delete(e.document.uri);
       void connection.sendDiagnostics({ uri: e.document.uri, diagnostics: [] });

@@ -1,6 +1,6 @@
 /** What is at an offset of an analysed document. */
 import type { Ingredient } from '../chem/batch';
-import type { AnalysedDocument, BatchOccurrence, FormulaOccurrence, ReactionOccurrence } from './document';
+import { shiftBatch, shiftFormula, shiftReaction, type AnalysedDocument, type BatchOccurrence, type FormulaOccurrence, type ReactionOccurrence } from './document';
 
 export type Target =
   | { kind: 'formula'; occ: FormulaOccurrence; start: number; end: number }
@@ -23,25 +23,27 @@ function lastStartingBefore<T>(list: readonly T[], offset: number, start: (x: T)
   return ans;
 }
 
-/** The item under the cursor (an offset inside it or right at its end). */
+/** The item under the cursor (an offset inside it or right at its end); only that block's items are read. */
 export function targetAt(doc: AnalysedDocument, offset: number): Target | undefined {
-  const b = lastStartingBefore(doc.batches, offset, (x) => x.ref.start);
-  if (b >= 0) {
-    const occ = doc.batches[b];
-    if (offset <= occ.ref.end) {
-      const ing = occ.analysis.ingredients.find((i) => offset >= i.lineStart && offset <= i.lineEnd);
-      if (ing) return { kind: 'batch-line', occ, ingredient: ing, start: ing.lineStart, end: ing.lineEnd };
-      return { kind: 'batch-header', occ, start: occ.ref.open.start, end: occ.ref.open.end };
-    }
+  const block = doc.blockAt(offset);
+  if (!block) return undefined;
+  const rel = block.rel;
+  const o = offset - block.start;
+  const b = lastStartingBefore(rel.batches, o, (x) => x.ref.start);
+  if (b >= 0 && o <= rel.batches[b].ref.end) {
+    const occ = shiftBatch(rel.batches[b], block.start);
+    const ing = occ.analysis.ingredients.find((i) => offset >= i.lineStart && offset <= i.lineEnd);
+    if (ing) return { kind: 'batch-line', occ, ingredient: ing, start: ing.lineStart, end: ing.lineEnd };
+    return { kind: 'batch-header', occ, start: occ.ref.open.start, end: occ.ref.open.end };
   }
-  const f = lastStartingBefore(doc.formulas, offset, (x) => x.ref.start);
-  if (f >= 0 && offset <= doc.formulas[f].ref.end) {
-    const occ = doc.formulas[f];
+  const f = lastStartingBefore(rel.formulas, o, (x) => x.ref.start);
+  if (f >= 0 && o <= rel.formulas[f].ref.end) {
+    const occ = shiftFormula(rel.formulas[f], block.start);
     return { kind: 'formula', occ, start: occ.ref.start, end: occ.ref.end };
   }
-  const r = lastStartingBefore(doc.reactions, offset, (x) => x.ref.start);
-  if (r >= 0 && offset <= doc.reactions[r].ref.end) {
-    const occ = doc.reactions[r];
+  const r = lastStartingBefore(rel.reactions, o, (x) => x.ref.start);
+  if (r >= 0 && o <= rel.reactions[r].ref.end) {
+    const occ = shiftReaction(rel.reactions[r], block.start);
     return { kind: 'reaction', occ, start: occ.ref.start, end: occ.ref.end };
   }
   return undefined;

@@ -10,17 +10,72 @@ export interface Range {
 
 export class LineIndex {
   /** Offsets at which each line starts. */
-  readonly starts: number[];
-  constructor(readonly text: string) {
-    const starts = [0];
+  readonly starts: Uint32Array;
+  readonly text: string;
+
+  constructor(text: string, starts?: Uint32Array) {
+    this.text = text;
+    if (starts) {
+      this.starts = starts;
+      return;
+    }
+    let buf = new Uint32Array(1024);
+    let n = 1;
+    const push = (x: number) => {
+      if (n === buf.length) {
+        const b = new Uint32Array(buf.length * 2);
+        b.set(buf);
+        buf = b;
+      }
+      buf[n++] = x;
+    };
     for (let i = 0; i < text.length; i++) {
       const c = text.charCodeAt(i);
       if (c === 13) {
         if (text.charCodeAt(i + 1) === 10) i++;
-        starts.push(i + 1);
-      } else if (c === 10) starts.push(i + 1);
+        push(i + 1);
+      } else if (c === 10) push(i + 1);
     }
-    this.starts = starts;
+    this.starts = buf.slice(0, n);
+  }
+
+  /**
+   * The index of a new version of the text in which [start, oldEnd) of this text became [start, newEnd):
+   * line starts before the edit are kept, those after it moved, and only the edited stretch is scanned.
+   */
+  update(text: string, start: number, oldEnd: number, newEnd: number): LineIndex {
+    const delta = newEnd - oldEnd;
+    const old = this.starts;
+    // Keep starts up to just before the edit (a \r\n may straddle its start), scan from there, move the rest.
+    const scanFrom = Math.max(0, start - 1);
+    let k = 0;
+    let lo = 0;
+    let hi = old.length - 1;
+    while (lo <= hi) {
+      const mid = (lo + hi) >> 1;
+      if (old[mid] <= scanFrom) {
+        k = mid + 1;
+        lo = mid + 1;
+      } else hi = mid - 1;
+    }
+    const middle: number[] = [];
+    let last = old[k - 1];
+    const scanTo = Math.min(text.length, newEnd + 1);
+    for (let i = scanFrom; i < scanTo; i++) {
+      const c = text.charCodeAt(i);
+      if (c === 13) {
+        if (text.charCodeAt(i + 1) === 10) i++;
+        if (i + 1 > last) middle.push((last = i + 1));
+      } else if (c === 10 && i + 1 > last) middle.push((last = i + 1));
+    }
+    let m = k;
+    while (m < old.length && (old[m] < oldEnd + 1 || old[m] + delta <= last)) m++;
+    const out = new Uint32Array(k + middle.length + (old.length - m));
+    out.set(old.subarray(0, k), 0);
+    for (let j = 0; j < middle.length; j++) out[k + j] = middle[j];
+    let o = k + middle.length;
+    for (let j = m; j < old.length; j++) out[o++] = old[j] + delta;
+    return new LineIndex(text, out);
   }
 
   get lineCount(): number {

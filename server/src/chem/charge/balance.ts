@@ -270,14 +270,18 @@ function assessPart(formula: Formula, part: FormulaPart, target: number): PartRe
   const atoms = partAtoms(part);
   const els = Object.keys(atoms);
   const span = { start: part.start + part.multiplierText.length, end: part.end };
-  const base = { weights: atoms, suggestions: [] as string[], ions: null, mixed: [] as string[], unusual: [] as string[] };
-  if (els.length === 0) return { ...base, balanced: true, states: null, basis: 'none', message: '' };
+  // One object shape for every result (object spreads here were the hot spot of cold analyses).
+  const mk = (r: Pick<PartResult, 'balanced' | 'states' | 'basis' | 'message'> & Partial<PartResult>): PartResult => ({
+    balanced: r.balanced, states: r.states, weights: atoms, basis: r.basis, message: r.message, suggestions: r.suggestions ?? [],
+    ions: r.ions ?? null, mixed: r.mixed ?? [], unusual: r.unusual ?? [], span: r.span, wholeSuggestions: r.wholeSuggestions ?? false,
+  });
+  if (els.length === 0) return mk({ balanced: true, states: null, basis: 'none', message: '' });
   if (els.length === 1 && target === 0) {
-    return { ...base, balanced: true, states: { [els[0]]: 0 }, basis: 'element', message: `${element(els[0])?.name ?? els[0]} as the element: oxidation state 0.` };
+    return mk({ balanced: true, states: { [els[0]]: 0 }, basis: 'element', message: `${element(els[0])?.name ?? els[0]} as the element: oxidation state 0.` });
   }
   const metals = els.filter(isMetal);
   if (target === 0 && metals.length === els.length) {
-    return { ...base, balanced: true, states: Object.fromEntries(els.map((e) => [e, 0])), basis: 'alloy', message: 'Intermetallic or alloy: oxidation states 0.' };
+    return mk({ balanced: true, states: Object.fromEntries(els.map((e) => [e, 0])), basis: 'alloy', message: 'Intermetallic or alloy: oxidation states 0.' });
   }
   const organic = atoms.C !== undefined && atoms.H !== undefined && metals.length === 0;
   const continuous = hasFraction(part.items) || !Number.isInteger(part.multiplier);
@@ -306,35 +310,33 @@ function assessPart(formula: Formula, part: FormulaPart, target: number): PartRe
       if (mixed.length) message += continuous ? ' (non-stoichiometric: an average oxidation state)' : ' (mixed valence)';
       message += '.';
       if (unusual.length) message += ` Only with ${unusual.join(', ')}, an unusual oxidation state.`;
-      return { ...base, balanced: true, states: st?.states ?? null, basis: 'ionic', message, ions, mixed, unusual };
+      return mk({ balanced: true, states: st?.states ?? null, basis: 'ionic', message, ions, mixed, unusual });
     }
     if (!decisiveSegs) break;
   }
   if (decisiveSegs) {
     const ion = target !== 0 && decisiveSegs.length === 1;
     const suggestions = ion ? ionChargeSuggestions(formula, decisiveSegs[0]) : partSuggestions(decisiveSegs, target);
-    return {
-      ...base, balanced: false, states: null, basis: 'ionic', wholeSuggestions: ion, message: imbalanceWords(decisiveSegs, target), suggestions,
+    return mk({ balanced: false, states: null, basis: 'ionic', wholeSuggestions: ion, message: imbalanceWords(decisiveSegs, target), suggestions,
       span: target !== 0 && formula.chargeSpan ? { start: Math.min(span.start, formula.chargeSpan.start), end: formula.chargeSpan.end } : span,
-    };
+    });
   }
   if (anySolution) {
     const st = statesOf(anySolution.sol);
-    if (st) return { ...base, balanced: true, states: st.states, basis: metals.length ? 'states' : 'molecular', message: metals.length ? 'Balanced by oxidation states.' : 'Molecular substance: oxidation states by the usual rules.' };
+    if (st) return mk({ balanced: true, states: st.states, basis: metals.length ? 'states' : 'molecular', message: metals.length ? 'Balanced by oxidation states.' : 'Molecular substance: oxidation states by the usual rules.' });
   }
   const assigned = assignStates(atoms, target);
   if (assigned) {
     const avg = assigned.averaged.length ? ` (${assigned.averaged.join(', ')} as an average)` : '';
-    if (metals.length === 0) return { ...base, balanced: true, states: assigned.states, basis: 'molecular', message: `Molecular substance: oxidation states by the usual rules${avg}.` };
-    return { ...base, balanced: true, states: assigned.states, basis: 'states', message: `Balanced by oxidation states${avg}.`, unusual: assigned.unusual };
+    if (metals.length === 0) return mk({ balanced: true, states: assigned.states, basis: 'molecular', message: `Molecular substance: oxidation states by the usual rules${avg}.` });
+    return mk({ balanced: true, states: assigned.states, basis: 'states', message: `Balanced by oxidation states${avg}.`, unusual: assigned.unusual });
   }
   if (metals.length === 0 || organic) {
-    return { ...base, balanced: true, states: null, basis: 'molecular', message: 'Molecular substance: no oxidation states assigned; charge balance does not apply.' };
+    return mk({ balanced: true, states: null, basis: 'molecular', message: 'Molecular substance: no oxidation states assigned; charge balance does not apply.' });
   }
-  return {
-    ...base, balanced: false, states: null, basis: 'states', span,
+  return mk({ balanced: false, states: null, basis: 'states', span,
     message: `No usual oxidation states of ${els.join(', ')} sum to ${signed(target)}.`,
-  };
+  });
 }
 
 /** Charge balance, oxidation states and the ionic reading of a parsed formula. */

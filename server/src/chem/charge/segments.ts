@@ -5,7 +5,7 @@
 import { element, isMetal } from '../data/elements';
 import type { IonDef } from '../data/ions';
 import type { FormulaItem, GroupNode } from '../formula/ast';
-import { ligandCharge, matchIon, MAX_ION_ITEMS } from '../ions/match';
+import { itemsKey, ligandCharge, matchIon, matchKey, MAX_ION_ITEMS } from '../ions/match';
 
 export type SegmentKind = 'metal' | 'proton' | 'monatomic-anion' | 'polyatomic' | 'complex' | 'neutral-ligand';
 
@@ -137,7 +137,16 @@ function groupSegments(formula: string, g: GroupNode, fallback: boolean): Segmen
   return out;
 }
 
+const SINGLE = new Map<string, Array<Pick<Segment, 'kind' | 'role' | 'unitOptions'>>>();
+/** The ways one element can stand as an ion (memoised; treat the result as read-only). */
 function singleElement(el: string, fallback: boolean): Array<Pick<Segment, 'kind' | 'role' | 'unitOptions'>> {
+  const k = fallback ? el + '*' : el;
+  let hit = SINGLE.get(k);
+  if (!hit) SINGLE.set(k, (hit = singleElementUncached(el, fallback)));
+  return hit;
+}
+
+function singleElementUncached(el: string, fallback: boolean): Array<Pick<Segment, 'kind' | 'role' | 'unitOptions'>> {
   const out: Array<Pick<Segment, 'kind' | 'role' | 'unitOptions'>> = [];
   if (isMetal(el)) out.push({ kind: 'metal', role: 'cation', unitOptions: metalCharges(el, fallback) });
   if (el === 'H') out.push({ kind: 'proton', role: 'cation', unitOptions: [{ charge: 1, cost: 0 }] });
@@ -154,7 +163,11 @@ export function segmentations(formula: string, items: readonly FormulaItem[], fa
   const results: Segment[][] = [];
   const acc: Segment[] = [];
   const n = items.length;
-  const choicesAt = (i: number): Array<{ seg: Segment; next: number }> => {
+  // Per-item keys for run matching (undefined for brackets, which end a run).
+  const itemKeys = items.map((it) => (it.kind === 'group' ? undefined : itemsKey([it])));
+  const memo: Array<Array<{ seg: Segment; next: number }> | undefined> = new Array(n);
+  const choicesAt = (i: number) => (memo[i] ??= choicesFrom(i));
+  const choicesFrom = (i: number): Array<{ seg: Segment; next: number }> => {
     const it = items[i];
     const out: Array<{ seg: Segment; next: number }> = [];
     if (it.kind === 'group') {
@@ -169,13 +182,23 @@ export function segmentations(formula: string, items: readonly FormulaItem[], fa
       }
       return out;
     }
-    // Runs of items that spell a polyatomic ion (longest first), then the single element.
-    for (let len = Math.min(MAX_ION_ITEMS, n - i); len >= 1; len--) {
-      const run = items.slice(i, i + len);
-      if (run.some((x) => x.kind === 'group')) continue;
-      for (const m of matchIon(run)) {
+    // Runs of items that spell a polyatomic ion (longest first), then the single element. The run's key
+    // is built item by item, and only runs of elements and shorthand are looked up.
+    const runs: Array<{ len: number; key: string }> = [];
+    let key = '';
+    for (let len = 1; len <= Math.min(MAX_ION_ITEMS, n - i); len++) {
+      const k = itemKeys[i + len - 1];
+      if (k === undefined) break;
+      key += k;
+      runs.push({ len, key });
+    }
+    for (let r = runs.length - 1; r >= 0; r--) {
+      const { len, key: runKey } = runs[r];
+      const first = items[i];
+      const last = items[i + len - 1];
+      for (const m of matchKey(runKey)) {
         out.push({
-          seg: { kind: 'polyatomic', role: m.role, ion: m.ion, ionText: formula.slice(run[0].start, run[len - 1].end), bracket: '', multiplicity: 1, start: run[0].start, end: run[len - 1].end, unitOptions: m.ion.charges.map((charge, k) => ({ charge, cost: k ? 1 : 0 })) },
+          seg: { kind: 'polyatomic', role: m.role, ion: m.ion, ionText: formula.slice(first.start, last.end), bracket: '', multiplicity: 1, start: first.start, end: last.end, unitOptions: m.ion.charges.map((charge, k) => ({ charge, cost: k ? 1 : 0 })) },
           next: i + len,
         });
       }
@@ -184,7 +207,7 @@ export function segmentations(formula: string, items: readonly FormulaItem[], fa
     for (const s of singleElement(it.symbol, fallback)) {
       const opts = it.stock !== undefined ? s.unitOptions.filter((o) => o.charge === it.stock).concat(s.unitOptions.some((o) => o.charge === it.stock) || s.kind !== 'metal' ? [] : [{ charge: it.stock, cost: 0 }]) : s.unitOptions;
       if (opts.length === 0) continue;
-      out.push({ seg: { ...s, unitOptions: opts, element: it.symbol, ionText: formula.slice(it.start, symEnd), bracket: '', multiplicity: it.count, start: it.start, end: it.end }, next: i + 1 });
+      out.push({ seg: { kind: s.kind, role: s.role, unitOptions: opts, element: it.symbol, ionText: formula.slice(it.start, symEnd), bracket: '', multiplicity: it.count, start: it.start, end: it.end }, next: i + 1 });
     }
     return out;
   };

@@ -63,6 +63,12 @@ export function matchIon(items: readonly FormulaItem[]): IonMatch[] {
   return k === undefined ? [] : TABLE.get(k) ?? [];
 }
 
+const NONE: IonMatch[] = [];
+/** Ions whose written form has this key (see itemsKey). */
+export function matchKey(key: string): IonMatch[] {
+  return TABLE.get(key) ?? NONE;
+}
+
 /** Charge of a ligand written as these items (`NH3`, `CN`, `(en)`), or undefined. */
 export function ligandCharge(items: readonly FormulaItem[]): number | undefined {
   const k = itemsKey(items);

@@ -1,0 +1,248 @@
+/**
+ * Benchmarks. Every figure is a ratio against a baseline measured in the same run on the same machine,
+ * since absolute times on shared machines are noise. Writes bench/results.json and prints a table.
+ *
+ *   npm run bench              all cases
+ *   npm run bench -- --quick   smaller sizes, fewer repetitions
+ */
+import { spawn, spawnSync } from 'node:child_process';
+import { mkdirSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { cpus, tmpdir, totalmem } from 'node:os';
+import { join } from 'node:path';
+import MarkdownIt from 'markdown-it';
+import { MF } from 'mf-parser';
+import { clearFormulaCache } from '../server/src/chem/analyse';
+import { clearReactionCache } from '../server/src/chem/equation';
+import { formulaAtoms, molarMass } from '../server/src/chem/formula/compute';
+import { parseFormula } from '../server/src/chem/formula/parse';
+import { clearProseCache } from '../server/src/notes/prose';
+import { documentDiagnostics } from '../server/src/service/diagnostics';
+import { analyseDocument, updateDocument } from '../server/src/service/document';
+import { DEFAULT_SETTINGS, type ServiceSettings } from '../server/src/service/settings';
+import { generateNotes, rng } from './generate';
+import { REAL, MISWRITTEN } from '../test/fixtures/charge-sets';
+
+const quick = process.argv.includes('--quick');
+const md = new MarkdownIt('commonmark');
+
+const now = () => Number(process.hrtime.bigint()) / 1e6;
+function median(xs: number[]) {
+  const s = [...xs].sort((a, b) => a - b);
+  return s.length % 2 ? s[(s.length - 1) / 2] : (s[s.length / 2 - 1] + s[s.length / 2]) / 2;
+}
+function pct(xs: number[], p: number) {
+  const s = [...xs].sort((a, b) => a - b);
+  return s[Math.min(s.length - 1, Math.floor((p / 100) * s.length))];
+}
+function timeIt(fn: () => void, reps: number, warmup = 1): number {
+  for (let i = 0; i < warmup; i++) fn();
+  const t: number[] = [];
+  for (let i = 0; i < reps; i++) {
+    (globalThis as { gc?: () => void }).gc?.();
+    const t0 = now();
+    fn();
+    t.push(now() - t0);
+  }
+  return median(t);
+}
+/** A fresh settings object: the per-settings caches start cold. */
+function coldSettings(): ServiceSettings {
+  clearFormulaCache();
+  clearReactionCache();
+  clearProseCache();
+  return { ...DEFAULT_SETTINGS, chem: { ...DEFAULT_SETTINGS.chem } };
+}
+
+interface Row {
+  case: string;
+  ours: string;
+  baseline: string;
+  ratio: number;
+  target: string;
+  met: boolean;
+}
+const rows: Row[] = [];
+const figures: Record<string, unknown> = {};
+const ms = (x: number) => `${x.toFixed(x < 10 ? 2 : 1)} ms`;
+
+// ── 1. whole-file analysis vs markdown-it ────────────────────────────────
+for (const size of quick ? [100_000, 1_000_000] : [100_000, 1_000_000, 10_000_000]) {
+  const text = generateNotes(size);
+  const reps = size >= 10_000_000 ? 3 : 7;
+  const base = timeIt(() => md.parse(text, {}), reps);
+  const ours = timeIt(() => documentDiagnostics(analyseDocument(text, 'markdown', coldSettings())), reps);
+  const warm = timeIt(() => documentDiagnostics(analyseDocument(text, 'markdown')), reps);
+  const label = size >= 1e6 ? `${size / 1e6} MB` : `${size / 1e3} KB`;
+  rows.push({ case: `check, ${label} (cold caches)`, ours: ms(ours), baseline: `markdown-it parse ${ms(base)}`, ratio: ours / base, target: '≤ 1.0×', met: ours / base <= 1 });
+  figures[`check_${label}`] = { oursMs: ours, warmMs: warm, markdownItMs: base, ratio: ours / base };
+  if (size === 1_000_000) figures.full1MBms = ours;
+}
+
+// ── 2. formula parse + molar mass vs mf-parser ───────────────────────────
+{
+  const pool = [...Object.values(REAL).flat(), ...MISWRITTEN];
+  const r = rng(11);
+  for (let i = 0; i < 300; i++) pool.push(`C${1 + Math.floor(r() * 30)}H${1 + Math.floor(r() * 60)}O${1 + Math.floor(r() * 10)}N${1 + Math.floor(r() * 4)}`);
+  const readable = pool.filter((f) => {
+    try {
+      const info = new MF(f).getInfo();
+      return Number.isFinite(info.mass) && info.mass > 0;
+    } catch {
+      return false;
+    }
+  });
+  const rounds = quick ? 20 : 60;
+  const ours = timeIt(() => {
+    for (let k = 0; k < rounds; k++) for (const f of readable) {
+      const p = parseFormula(f);
+      if (p.formula) molarMass(formulaAtoms(p.formula));
+    }
+  }, 5);
+  const theirs = timeIt(() => {
+    for (let k = 0; k < rounds; k++) for (const f of readable) new MF(f).getInfo();
+  }, 5);
+  const per = (x: number) => `${((x * 1000) / (rounds * readable.length)).toFixed(2)} µs/formula`;
+  rows.push({ case: `formula parse + molar mass (${readable.length} formulas mf-parser reads)`, ours: per(ours), baseline: `mf-parser ${per(theirs)}`, ratio: theirs / ours, target: '≥ 3× faster', met: theirs / ours >= 3 });
+  figures.formulas = { count: readable.length, oursUsPerFormula: (ours * 1000) / (rounds * readable.length), mfParserUsPerFormula: (theirs * 1000) / (rounds * readable.length), speedup: theirs / ours };
+}
+
+// ── 3. incremental re-analysis after a one-character edit, 1 MB ──────────
+{
+  const text = generateNotes(1_000_000);
+  const doc = analyseDocument(text, 'markdown');
+  const r = rng(5);
+  const times: number[] = [];
+  const timesNoHint: number[] = [];
+  for (let k = 0; k < (quick ? 20 : 60); k++) {
+    const at = Math.floor(r() * text.length);
+    const next = text.slice(0, at) + 'x' + text.slice(at);
+    (globalThis as { gc?: () => void }).gc?.();
+    let t0 = now();
+    updateDocument(doc, next, { start: at, oldEnd: at, newEnd: at + 1 });
+    times.push(now() - t0);
+    t0 = now();
+    updateDocument(doc, next);
+    timesNoHint.push(now() - t0);
+  }
+  const full = figures.full1MBms as number;
+  const inc = median(times);
+  rows.push({ case: 'incremental re-analysis after a 1-char edit, 1 MB', ours: ms(inc), baseline: `full analysis ${ms(full)}`, ratio: inc / full, target: '< 2 %', met: inc / full < 0.02 });
+  figures.incremental = { medianMs: inc, p90Ms: pct(times, 90), withoutHintMedianMs: median(timesNoHint), fullMs: full, ratio: inc / full };
+}
+
+// ── 4. through the real server over stdio: first diagnostics, hover, edit ─
+async function serverCase() {
+  const { createProtocolConnection, StreamMessageReader, StreamMessageWriter } = await import('vscode-languageserver-protocol/node');
+  const proc = spawn(process.execPath, [join(__dirname, 'server.js'), '--stdio'], { stdio: ['pipe', 'pipe', 'inherit'] });
+  const conn = createProtocolConnection(new StreamMessageReader(proc.stdout!), new StreamMessageWriter(proc.stdin!));
+  const waiters: Array<{ version: number; resolve: (t: number) => void }> = [];
+  conn.onNotification('textDocument/publishDiagnostics', (p: { version?: number }) => {
+    const t = now();
+    for (const w of waiters.splice(0)) if (p.version === w.version) w.resolve(t);
+      else waiters.push(w);
+  });
+  conn.onRequest('workspace/configuration', (p: { items: unknown[] }) => p.items.map(() => ({ validation: { delayMs: 0 } })));
+  conn.listen();
+  await conn.sendRequest('initialize', { processId: process.pid, rootUri: null, capabilities: { workspace: { configuration: true } } });
+  await conn.sendNotification('initialized', {});
+  const text = generateNotes(1_000_000);
+  const uri = 'file:///bench/notebook.md';
+  const diag = (version: number) => new Promise<number>((resolve) => waiters.push({ version, resolve }));
+  const mdParse = timeIt(() => md.parse(text, {}), 5);
+  const t0 = now();
+  const first = diag(1);
+  await conn.sendNotification('textDocument/didOpen', { textDocument: { uri, languageId: 'markdown', version: 1, text } });
+  const firstMs = (await first) - t0;
+  // Hover positions: formulas in code spans, found by scanning the text.
+  const lines = text.split('\n');
+  const positions: Array<{ line: number; character: number }> = [];
+  const r = rng(9);
+  while (positions.length < (quick ? 200 : 1000)) {
+    const line = Math.floor(r() * lines.length);
+    const c = lines[line].indexOf('`');
+    if (c >= 0) positions.push({ line, character: c + 2 });
+  }
+  const nullHover: number[] = [];
+  for (let i = 0; i < 200; i++) {
+    const a = now();
+    await conn.sendRequest('textDocument/hover', { textDocument: { uri: 'file:///bench/none.md' }, position: { line: 0, character: 0 } });
+    nullHover.push(now() - a);
+  }
+  const hovers: number[] = [];
+  for (const position of positions) {
+    const a = now();
+    await conn.sendRequest('textDocument/hover', { textDocument: { uri }, position });
+    hovers.push(now() - a);
+  }
+  // One-character edits, each re-validated (delay 0 in the settings above).
+  const edits: number[] = [];
+  let version = 1;
+  for (let k = 0; k < (quick ? 10 : 30); k++) {
+    const line = Math.floor(r() * lines.length);
+    version++;
+    const done = diag(version);
+    const a = now();
+    await conn.sendNotification('textDocument/didChange', { textDocument: { uri, version }, contentChanges: [{ range: { start: { line, character: 0 }, end: { line, character: 0 } }, text: 'x' }] });
+    edits.push((await done) - a);
+  }
+  await conn.sendRequest('shutdown');
+  await conn.sendNotification('exit');
+  proc.kill();
+  const baseHover = median(nullHover);
+  rows.push({ case: 'first diagnostics after opening 1 MB, via the server', ours: ms(firstMs), baseline: `markdown-it parse ${ms(mdParse)}`, ratio: firstMs / mdParse, target: '< 300 ms', met: firstMs < 300 });
+  rows.push({ case: 'hover p50 over 1 MB, via the server', ours: ms(median(hovers)), baseline: `null request ${ms(baseHover)}`, ratio: median(hovers) / baseHover, target: '—', met: true });
+  rows.push({ case: 'hover p99 over 1 MB, via the server', ours: ms(pct(hovers, 99)), baseline: `null request ${ms(baseHover)}`, ratio: pct(hovers, 99) / baseHover, target: '< 2 ms', met: pct(hovers, 99) < 2 });
+  rows.push({ case: 'one-character edit re-validated, 1 MB, via the server', ours: ms(median(edits)), baseline: `markdown-it parse ${ms(mdParse)}`, ratio: median(edits) / mdParse, target: '< 20 ms', met: median(edits) < 20 });
+  figures.server = { firstDiagnosticsMs: firstMs, hoverP50Ms: median(hovers), hoverP99Ms: pct(hovers, 99), nullRequestMs: baseHover, editRevalidateMedianMs: median(edits), editRevalidateP90Ms: pct(edits, 90), markdownItParseMs: mdParse };
+}
+
+// ── 5. memory: peak RSS for a 10 MB workspace ────────────────────────────
+function memoryCase() {
+  const dir = join(tmpdir(), `ionwright-bench-${process.pid}`);
+  rmSync(dir, { recursive: true, force: true });
+  mkdirSync(dir, { recursive: true });
+  const files = quick ? 3 : 10;
+  for (let i = 0; i < files; i++) writeFileSync(join(dir, `notebook-${i}.md`), generateNotes(1_000_000, 100 + i));
+  const run = (mode: string) => {
+    const r = spawnSync(process.execPath, [__filename, '--child-memory', mode, dir], { encoding: 'utf8' });
+    return JSON.parse(r.stdout.trim().split('\n').pop() as string) as { maxRssMB: number };
+  };
+  const ours = run('ionwright');
+  const base = run('markdown-it');
+  rmSync(dir, { recursive: true, force: true });
+  rows.push({ case: `peak RSS, ${files} MB workspace (all files analysed and kept)`, ours: `${ours.maxRssMB.toFixed(0)} MB`, baseline: `markdown-it tokens kept ${base.maxRssMB.toFixed(0)} MB`, ratio: ours.maxRssMB / base.maxRssMB, target: '—', met: true });
+  figures.memory = { workspaceMB: files, oursMaxRssMB: ours.maxRssMB, markdownItMaxRssMB: base.maxRssMB };
+}
+
+function childMemory(mode: string, dir: string) {
+  const keep: unknown[] = [];
+  for (const f of readdirSync(dir)) {
+    const text = readFileSync(join(dir, f), 'utf8');
+    if (mode === 'ionwright') {
+      const doc = analyseDocument(text, 'markdown');
+      documentDiagnostics(doc);
+      keep.push(doc);
+    } else keep.push(md.parse(text, {}));
+  }
+  console.log(JSON.stringify({ maxRssMB: process.resourceUsage().maxRSS / 1024, kept: keep.length }));
+}
+
+async function main() {
+  if (process.argv[2] === '--child-memory') {
+    childMemory(process.argv[3], process.argv[4]);
+    return;
+  }
+  await serverCase();
+  memoryCase();
+  const machine = { cpus: cpus().length, cpu: cpus()[0]?.model, memoryGB: Math.round(totalmem() / 2 ** 30), node: process.version, platform: `${process.platform} ${process.arch}` };
+  const out = { date: new Date().toISOString(), quick, machine, rows, figures };
+  if (!quick) writeFileSync(join(__dirname, '..', 'bench', 'results.json'), JSON.stringify(out, null, 2) + '\n');
+  const w = [52, 14, 34, 9, 12];
+  const line = (cells: string[]) => cells.map((c, i) => c.padEnd(w[i])).join(' ');
+  console.log(`Machine: ${machine.cpus} × ${machine.cpu}, ${machine.memoryGB} GB, Node ${machine.node}\n`);
+  console.log(line(['case', 'ours', 'baseline (same run)', 'ratio', 'target']));
+  for (const r of rows) console.log(line([r.case, r.ours, r.baseline, r.ratio < 0.1 ? `${(r.ratio * 100).toFixed(2)} %` : `${r.ratio.toFixed(2)}×`, `${r.target}${r.met ? '' : '  MISSED'}`]));
+  if (!quick) console.log('\nFigures written to bench/results.json');
+}
+
+void main();
