@@ -83,9 +83,9 @@ describe('imbalance messages and suggestions', () => {
   it.each([
     ['CaNO3', 'Ca²⁺ with one NO₃⁻ leaves +1', 'Ca(NO3)2'],
     ['Al(OH)2', 'Al³⁺ with two OH⁻ leaves +1', 'Al(OH)3'],
-    ['NH4SO4', 'NH₄⁺ with one SO₄²⁻ leaves -1', '(NH4)2SO4'],
+    ['NH4SO4', 'NH₄⁺ with one SO₄²⁻ leaves −1', '(NH4)2SO4'],
     ['AlO', 'Al³⁺ with one O²⁻ leaves +1', 'Al2O3'],
-    ['Ca3(PO4)3', 'Three Ca²⁺ with three PO₄³⁻ leave -3', 'Ca3(PO4)2'],
+    ['Ca3(PO4)3', 'Three Ca²⁺ with three PO₄³⁻ leave −3', 'Ca3(PO4)2'],
     ['CaNO3·4H2O', 'Ca²⁺ with one NO₃⁻ leaves +1', 'Ca(NO3)2·4H2O'],
     ['SO4^3-', 'charge written is 3−', 'SO4^2-'],
     ['SO₄³⁻', 'charge written is 3−', 'SO₄²⁻'],

@@ -175,3 +175,28 @@ describe('LSP over stdio', () => {
     expect(stderr).not.toMatch(/TypeError|ReferenceError/);
   });
 });
+
+describe('a client that cannot be asked for settings', () => {
+  it('takes the settings pushed with didChangeConfiguration', async () => {
+    const p = spawn('node', [SERVER, '--stdio'], { stdio: ['pipe', 'pipe', 'pipe'] });
+    const c = createProtocolConnection(new StreamMessageReader(p.stdout!), new StreamMessageWriter(p.stdin!));
+    c.listen();
+    try {
+      await c.sendRequest(InitializeRequest.type, { processId: process.pid, rootUri: null, workspaceFolders: null, capabilities: {} });
+      await c.sendNotification(InitializedNotification.type, {});
+      await c.sendNotification(DidChangeConfigurationNotification.type, { settings: { ionwright: { energyUnit: 'kcal/mol', decimalPlaces: 3 } } });
+      const uri = 'file:///lab/push.md';
+      await c.sendNotification(DidOpenTextDocumentNotification.type, { textDocument: { uri, languageId: 'markdown', version: 1, text: 'Weighed `NaCl`.\n' } });
+      let value = '';
+      for (let i = 0; i < 200 && !value.includes('kcal/mol'); i++) {
+        const h = await c.sendRequest(HoverRequest.type, { textDocument: { uri }, position: { line: 0, character: 10 } });
+        value = (h?.contents as { value: string } | undefined)?.value ?? '';
+        if (!value.includes('kcal/mol')) await new Promise((r) => setTimeout(r, 10));
+      }
+      expect(value).toContain('kcal/mol');
+      expect(value).toContain('58.440 g/mol');
+    } finally {
+      p.kill();
+    }
+  });
+});

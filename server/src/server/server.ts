@@ -84,8 +84,10 @@ export function startServer(connection: Connection, options: ServerOptions = {})
       }
     };
 
+  /** Settings pushed with didChangeConfiguration, for clients that cannot be asked (workspace/configuration). */
+  let pushed: ServerSettings | undefined;
   const settingsFor = (uri: string): Promise<ServerSettings> => {
-    if (!canReadConfiguration) return Promise.resolve(defaults);
+    if (!canReadConfiguration) return Promise.resolve(pushed ?? defaults);
     let p = settingsByUri.get(uri);
     if (!p) {
       p = connection.workspace
@@ -182,7 +184,9 @@ export function startServer(connection: Connection, options: ServerOptions = {})
       void connection.sendDiagnostics({ uri: e.document.uri, diagnostics: [] });
     }),
   );
-  connection.onDidChangeConfiguration(() => {
+  connection.onDidChangeConfiguration((params) => {
+    const raw = (params?.settings as { ionwright?: unknown } | undefined)?.ionwright;
+    if (!canReadConfiguration && raw !== undefined) pushed = readSettings(raw);
     void safe('configuration', async () => {
       settingsByUri.clear();
       currentSettings = new Map();

@@ -100,9 +100,11 @@ export function energy(kJ: number, settings: ServiceSettings): string {
   return settings.energyUnit === 'kcal/mol' ? `${Math.round(kJ / KCAL)} kcal/mol` : `${Math.round(kJ)} kJ/mol`;
 }
 
-function signed(x: number): string {
-  const r = Number.isInteger(x) ? String(x) : x.toFixed(3).replace(/0+$/, '');
-  return x > 0 ? `+${r}` : r;
+/** A signed number for people: +1, −2, +2.667 (true minus sign). */
+export function signed(x: number): string {
+  const a = Math.abs(x);
+  const r = Number.isInteger(a) ? String(a) : a.toFixed(3).replace(/0+$/, '');
+  return x > 0 ? `+${r}` : x < 0 ? `−${r}` : '0';
 }
 
 export function oxidationText(states: Record<string, number>): string {

@@ -6,7 +6,7 @@ import type { BatchAnalysis, Ingredient } from '../chem/batch';
 import { CAUTION_FOOTNOTE, cautionsFor } from '../chem/cautions';
 import type { ReactionAnalysis } from '../chem/equation';
 import { subscriptDigits } from '../chem/formula/compute';
-import { energy, oxidationText } from './card';
+import { energy, oxidationText, signed } from './card';
 import type { AnalysedDocument } from './document';
 import { targetAt } from './lookup';
 import type { Range } from './positions';
@@ -19,7 +19,6 @@ export interface HoverResult {
 }
 
 const esc = (t: string) => t.replace(/([\\`*_[\]<>|])/g, '\\$1');
-const minus = (t: string) => t.replace(/(^|[\s(,])-(?=\d)/g, '$1−');
 
 function latticeLine(a: FormulaAnalysis, s: ServiceSettings): string | undefined {
   const L = a.lattice;
@@ -39,7 +38,7 @@ function latticeInputs(a: FormulaAnalysis, s: ServiceSettings): string[] {
   if (i.nu) bits.push(`ν ${i.nu}`);
   if (i.madelung) bits.push(`M ${i.madelung} (${i.structure})`);
   if (i.bornExponent) bits.push(`n ${i.bornExponent}`);
-  if (i.formationEnthalpy !== undefined) bits.push(`ΔfH° ${i.formationEnthalpy} kJ/mol, IE ${i.ionisationEnergies.join(' + ')}, EA ${i.electronAffinity}`);
+  if (i.formationEnthalpy !== undefined) bits.push(`ΔfH° ${String(i.formationEnthalpy).replace('-', '−')} kJ/mol, IE ${i.ionisationEnergies.join(' + ')}, EA ${i.electronAffinity}`);
   const out = [`Inputs: ${bits.join(' · ')}`];
   if (i.radiusSources) out.push(`Radii: ${i.radiusSources.cation}; ${i.radiusSources.anion}`);
   if (i.source) out.push(`Data: ${i.source}`);
@@ -61,7 +60,7 @@ export function formulaCardMarkdown(a: FormulaAnalysis, s: ServiceSettings): str
   if (c) {
     if (!c.balanced) lines.push(`⚠ **Not charge-balanced:** ${esc(c.message)}${c.suggestions.length ? ` Try ${c.suggestions.map((x) => `\`${x}\``).join(', ')}.` : ''}`, '');
     else if (c.basis === 'ionic') lines.push(`${esc(c.message)}`, '');
-    if (c.oxidationStates) lines.push(`Oxidation states: ${minus(oxidationText(c.oxidationStates))}${c.mixedValence.length ? ' (averages: mixed valence)' : ''}`, '');
+    if (c.oxidationStates) lines.push(`Oxidation states: ${oxidationText(c.oxidationStates)}${c.mixedValence.length ? ' (averages: mixed valence)' : ''}`, '');
   }
   if (a.bond) lines.push(`Bonding: **${a.bond.type}** — ΔEN ${a.bond.pair.join('–')} ${a.bond.deltaEN.toFixed(2)}, ${a.bond.percentIonic.toFixed(0)} % ionic`, '');
   const lat = latticeLine(a, s);
@@ -102,6 +101,14 @@ export function batchSummaryMarkdown(b: BatchAnalysis, _s: ServiceSettings): str
   return lines.join('\n');
 }
 
+const STATUS_WORDS: Record<string, string> = {
+  balanced: 'balanced form found',
+  ambiguous: 'more than one independent way to balance it',
+  impossible: 'no way to balance it with these species',
+  'too-large': 'too large to balance',
+  invalid: 'not readable',
+};
+
 export function reactionMarkdown(r: ReactionAnalysis): string {
   const b = r.balance;
   const lines: string[] = [];
@@ -111,10 +118,10 @@ export function reactionMarkdown(r: ReactionAnalysis): string {
   }
   if (b.status === 'already-balanced') lines.push('**Balanced** ✓', '', esc(b.message));
   else {
-    lines.push(`**Not balanced** (${b.status})`, '');
+    lines.push(`**Not balanced** — ${STATUS_WORDS[b.status] ?? b.status}`, '');
     const diff = b.differences.filter((d) => d.left !== d.right).map((d) => `${d.element} ${d.left} → ${d.right}`);
-    if (diff.length) lines.push(`As written: ${diff.join(', ')}`, '');
-    if (b.charge.left !== b.charge.right) lines.push(`Charge ${b.charge.left} → ${b.charge.right}`, '');
+    if (diff.length) lines.push(`As written (left → right): ${diff.join(', ')}`, '');
+    if (b.charge.left !== b.charge.right) lines.push(`Charge ${signed(b.charge.left)} → ${signed(b.charge.right)}`, '');
     if (b.balancedText) lines.push('Balanced:', '', '```', b.balancedText, '```');
     else lines.push(esc(b.message));
   }

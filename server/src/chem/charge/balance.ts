@@ -50,9 +50,10 @@ export interface ChargeAssessment {
 
 const WORDS = ['zero', 'one', 'two', 'three', 'four', 'five', 'six', 'seven', 'eight', 'nine', 'ten', 'eleven', 'twelve'];
 const countWord = (n: number) => (Number.isInteger(n) && n < WORDS.length ? WORDS[n] : formatCount(n));
+/** A signed number for people: +1, −2 (true minus sign). */
 const signed = (q: number) => {
-  const r = formatCount(cleanCount(q));
-  return q > 0 ? `+${r}` : r;
+  const r = formatCount(Math.abs(cleanCount(q)));
+  return q > 0 ? `+${r}` : q < 0 ? `−${r}` : '0';
 };
 const chargeWord = (q: number) => (q === 0 ? '0' : `${Math.abs(q)}${q > 0 ? '+' : '−'}`);
 const capital = (t: string) => t.charAt(0).toUpperCase() + t.slice(1);

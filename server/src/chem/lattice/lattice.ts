@@ -135,7 +135,7 @@ export function bornHaber(salt: string, metal: string, m: number, zc: number, an
   const u = m * (atomM + ie) + x * (atomX - ea) - dfH;
   return {
     kJPerMol: u,
-    inputs: { formationEnthalpy: dfH, atomisationMetal: atomM, ionisationEnergies: ies.slice(0, zc), atomisationAnion: atomX, electronAffinity: ea, cations: m, anions: x, source: 'NBS/CRC tables (from memory), see data/thermo.ts' },
+    inputs: { formationEnthalpy: dfH, atomisationMetal: atomM, ionisationEnergies: ies.slice(0, zc), atomisationAnion: atomX, electronAffinity: ea, cations: m, anions: x, source: 'NBS/CRC thermochemical tables (values recalled, not checked against the book)' },
   };
 }
 
@@ -207,6 +207,6 @@ export function estimateLattice(formula: Formula, _atoms: AtomCounts, charges: C
     estimate: best.estimate,
     typicalError: TYPICAL_ERROR[best.method],
     salt: saltText,
-    ...(mp !== undefined ? { meltingPointC: mp, meltingPointSource: 'CRC Handbook (value from memory)' } : {}),
+    ...(mp !== undefined ? { meltingPointC: mp, meltingPointSource: 'CRC Handbook (value recalled, not checked against the book)' } : {}),
   };
 }
