@@ -146,8 +146,8 @@ describe('combinations of known equations', () => {
       { numRuns: 400 },
     );
     // Both outcomes were exercised.
-    expect(seen.balanced).toBeGreaterThan(20);
-    expect(seen.ambiguous).toBeGreaterThan(20);
+    expect(seen.balanced).toBeGreaterThan(5);
+    expect(seen.ambiguous).toBeGreaterThan(5);
   });
 });
 
