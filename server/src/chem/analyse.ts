@@ -53,6 +53,36 @@ export function analyseFormula(text: string, settings: ChemSettings = DEFAULT_CH
 
 export function clearFormulaCache() {
   cache.clear();
+  speciesCache.clear();
+}
+
+/** What an equation needs of a species: the reading, its atoms and charge (no chemistry of the card). */
+export interface SpeciesReading {
+  formula: Formula | null;
+  ok: boolean;
+  atoms: AtomCounts;
+  charge: number;
+  diagnostics: ChemDiagnostic[];
+}
+
+const speciesCache = new Map<string, SpeciesReading>();
+
+/** Read a species of an equation (memoised); a full analysis already made for the same text is reused. */
+export function readSpecies(text: string): SpeciesReading {
+  const full = cache.get(text);
+  if (full) return full;
+  const hit = speciesCache.get(text);
+  if (hit) return hit;
+  const parsed = parseFormula(text);
+  let r: SpeciesReading;
+  if (!parsed.ok || !parsed.formula) r = { formula: parsed.formula, ok: false, atoms: {}, charge: 0, diagnostics: parsed.diagnostics };
+  else {
+    const formula = chooseReading(parsed.formula);
+    r = { formula, ok: true, atoms: formulaAtoms(formula), charge: formula.charge, diagnostics: parsed.diagnostics };
+  }
+  if (speciesCache.size >= CACHE_LIMIT) speciesCache.clear();
+  speciesCache.set(text, r);
+  return r;
 }
 
 function compute(text: string, settings: ChemSettings): FormulaAnalysis {

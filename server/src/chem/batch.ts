@@ -112,8 +112,16 @@ function err(code: string, start: number, end: number, message: string, severity
   return { code, severity, start, end, message };
 }
 
-/** Ions of a strong electrolyte, or why it stays whole. */
+const dissociated = new WeakMap<FormulaAnalysis, { ions: IonShare[]; undissociated?: string }>();
+
+/** Ions of a strong electrolyte, or why it stays whole (memoised per analysis; read-only). */
 export function dissociate(a: FormulaAnalysis): { ions: IonShare[]; undissociated?: string } {
+  let hit = dissociated.get(a);
+  if (!hit) dissociated.set(a, (hit = dissociateUncached(a)));
+  return hit;
+}
+
+function dissociateUncached(a: FormulaAnalysis): { ions: IonShare[]; undissociated?: string } {
   if (!a.ok || !a.formula) return { ions: [], undissociated: 'not readable' };
   const main = a.formula.parts[0];
   const ascii = a.formula.parts.length === 1 ? a.ascii.replace(/\(aq\)$/, '') : '';

@@ -8,7 +8,7 @@
  *   and only the text between the first and the second arrow is read as products;
  * - species are separated by `+` (see "Where `+` is a separator" below);
  * - a species is an optional coefficient (`2`, `0.5`, `1/2`, `½`, `1½`), optional space, then a formula
- *   read by `analyseFormula` (charges, hydrates and state symbols included), or the electron written
+ *   read by `readSpecies` (charges, hydrates and state symbols included), or the electron written
  *   `e-`, `e^-`, `e^{-}`, `e⁻` or `e−`.
  *
  * Where `+` is a separator (and where it is a charge sign):
@@ -24,7 +24,7 @@
  * So `Na+ + Cl-`, `2H+ + CO3^2-`, `Fe^3+ + e^-` read as ions, and `H2+O2` as two species. A charged species
  * followed directly by another species (`H+Cl-`) reads as `H + Cl-`: write spaces around separators.
  */
-import { analyseFormula } from '../analyse';
+import { readSpecies as readSpeciesFormula } from '../analyse';
 import type { ChemDiagnostic } from '../diagnostic';
 import type { Formula } from '../formula/ast';
 import type { AtomCounts } from '../formula/compute';
@@ -48,7 +48,7 @@ export interface Species {
   formulaText: string;
   formulaStart: number;
   formulaEnd: number;
-  /** The formula read (the reading `analyseFormula` chose); null for the electron and unreadable formulas. */
+  /** The formula read (the reading `readSpecies` chose); null for the electron and unreadable formulas. */
   formula: Formula | null;
   /** Atom counts of one formula unit (shared with the formula cache: read-only). Empty for the electron. */
   atoms: Readonly<AtomCounts>;
@@ -264,7 +264,7 @@ function readSpecies(text: string, a: number, b: number, side: Species['side'], 
     species.charge = -1;
     return species;
   }
-  const fa = analyseFormula(formulaText);
+  const fa = readSpeciesFormula(formulaText);
   if (!fa.ok || !fa.formula) {
     let passed = 0;
     for (const d of fa.diagnostics) {
