@@ -17,7 +17,7 @@
  */
 import { analyseFormula, type FormulaAnalysis } from './analyse';
 import { cautionsFor, type Caution } from './cautions';
-import type { ChemDiagnostic } from './diagnostic';
+import { shiftDiagnostic, type ChemDiagnostic } from './diagnostic';
 import { formatCharge, subscriptDigits } from './formula/compute';
 import type { ChemSettings } from './settings';
 import { DEFAULT_CHEM_SETTINGS } from './settings';
@@ -261,7 +261,7 @@ export function analyseBatch(lines: BatchLine[], openName: string | null = null,
     const a = analyseFormula(p.formula.text, settings);
     for (const d of a.diagnostics) {
       if (d.severity === 'information') continue;
-      diagnostics.push({ ...d, start: d.start + p.formula.start, end: d.end + p.formula.start });
+      diagnostics.push(shiftDiagnostic(d, p.formula.start));
     }
     if (!a.ok || !a.molarMass) continue;
     const M = a.molarMass.value;

@@ -15,6 +15,10 @@ export interface ChemDiagnostic {
 
 export const SEVERITY_NUMBER: Record<Severity, 1 | 2 | 3 | 4> = { error: 1, warning: 2, information: 3, hint: 4 };
 
+/** The same finding moved by `by` characters (one object shape, no spread: this runs in hot loops). */
 export function shiftDiagnostic(d: ChemDiagnostic, by: number): ChemDiagnostic {
-  return by === 0 ? d : { ...d, start: d.start + by, end: d.end + by };
+  if (by === 0) return d;
+  const out: ChemDiagnostic = { code: d.code, severity: d.severity, message: d.message, start: d.start + by, end: d.end + by };
+  if (d.data) out.data = d.data;
+  return out;
 }

@@ -8,10 +8,10 @@
  */
 import { analyseFormula, type FormulaAnalysis } from '../chem/analyse';
 import { analyseBatch, type BatchAnalysis } from '../chem/batch';
-import type { ChemDiagnostic } from '../chem/diagnostic';
+import { shiftDiagnostic, type ChemDiagnostic } from '../chem/diagnostic';
 import { analyseReaction, type ReactionAnalysis } from '../chem/equation';
 import { markdownBlocksFrom, readLine, scanDocument, scanMarkdownBlock, type MdBlock } from '../notes/scan';
-import type { BatchRef, FormulaRef, NoteItem, NotesLanguage, ReactionRef, SectionRef } from '../notes/types';
+import type { BatchRef, FormulaRef, LineRef, NoteItem, NotesLanguage, ReactionRef, SectionRef } from '../notes/types';
 import { LineIndex } from './positions';
 import { DEFAULT_SETTINGS, type ServiceSettings } from './settings';
 
@@ -76,11 +76,7 @@ const EMPTY: BlockResult = Object.freeze({ formulas: [], reactions: [], batches:
 
 /** A scanned item moved by `by` characters. */
 function shiftItem(item: NoteItem, by: number): NoteItem {
-  if (item.kind !== 'batch') return { ...item, start: item.start + by, end: item.end + by };
-  return {
-    ...item, start: item.start + by, end: item.end + by, open: shiftSpan(item.open, by), lines: item.lines.map((l) => shiftSpan(l, by)),
-    ...(item.openName ? { openName: shiftSpan(item.openName, by) } : {}),
-  };
+  return item.kind === 'formula' ? shiftFormulaRef(item, by) : item.kind === 'reaction' ? shiftReactionRef(item, by) : shiftBatchRef(item, by);
 }
 
 /** Analyse the scanned items of a block (offsets relative to the block). */
@@ -95,12 +91,12 @@ function analyseItems(items: readonly NoteItem[], language: NotesLanguage, setti
       formulas.push({ ref: item, analysis });
       for (const d of analysis.diagnostics) {
         if (d.severity === 'information' && item.source === 'prose') continue;
-        diagnostics.push({ ...d, start: d.start + item.start, end: d.end + item.start });
+        diagnostics.push(shiftDiagnostic(d, item.start));
       }
     } else if (item.kind === 'reaction') {
       const analysis = analyseReaction(item.text);
       reactions.push({ ref: item, analysis });
-      for (const d of analysis.diagnostics) diagnostics.push({ ...d, start: d.start + item.start, end: d.end + item.start });
+      for (const d of analysis.diagnostics) diagnostics.push(shiftDiagnostic(d, item.start));
     } else {
       const analysis = analyseBatch(item.lines, item.openName?.text ?? null, settings.chem);
       batches.push({ ref: item, analysis });
@@ -134,27 +130,33 @@ function analyseBlock(text: string, b: Span, language: NotesLanguage, settings: 
   return analyseItems(rel, language, settings, heading);
 }
 
-const shiftD = (d: ChemDiagnostic, by: number): ChemDiagnostic => ({ ...d, start: d.start + by, end: d.end + by });
-const shiftSpan = <T extends { start: number; end: number }>(x: T, by: number): T => ({ ...x, start: x.start + by, end: x.end + by });
+const shiftLine = (x: LineRef, by: number): LineRef => ({ text: x.text, start: x.start + by, end: x.end + by });
+const shiftFormulaRef = (x: FormulaRef, by: number): FormulaRef => ({ kind: 'formula', text: x.text, start: x.start + by, end: x.end + by, source: x.source });
+const shiftReactionRef = (x: ReactionRef, by: number): ReactionRef => ({ kind: 'reaction', text: x.text, start: x.start + by, end: x.end + by, source: x.source });
+const shiftBatchRef = (r: BatchRef, by: number): BatchRef => {
+  const out: BatchRef = { kind: 'batch', start: r.start + by, end: r.end + by, open: shiftLine(r.open, by), lines: r.lines.map((l) => shiftLine(l, by)), closed: r.closed };
+  if (r.openName) out.openName = shiftLine(r.openName, by);
+  return out;
+};
 
 export function shiftBatch(b: BatchOccurrence, by: number): BatchOccurrence {
   const r = b.ref;
   const a = b.analysis;
   return {
-    ref: { ...r, start: r.start + by, end: r.end + by, open: shiftSpan(r.open, by), ...(r.openName ? { openName: shiftSpan(r.openName, by) } : {}), lines: r.lines.map((l) => shiftSpan(l, by)) },
+    ref: shiftBatchRef(r, by),
     analysis: {
       ...a,
-      diagnostics: a.diagnostics.map((d) => shiftD(d, by)),
+      diagnostics: a.diagnostics.map((d) => shiftDiagnostic(d, by)),
       ingredients: a.ingredients.map((i) => ({
-        ...i, lineStart: i.lineStart + by, lineEnd: i.lineEnd + by, formulaStart: i.formulaStart + by, formulaEnd: i.formulaEnd + by, amount: shiftSpan(i.amount, by),
+        ...i, lineStart: i.lineStart + by, lineEnd: i.lineEnd + by, formulaStart: i.formulaStart + by, formulaEnd: i.formulaEnd + by, amount: { ...i.amount, start: i.amount.start + by, end: i.amount.end + by },
       })),
     },
   };
 }
 
-export const shiftFormula = (f: FormulaOccurrence, by: number): FormulaOccurrence => (by === 0 ? f : { ref: shiftSpan(f.ref, by), analysis: f.analysis });
-export const shiftReaction = (r: ReactionOccurrence, by: number): ReactionOccurrence => (by === 0 ? r : { ref: shiftSpan(r.ref, by), analysis: r.analysis });
-export const shiftDiagnostic = (d: ChemDiagnostic, by: number): ChemDiagnostic => (by === 0 ? d : shiftD(d, by));
+export const shiftFormula = (f: FormulaOccurrence, by: number): FormulaOccurrence => (by === 0 ? f : { ref: shiftFormulaRef(f.ref, by), analysis: f.analysis });
+export const shiftReaction = (r: ReactionOccurrence, by: number): ReactionOccurrence => (by === 0 ? r : { ref: shiftReactionRef(r.ref, by), analysis: r.analysis });
+export { shiftDiagnostic };
 
 /** Block results memoised by text, per settings object (settings objects are interned by the server). */
 const blockCaches = new WeakMap<ServiceSettings, Map<string, Map<string, BlockResult>>>();

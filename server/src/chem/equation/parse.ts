@@ -25,7 +25,7 @@
  * followed directly by another species (`H+Cl-`) reads as `H + Cl-`: write spaces around separators.
  */
 import { readSpecies as readSpeciesFormula } from '../analyse';
-import type { ChemDiagnostic } from '../diagnostic';
+import { shiftDiagnostic, type ChemDiagnostic } from '../diagnostic';
 import type { Formula } from '../formula/ast';
 import type { AtomCounts } from '../formula/compute';
 import { findArrow, type ArrowMatch } from './arrows';
@@ -269,7 +269,7 @@ function readSpecies(text: string, a: number, b: number, side: Species['side'], 
     let passed = 0;
     for (const d of fa.diagnostics) {
       if (d.severity !== 'error') continue;
-      diagnostics.push({ ...d, start: d.start + f, end: d.end + f });
+      diagnostics.push(shiftDiagnostic(d, f));
       passed++;
     }
     if (passed === 0) error('malformed-formula', f, b, `'${formulaText}' is not a readable formula.`);
