@@ -25,7 +25,6 @@ import { codeLenses, documentSymbols } from '../service/symbols';
 import { analyseFormula } from '../chem/analyse';
 import { readSettings, type ServerSettings } from './settings';
 import { DebouncedValidator, realTimers, type Timers } from './validator';
-import { warmUp } from './warmup';
 
 export const COMMANDS = {
   insertTable: 'ionwright.server.insertTable',
@@ -146,11 +145,6 @@ export function startServer(connection: Connection, options: ServerOptions = {})
 
   connection.onInitialize((params): InitializeResult => {
     canReadConfiguration = !!params.capabilities.workspace?.configuration;
-    try {
-      warmUp();
-    } catch (e) {
-      log(`warm-up failed: ${(e as Error)?.message}`);
-    }
     return {
       capabilities: {
         textDocumentSync: { openClose: true, change: TextDocumentSyncKind.Incremental },
