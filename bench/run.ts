@@ -166,7 +166,7 @@ async function serverCase() {
     if (c >= 0) positions.push({ line, character: c + 2 });
   }
   const nullHover: number[] = [];
-  for (let i = 0; i < 200; i++) {
+  for (let i = 0; i < positions.length; i++) {
     const a = now();
     await conn.sendRequest('textDocument/hover', { textDocument: { uri: 'file:///bench/none.md' }, position: { line: 0, character: 0 } });
     nullHover.push(now() - a);
@@ -193,10 +193,11 @@ async function serverCase() {
   proc.kill();
   const baseHover = median(nullHover);
   rows.push({ case: 'first diagnostics after opening 1 MB, via the server', ours: ms(firstMs), baseline: `markdown-it parse ${ms(mdParse)}`, ratio: firstMs / mdParse, target: '< 300 ms', met: firstMs < 300 });
-  rows.push({ case: 'hover p50 over 1 MB, via the server', ours: ms(median(hovers)), baseline: `null request ${ms(baseHover)}`, ratio: median(hovers) / baseHover, target: '—', met: true });
-  rows.push({ case: 'hover p99 over 1 MB, via the server', ours: ms(pct(hovers, 99)), baseline: `null request ${ms(baseHover)}`, ratio: pct(hovers, 99) / baseHover, target: '< 2 ms', met: pct(hovers, 99) < 2 });
+  const baseP99 = pct(nullHover, 99);
+  rows.push({ case: 'hover p50 over 1 MB, via the server', ours: ms(median(hovers)), baseline: `null request p50 ${ms(baseHover)}`, ratio: median(hovers) / baseHover, target: '—', met: true });
+  rows.push({ case: 'hover p99 over 1 MB, via the server', ours: ms(pct(hovers, 99)), baseline: `null request p99 ${ms(baseP99)}`, ratio: pct(hovers, 99) / baseP99, target: '< 2 ms', met: pct(hovers, 99) < 2 });
   rows.push({ case: 'one-character edit re-validated, 1 MB, via the server', ours: ms(median(edits)), baseline: `markdown-it parse ${ms(mdParse)}`, ratio: median(edits) / mdParse, target: '< 20 ms', met: median(edits) < 20 });
-  figures.server = { firstDiagnosticsMs: firstMs, hoverP50Ms: median(hovers), hoverP99Ms: pct(hovers, 99), nullRequestMs: baseHover, editRevalidateMedianMs: median(edits), editRevalidateP90Ms: pct(edits, 90), markdownItParseMs: mdParse };
+  figures.server = { firstDiagnosticsMs: firstMs, hoverP50Ms: median(hovers), hoverP99Ms: pct(hovers, 99), nullRequestMs: baseHover, nullRequestP99Ms: baseP99, editRevalidateMedianMs: median(edits), editRevalidateP90Ms: pct(edits, 90), markdownItParseMs: mdParse };
 }
 
 // ── 5. memory: peak RSS for a 10 MB workspace ────────────────────────────
