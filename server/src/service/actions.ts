@@ -7,7 +7,7 @@ import type { ChemDiagnostic } from '../chem/diagnostic';
 import type { AnalysedDocument } from './document';
 import { formulasIn, targetAt } from './lookup';
 import type { Range } from './positions';
-import { batchTable, formulaTable, sectionsOf } from './tables';
+import { batchTable, formulaTable, sectionsOf, sectionTables } from './tables';
 
 export interface TextEdit {
   range: Range;
@@ -108,15 +108,12 @@ export function sectionTableEdit(doc: AnalysedDocument, offset: number): TextEdi
   const sections = sectionsOf(doc);
   const s = [...sections].reverse().find((x) => x.start <= offset) ?? sections[0];
   if (!s) return undefined;
-  const parts: string[] = [];
-  const ft = formulaTable(s.formulas.map((f) => f.analysis), doc.settings, `Formulas — ${s.title}`);
-  if (ft) parts.push(ft);
-  for (const b of s.batches) parts.push(batchTable(b.analysis, doc.settings));
-  if (parts.length === 0) return undefined;
+  const tables = sectionTables(s, doc.settings);
+  if (!tables) return undefined;
   // The section ends where the next heading starts: insert before it.
   let endOffset = s.end;
   while (endOffset > 0 && /\s/.test(doc.text[endOffset - 1])) endOffset--;
-  return insertAfter(doc, endOffset, parts.join('\n\n'));
+  return insertAfter(doc, endOffset, tables);
 }
 
 /** All code actions for a range. */

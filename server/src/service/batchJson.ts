@@ -1,5 +1,6 @@
 /** The contract's JSON for a batch block (`ionwright batch --json`). */
 import { round } from './card';
+import { toLsp } from './diagnostics';
 import type { AnalysedDocument, BatchOccurrence } from './document';
 
 const r = (x: number | null, p = 9) => (x === null ? null : round(x, p));
@@ -31,6 +32,6 @@ export function batchJson(doc: AnalysedDocument, b: BatchOccurrence) {
     netChargeEqPerL: r(a.netChargeEqPerL),
     notes: a.notes,
     cautions: a.cautions.map((c) => c.text),
-    diagnostics: a.diagnostics.map((d) => ({ range: doc.lines.range(d.start, d.end), severity: ({ error: 1, warning: 2, information: 3, hint: 4 } as const)[d.severity], code: d.code, message: d.message, source: 'ionwright' })),
+    diagnostics: a.diagnostics.map((d) => toLsp(doc.lines, d)),
   };
 }

@@ -3,19 +3,9 @@
  * "copy card").
  */
 import { analyseFormula, type FormulaAnalysis } from '../chem/analyse';
-import type { ChemDiagnostic } from '../chem/diagnostic';
-import { SEVERITY_NUMBER } from '../chem/diagnostic';
-import { LineIndex, type Range } from './positions';
+import { toLsp, type LspDiagnostic } from './diagnostics';
+import { LineIndex } from './positions';
 import { DEFAULT_SETTINGS, type ServiceSettings } from './settings';
-
-export interface CardDiagnostic {
-  range: Range;
-  severity: 1 | 2 | 3 | 4;
-  code: string;
-  message: string;
-  source: 'ionwright';
-  data?: Record<string, unknown>;
-}
 
 export interface CardJson {
   input: string;
@@ -34,7 +24,7 @@ export interface CardJson {
     kJPerMol: number; method: string; inputs: Record<string, unknown>; alternatives: Array<{ method: string; kJPerMol: number }>;
     estimate: boolean; typicalError: string; salt: string; meltingPointC: number | null; meltingPointSource: string | null;
   } | null;
-  diagnostics: CardDiagnostic[];
+  diagnostics: LspDiagnostic[];
 }
 
 /** Round for output: enough digits for any check, none of the binary noise. */
@@ -42,18 +32,6 @@ export const round = (x: number, places = 6) => {
   const r = Number(x.toFixed(places));
   return Object.is(r, -0) ? 0 : r;
 };
-
-function cardDiagnostics(input: string, list: readonly ChemDiagnostic[]): CardDiagnostic[] {
-  const lines = new LineIndex(input);
-  return list.map((d) => ({
-    range: lines.range(d.start, d.end),
-    severity: SEVERITY_NUMBER[d.severity],
-    code: d.code,
-    message: d.message,
-    source: 'ionwright' as const,
-    ...(d.data ? { data: d.data } : {}),
-  }));
-}
 
 export function cardJson(a: FormulaAnalysis): CardJson {
   return {
@@ -84,7 +62,10 @@ export function cardJson(a: FormulaAnalysis): CardJson {
           meltingPointSource: a.lattice.meltingPointSource ?? null,
         }
       : null,
-    diagnostics: cardDiagnostics(a.input, a.diagnostics),
+    diagnostics: (() => {
+      const lines = new LineIndex(a.input);
+      return a.diagnostics.map((d) => toLsp(lines, d));
+    })(),
   };
 }
 

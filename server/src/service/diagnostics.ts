@@ -1,7 +1,7 @@
 /** Diagnostics in LSP shape (plain objects; the server hands them over as they are). */
 import { SEVERITY_NUMBER, type ChemDiagnostic } from '../chem/diagnostic';
 import type { AnalysedDocument } from './document';
-import type { Range } from './positions';
+import type { LineIndex, Range } from './positions';
 
 export interface LspDiagnostic {
   range: Range;
@@ -12,9 +12,10 @@ export interface LspDiagnostic {
   data?: Record<string, unknown>;
 }
 
-export function toLspDiagnostic(doc: AnalysedDocument, d: ChemDiagnostic): LspDiagnostic {
+/** A finding in LSP shape, its offsets turned into positions with `lines`. */
+export function toLsp(lines: LineIndex, d: ChemDiagnostic): LspDiagnostic {
   return {
-    range: doc.lines.range(d.start, d.end),
+    range: lines.range(d.start, d.end),
     severity: SEVERITY_NUMBER[d.severity],
     code: d.code,
     message: d.message,
@@ -24,5 +25,5 @@ export function toLspDiagnostic(doc: AnalysedDocument, d: ChemDiagnostic): LspDi
 }
 
 export function documentDiagnostics(doc: AnalysedDocument): LspDiagnostic[] {
-  return doc.diagnostics.map((d) => toLspDiagnostic(doc, d));
+  return doc.diagnostics.map((d) => toLsp(doc.lines, d));
 }

@@ -121,13 +121,16 @@ export function sectionsOf(doc: AnalysedDocument): SectionTables[] {
   return out;
 }
 
+/** The tables of one section: its formulas, then each batch ('' when there is nothing to tabulate). */
+export function sectionTables(s: SectionTables, settings: ServiceSettings): string {
+  const parts: string[] = [];
+  const ft = formulaTable(s.formulas.map((f) => f.analysis), settings, `Formulas — ${s.title}`);
+  if (ft) parts.push(ft);
+  for (const b of s.batches) parts.push(batchTable(b.analysis, settings));
+  return parts.join('\n\n');
+}
+
 /** All tables of a document, as `ionwright table` prints them. */
 export function documentTables(doc: AnalysedDocument, settings: ServiceSettings = doc.settings): string {
-  const parts: string[] = [];
-  for (const s of sectionsOf(doc)) {
-    const ft = formulaTable(s.formulas.map((f) => f.analysis), settings, `Formulas — ${s.title}`);
-    if (ft) parts.push(ft);
-    for (const b of s.batches) parts.push(batchTable(b.analysis, settings));
-  }
-  return parts.join('\n\n');
+  return sectionsOf(doc).map((s) => sectionTables(s, settings)).filter(Boolean).join('\n\n');
 }
