@@ -97,7 +97,7 @@ function compute(text: string, settings: ChemSettings): FormulaAnalysis {
   const formula = chooseReading(parsed.formula);
   const atoms = formulaAtoms(formula);
   const mm = molarMass(atoms);
-  const charges = assessCharge(formula, atoms);
+  const charges = assessCharge(formula);
   for (const d of charges.diagnostics) diagnostics.push(d);
   if (mm.nominal.length) {
     diagnostics.push({

@@ -123,7 +123,6 @@ export function dissociate(a: FormulaAnalysis): { ions: IonShare[]; undissociate
 
 function dissociateUncached(a: FormulaAnalysis): { ions: IonShare[]; undissociated?: string } {
   if (!a.ok || !a.formula) return { ions: [], undissociated: 'not readable' };
-  const main = a.formula.parts[0];
   const ascii = a.formula.parts.length === 1 ? a.ascii.replace(/\(aq\)$/, '') : '';
   if (a.charge !== 0 && a.formula.parts.length === 1) {
     return { ions: [{ ion: a.display.replace(/\(aq\)$/, ''), key: a.ascii.replace(/\(aq\)$/, ''), charge: a.charge, count: 1 }] };
@@ -138,7 +137,6 @@ function dissociateUncached(a: FormulaAnalysis): { ions: IonShare[]; undissociat
   if (ions.some((i) => i.kind === 'proton')) return { ions: [], undissociated: 'weak acid: treated as undissociated' };
   if (ions.some((i) => i.kind === 'monatomic-anion' && (i.element === 'O' || i.element === 'N' || i.element === 'C'))) return { ions: [], undissociated: 'oxide, nitride or carbide: not dissolved' };
   if (ions.some((i) => new Set(i.states).size > 1 || !Number.isInteger(i.charge))) return { ions: [], undissociated: 'mixed-valence solid: not dissolved' };
-  void main;
   const out = new Map<string, IonShare>();
   for (const i of ions) {
     const key = (i.kind === 'complex' ? `[${i.text}]` : i.text) + formatCharge(i.charge, false);

@@ -9,7 +9,7 @@ import { loadFiles, parse, UsageError, type CliIO, type FileProblem } from './io
 
 export type Command = (args: string[], io: CliIO) => number;
 
-const hasErrors = (diags: Array<{ severity: number | string }>) => diags.some((d) => d.severity === 1 || d.severity === 'error');
+const hasErrors = (diags: Array<{ severity: number }>) => diags.some((d) => d.severity === 1);
 
 /** Read exactly one notes file (for batch and table). */
 function oneFile(args: string[], io: CliIO, command: string, options: Parameters<typeof parse>[1]) {

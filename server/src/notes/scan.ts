@@ -9,7 +9,6 @@
  * so a fence inside a list item is not seen as a fence (a documented limit; test/scan.commonmark.test.ts
  * compares the scanner with markdown-it).
  */
-import { findArrow } from '../chem/equation/arrows';
 import { scanInline } from './inline';
 import { DEFAULT_SCAN_OPTIONS, type BatchRef, type LineRef, type NoteItem, type NotesLanguage, type ScanOptions, type ScanResult, type SectionRef } from './types';
 
@@ -331,6 +330,17 @@ export function scanMarkdown(text: string, options: ScanOptions = DEFAULT_SCAN_O
 /** Keywords are lower case; `section`, `reaction` and `formula` take a colon, `batch` and `end` stand first on their line. */
 const FNOTE_KEYWORD = /^(?:(section|reaction|formulas?):|(batch|end)(?=[\s:]|$):?)/;
 
+/** Does this `.fnote` line (leading space removed) open a batch block? */
+export function opensFnoteBatch(body: string): boolean {
+  return FNOTE_KEYWORD.exec(body)?.[2] === 'batch';
+}
+
+/** Does this `.fnote` line (leading space removed) close a batch block: `end`, alone on its line? */
+export function closesFnoteBatch(body: string): boolean {
+  const kw = FNOTE_KEYWORD.exec(body);
+  return kw?.[2] === 'end' && body.slice(kw[0].length).trim() === '';
+}
+
 /**
  * The `.fnote` notes format (Ionwright's own, line based):
  *   # a comment
@@ -351,7 +361,7 @@ export function scanFnote(text: string, options: ScanOptions = DEFAULT_SCAN_OPTI
     const kw = FNOTE_KEYWORD.exec(body);
     const keyword = kw ? (kw[1] ?? kw[2]) : '';
     if (batch) {
-      if (keyword === 'end' && body.slice(kw![0].length).trim() === '') {
+      if (closesFnoteBatch(body)) {
         batch.end = l.end;
         batch.closed = true;
         items.push(batch);
@@ -390,9 +400,4 @@ export function scanFnote(text: string, options: ScanOptions = DEFAULT_SCAN_OPTI
   }
   if (batch) items.push(batch);
   return { language: 'fnote', items, sections: headingsToSections(text, heads) };
-}
-
-/** Is this code-span text an equation rather than a formula? */
-export function looksLikeEquation(text: string): boolean {
-  return findArrow(text) !== undefined;
 }

@@ -2,7 +2,7 @@
  * The card of a formula: the contract's JSON object, and the same facts as text (CLI) and Markdown (hover,
  * "copy card").
  */
-import { analyseFormula, type FormulaAnalysis } from '../chem/analyse';
+import type { FormulaAnalysis } from '../chem/analyse';
 import { toLsp, type LspDiagnostic } from './diagnostics';
 import { LineIndex } from './positions';
 import { DEFAULT_SETTINGS, type ServiceSettings } from './settings';
@@ -67,10 +67,6 @@ export function cardJson(a: FormulaAnalysis): CardJson {
       return a.diagnostics.map((d) => toLsp(lines, d));
     })(),
   };
-}
-
-export function card(input: string, settings: ServiceSettings = DEFAULT_SETTINGS): CardJson {
-  return cardJson(analyseFormula(input.trim(), settings.chem));
 }
 
 export const fmt = (x: number, places: number) => x.toFixed(places);

@@ -10,7 +10,7 @@ import { analyseFormula, type FormulaAnalysis } from '../chem/analyse';
 import { analyseBatch, type BatchAnalysis } from '../chem/batch';
 import { shiftDiagnostic, type ChemDiagnostic } from '../chem/diagnostic';
 import { analyseReaction, type ReactionAnalysis } from '../chem/equation';
-import { markdownBlocksFrom, readLine, scanDocument, scanMarkdownBlock, type MdBlock } from '../notes/scan';
+import { closesFnoteBatch, markdownBlocksFrom, opensFnoteBatch, readLine, scanDocument, scanMarkdownBlock, type MdBlock } from '../notes/scan';
 import type { BatchRef, FormulaRef, LineRef, NoteItem, NotesLanguage, ReactionRef, SectionRef } from '../notes/types';
 import { LineIndex } from './positions';
 import { DEFAULT_SETTINGS, type ServiceSettings } from './settings';
@@ -196,12 +196,12 @@ function fnoteBlocksFrom(text: string, from: number, stopAt?: (pos: number) => b
     if (stopAt && pos > from && stopAt(pos)) return { blocks, stoppedAt: pos };
     const l = readLine(text, pos);
     const body = text.slice(l.start, l.end).trimStart();
-    if (/^batch(?=[\s:]|$)/.test(body)) {
+    if (opensFnoteBatch(body)) {
       let last = l;
       while (last.next < text.length) {
         const nl = readLine(text, last.next);
         last = nl;
-        if (/^\s*end\s*$/.test(text.slice(nl.start, nl.end))) break;
+        if (closesFnoteBatch(text.slice(nl.start, nl.end).trimStart())) break;
       }
       blocks.push({ start: l.start, end: last.end, kind: 'batch' });
       pos = last.next;

@@ -341,8 +341,7 @@ function assessPart(formula: Formula, part: FormulaPart, target: number): PartRe
 }
 
 /** Charge balance, oxidation states and the ionic reading of a parsed formula. */
-export function assessCharge(formula: Formula, atoms: AtomCounts): ChargeAssessment {
-  void atoms;
+export function assessCharge(formula: Formula): ChargeAssessment {
   const results = formula.parts.map((p, k) => (p.items.length ? assessPart(formula, p, k === 0 ? formula.charge : 0) : null)).filter((r): r is PartResult => r !== null);
   const diagnostics: ChemDiagnostic[] = [];
   const suggestions: string[] = [];

@@ -113,12 +113,3 @@ export function solve(segs: Segment[], target: number, continuous: boolean): Ion
   }
   return best;
 }
-
-/** The reading closest to balance with every ion at its usual charge, to say what is off. */
-export function usualReading(segs: Segment[]): IonicSolution {
-  const segments = segs.map((segment) => {
-    const q = segment.unitOptions[0]?.charge ?? 0;
-    return { segment, total: q * segment.multiplicity, unitCharges: [q], cost: 0 };
-  });
-  return { segments, cost: 0, sum: segments.reduce((a, s) => a + s.total, 0) };
-}

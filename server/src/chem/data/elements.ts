@@ -70,4 +70,3 @@ const NONMETALS = new Set(['H', 'He', 'B', 'C', 'N', 'O', 'F', 'Ne', 'Si', 'P', 
 export function isMetal(symbol: string): boolean {
   return BY_SYMBOL.has(symbol) && !NONMETALS.has(symbol);
 }
-export const METALLOIDS = new Set(['B', 'Si', 'Ge', 'As', 'Sb', 'Te']);

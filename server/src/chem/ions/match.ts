@@ -74,8 +74,3 @@ export function ligandCharge(items: readonly FormulaItem[]): number | undefined 
   const k = itemsKey(items);
   return k === undefined ? undefined : LIGANDS.get(k);
 }
-
-/** The ion named by a whole formula's atoms and charge, e.g. for `SO4^3-` the sulfate entry. */
-export function ionByItems(items: readonly FormulaItem[]): IonMatch[] {
-  return matchIon(items);
-}

@@ -4,7 +4,6 @@
  */
 import { assessCharge } from '../charge/balance';
 import type { Formula } from '../formula/ast';
-import { formulaAtoms } from '../formula/compute';
 import { matchIon } from './match';
 
 function namesKnownIon(f: Formula): boolean {
@@ -18,8 +17,8 @@ export function chooseReading(f: Formula): Formula {
   if (f.chargeNotation === 'bare-digit') return f; // one element: Fe3+ is Fe³⁺
   if (namesKnownIon(f)) return f;
   if (namesKnownIon(alt)) return alt;
-  const a = assessCharge(f, formulaAtoms(f));
+  const a = assessCharge(f);
   if (a.balanced && a.basis !== 'molecular') return f;
-  const b = assessCharge(alt, formulaAtoms(alt));
+  const b = assessCharge(alt);
   return b.balanced && !a.balanced ? alt : f;
 }
