@@ -67,6 +67,11 @@ describe('hover', () => {
     expect(hoverAt('This is O|K now.')).toBeNull();
     expect(hoverAt('I|n the morning.')).toBeNull();
     expect(hoverAt('A|s usual.')).toBeNull();
+    // Sample and batch labels are not sign-first ions in prose; in code they are.
+    expect(hoverAt('Sealing bath S|-2 ran hot.')).toBeNull();
+    expect(hoverAt('Vial B-1|2 was empty.')).toBeNull();
+    expect(hoverAt('Sulfide `S|-2` in the rinse.')).toMatch(/^\*\*S²⁻\*\*/);
+    expect(hoverAt('the iron is Fe3|+ here')).toMatch(/^\*\*Fe³⁺\*\*/);
   });
 
   it('on a batch line: moles, mass, concentration', () => {

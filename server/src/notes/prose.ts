@@ -69,6 +69,8 @@ function countSymbols(items: readonly FormulaItem[]): { tokens: number; elements
   return { tokens, elements };
 }
 
+const SIGN_FIRST_LABEL = /^[A-Z][a-z]?[+\-−][0-9]+$/;
+
 const verdicts: Record<ProseMode, Map<string, boolean>> = { off: new Map(), conservative: new Map(), eager: new Map() };
 
 /** Is this word (already trimmed) a formula a chemist would recognise? Memoised per word. */
@@ -87,6 +89,9 @@ export function isProseFormula(word: string, mode: ProseMode): boolean {
 
 function judge(word: string, mode: ProseMode): boolean {
   if (!FORMULA_CHARS.test(word) || STOPLIST.has(word) || ROMAN_GROUP.test(word)) return false;
+  // One symbol, then a sign, then digits ("S-2", "B-12", "C+3") is a sample or batch label in prose far more
+  // often than an ion written sign-first; in code spans it is still read as an ion.
+  if (SIGN_FIRST_LABEL.test(word)) return false;
   const hasLower = /[a-z]/.test(word);
   const hasDigit = /[0-9₀-₉]/.test(word);
   const hasCharge = /[\^⁺⁻]|[+\-−]$/.test(word);

@@ -1,0 +1,297 @@
+/**
+ * A markdown-it plugin that shows the chemistry in rendered Markdown: VS Code's preview (through the
+ * extension's `extendMarkdownIt`), the HTML report of the command line, and tests.
+ *
+ * - Inline code that reads as a formula is typeset (<sub>, <sup>, hydrate dots) with the molar mass in a
+ *   tooltip; an equation in inline code is typeset with a balanced / not balanced mark.
+ * - A fenced `batch` block becomes its computed tables; a fenced `reaction` block its typeset equations,
+ *   each marked balanced or not, with the balanced form.
+ * - Every problem the editor would flag there gets a visible numbered marker, and the list of problems is
+ *   rendered at the end of the page, so nothing is dropped silently.
+ *
+ * The plugin never imports markdown-it at run time: the host hands it its instance. Fenced blocks are
+ * analysed through the same document analysis the editor uses (the block on its own), inline code through
+ * the same formula and equation analysis, so the findings are the editor's.
+ */
+import type { MarkdownIt, Token } from 'markdown-it';
+import { analyseFormula, type FormulaAnalysis } from '../chem/analyse';
+import type { BatchAnalysis } from '../chem/batch';
+import { CAUTION_FOOTNOTE, cautionsFor } from '../chem/cautions';
+import type { ChemDiagnostic } from '../chem/diagnostic';
+import { analyseReaction, findArrow, type ReactionAnalysis } from '../chem/equation';
+import type { FormulaRef } from '../notes/types';
+import { scanProse } from '../notes/prose';
+import { analyseDocument } from './document';
+import { DEFAULT_SETTINGS, type ServiceSettings } from './settings';
+import { sig } from './tables';
+import { escapeHtml, typesetDisplay, typesetEquation } from './typeset';
+
+export interface PreviewOptions {
+  /** Typeset formulas and equations in inline code; when false they stay code (problems are still marked). */
+  typesetFormulas: boolean;
+  settings: ServiceSettings;
+}
+
+export const DEFAULT_PREVIEW_OPTIONS: PreviewOptions = Object.freeze({ typesetFormulas: true, settings: DEFAULT_SETTINGS });
+
+/** A problem found while rendering, numbered in order of appearance. */
+export interface PreviewProblem {
+  n: number;
+  severity: ChemDiagnostic['severity'];
+  code: string;
+  message: string;
+  /** What it is about, as written (a formula, an equation or a batch line). */
+  subject: string;
+  /** 1-based source line, where known. */
+  line?: number;
+}
+
+interface RenderState {
+  problems: PreviewProblem[];
+}
+
+const ENV_KEY = '__ionwright';
+const SEVERITY_WORD = { error: 'error', warning: 'warning', information: 'note', hint: 'hint' } as const;
+const SEVERITY_RANK = { error: 0, warning: 1, information: 2, hint: 3 } as const;
+
+function stateOf(env: Record<string, unknown> | undefined): RenderState {
+  if (!env) return { problems: [] };
+  let s = env[ENV_KEY] as RenderState | undefined;
+  if (!s) env[ENV_KEY] = s = { problems: [] };
+  return s;
+}
+
+/** Record problems and return their markers (one marker per problem, linked to the list at the end). */
+function mark(state: RenderState, diagnostics: readonly ChemDiagnostic[], subject: string, lineOf?: (d: ChemDiagnostic) => number | undefined): string {
+  let out = '';
+  for (const d of diagnostics) {
+    if (d.severity === 'hint') continue;
+    const n = state.problems.length + 1;
+    const line = lineOf?.(d);
+    state.problems.push({ n, severity: d.severity, code: d.code, message: d.message, subject, ...(line !== undefined ? { line } : {}) });
+    out += `<a class="iw-flag iw-${d.severity}" href="#iw-problem-${n}" id="iw-flag-${n}" title="${escapeHtml(`${SEVERITY_WORD[d.severity]}: ${d.message}`)}" aria-label="${escapeHtml(`Ionwright ${SEVERITY_WORD[d.severity]} ${n}: ${d.message}`)}">${d.severity === 'error' ? '✖' : d.severity === 'warning' ? '⚠' : 'ℹ'}<sup>${n}</sup></a>`;
+  }
+  return out;
+}
+
+function worst(diagnostics: readonly ChemDiagnostic[]): ChemDiagnostic['severity'] | undefined {
+  let w: ChemDiagnostic['severity'] | undefined;
+  for (const d of diagnostics) if (d.severity !== 'hint' && (w === undefined || SEVERITY_RANK[d.severity] < SEVERITY_RANK[w])) w = d.severity;
+  return w;
+}
+
+/** The tooltip of a typeset formula: the headline numbers of its card. */
+function formulaTitle(a: FormulaAnalysis, s: ServiceSettings): string {
+  const bits = [`${a.display}: ${a.molarMass ? `${a.molarMass.value.toFixed(s.decimals)} g/mol` : 'no molar mass'}`];
+  if (a.charges && !a.charges.balanced) bits.push(`not charge-balanced: ${a.charges.message}`);
+  if (a.bond) bits.push(`${a.bond.type}, ΔEN ${a.bond.deltaEN.toFixed(2)} (${a.bond.pair.join('–')})`);
+  if (a.lattice) bits.push(`lattice energy ${a.lattice.estimate ? '≈ ' : ''}${Math.round(a.lattice.kJPerMol)} kJ/mol (${a.lattice.method}${a.lattice.estimate ? ', estimate' : ''})`);
+  const c = cautionsFor(a);
+  if (c.length) bits.push(`caution: ${c.map((x) => x.text).join('; ')}; follow the SDS`);
+  return bits.join(' · ');
+}
+
+function reactionMark(r: ReactionAnalysis): string {
+  const st = r.balance.status;
+  if (!r.ok) return '';
+  if (st === 'already-balanced') return '<span class="iw-mark iw-balanced" title="Atoms and charge balance as written">✓ balanced</span>';
+  return `<span class="iw-mark iw-unbalanced" title="${escapeHtml(r.balance.message)}">✗ not balanced</span>`;
+}
+
+function inlineReaction(r: ReactionAnalysis, o: PreviewOptions, state: RenderState, fallback: string): string {
+  const flags = mark(state, r.diagnostics, r.text);
+  if (!o.typesetFormulas || !r.ok) return `<span class="iw-code-flagged">${fallback}</span>${flags}`;
+  const balanced = r.balance.status === 'balanced' && r.balance.coefficients ? ` <span class="iw-balanced-form">(balanced: ${typesetEquation(r.parsed, r.balance.coefficients)})</span>` : '';
+  return `<span class="iw-equation" title="${escapeHtml(r.balance.message)}">${typesetEquation(r.parsed)}</span> ${reactionMark(r)}${balanced}${flags}`;
+}
+
+function inlineFormula(a: FormulaAnalysis, o: PreviewOptions, state: RenderState, fallback: string): string {
+  const flags = mark(state, a.diagnostics, a.input);
+  const w = worst(a.diagnostics);
+  if (!o.typesetFormulas || !a.ok || !a.molarMass) return w ? `<span class="iw-code-flagged iw-${w}">${fallback}</span>${flags}` : fallback;
+  const cls = w ? ` iw-${w}` : '';
+  return `<span class="iw-formula${cls}" title="${escapeHtml(formulaTitle(a, o.settings))}">${typesetDisplay(a.display)}</span>${flags}`;
+}
+
+/**
+ * Bare formulas in prose, read by the editor's own prose rule (setting `prose`): typeset, and their problems
+ * marked (information findings are not shown for prose, as in the editor).
+ */
+function proseHtml(text: string, o: PreviewOptions, state: RenderState, escape: (t: string) => string): string | undefined {
+  const found: FormulaRef[] = [];
+  scanProse(text, 0, text.length, o.settings.prose, found);
+  if (found.length === 0) return undefined;
+  let out = '';
+  let at = 0;
+  for (const f of found) {
+    const a = analyseFormula(f.text, o.settings.chem);
+    const shown = a.diagnostics.filter((d) => d.severity !== 'information');
+    out += escape(text.slice(at, f.start));
+    const flags = mark(state, shown, f.text);
+    const w = worst(shown);
+    if (o.typesetFormulas && a.ok && a.molarMass) out += `<span class="iw-formula iw-prose${w ? ` iw-${w}` : ''}" title="${escapeHtml(formulaTitle(a, o.settings))}">${typesetDisplay(a.display)}</span>`;
+    else out += w ? `<span class="iw-code-flagged iw-${w}">${escape(f.text)}</span>` : escape(f.text);
+    out += flags;
+    at = f.end;
+  }
+  return out + escape(text.slice(at));
+}
+
+// ── fenced blocks ─────────────────────────────────────────────────────────
+
+/** Analyse a fenced block on its own, through the editor's document analysis. */
+function analyseFence(info: 'batch' | 'reaction', content: string, settings: ServiceSettings) {
+  const head = '```' + info + '\n';
+  const body = content.endsWith('\n') ? content : content + '\n';
+  const text = head + body + '```\n';
+  const doc = analyseDocument(text, 'markdown', settings);
+  /** 0-based line of a finding within the fence's content. */
+  const contentLine = (offset: number) => doc.lines.positionAt(offset).line - 1;
+  return { doc, contentLine };
+}
+
+const num = (x: number | null | undefined, digits = 4) => sig(x, digits);
+
+function batchHtml(b: BatchAnalysis, o: PreviewOptions, state: RenderState, lineOf: (d: ChemDiagnostic) => number | undefined, subjectOf: (d: ChemDiagnostic) => string): string {
+  const s = o.settings;
+  const head = [
+    `<strong>${escapeHtml(b.name ?? 'Batch')}</strong>`,
+    b.volumeL !== null ? `final volume ${num(b.volumeL * 1000)} mL` : 'no final volume given',
+    b.totalMassG !== null ? `total ${num(b.totalMassG)} g` : null,
+  ].filter(Boolean);
+  const inRow = new Set<ChemDiagnostic>();
+  const rows = b.ingredients.map((i) => {
+    const own = b.diagnostics.filter((d) => d.severity !== 'hint' && d.start >= i.lineStart && d.start <= i.lineEnd);
+    for (const d of own) inRow.add(d);
+    const flags = mark(state, own, subjectOf(own[0] ?? { start: i.lineStart } as ChemDiagnostic), lineOf);
+    return `<tr><td class="iw-ing">${i.analysis.ok ? `<span class="iw-formula" title="${escapeHtml(formulaTitle(i.analysis, s))}">${typesetDisplay(i.formula)}</span>` : escapeHtml(i.formulaText)}${flags}</td>` +
+      `<td>${escapeHtml(i.amount.text)}${i.assay < 1 ? ` @ ${num(i.assay * 100)} %` : ''}</td>` +
+      `<td class="iw-n">${i.molarMass.toFixed(s.decimals)}</td>` +
+      `<td class="iw-n">${num(i.massG)}</td>` +
+      `<td class="iw-n">${num(i.moles)}</td>` +
+      `<td class="iw-n">${num(i.concentrationM)}</td>` +
+      `<td class="iw-n">${i.massFraction === null ? '—' : `${(i.massFraction * 100).toFixed(1)} %`}</td></tr>`;
+  });
+  const parts = [
+    `<figcaption>${head.join(' · ')} <span class="iw-by">computed by Ionwright</span></figcaption>`,
+    '<table class="iw-table"><thead><tr><th>Ingredient</th><th>Amount</th><th>Molar mass (g/mol)</th><th>To weigh (g)</th><th>Moles (mol)</th><th>Concentration (M)</th><th>Mass fraction</th></tr></thead>',
+    `<tbody>${rows.join('')}</tbody></table>`,
+  ];
+  if (b.ions.length) {
+    parts.push('<table class="iw-table iw-ions"><thead><tr><th>Ion</th><th>Charge</th><th>Concentration (M)</th></tr></thead><tbody>' +
+      b.ions.map((x) => `<tr><td>${typesetDisplay(x.ion)}</td><td class="iw-n">${x.charge > 0 ? '+' : '−'}${Math.abs(x.charge)}</td><td class="iw-n">${num(x.concentrationM)}</td></tr>`).join('') +
+      '</tbody></table>');
+  }
+  if (b.ionicStrengthM !== null) {
+    parts.push(`<p class="iw-summary">Ionic strength <var>I</var> = ½ Σ <var>c</var><sub><var>i</var></sub><var>z</var><sub><var>i</var></sub><sup>2</sup> = <strong>${num(b.ionicStrengthM)} M</strong>; net charge ${num(b.netChargeEqPerL ?? 0, 2)} eq/L.</p>`);
+  }
+  const undissociated = b.ingredients.filter((i) => i.undissociated && i.ions.length === 0).map((i) => typesetDisplay(i.formula));
+  if (undissociated.length) parts.push(`<p class="iw-note">Not split into ions: ${undissociated.join(', ')}.</p>`);
+  for (const n of b.notes) parts.push(`<p class="iw-note">${escapeHtml(n)}</p>`);
+  if (b.cautions.length) {
+    parts.push(`<div class="iw-cautions" role="note"><strong>Cautions</strong><ul>${b.cautions.map((c) => `<li>${escapeHtml(c.text)}</li>`).join('')}</ul><p>${escapeHtml(CAUTION_FOOTNOTE)}</p></div>`);
+  }
+  if (b.diagnostics.length) {
+    const items = b.diagnostics.filter((d) => d.severity !== 'hint' && !inRow.has(d)).map((d) => {
+      const line = lineOf(d);
+      return `<li class="iw-${d.severity}">${mark(state, [d], subjectOf(d), lineOf)} ${line !== undefined ? `line ${line}: ` : ''}${escapeHtml(d.message)}</li>`;
+    });
+    if (items.length) parts.push(`<ul class="iw-findings">${items.join('')}</ul>`);
+  }
+  return parts.join('\n');
+}
+
+function reactionBlockHtml(r: ReactionAnalysis, state: RenderState, line: number | undefined): string {
+  const flags = mark(state, r.diagnostics, r.text, () => line);
+  if (!r.ok) return `<div class="iw-reaction iw-unreadable"><code>${escapeHtml(r.text)}</code>${flags}</div>`;
+  const balanced = r.balance.status === 'balanced' && r.balance.coefficients
+    ? `<div class="iw-balanced-form">Balanced: ${typesetEquation(r.parsed, r.balance.coefficients)}</div>`
+    : r.balance.status !== 'already-balanced' ? `<div class="iw-balanced-form">${escapeHtml(r.balance.message)}</div>` : '';
+  return `<div class="iw-reaction"><span class="iw-equation">${typesetEquation(r.parsed)}</span> ${reactionMark(r)}${flags}${balanced}</div>`;
+}
+
+// ── the plugin ────────────────────────────────────────────────────────────
+
+type OptionsSource = Partial<PreviewOptions> | (() => Partial<PreviewOptions>) | undefined;
+
+/**
+ * Install the plugin: `md.use(ionwrightPreview, options)`. `options` may be a function, read at every render
+ * (the editor's settings can change while the preview is open).
+ */
+export function ionwrightPreview(md: MarkdownIt, options?: OptionsSource): void {
+  const current = (): PreviewOptions => {
+    const o = typeof options === 'function' ? options() : options;
+    return { ...DEFAULT_PREVIEW_OPTIONS, ...(o ?? {}) };
+  };
+  const rules = md.renderer.rules;
+  const baseCode = rules.code_inline ?? ((tokens: Token[], idx: number) => `<code>${escapeHtml(tokens[idx].content)}</code>`);
+  const baseFence = rules.fence ?? ((tokens: Token[], idx: number) => `<pre><code>${escapeHtml(tokens[idx].content)}</code></pre>\n`);
+
+  // A fresh list of problems per parse, and a place at the end of the page to list them.
+  md.core.ruler.push('ionwright_problems', (state) => {
+    state.env[ENV_KEY] = { problems: [] } satisfies RenderState;
+    state.tokens.push(new state.Token('ionwright_problems', '', 0));
+    return true;
+  });
+
+  rules.code_inline = (tokens, idx, opts, env, self) => {
+    const fallback = baseCode(tokens, idx, opts, env, self);
+    const content = tokens[idx].content.trim();
+    if (!content) return fallback;
+    const o = current();
+    const state = stateOf(env);
+    try {
+      if (findArrow(content)) return inlineReaction(analyseReaction(content), o, state, fallback);
+      return inlineFormula(analyseFormula(content, o.settings.chem), o, state, fallback);
+    } catch {
+      return fallback;
+    }
+  };
+
+  const baseText = rules.text ?? ((tokens: Token[], idx: number) => escapeHtml(tokens[idx].content));
+  rules.text = (tokens, idx, opts, env, self) => {
+    const o = current();
+    if (o.settings.prose === 'off') return baseText(tokens, idx, opts, env, self);
+    try {
+      return proseHtml(tokens[idx].content, o, stateOf(env), md.utils.escapeHtml) ?? baseText(tokens, idx, opts, env, self);
+    } catch {
+      return baseText(tokens, idx, opts, env, self);
+    }
+  };
+
+  rules.fence = (tokens, idx, opts, env, self) => {
+    const t = tokens[idx];
+    const info = t.info.trim().split(/\s+/)[0]?.toLowerCase();
+    if (info !== 'batch' && info !== 'reaction') return baseFence(tokens, idx, opts, env, self);
+    const o = current();
+    const state = stateOf(env);
+    try {
+      const { doc, contentLine } = analyseFence(info, t.content, o.settings);
+      // 1-based line in the rendered source: the fence opens on map[0], its content starts on the next line.
+      const sourceLine = (offset: number) => (t.map ? t.map[0] + 1 + contentLine(offset) + 1 : undefined);
+      const lineText = (offset: number) => t.content.split('\n')[contentLine(offset)]?.trim() ?? '';
+      const attrs = self.renderAttrs(t);
+      const source = `<details class="iw-source"><summary>As written</summary><pre><code>${escapeHtml(t.content)}</code></pre></details>`;
+      if (info === 'batch') {
+        const bodies = doc.batches.map((b) => batchHtml(b.analysis, o, state, (d) => sourceLine(d.start), (d) => lineText(d.start)));
+        const unclosed = doc.diagnostics.filter((d) => d.code === 'batch-unclosed');
+        return `<figure class="iw-batch"${attrs}>\n${bodies.join('\n') || '<p>An empty batch block.</p>'}${unclosed.length ? mark(state, unclosed, 'batch') : ''}\n${source}</figure>\n`;
+      }
+      const lines = doc.reactions.map((r) => reactionBlockHtml(r.analysis, state, sourceLine(r.ref.start)));
+      return `<figure class="iw-reactions"${attrs}>\n${lines.join('\n') || '<p>No equations in this block.</p>'}\n${source}</figure>\n`;
+    } catch {
+      return baseFence(tokens, idx, opts, env, self);
+    }
+  };
+
+  rules.ionwright_problems = (_tokens, _idx, _opts, env) => {
+    const problems = stateOf(env).problems;
+    if (problems.length === 0) return '';
+    const items = problems.map((p) =>
+      `<li id="iw-problem-${p.n}" class="iw-${p.severity}"><a href="#iw-flag-${p.n}" title="Back to the text">${p.n}</a> ` +
+      `<span class="iw-sev">${SEVERITY_WORD[p.severity]}</span> <code>${escapeHtml(p.subject)}</code>${p.line !== undefined ? ` (line ${p.line})` : ''}: ${escapeHtml(p.message)} <span class="iw-code">${escapeHtml(p.code)}</span></li>`,
+    );
+    const n = problems.length;
+    return `<section class="iw-problems" aria-label="Ionwright findings"><p><strong>Ionwright: ${n} finding${n === 1 ? '' : 's'} in these notes</strong></p><ol>${items.join('')}</ol></section>\n`;
+  };
+}
