@@ -7,12 +7,12 @@ import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { CLIENT_COMMANDS, planCommand, resultMessage, SERVER_COMMANDS } from '../client/src/commands';
 import { COMMANDS } from '../server/src/server/server';
-import { readSettings } from '../server/src/server/settings';
+import { readSettings } from '../server/src/service/config';
 import { DebouncedValidator, type Timers } from '../server/src/server/validator';
 
 const pkg = JSON.parse(readFileSync(join(__dirname, '../package.json'), 'utf8'));
 const extensionSource = readFileSync(join(__dirname, '../client/src/extension.ts'), 'utf8');
-const settingsSource = readFileSync(join(__dirname, '../server/src/server/settings.ts'), 'utf8');
+const settingsSource = readFileSync(join(__dirname, '../server/src/service/config.ts'), 'utf8');
 
 describe('client commands', () => {
   const editor = { uri: 'file:///a.md', languageId: 'markdown', selection: { start: { line: 1, character: 2 }, end: { line: 3, character: 0 } } };

@@ -1,7 +1,13 @@
-/** The VS Code client: starts the Ionwright language server over IPC and registers the commands. */
+/**
+ * The VS Code client: starts the Ionwright language server over IPC, registers the commands, and extends
+ * the built-in Markdown preview with Ionwright's markdown-it plugin.
+ */
 import * as path from 'node:path';
 import * as vscode from 'vscode';
 import { LanguageClient, TransportKind, type LanguageClientOptions, type ServerOptions } from 'vscode-languageclient/node';
+import type { MarkdownIt } from 'markdown-it';
+import { readPreviewOptions } from '../../server/src/service/config';
+import { ionwrightPreview, type PreviewOptions } from '../../server/src/service/preview';
 import { CLIENT_COMMANDS, NOTES_LANGUAGES, planCommand, resultMessage, type EditorState } from './commands';
 
 let client: LanguageClient | undefined;
@@ -17,7 +23,7 @@ function editorState(): EditorState | undefined {
   };
 }
 
-export async function activate(context: vscode.ExtensionContext) {
+export function activate(context: vscode.ExtensionContext) {
   const output = vscode.window.createOutputChannel('Ionwright', { log: true });
   const module = context.asAbsolutePath(path.join('dist', 'server.js'));
   const serverOptions: ServerOptions = {
@@ -59,12 +65,27 @@ export async function activate(context: vscode.ExtensionContext) {
     }),
     vscode.commands.registerCommand(CLIENT_COMMANDS.showOutput, () => output.show(true)),
   );
-  try {
-    await client.start();
-    output.info('Ionwright server started.');
-  } catch (e) {
-    output.info(`The Ionwright server did not start: ${(e as Error).message}`);
-  }
+  // The preview reads the settings once per change, not once per render.
+  let previewOptions: PreviewOptions = readPreviewOptions(vscode.workspace.getConfiguration().get('ionwright'));
+  context.subscriptions.push(
+    vscode.workspace.onDidChangeConfiguration((e) => {
+      if (!e.affectsConfiguration('ionwright')) return;
+      previewOptions = readPreviewOptions(vscode.workspace.getConfiguration().get('ionwright'));
+      void vscode.commands.executeCommand('markdown.preview.refresh');
+    }),
+  );
+
+  // Not awaited: the preview plugin must not wait for the server.
+  client.start().then(
+    () => output.info('Ionwright server started.'),
+    (e) => output.info(`The Ionwright server did not start: ${(e as Error).message}`),
+  );
+
+  return {
+    extendMarkdownIt(md: MarkdownIt) {
+      return md.use(ionwrightPreview, () => previewOptions);
+    },
+  };
 }
 
 export async function deactivate() {

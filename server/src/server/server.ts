@@ -23,7 +23,7 @@ import { targetAt } from '../service/lookup';
 import type { Position, Range } from '../service/positions';
 import { codeLenses, documentSymbols } from '../service/symbols';
 import { analyseFormula } from '../chem/analyse';
-import { readSettings, type ServerSettings } from './settings';
+import { readSettings, type ServerSettings } from '../service/config';
 import { DebouncedValidator, realTimers, type Timers } from './validator';
 
 export const COMMANDS = {

@@ -1,6 +1,7 @@
 /** `ionwright.*` configuration → service settings, with every value checked (bad values fall back to defaults). */
 import type { ChemSettings } from '../chem/settings';
-import { DEFAULT_SETTINGS, type ServiceSettings } from '../service/settings';
+import { DEFAULT_PREVIEW_OPTIONS, type PreviewOptions } from './preview';
+import { DEFAULT_SETTINGS, type ServiceSettings } from './settings';
 
 const num = (v: unknown, lo: number, hi: number, dflt: number) => (typeof v === 'number' && Number.isFinite(v) && v >= lo && v <= hi ? v : dflt);
 const oneOf = <T extends string>(v: unknown, allowed: readonly T[], dflt: T): T => (typeof v === 'string' && (allowed as readonly string[]).includes(v) ? (v as T) : dflt);
@@ -48,4 +49,12 @@ export function readSettings(raw: unknown): ServerSettings {
   };
   const same = service.prose === d.prose && service.decimals === d.decimals && service.energyUnit === d.energyUnit && service.chem === d.chem;
   return { service: same ? d : intern(service), validationDelayMs: Math.round(num(validation.delayMs, 0, 5000, 150)) };
+}
+
+/** `ionwright.*` configuration → the options of the Markdown preview plugin (`preview.typesetFormulas`). */
+export function readPreviewOptions(raw: unknown): PreviewOptions {
+  const r = (raw && typeof raw === 'object' ? raw : {}) as Record<string, any>;
+  const preview = (r.preview && typeof r.preview === 'object' ? r.preview : {}) as Record<string, unknown>;
+  const typesetFormulas = typeof preview.typesetFormulas === 'boolean' ? preview.typesetFormulas : DEFAULT_PREVIEW_OPTIONS.typesetFormulas;
+  return { typesetFormulas, settings: readSettings(raw).service };
 }
