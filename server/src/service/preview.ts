@@ -46,9 +46,13 @@ export interface PreviewProblem {
   line?: number;
 }
 
-interface RenderState {
+export interface RenderState {
   problems: PreviewProblem[];
+  /** Render without markers (a page that lists its findings in its own way). */
+  silent?: boolean;
 }
+
+export const silentState = (): RenderState => ({ problems: [], silent: true });
 
 const ENV_KEY = '__ionwright';
 const SEVERITY_WORD = { error: 'error', warning: 'warning', information: 'note', hint: 'hint' } as const;
@@ -64,6 +68,7 @@ function stateOf(env: Record<string, unknown> | undefined): RenderState {
 /** Record problems and return their markers (one marker per problem, linked to the list at the end). */
 function mark(state: RenderState, diagnostics: readonly ChemDiagnostic[], subject: string, lineOf?: (d: ChemDiagnostic) => number | undefined): string {
   let out = '';
+  if (state.silent) return out;
   for (const d of diagnostics) {
     if (d.severity === 'hint') continue;
     const n = state.problems.length + 1;
@@ -81,7 +86,7 @@ function worst(diagnostics: readonly ChemDiagnostic[]): ChemDiagnostic['severity
 }
 
 /** The tooltip of a typeset formula: the headline numbers of its card. */
-function formulaTitle(a: FormulaAnalysis, s: ServiceSettings): string {
+export function formulaTitle(a: FormulaAnalysis, s: ServiceSettings): string {
   const bits = [`${a.display}: ${a.molarMass ? `${a.molarMass.value.toFixed(s.decimals)} g/mol` : 'no molar mass'}`];
   if (a.charges && !a.charges.balanced) bits.push(`not charge-balanced: ${a.charges.message}`);
   if (a.bond) bits.push(`${a.bond.type}, ΔEN ${a.bond.deltaEN.toFixed(2)} (${a.bond.pair.join('–')})`);
@@ -91,7 +96,7 @@ function formulaTitle(a: FormulaAnalysis, s: ServiceSettings): string {
   return bits.join(' · ');
 }
 
-function reactionMark(r: ReactionAnalysis): string {
+export function reactionMark(r: ReactionAnalysis): string {
   const st = r.balance.status;
   if (!r.ok) return '';
   if (st === 'already-balanced') return '<span class="iw-mark iw-balanced" title="Atoms and charge balance as written">✓ balanced</span>';
@@ -152,7 +157,7 @@ function analyseFence(info: 'batch' | 'reaction', content: string, settings: Ser
 
 const num = (x: number | null | undefined, digits = 4) => sig(x, digits);
 
-function batchHtml(b: BatchAnalysis, o: PreviewOptions, state: RenderState, lineOf: (d: ChemDiagnostic) => number | undefined, subjectOf: (d: ChemDiagnostic) => string): string {
+export function batchHtml(b: BatchAnalysis, o: PreviewOptions, state: RenderState, lineOf: (d: ChemDiagnostic) => number | undefined, subjectOf: (d: ChemDiagnostic) => string): string {
   const s = o.settings;
   const head = [
     `<strong>${escapeHtml(b.name ?? 'Batch')}</strong>`,
@@ -201,7 +206,7 @@ function batchHtml(b: BatchAnalysis, o: PreviewOptions, state: RenderState, line
   return parts.join('\n');
 }
 
-function reactionBlockHtml(r: ReactionAnalysis, state: RenderState, line: number | undefined): string {
+export function reactionBlockHtml(r: ReactionAnalysis, state: RenderState, line: number | undefined): string {
   const flags = mark(state, r.diagnostics, r.text, () => line);
   if (!r.ok) return `<div class="iw-reaction iw-unreadable"><code>${escapeHtml(r.text)}</code>${flags}</div>`;
   const balanced = r.balance.status === 'balanced' && r.balance.coefficients

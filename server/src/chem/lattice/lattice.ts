@@ -42,6 +42,10 @@ export interface LatticeAssessment {
   salt: string;
   meltingPointC?: number;
   meltingPointSource?: string;
+  /** |z₊ z₋| of the salt's ions. */
+  chargeProduct: number;
+  /** r₊ + r₋ in Å with six-coordinate Shannon or thermochemical radii (as Kapustinskii uses), where both are known. */
+  radiusSum?: number;
 }
 
 export const KAPUSTINSKII_K = 1202.5;
@@ -207,6 +211,8 @@ export function estimateLattice(formula: Formula, _atoms: AtomCounts, charges: C
     estimate: best.estimate,
     typicalError: TYPICAL_ERROR[best.method],
     salt: saltText,
+    chargeProduct: Math.abs(c.charge * a.charge),
+    ...(rc6 && ra6 ? { radiusSum: round2(rc6.radius + ra6.radius) } : {}),
     ...(mp !== undefined ? { meltingPointC: mp, meltingPointSource: 'CRC Handbook (value recalled, not checked against the book)' } : {}),
   };
 }
