@@ -113,6 +113,24 @@ function inverseScale(ticks: Array<{ value: number; pos: number }>, offset = 0) 
   return (px: number) => a.value + ((px - (a.pos - offset)) / (b.pos - a.pos)) * (b.value - a.value);
 }
 
+/** A label's box, with the chart's own width estimate (the font is the host's, so no exact metrics). */
+const labelBox = (l: El) => {
+  const x = num(l.attrs.x);
+  const y = num(l.attrs.y);
+  return { x0: x, x1: x + textWidth(l.text, 11.5), y0: y - 9, y1: y + 2 };
+};
+function overlappingPairs(labels: El[]): string[] {
+  const boxes = labels.map(labelBox);
+  const out: string[] = [];
+  for (let i = 0; i < boxes.length; i++)
+    for (let j = i + 1; j < boxes.length; j++) {
+      const a = boxes[i];
+      const b = boxes[j];
+      if (!(a.x1 <= b.x0 || b.x1 <= a.x0 || a.y1 <= b.y0 || b.y1 <= a.y0)) out.push(`${labels[i].text} / ${labels[j].text}`);
+    }
+  return out;
+}
+
 const isNiceStep = (step: number) => {
   const mag = Math.pow(10, Math.floor(Math.log10(step) + 1e-9));
   const m = Math.round((step / mag) * 1000) / 1000;
@@ -275,14 +293,31 @@ describe('latticeChart: geometry and scales', () => {
     expect(one(c, hasClass('iw-lc-xtitle')).text).toBe('Charge product |z₊z₋|');
   });
 
-  it('in charge-product mode, x is |z₊z₋| with whole-number ticks', () => {
+  it('in charge-product mode, x is |z₊z₋| with whole-number ticks; a stack is dodged sideways, keeping x order', () => {
     const c = parse(latticeChart([...SALTS, NH4NO3], { x: 'charge-product' }));
     const cp = pointsOf(c);
     expect(cp).toHaveLength(7); // NH₄NO₃ has no radius but a charge product
     const fromX = inverseScale(ticksOf(c, 'iw-lc-xticks', 'x'));
-    for (const p of cp) {
-      const salt = [...SALTS, NH4NO3].find((s) => s.label === p.title.split(':')[0]) as LatticePoint;
-      expect(fromX(p.cx)).toBeCloseTo(salt.chargeProduct, 2);
+    const fromY = inverseScale(ticksOf(c, 'iw-lc-yticks', 'y'), 11 * 0.35);
+    const salts = cp.map((p) => [...SALTS, NH4NO3].find((s) => s.label === p.title.split(':')[0]) as LatticePoint);
+    cp.forEach((p, i) => {
+      // within 0.4 of the gap between charge products (1 here), energy exact
+      expect(Math.abs(fromX(p.cx) - salts[i].chargeProduct)).toBeLessThan(0.4);
+      expect(Math.abs(fromY(p.cy) - salts[i].kJPerMol)).toBeLessThan(10);
+    });
+    for (let i = 0; i < cp.length; i++)
+      for (let j = 0; j < cp.length; j++) {
+        if (salts[i].chargeProduct < salts[j].chargeProduct) expect(cp[i].cx).toBeLessThan(cp[j].cx);
+        // the five salts at |z₊z₋| = 1 lie within 380 kJ/mol (~30 px) of each other, yet no two markers overlap
+        if (i < j) expect(Math.hypot(cp[i].cx - cp[j].cx, cp[i].cy - cp[j].cy), `${salts[i].label} / ${salts[j].label}`).toBeGreaterThanOrEqual(9);
+      }
+    // a label pushed away from its marker gets a leader from that marker's edge to the label's box
+    const leaders = all(c, hasClass('iw-lc-leaders')).flatMap((g) => g.children);
+    const boxes = one(c, hasClass('iw-lc-labels')).children.map(labelBox);
+    for (const l of leaders) {
+      const [x1, y1, x2, y2] = [l.attrs.x1, l.attrs.y1, l.attrs.x2, l.attrs.y2].map(Number);
+      expect(cp.some((p) => Math.abs(Math.hypot(p.cx - x1, p.cy - y1) - 6) < 0.1)).toBe(true);
+      expect(boxes.some((b) => x2 >= b.x0 - 1.5 && x2 <= b.x1 + 1.5 && y2 >= b.y0 - 1.5 && y2 <= b.y1 + 1.5)).toBe(true);
     }
     for (const t of ticksOf(c, 'iw-lc-xticks', 'x')) expect(Number.isInteger(t.value)).toBe(true);
     expect(all(c, hasClass('iw-lc-guide-line'))).toHaveLength(0);
@@ -291,31 +326,21 @@ describe('latticeChart: geometry and scales', () => {
   it('labels every point with its formula, without labels overlapping each other', () => {
     const labels = one(svg, hasClass('iw-lc-labels')).children;
     expect(labels.map((l) => l.text).sort()).toEqual(SALTS.map((s) => s.label).sort());
-    const boxes = labels.map((l) => {
-      const x = num(l.attrs.x);
-      const y = num(l.attrs.y);
-      return { x0: x, x1: x + textWidth(l.text, 11.5), y0: y - 9, y1: y + 2 };
-    });
-    for (let i = 0; i < boxes.length; i++)
-      for (let j = i + 1; j < boxes.length; j++) {
-        const a = boxes[i];
-        const b = boxes[j];
-        const apart = a.x1 <= b.x0 || b.x1 <= a.x0 || a.y1 <= b.y0 || b.y1 <= a.y0;
-        expect(apart, `${labels[i].text} / ${labels[j].text}`).toBe(true);
-      }
+    expect(overlappingPairs(labels)).toEqual([]);
+    const boxes = labels.map(labelBox);
     // and no label sits on a marker's centre
     for (const p of pts) for (const b of boxes) expect(p.cx > b.x0 && p.cx < b.x1 && p.cy > b.y0 && p.cy < b.y1).toBe(false);
   });
 
-  it('nudges labels of crowded points apart (same x in charge-product mode)', () => {
-    const crowd: LatticePoint[] = ['NaF', 'NaCl', 'KCl', 'KBr', 'NaBr'].map((label, i) => ({
-      label, kJPerMol: 700 + i * 40, method: 'Born–Haber cycle', estimate: false, inverseR0: null, chargeProduct: 1,
+  it('nudges labels of a stack of near-equal values apart (same x in charge-product mode)', () => {
+    // Five salts within 16 px of each other at |z₊z₋| = 1: all labels to the right would overlap 7 times.
+    const crowd: LatticePoint[] = [['NaF', 910], ['NaCl', 787], ['KCl', 717], ['KBr', 689], ['NaBr', 747]].map(([label, u]) => ({
+      label: label as string, kJPerMol: u as number, method: 'Born–Haber cycle', estimate: false, inverseR0: null, chargeProduct: 1,
     }));
     const c = parse(latticeChart([...crowd, SALTS[2]], { x: 'charge-product' }));
     const labels = one(c, hasClass('iw-lc-labels')).children;
     expect(labels).toHaveLength(6);
-    const positions = new Set(labels.map((l) => `${l.attrs.x},${l.attrs.y}`));
-    expect(positions.size).toBe(6);
+    expect(overlappingPairs(labels)).toEqual([]);
   });
 });
 

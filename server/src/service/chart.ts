@@ -76,6 +76,8 @@ const MAX_SIZE = 4096;
 /** Up to this many salts every label is drawn, overlapping or not; above it, unplaceable labels are left out. */
 const ALWAYS_LABEL = 30;
 const MAX_LABEL_CHARS = 22;
+/** Label spots from this index on are a line or more away from the marker and get a leader line. */
+const FAR_SPOTS = 8;
 
 const COLOURS = {
   estimate: '#3b7dd8',
@@ -528,6 +530,7 @@ export function latticeChart(points: LatticePoint[], options?: LatticeChartOptio
   const obstacles = new BoxIndex();
   const placed = new BoxIndex();
   const centres = plotted.map((p) => ({ cx: sx(p.x), cy: sy(p.kJ), my: p.mp !== null ? sm(p.mp) : null }));
+  if (mode === 'charge-product') dodge(centres, plotted.map((p) => p.x), r, plotW / (xT.max - xT.min));
   const markerBoxes: Box[] = centres.map(({ cx, cy }) => ({ x0: cx - r - 1, y0: cy - r - 1, x1: cx + r + 1, y1: cy + r + 1 }));
   for (const b of markerBoxes) obstacles.add(b);
   for (const c of centres)
@@ -574,8 +577,9 @@ export function latticeChart(points: LatticePoint[], options?: LatticeChartOptio
     obstacles.add(best.box);
   }
 
-  // Formula labels, nudged: the first free spot of eight around the marker, else the least crowded one.
+  // Formula labels, nudged: the first free spot of sixteen around the marker, else the least crowded one.
   const labelOut: string[] = [];
+  const leaders: string[] = [];
   let omitted = 0;
   const lh = fsLabel;
   plotted.forEach((p, i) => {
@@ -592,14 +596,23 @@ export function latticeChart(points: LatticePoint[], options?: LatticeChartOptio
       [cx + g - 2, cy + g + lh * 0.7],
       [cx - g - w + 2, cy - g],
       [cx - g - w + 2, cy + g + lh * 0.7],
+      // FAR_SPOTS: one and two lines further out, for stacks of near-equal values
+      [cx + g, cy + lh * 1.35],
+      [cx + g, cy - lh * 0.65],
+      [cx - g - w, cy + lh * 1.35],
+      [cx - g - w, cy - lh * 0.65],
+      [cx + g, cy + lh * 2.35],
+      [cx + g, cy - lh * 1.65],
+      [cx - g - w, cy + lh * 2.35],
+      [cx - g - w, cy - lh * 1.65],
     ];
-    let best: { x: number; y: number; box: Box; score: number } | null = null;
+    let best: { x: number; y: number; box: Box; score: number; k: number } | null = null;
     for (let k = 0; k < spots.length; k++) {
       const [bx, by] = spots[k];
       const box = { x0: bx, y0: by - lh * 0.8, x1: bx + w, y1: by + lh * 0.2 };
       const outside = box.x0 < plotLeft + 1 || box.x1 > plotRight - 1 || box.y0 < plotTop - 6 || box.y1 > plotBottom - 1;
       const score = obstacles.overlapWith(box, markerBoxes[i]) + placed.overlapWith(box) + (outside ? 1e6 : 0) + k * 0.01;
-      if (!best || score < best.score) best = { x: bx, y: by, box, score };
+      if (!best || score < best.score) best = { x: bx, y: by, box, score, k };
       if (score < 1) break;
     }
     if (!best) return;
@@ -609,6 +622,18 @@ export function latticeChart(points: LatticePoint[], options?: LatticeChartOptio
     }
     placed.add(best.box);
     labelOut.push(`<text x="${n(best.x)}" y="${n(best.y)}">${xml(p.shown)}</text>`);
+    if (best.k >= FAR_SPOTS) {
+      // A label a line or more away from its marker gets a faint leader to it.
+      const b = best.box;
+      const tx = Math.max(b.x0, Math.min(b.x1, cx));
+      const ty = Math.max(b.y0, Math.min(b.y1, cy));
+      const len = Math.hypot(tx - cx, ty - cy);
+      if (len > r + 4) {
+        const ux = (tx - cx) / len;
+        const uy = (ty - cy) / len;
+        leaders.push(`<line x1="${n(cx + ux * (r + 1.5))}" y1="${n(cy + uy * (r + 1.5))}" x2="${n(tx - ux)}" y2="${n(ty - uy)}"/>`);
+      }
+    }
   });
 
   // The description.
@@ -759,7 +784,12 @@ export function latticeChart(points: LatticePoint[], options?: LatticeChartOptio
   });
   out.push(`</g>`);
 
-  // Labels on top.
+  // Labels on top, with their leaders.
+  if (leaders.length) {
+    out.push(`<g class="iw-lc-axis iw-lc-leaders" stroke="currentColor" stroke-opacity="0.5" stroke-width="0.8" aria-hidden="true">`);
+    out.push(...leaders);
+    out.push(`</g>`);
+  }
   out.push(`<g class="iw-lc-text iw-lc-label iw-lc-labels" fill="currentColor" font-size="${fsLabel}" aria-hidden="true">`);
   out.push(...labelOut);
   out.push(`</g>`);
@@ -789,6 +819,45 @@ function markerMelt(cx: number, cy: number, s: number): string {
     `<path class="iw-lc-melt" d="M${n(cx - s)} ${n(cy - s)}L${n(cx + s)} ${n(cy + s)}M${n(cx - s)} ${n(cy + s)}L${n(cx + s)} ${n(cy - s)}" ` +
     `fill="none" stroke="${COLOURS.melt}" stroke-width="1.8" stroke-linecap="round"/>`
   );
+}
+
+/**
+ * On the charge-product axis many salts share one x value. Markers that would overlap are moved sideways
+ * (0, +d, −d, +2d, …, d a marker's width) by less than 40 % of the gap to the next x value, so the x order is
+ * kept and the stack can be read; the tooltip keeps the exact values. Changes `centres` in place.
+ */
+function dodge(centres: Array<{ cx: number; cy: number }>, xs: number[], r: number, pxPerUnit: number): void {
+  const distinct = [...new Set(xs)].sort((a, b) => a - b);
+  let gap = Infinity;
+  for (let i = 1; i < distinct.length; i++) gap = Math.min(gap, (distinct[i] - distinct[i - 1]) * pxPerUnit);
+  const d = 2 * r + 2;
+  const maxK = Math.max(0, Math.floor((Math.min(gap, 200) * 0.4) / d));
+  const groups = new Map<number, number[]>();
+  xs.forEach((x, i) => groups.set(x, [...(groups.get(x) ?? []), i]));
+  for (const [, idx] of [...groups].sort((a, b) => a[0] - b[0])) {
+    const done: Array<{ cx: number; cy: number }> = [];
+    for (const i of idx) {
+      const c = centres[i];
+      const base = c.cx;
+      let best = base;
+      let bestClear = -Infinity;
+      for (let k = 0; k <= 2 * maxK; k++) {
+        const off = (k % 2 ? 1 : -1) * Math.ceil(k / 2) * d;
+        const x = base + off;
+        const clear = Math.min(Infinity, ...done.map((o) => Math.hypot(o.cx - x, o.cy - c.cy)));
+        if (clear >= d - 1) {
+          best = x;
+          break;
+        }
+        if (clear > bestClear) {
+          bestClear = clear;
+          best = x;
+        }
+      }
+      c.cx = best;
+      done.push(c);
+    }
+  }
 }
 
 /** The part of the fitted line over [x0, x1] whose value lies within [ymin, ymax]; null if none. */
