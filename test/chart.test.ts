@@ -383,7 +383,14 @@ describe('latticeChart: melting points', () => {
     const mps = all(svg, hasClass('iw-lc-mp'));
     const withMp = SALTS.filter((s) => s.meltingPointC !== undefined);
     expect(mps).toHaveLength(withMp.length);
-    const fromM = inverseScale(ticksOf(svg, 'iw-lc-mticks', 'y'), 11 * 0.35);
+    const mTicks = ticksOf(svg, 'iw-lc-mticks', 'y');
+    // the right axis runs upwards like the left one: a larger value, a smaller y
+    for (let i = 1; i < mTicks.length; i++) {
+      expect(mTicks[i].value).toBeGreaterThan(mTicks[i - 1].value);
+      expect(mTicks[i].pos).toBeLessThan(mTicks[i - 1].pos);
+    }
+    const fromM = inverseScale(mTicks, 11 * 0.35);
+    const crossY: Array<[number, number]> = [];
     const plot = plotArea(svg);
     const pts = new Map(pointsOf(svg).map((p) => [p.title.split(':')[0], p]));
     for (const g of mps) {
@@ -398,9 +405,11 @@ describe('latticeChart: melting points', () => {
       const cy = (nums[1] + nums[3]) / 2;
       expect(cx).toBeCloseTo((pts.get(label) as PointView).cx, 1);
       expect(Math.abs(fromM(cy) - (salt.meltingPointC as number))).toBeLessThan(10);
+      crossY.push([salt.meltingPointC as number, cy]);
       expect(cy).toBeGreaterThanOrEqual(plot.y0 - 0.01);
       expect(cy).toBeLessThanOrEqual(plot.y1 + 0.01);
     }
+    for (const [ma, ya] of crossY) for (const [mb, yb] of crossY) if (ma > mb) expect(ya).toBeLessThan(yb);
     expect(all(svg, hasClass('iw-lc-legend-item')).some((i) => i.attrs['data-kind'] === 'melt' && /melting point/.test(i.text))).toBe(true);
     expect(one(svg, (e) => e.name === 'desc').text).toMatch(/Melting points of 5 salts on the right axis/);
   });

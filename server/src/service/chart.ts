@@ -13,17 +13,20 @@
  * - In the inverse-radius mode, a dashed least-squares line per charge-product group with at least three
  *   salts at two or more distinct x values: a guide to the eye (U grows roughly with z₊z₋/r₀ by Coulomb's
  *   law), labelled as a guide and not as a model.
- * - Every marker has a <title> tooltip; the formula labels are nudged around markers and each other, and
- *   on a crowded chart a label that cannot be placed without overlap is left out (its tooltip remains).
+ * - Every marker has a <title> tooltip; the formula labels are nudged around markers and each other (a label
+ *   pushed a line or more away gets a faint leader), and on a crowded chart (over 30 salts) a label that
+ *   cannot be placed without overlap is left out and counted in the <desc> (its tooltip remains).
+ * - On the charge-product axis, markers of salts sharing a charge product that would overlap are dodged
+ *   sideways by less than 40 % of the gap between charge products.
  *
  * Theming: a <style> inside the svg, scoped by the class `iw-lattice`, reads CSS custom properties with
  * fallbacks (see `CHART_CSS_VARIABLES`); text, axes and grid follow `currentColor`, so the host sets
  * `color` on the container. The fallback accents are mid-tones with at least 3:1 contrast on both a white
- * and a #1e1e1e background. Groups also carry plain presentation attributes, so the chart stays legible if
+ * and a #1e1e1e background. Elements also carry plain presentation attributes, so the chart stays legible if
  * a host's content security policy drops the <style>.
  *
- * Pure: no editor, LSP or file-system imports. Never throws; same input → same string; every number
- * written into the svg is rounded to 2 decimals.
+ * Pure: no editor, LSP or file-system imports. Never throws; same input → same string; every coordinate
+ * and size in the svg is rounded to 2 decimals (tick labels and tooltips carry the digits their values need).
  */
 
 export interface LatticePoint {
