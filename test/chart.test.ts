@@ -476,6 +476,13 @@ describe('latticeChart: least-squares guides', () => {
     const cxs = new Set(pointsOf(svg).map((p) => p.cx));
     expect(cxs.size).toBe(1);
   });
+
+  it('draws no guide for salts bunched within 5 % of one x (three sulfates at 0.343–0.346 Å⁻¹)', () => {
+    const bunched: LatticePoint[] = [[0.343, 2905], [0.345, 2914], [0.346, 2923]].map(([x, u], i) => ({
+      label: `T${i}`, kJPerMol: u, method: 'Kapustinskii equation', estimate: true, inverseR0: x, chargeProduct: 4,
+    }));
+    expect(all(parse(latticeChart(bunched)), hasClass('iw-lc-guide-line'))).toHaveLength(0);
+  });
 });
 
 describe('latticeChart: bad input', () => {

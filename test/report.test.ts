@@ -57,7 +57,7 @@ describe('the HTML report', () => {
   it('has the batches as computed tables and the reactions with their balance', () => {
     expect($('#batches ~ figure.iw-batch').length).toBe(doc.batches.length);
     expect($('figure.iw-batch figcaption').first().text()).toContain('Rinse buffer R-7');
-    expect($('figure.iw-reactions .iw-reaction').length).toBe(doc.reactions.length);
+    expect($('#reactions + figure.iw-reactions .iw-reaction').length).toBe(doc.reactions.length);
     expect($('figure.iw-reactions .iw-mark.iw-unbalanced').length).toBeGreaterThan(0);
   });
 

@@ -482,6 +482,10 @@ export function latticeChart(points: LatticePoint[], options?: LatticeChartOptio
     for (const z of [...groups.keys()].sort((a, b) => a - b)) {
       const g = groups.get(z) as Plotted[];
       if (g.length < 3) continue;
+      // A line through points that share nearly one x says nothing: ask for a spread of 5 % of their mean x.
+      const xs = g.map((p) => p.x);
+      const meanX = xs.reduce((a, b) => a + b, 0) / xs.length;
+      if (Math.max(...xs) - Math.min(...xs) < 0.05 * Math.abs(meanX)) continue;
       const fit = leastSquares(g.map((p) => p.x), g.map((p) => p.kJ));
       if (!fit || !Number.isFinite(fit.slope) || !Number.isFinite(fit.intercept)) continue;
       guides.push({ z, fit, x0: Math.min(...g.map((p) => p.x)), x1: Math.max(...g.map((p) => p.x)) });

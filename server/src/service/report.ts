@@ -122,7 +122,7 @@ export function reportHtml(doc: AnalysedDocument, options: ReportOptions): strin
     return doc.text.slice(doc.lines.offsetAt({ line: p.line, character: 0 }), doc.lines.offsetAt({ line: p.line + 1, character: 0 })).trim();
   };
   const count = (sev: number) => diagnostics.filter((d) => d.severity === sev).length;
-  const plural = (n: number, word: string) => `<strong>${n}</strong> ${word}${n === 1 ? '' : 's'}`;
+  const plural = (n: number, word: string) => `<strong>${n}</strong> ${n === 1 ? word : /(ch|sh|s|x)$/.test(word) ? `${word}es` : `${word}s`}`;
   const cautions = [...new Set(formulas.flatMap((a) => cautionsFor(a).map((c) => c.text)))];
 
   const parts: string[] = [];
