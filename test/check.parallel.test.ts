@@ -12,7 +12,7 @@ import { describe, expect, it } from 'vitest';
 import { generateNotes } from '../bench/generate';
 import { AUTO_MIN_CHARS, AUTO_MIN_FILES, readJobs, workerCount } from '../server/src/cli/check';
 import { nodeIO, run, type CliIO } from '../server/src/cli/main';
-import { checkHere, checkInWorkers, WORKER_ROLE, type CheckJob } from '../server/src/cli/pool';
+import { checkHere, checkInWorkers, WORKER_ROLE, type CheckJob, type CheckOutcome } from '../server/src/cli/pool';
 
 const CLI = join(__dirname, '../dist/cli.js');
 const bundleWorker = () => new Worker(CLI, { workerData: { role: WORKER_ROLE } });
@@ -112,7 +112,7 @@ parentPort.on('message', (m) => { queue.push(m); next(); });
 parentPort.postMessage({ ready: true });
 `;
 const fakeWorker = () => new Worker(FAKE, { eval: true });
-const messages = (o: { diagnostics?: Array<{ message: string }> }) => o.diagnostics?.map((d) => d.message);
+const messages = (o: CheckOutcome) => ('diagnostics' in o ? o.diagnostics.map((d) => d.message) : undefined);
 
 describe('the worker pool when workers misbehave', () => {
   it('keeps the files\' order whichever worker answers first', async () => {
@@ -127,7 +127,7 @@ describe('the worker pool when workers misbehave', () => {
     const r = await checkInWorkers(jobs, { size, start: fakeWorker });
     r.outcomes.forEach((o, i) => {
       if (texts[i] === 'EXIT') expect(o).toEqual({ failure: 'analysis stopped: its worker thread exited with code 3' });
-      else expect(messages(o as never)).toEqual([jobs[i].path]);
+      else expect(messages(o)).toEqual([jobs[i].path]);
     });
     expect(r.notice).toBeUndefined();
   });
@@ -136,7 +136,7 @@ describe('the worker pool when workers misbehave', () => {
     const jobs = jobsOf(['text', 'THROW', 'text', 'text']);
     const r = await checkInWorkers(jobs, { size: 2, start: fakeWorker });
     expect(r.outcomes[1]).toEqual({ failure: 'analysis stopped: its worker thread failed: stand-in worker broke on n1.md' });
-    expect([0, 2, 3].map((i) => messages(r.outcomes[i] as never))).toEqual([['n0.md'], ['n2.md'], ['n3.fnote']]);
+    expect([0, 2, 3].map((i) => messages(r.outcomes[i]))).toEqual([['n0.md'], ['n2.md'], ['n3.fnote']]);
   });
 
   it('workers that cannot start leave the files to this thread, with a notice', async () => {
