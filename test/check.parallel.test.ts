@@ -10,7 +10,7 @@ import { join } from 'node:path';
 import { Worker } from 'node:worker_threads';
 import { describe, expect, it } from 'vitest';
 import { generateNotes } from '../bench/generate';
-import { AUTO_MIN_CHARS, AUTO_MIN_FILES, readJobs, workerCount } from '../server/src/cli/check';
+import { AUTO_MIN_CHARS, AUTO_MIN_CORES, AUTO_MIN_FILES, readJobs, workerCount } from '../server/src/cli/check';
 import { nodeIO, run, type CliIO } from '../server/src/cli/main';
 import { checkHere, checkInWorkers, WORKER_ROLE, type CheckJob, type CheckOutcome } from '../server/src/cli/pool';
 
@@ -43,11 +43,12 @@ describe('choosing the number of workers', () => {
     expect(() => readJobs(undefined, 'x')).toThrow(/IONWRIGHT_JOBS must be/);
   });
 
-  it('auto stays in this thread for few files, little text or one core; a number is honoured up to the files', () => {
+  it('auto stays in this thread for few files, little text or few cores, else leaves one core free; a number is honoured up to the files', () => {
     expect(workerCount('auto', AUTO_MIN_FILES - 1, 10 * AUTO_MIN_CHARS, 8)).toBe(1);
     expect(workerCount('auto', 100, AUTO_MIN_CHARS - 1, 8)).toBe(1);
-    expect(workerCount('auto', 100, AUTO_MIN_CHARS, 1)).toBe(1);
-    expect(workerCount('auto', 100, AUTO_MIN_CHARS, 2)).toBe(2);
+    expect(workerCount('auto', 100, AUTO_MIN_CHARS, AUTO_MIN_CORES - 1)).toBe(1);
+    expect(workerCount('auto', 100, AUTO_MIN_CHARS, 2)).toBe(1);
+    expect(workerCount('auto', 100, AUTO_MIN_CHARS, AUTO_MIN_CORES)).toBe(AUTO_MIN_CORES - 1);
     expect(workerCount('auto', AUTO_MIN_FILES, AUTO_MIN_CHARS, 64)).toBe(AUTO_MIN_FILES);
     expect(workerCount(1, 100, 10 * AUTO_MIN_CHARS, 8)).toBe(1);
     expect(workerCount(4, 3, 10, 2)).toBe(3);
@@ -222,22 +223,28 @@ function captured(tty: boolean, workers: boolean): CliIO & { outText: string; er
 }
 
 describe('when check starts workers', () => {
-  it('auto: one per core for the folder of 40 notes, none for a few files; --jobs 1: none', async () => {
-    const many = notesFolder(40, 4);
-    const auto = captured(false, true);
-    expect(await run(['check', many], auto)).toBe(1);
-    expect(auto.started).toBe(2);
-    const one = captured(false, true);
-    await run(['check', many, '--jobs', '1'], one);
-    expect(one.started).toBe(0);
-    expect(one.outText).toBe(auto.outText);
-    const few = captured(false, true);
-    await run(['check', join(__dirname, '../examples')], few);
-    expect(few.started).toBe(0);
-    const env = captured(false, true);
-    env.env = { IONWRIGHT_JOBS: '3' };
-    await run(['check', join(__dirname, '../examples')], env);
-    expect(env.started).toBe(2); // asked for 3, but there are only two files
+  it('auto: none on 2 cores, cores less one on 4 cores for enough text, none for a few files; --jobs 1: none', async () => {
+    // Ten notes, together just over the size from which auto uses workers.
+    const big = mkdtempSync(join(tmpdir(), 'ionwright-big-'));
+    for (let i = 0; i < 10; i++) writeFileSync(join(big, `n${i}.md`), generateNotes(Math.ceil(AUTO_MIN_CHARS / 10) + 100, 300 + i));
+    const startsOn = async (args: string[], cores: number, env: Record<string, string> = {}) => {
+      const io = captured(false, true);
+      io.cores = cores;
+      io.env = env;
+      const code = await run(['check', ...args], io);
+      return { code, started: io.started, out: io.outText };
+    };
+    const four = await startsOn([big], 4);
+    expect(four.started).toBe(3);
+    expect(four.code).toBe(1);
+    const two = await startsOn([big], 2);
+    expect(two.started).toBe(0);
+    expect(two.out).toBe(four.out);
+    expect((await startsOn([big, '--jobs', '1'], 4)).started).toBe(0);
+    expect((await startsOn([big], 4, { IONWRIGHT_JOBS: '1' })).started).toBe(0);
+    const examples = join(__dirname, '../examples');
+    expect((await startsOn([examples], 64)).started).toBe(0);
+    expect((await startsOn([examples], 2, { IONWRIGHT_JOBS: '3' })).started).toBe(2); // asked for 3, but there are two files
   });
 });
 

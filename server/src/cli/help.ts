@@ -19,8 +19,8 @@ Commands:
 Flags of check:
   --format text|json|sarif   text (default): 'file:line:col severity code message' lines and a summary;
                              json: an array of LSP diagnostics; sarif: SARIF 2.1.0 for code scanning
-  --jobs <n>|auto            worker threads for many files: auto (default) uses them only for larger
-                             inputs, 1 checks in one thread, n > 1 uses up to n threads
+  --jobs <n>|auto            worker threads for many files: auto (default) uses them only for large
+                             inputs on 4 or more cores, 1 checks in one thread, n > 1 up to n threads
 Flags of card, balance and batch:
   --json                     JSON instead of text
 Everywhere:
@@ -52,8 +52,8 @@ Flags:
   --format json      an array of {file, range, severity, code, message, source}: 0-based lines,
                      UTF-16 columns, severity 1 error, 2 warning, 3 info, 4 hint
   --format sarif     SARIF 2.1.0; file URIs relative to %SRCROOT%, the folder it runs in
-  --jobs auto        (default) worker threads, one per core, when there are at least 8 files and
-                     enough text for them to pay off; otherwise one thread
+  --jobs auto        (default) worker threads (one per core but one) on 4 or more cores, for at
+                     least 8 files and 2 million characters; otherwise one thread
   --jobs 1           everything in one thread
   --jobs <n>         up to n worker threads, whatever the size of the input
   -h, --help         this help
