@@ -17,14 +17,14 @@ import { toSarif } from './sarif';
 const SEVERITY_WORD = { 1: 'error', 2: 'warning', 3: 'info', 4: 'hint' } as const;
 
 /**
- * When `auto` uses workers. Measured on a 2-core machine (200 generated notes of 1 to 100 KB each): one
- * thread already keeps about 1.5 cores busy (V8 collects garbage and compiles on background threads),
- * and each worker repeats the warm-up (compiling the analysis, filling its caches), so two workers used
- * 40-50 % more CPU time and were 20-50 % slower than one thread at every size. Where cores are free,
- * the warm-up measured there (about 0.1 s a worker, plus 0.05 s to start it, against about 80 ms per
- * MB once warm) would be paid back from roughly 1-2 MB of notes on; that is an estimate, not measured
- * on more cores. Hence: at least 4 cores, 8 files and 2 million characters, and one core left to the
- * main thread and the collector.
+ * When `auto` uses workers. Measured on a 2-core machine (folders of 200 generated notes, 0.4 to
+ * 20 MB): one thread already keeps about 1.5 cores busy (V8 collects garbage and compiles on
+ * background threads), and each worker repeats the warm-up (compiling the analysis, filling its
+ * caches), so two workers used 40-50 % more CPU time and took 13-38 % longer than one thread at every
+ * size. Where cores are free, the warm-up measured there (about 0.1 s a worker, plus 0.05 s to start
+ * it, against about 80 ms per MB once warm) would be paid back from roughly 1-2 MB of notes on; that
+ * is an estimate, not measured on more cores. Hence: at least 4 cores, 8 files and 2 million
+ * characters, and one core left to the main thread and the collector.
  */
 export const AUTO_MIN_CORES = 4;
 export const AUTO_MIN_FILES = 8;
