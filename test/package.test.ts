@@ -9,10 +9,21 @@
  * reason; the unpacked-tarball step still shows that the package needs nothing else.
  */
 import { spawnSync, type SpawnSyncReturns } from 'node:child_process';
-import { copyFileSync, existsSync, mkdirSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { copyFileSync, existsSync, mkdirSync, mkdtempSync as makeTemp, readFileSync, writeFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { describe, expect, it } from 'vitest';
+import { afterAll, describe, expect, it } from 'vitest';
+
+/** Temporary folders of this file, removed when it is done. */
+const temps: string[] = [];
+const mkdtempSync = (prefix: string) => {
+  const d = makeTemp(prefix);
+  temps.push(d);
+  return d;
+};
+afterAll(() => {
+  for (const d of temps) rmSync(d, { recursive: true, force: true });
+});
 
 const ROOT = join(__dirname, '..');
 const pkg = JSON.parse(readFileSync(join(ROOT, 'package.json'), 'utf8'));
