@@ -1,9 +1,10 @@
 /** The command line as outside checks drive it: the built dist/cli.js (npm test builds first). */
 import { execFileSync, spawnSync } from 'node:child_process';
-import { mkdtempSync, writeFileSync, mkdirSync } from 'node:fs';
+import { mkdtempSync, readFileSync, writeFileSync, mkdirSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
+import { COMMAND_HELP } from '../server/src/cli/help';
 
 const CLI = join(__dirname, '../dist/cli.js');
 const cli = (args: string[], cwd = join(__dirname, '..')) => spawnSync('node', [CLI, ...args], { cwd, encoding: 'utf8' });
@@ -57,6 +58,23 @@ describe('ionwright check', () => {
     expect(diags.some((d: { file: string }) => d.file.endsWith('.txt'))).toBe(false);
   });
 
+  it('prints text as file:line:col severity code message (1-based), the same findings as json, then a summary', () => {
+    const r = cli(['check', dir], dir);
+    expect(r.status).toBe(1);
+    const lines = r.stdout.trimEnd().split('\n');
+    const start = note.indexOf('Xx');
+    expect(lines[0].startsWith(`a.md:1:${start + 1} error unknown-element 'Xx' is not an element symbol.`)).toBe(true);
+    const json = JSON.parse(cli(['check', dir, '--format', 'json'], dir).stdout) as Array<{ file: string; range: { start: { line: number; character: number } }; severity: number; code: string; message: string }>;
+    const word = ['', 'error', 'warning', 'info', 'hint'];
+    expect(lines.slice(0, -1)).toEqual(json.map((d) => `${d.file}:${d.range.start.line + 1}:${d.range.start.character + 1} ${word[d.severity]} ${d.code} ${d.message}`));
+    const errors = json.filter((d) => d.severity === 1).length;
+    const warnings = json.filter((d) => d.severity === 2).length;
+    expect(lines.at(-1)).toBe(`2 files checked: ${errors} error${errors === 1 ? '' : 's'}, ${warnings} warning${warnings === 1 ? '' : 's'}.`);
+    expect(r.stdout).not.toMatch(/: (error|warning) \[/);
+    // Not a terminal: no progress line, nothing on stderr.
+    expect(r.stderr).toBe('');
+  });
+
   it('prints SARIF 2.1.0', () => {
     const sarif = JSON.parse(cli(['check', dir, '--format', 'sarif']).stdout);
     expect(sarif.version).toBe('2.1.0');
@@ -71,6 +89,9 @@ describe('ionwright check', () => {
   });
 
   it.each([
+    [[]],
+    [['check', dir, '--jobs', '0']],
+    [['check', dir, '--jobs', 'many']],
     [['check', '/nonexistent/folder']],
     [['check', dir, '--format', 'xml']],
     [['check', dir, '--bogus']],
@@ -83,4 +104,85 @@ describe('ionwright check', () => {
     expect(r.stderr.trim().split('\n')).toHaveLength(1);
     expect(r.stderr).not.toMatch(/\n\s+at /);
   });
+});
+
+describe('ionwright --help and --version', () => {
+  const pkg = JSON.parse(readFileSync(join(__dirname, '../package.json'), 'utf8'));
+
+  it('--version prints the version of package.json', () => {
+    const r = cli(['--version']);
+    expect(r.status).toBe(0);
+    expect(r.stdout.trim()).toBe(`ionwright ${pkg.version}`);
+  });
+
+  it('--help lists every command, the flags of check, the environment and examples, and exits 0', () => {
+    for (const args of [['--help'], ['-h'], ['help']]) {
+      const r = cli(args);
+      expect(r.status).toBe(0);
+      expect(r.stderr).toBe('');
+      for (const c of ['card', 'check', 'balance', 'batch', 'table', 'report', 'demo']) expect(r.stdout).toMatch(new RegExp(`^  ionwright ${c} `, 'm'));
+      expect(r.stdout).toContain('ionwright report <path> --html <out.html>   a self-contained HTML page: formulas and batches as tables, a chart of estimated lattice energies');
+      for (const flag of ['--format text|json|sarif', '--jobs <n>|auto', '--json', '--version', 'IONWRIGHT_JOBS']) expect(r.stdout).toContain(flag);
+      expect(r.stdout).toMatch(/^Examples.*\n  ionwright check examples\//m);
+    }
+  });
+
+  it.each(Object.keys(COMMAND_HELP))('%s --help prints that command\'s usage and exits 0', (command) => {
+    const r = cli([command, '--help']);
+    expect(r.status).toBe(0);
+    expect(r.stdout.startsWith(`Usage: ionwright ${command}`)).toBe(true);
+    expect(r.stdout).toContain('-h, --help');
+    expect(cli(['help', command]).stdout).toBe(r.stdout);
+  });
+
+  it('help for a command that does not exist is a usage problem', () => {
+    const r = cli(['help', 'frobnicate']);
+    expect(r.status).toBe(2);
+    expect(r.stderr.trim().split('\n')).toHaveLength(1);
+  });
+
+  /** The example lines of a help text, as argument lists (quotes honoured; '> file' and VAR=value understood). */
+  function examples(help: string) {
+    const out: Array<{ args: string[]; env: Record<string, string>; stdoutTo?: string }> = [];
+    let inExamples = false;
+    for (const line of help.split('\n')) {
+      if (/^Examples?\b/.test(line)) inExamples = true;
+      else if (inExamples && !line.startsWith('  ')) inExamples = false;
+      else if (inExamples) {
+        const words = [...line.trim().matchAll(/"([^"]*)"|(\S+)/g)].map((m) => m[1] ?? m[2]);
+        const env: Record<string, string> = {};
+        while (/^[A-Z_]+=/.test(words[0])) {
+          const [k, v] = (words.shift() as string).split('=');
+          env[k] = v;
+        }
+        expect(words.shift()).toBe('ionwright');
+        const gt = words.indexOf('>');
+        const stdoutTo = gt >= 0 ? words[gt + 1] : undefined;
+        out.push({ args: gt >= 0 ? words.slice(0, gt) : words, env, stdoutTo });
+      }
+    }
+    return out;
+  }
+
+  it('every example of every help text runs on the demo notes (exit 0 or 1, never a usage problem)', () => {
+    const root = join(__dirname, '..');
+    const helps = [cli(['--help']).stdout, ...Object.keys(COMMAND_HELP).map((c) => cli([c, '--help']).stdout)];
+    const all = helps.flatMap(examples);
+    expect(all.length).toBeGreaterThanOrEqual(10);
+    const scratch = mkdtempSync(join(tmpdir(), 'ionwright-help-'));
+    for (const ex of all) {
+      // The report command comes with its own branch; its example is run once the command is there.
+      if (ex.args[0] === 'report' && !hasReport()) continue;
+      const args = ex.args.map((a) => (a.endsWith('.html') ? join(scratch, a) : a));
+      const r = spawnSync('node', [CLI, ...args], { cwd: root, encoding: 'utf8', env: { ...process.env, ...ex.env } });
+      expect([0, 1], `${ex.args.join(' ')}: ${r.stderr}`).toContain(r.status);
+      expect(r.stdout.length, ex.args.join(' ')).toBeGreaterThan(0);
+      if (ex.stdoutTo?.endsWith('.sarif')) expect(JSON.parse(r.stdout).version).toBe('2.1.0');
+    }
+  });
+
+  /** Whether this build has the report command (unknown commands exit 2 with 'unknown command'). */
+  function hasReport() {
+    return !cli(['report']).stderr.includes('unknown command');
+  }
 });

@@ -160,9 +160,9 @@ describe('the command line on bad input', () => {
     return self;
   }
 
-  it('a folder check continues past an unreadable file and an unreadable folder, reports them, and exits 2', () => {
+  it('a folder check continues past an unreadable file and an unreadable folder, reports them, and exits 2', async () => {
     const fs = io({ '/notes/a.md': 'Used `NaCl`.', '/notes/b.md': new Error('EACCES'), '/notes/c.fnote': 'formula: KCl' }, { '/notes': ['a.md', 'b.md', 'c.fnote', 'locked'], '/notes/locked': new Error('EACCES') });
-    const code = run(['check', '/notes', '--format', 'json'], fs);
+    const code = await run(['check', '/notes', '--format', 'json'], fs);
     expect(code).toBe(2);
     expect(JSON.parse(fs.outText)).toEqual([]);
     expect(fs.errText).toContain('notes/b.md: cannot be read');
@@ -170,12 +170,12 @@ describe('the command line on bad input', () => {
     expect(fs.outText).not.toContain('at ');
   });
 
-  it('an internal failure is one line, not a stack trace', () => {
+  it('an internal failure is one line, not a stack trace', async () => {
     const fs = io({}, {});
     fs.isDirectory = () => {
       throw Object.assign(new Error('boom'), { stack: 'Error: boom\n    at somewhere' });
     };
-    expect(run(['check', '/x'], fs)).toBe(2);
+    expect(await run(['check', '/x'], fs)).toBe(2);
     expect(fs.errText.trim().split('\n')).toHaveLength(1);
   });
 });

@@ -1,38 +1,53 @@
 /** IO of the command line: the only place that touches the file system. */
 import { readFileSync, readdirSync, statSync } from 'node:fs';
+import { availableParallelism } from 'node:os';
 import { join } from 'node:path';
 import { parseArgs } from 'node:util';
-import { analyseDocument, languageOf, type AnalysedDocument } from '../service/document';
-import { DEFAULT_SETTINGS } from '../service/settings';
+import type { Worker } from 'node:worker_threads';
+import { languageOf, type AnalysedDocument } from '../service/document';
+import { analyseFile } from './analyse';
+import { startBundleWorker } from './pool';
 
 export interface CliIO {
+  /** One line (or lines) to stdout; a newline is added when missing. */
   out(text: string): void;
+  /** One line to stderr; a newline is added when missing. */
   err(text: string): void;
   readFile(path: string): string;
   readDir(path: string): string[];
   isDirectory(path: string): boolean;
   cwd: string;
+  /** Whether stderr is a terminal: only then does `check` draw its progress line (absent: no). */
+  errIsTTY?: boolean;
+  /** Raw write to stderr, no newline added (the progress line uses it with \r). */
+  errRaw?(text: string): void;
+  /** Environment variables (IONWRIGHT_JOBS); absent: none set. */
+  env?: Record<string, string | undefined>;
+  /** CPU cores to use at most (absent: 1). */
+  cores?: number;
+  /** Start one check worker; absent: everything is checked in this thread. */
+  startWorker?(): Worker;
 }
 
 export const nodeIO: CliIO = {
   out: (t) => process.stdout.write(t.endsWith('\n') ? t : t + '\n'),
   err: (t) => process.stderr.write(t.endsWith('\n') ? t : t + '\n'),
-  readFile: (p) => readFileSync(p, 'utf8'),
+  readFile: (p) => {
+    // A named pipe or device named like a note would block the read: only regular files are read.
+    if (!statSync(p).isFile()) throw new Error('not a regular file');
+    return readFileSync(p, 'utf8');
+  },
   readDir: (p) => readdirSync(p),
   isDirectory: (p) => statSync(p).isDirectory(),
   cwd: process.cwd(),
+  errIsTTY: process.stderr.isTTY === true,
+  errRaw: (t) => process.stderr.write(t),
+  env: process.env,
+  cores: availableParallelism(),
+  startWorker: startBundleWorker,
 };
 
 export class UsageError extends Error {}
-
-export const USAGE = `Usage:
-  ionwright card <formula>... [--json]
-  ionwright check <path>... [--format text|json|sarif]
-  ionwright balance "<equation>" [--json]
-  ionwright batch <path> [--json]
-  ionwright table <path>
-  ionwright demo [<folder>]
-Paths may be Markdown (.md, .markdown) or notes (.fnote) files, or folders (read recursively).`;
 
 export function parse(args: string[], options: Record<string, { type: 'boolean' | 'string'; short?: string }>) {
   try {
@@ -105,11 +120,7 @@ export function loadFiles(paths: string[], io: CliIO, problems: FileProblem[]): 
       problems.push({ path, message: 'cannot be read' });
       continue;
     }
-    const doc = analyseDocument(text, languageOf(path) ?? 'markdown', DEFAULT_SETTINGS);
-    if (text.includes('\u0000')) {
-      doc.diagnostics.unshift({ code: 'not-text', severity: 'warning', start: 0, end: 0, message: 'This file contains NUL bytes; it does not look like a text file.' });
-    }
-    out.push({ path, doc });
+    out.push({ path, doc: analyseFile(path, text) });
   }
   return out;
 }

@@ -3,18 +3,16 @@
  * Exit status: 0 ran without error-severity findings; 1 ran with them; 2 usage or input problem
  * (one line on stderr, never a stack trace).
  */
-import { relative, resolve } from 'node:path';
 import { analyseFormula } from '../chem/analyse';
 import { cardJson, cardText } from '../service/card';
-import { documentDiagnostics, type LspDiagnostic } from '../service/diagnostics';
 import { DEFAULT_SETTINGS } from '../service/settings';
+import { cmdCheck } from './check';
 import { extraCommands } from './commands';
-import { loadFiles, nodeIO, parse, UsageError, USAGE, type CliIO, type FileProblem } from './io';
-import { toSarif } from './sarif';
+import { asksForHelp, COMMAND_HELP, OVERVIEW } from './help';
+import { nodeIO, parse, UsageError, type CliIO } from './io';
+import { VERSION } from './version';
 
 export { nodeIO, type CliIO };
-
-const SEVERITY_WORD = { 1: 'error', 2: 'warning', 3: 'info', 4: 'hint' } as const;
 
 function cmdCard(args: string[], io: CliIO): number {
   const { values, positionals } = parse(args, { json: { type: 'boolean' } });
@@ -25,57 +23,33 @@ function cmdCard(args: string[], io: CliIO): number {
   return analyses.some((a) => a.diagnostics.some((d) => d.severity === 'error')) ? 1 : 0;
 }
 
-function cmdCheck(args: string[], io: CliIO): number {
-  const { values, positionals } = parse(args, { format: { type: 'string' } });
-  const format = values.format ?? 'text';
-  if (format !== 'text' && format !== 'json' && format !== 'sarif') throw new UsageError(`unknown format '${format}' (use text, json or sarif)`);
-  if (positionals.length === 0) throw new UsageError('check needs at least one file or folder');
-  const problems: FileProblem[] = [];
-  const files = loadFiles(positionals, io, problems);
-  const results = files.map((f) => ({ path: f.path, diagnostics: documentDiagnostics(f.doc) }));
-  const display = (p: string) => relative(io.cwd, resolve(io.cwd, p)) || p;
-  if (format === 'json') {
-    io.out(JSON.stringify(results.flatMap((r) => r.diagnostics.map((d) => ({ file: display(r.path), ...d }))), null, 2));
-  } else if (format === 'sarif') {
-    io.out(JSON.stringify(toSarif(results.map((r) => ({ path: display(r.path), diagnostics: r.diagnostics }))), null, 2));
-  } else {
-    let errors = 0;
-    let warnings = 0;
-    for (const r of results) {
-      for (const d of r.diagnostics) {
-        if (d.severity === 1) errors++;
-        if (d.severity === 2) warnings++;
-        io.out(`${display(r.path)}:${d.range.start.line + 1}:${d.range.start.character + 1}: ${SEVERITY_WORD[d.severity]} [${d.code}] ${d.message}`);
-      }
-    }
-    io.out(`${files.length} file${files.length === 1 ? '' : 's'} checked: ${errors} error${errors === 1 ? '' : 's'}, ${warnings} warning${warnings === 1 ? '' : 's'}.`);
-  }
-  for (const p of problems) io.err(`ionwright: ${display(p.path)}: ${p.message}`);
-  if (problems.length) return 2;
-  return results.some((r) => r.diagnostics.some((d: LspDiagnostic) => d.severity === 1)) ? 1 : 0;
-}
+const builtIn: Record<string, (args: string[], io: CliIO) => number | Promise<number>> = { card: cmdCard, check: cmdCheck };
 
-export function run(argv: string[], io: CliIO = nodeIO): number {
+export async function run(argv: string[], io: CliIO = nodeIO): Promise<number> {
   try {
     const [command, ...rest] = argv;
     switch (command) {
-      case 'card':
-        return cmdCard(rest, io);
-      case 'check':
-        return cmdCheck(rest, io);
       case undefined:
+        throw new UsageError('no command given (try: ionwright --help)');
       case '--help':
       case '-h':
-      case 'help':
-        io.out(USAGE);
-        return command === undefined ? 2 : 0;
+      case 'help': {
+        const topic = command === 'help' ? rest[0] : undefined;
+        if (topic !== undefined && !Object.hasOwn(COMMAND_HELP, topic)) throw new UsageError(`unknown command '${topic}' (try: ionwright --help)`);
+        io.out(topic ? COMMAND_HELP[topic] : OVERVIEW);
+        return 0;
+      }
       case '--version':
-        io.out('ionwright 0.1.0');
+        io.out(`ionwright ${VERSION}`);
         return 0;
       default: {
-        const extra = extraCommands[command];
-        if (extra) return extra(rest, io);
-        throw new UsageError(`unknown command '${command}' (try: ionwright --help)`);
+        if (Object.hasOwn(COMMAND_HELP, command) && asksForHelp(rest)) {
+          io.out(COMMAND_HELP[command]);
+          return 0;
+        }
+        const handler = Object.hasOwn(builtIn, command) ? builtIn[command] : Object.hasOwn(extraCommands, command) ? extraCommands[command] : undefined;
+        if (!handler) throw new UsageError(`unknown command '${command}' (try: ionwright --help)`);
+        return await handler(rest, io);
       }
     }
   } catch (e) {
@@ -83,7 +57,7 @@ export function run(argv: string[], io: CliIO = nodeIO): number {
       io.err(`ionwright: ${e.message}`);
       return 2;
     }
-    io.err(`ionwright: internal error: ${(e as Error)?.message ?? String(e)}`);
+    io.err(`ionwright: internal error: ${(e as Error)?.message?.split('\n')[0] ?? String(e)}`);
     return 2;
   }
 }

@@ -1,0 +1,165 @@
+/** `ionwright --help` and `ionwright <command> --help`. The examples run on the demo notes in examples/. */
+
+const EXIT = 'Exit status: 0 ran without error-severity findings, 1 ran with them, 2 usage or input problem (one line on stderr).';
+
+export const OVERVIEW = `Ionwright: formulas, reactions and batch recipes in formulation notes
+(Markdown .md/.markdown and .fnote files): molar masses, charge balance, balanced equations, batch arithmetic.
+
+Usage: ionwright <command> [arguments] [flags]
+
+Commands:
+  ionwright card <formula>... [--json]        the card of each formula: molar mass, ions, charge balance, bonding
+  ionwright check <path>... [flags]           the findings in notes files (folders are read recursively)
+  ionwright balance "<equation>" [--json]     balance a reaction
+  ionwright batch <path> [--json]             the arithmetic of every batch block in a file
+  ionwright table <path>                      the Markdown tables the editor inserts for a file
+  ionwright report <path> --html <out.html>   a self-contained HTML page: formulas and batches as tables, a chart of estimated lattice energies
+  ionwright demo [<folder>]                   a tour of a folder of notes (default: examples)
+
+Flags of check:
+  --format text|json|sarif   text (default): 'file:line:col severity code message' lines and a summary;
+                             json: an array of LSP diagnostics; sarif: SARIF 2.1.0 for code scanning
+  --jobs <n>|auto            worker threads for many files: auto (default) uses them only for large
+                             inputs on 4 or more cores, 1 checks in one thread, n > 1 up to n threads
+Flags of card, balance and batch:
+  --json                     JSON instead of text
+Everywhere:
+  -h, --help                 this overview; 'ionwright <command> --help' for one command
+  --version                  the version
+
+Environment:
+  IONWRIGHT_JOBS=<n>|auto    as --jobs, when the flag is not given
+
+Examples (on the demo notes in examples/):
+  ionwright check examples/
+  ionwright check examples/ --format sarif > ionwright.sarif
+  ionwright card CuSO4.5H2O "[Co(NH3)6]Cl3"
+  ionwright balance "Fe2O3 + H3PO4 -> FePO4 + H2O"
+  ionwright batch examples/plating-bath.fnote
+  ionwright report examples/ --html report.html
+
+${EXIT}`;
+
+const CHECK = `Usage: ionwright check <path>... [--format text|json|sarif] [--jobs <n>|auto]
+
+The findings in Markdown (.md, .markdown) and notes (.fnote) files: unknown elements, unreadable
+formulas, charge imbalances, unbalanced reactions, mistakes in batch blocks. Folders are read
+recursively; hidden folders and node_modules are skipped. Findings come in sorted file order.
+
+Flags:
+  --format text      'file:line:col severity code message' per finding (1-based line and column),
+                     then one summary line (default)
+  --format json      an array of {file, range, severity, code, message, source}: 0-based lines,
+                     UTF-16 columns, severity 1 error, 2 warning, 3 info, 4 hint
+  --format sarif     SARIF 2.1.0; file URIs relative to %SRCROOT%, the folder it runs in
+  --jobs auto        (default) worker threads (one per core but one) on 4 or more cores, for at
+                     least 8 files and 2 million characters; otherwise one thread
+  --jobs 1           everything in one thread
+  --jobs <n>         up to n worker threads, whatever the size of the input
+  -h, --help         this help
+
+Environment:
+  IONWRIGHT_JOBS=<n>|auto   as --jobs, when the flag is not given
+
+On a terminal, a progress line ('checking 12/40 files…') is drawn on stderr and wiped at the end.
+
+Examples:
+  ionwright check examples/
+  ionwright check examples/rinse-trials.md --format json
+  ionwright check examples/ --format sarif > ionwright.sarif
+  ionwright check examples/ --jobs 2
+
+${EXIT}`;
+
+const CARD = `Usage: ionwright card <formula>... [--json]
+
+The card of each formula: the formula written out, Hill formula, molar mass, composition, oxidation
+states, charge balance, the ions it reads as, bonding and lattice energy where they apply.
+
+Flags:
+  --json       one JSON object per formula
+  -h, --help   this help
+
+Examples:
+  ionwright card CuSO4.5H2O
+  ionwright card "SO4^2-" "[Co(NH3)6]Cl3" --json
+
+${EXIT}`;
+
+const BALANCE = `Usage: ionwright balance "<equation>" [--json]
+
+Balances a reaction written reactants -> products (or with =, →, ⇌), charges included.
+
+Flags:
+  --json       the status, coefficients and differences as JSON
+  -h, --help   this help
+
+Examples:
+  ionwright balance "Fe2O3 + H3PO4 -> FePO4 + H2O"
+  ionwright balance "MnO4^- + Fe^2+ + H^+ -> Mn^2+ + Fe^3+ + H2O" --json
+
+${EXIT}`;
+
+const BATCH = `Usage: ionwright batch <path> [--json]
+
+The arithmetic of every batch block in one notes file: what to weigh, moles, concentrations, mass
+fractions, ions and ionic strength.
+
+Flags:
+  --json       the batches as JSON
+  -h, --help   this help
+
+Examples:
+  ionwright batch examples/plating-bath.fnote
+  ionwright batch examples/rinse-trials.md --json
+
+${EXIT}`;
+
+const TABLE = `Usage: ionwright table <path>
+
+The Markdown tables the editor inserts for one notes file: formulas by section and batches.
+
+Flags:
+  -h, --help   this help
+
+Example:
+  ionwright table examples/rinse-trials.md
+
+${EXIT}`;
+
+const REPORT = `Usage: ionwright report <path> --html <out.html>
+
+A self-contained HTML page: formulas and batches as tables, a chart of estimated lattice energies.
+
+Flags:
+  --html <out.html>   the page to write
+  -h, --help          this help
+
+Example:
+  ionwright report examples/ --html report.html
+
+${EXIT}`;
+
+const DEMO = `Usage: ionwright demo [<folder>]
+
+A tour of a folder of notes (default: examples): the cards of its formulas, its findings and the
+tables the editor would insert.
+
+Flags:
+  -h, --help   this help
+
+Example:
+  ionwright demo examples
+
+${EXIT}`;
+
+export const COMMAND_HELP: Record<string, string> = { card: CARD, check: CHECK, balance: BALANCE, batch: BATCH, table: TABLE, report: REPORT, demo: DEMO };
+
+/** `--help` or `-h` among a command's arguments (before a `--` that ends the flags). */
+export function asksForHelp(args: string[]): boolean {
+  for (const a of args) {
+    if (a === '--') return false;
+    if (a === '--help' || a === '-h') return true;
+  }
+  return false;
+}
