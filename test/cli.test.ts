@@ -171,18 +171,44 @@ describe('ionwright --help and --version', () => {
     expect(all.length).toBeGreaterThanOrEqual(10);
     const scratch = mkdtempSync(join(tmpdir(), 'ionwright-help-'));
     for (const ex of all) {
-      // The report command comes with its own branch; its example is run once the command is there.
-      if (ex.args[0] === 'report' && !hasReport()) continue;
       const args = ex.args.map((a) => (a.endsWith('.html') ? join(scratch, a) : a));
       const r = spawnSync('node', [CLI, ...args], { cwd: root, encoding: 'utf8', env: { ...process.env, ...ex.env } });
       expect([0, 1], `${ex.args.join(' ')}: ${r.stderr}`).toContain(r.status);
-      expect(r.stdout.length, ex.args.join(' ')).toBeGreaterThan(0);
+      const html = args.find((a) => a.endsWith('.html'));
+      if (html) expect(readFileSync(html, 'utf8'), ex.args.join(' ')).toMatch(/^<!doctype html>/);
+      else expect(r.stdout.length, ex.args.join(' ')).toBeGreaterThan(0);
       if (ex.stdoutTo?.endsWith('.sarif')) expect(JSON.parse(r.stdout).version).toBe('2.1.0');
     }
   });
+});
 
-  /** Whether this build has the report command (unknown commands exit 2 with 'unknown command'). */
-  function hasReport() {
-    return !cli(['report']).stderr.includes('unknown command');
-  }
+describe('ionwright report', () => {
+  const scratch = mkdtempSync(join(tmpdir(), 'ionwright-report-'));
+  it('writes a self-contained page and says where; exit 1 for notes with errors, 0 for clean ones', () => {
+    const out = join(scratch, 'rinse.html');
+    const r = cli(['report', 'examples/rinse-trials.md', '--html', out]);
+    expect(r.status).toBe(1); // the demo note has an unknown element on purpose
+    expect(r.stderr.trim()).toBe(`ionwright: wrote ${out}`);
+    const html = readFileSync(out, 'utf8');
+    expect(html).toMatch(/^<!doctype html>/);
+    expect(html).toContain('<svg');
+    expect(html).not.toMatch(/<script|<link/);
+    writeFileSync(join(scratch, 'ok.md'), 'We used `NaCl` and `MgO`.\n');
+    const clean = cli(['report', join(scratch, 'ok.md')]);
+    expect(clean.status).toBe(0);
+    expect(clean.stdout).toMatch(/^<!doctype html>/);
+  });
+  it.each([
+    [['report'], /exactly one notes file/],
+    [['report', 'examples'], /one notes file, not a folder/],
+    [['report', 'nope.md'], /no such file/],
+    [['report', 'examples/rinse-trials.md', '--html', '/nonexistent-dir/x.html'], /cannot be written/],
+    [['report', 'examples/rinse-trials.md', '--pdf', 'x'], /Unknown option/],
+  ])('usage and input problems exit 2 with one line: %j', (args, message) => {
+    const r = cli(args as string[]);
+    expect(r.status).toBe(2);
+    expect(r.stderr.trim().split('\n')).toHaveLength(1);
+    expect(r.stderr).toMatch(message as RegExp);
+    expect(r.stderr).not.toMatch(/\n\s+at /);
+  });
 });

@@ -3,7 +3,7 @@
  * in headless Chromium in light and dark system themes. The chart and the tables must render, and the page
  * must ask for nothing over the network. Screenshots: test-output/report-light.png, report-dark.png.
  */
-import { execFileSync } from 'node:child_process';
+import { spawnSync } from 'node:child_process';
 import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import type { Browser } from 'playwright-core';
@@ -17,7 +17,9 @@ describe.runIf(HAVE_BROWSER || REQUIRE_BROWSER)('the HTML report in headless Chr
   const file = outputPath('report.html');
   beforeAll(async () => {
     // npm test has built dist/cli.js; the report is written exactly as a user would write it.
-    execFileSync(process.execPath, [join(ROOT, 'dist/cli.js'), 'report', 'examples/rinse-trials.md', '--html', file], { cwd: ROOT, stdio: 'pipe' });
+    // (exit 1: the demo note has an error-severity finding on purpose)
+    const r = spawnSync(process.execPath, [join(ROOT, 'dist/cli.js'), 'report', 'examples/rinse-trials.md', '--html', file], { cwd: ROOT, encoding: 'utf8' });
+    expect(r.status, r.stderr).toBe(1);
     browser = await launch();
   }, 60_000);
   afterAll(async () => {

@@ -5,6 +5,7 @@ import { documentDiagnostics } from '../service/diagnostics';
 import { batchJson } from '../service/batchJson';
 import { batchTable, documentTables } from '../service/tables';
 import { DEFAULT_SETTINGS } from '../service/settings';
+import { report } from './report';
 import { loadFiles, parse, UsageError, type CliIO, type FileProblem } from './io';
 
 export type Command = (args: string[], io: CliIO) => number;
@@ -76,4 +77,4 @@ const demo: Command = (args, io) => {
   return problems.length ? 2 : 0;
 };
 
-export const extraCommands: Record<string, Command> = { balance, batch, table, demo };
+export const extraCommands: Record<string, Command> = { balance, batch, table, demo, report };

@@ -36,7 +36,7 @@ Examples (on the demo notes in examples/):
   ionwright card CuSO4.5H2O "[Co(NH3)6]Cl3"
   ionwright balance "Fe2O3 + H3PO4 -> FePO4 + H2O"
   ionwright batch examples/plating-bath.fnote
-  ionwright report examples/ --html report.html
+  ionwright report examples/rinse-trials.md --html report.html
 
 ${EXIT}`;
 
@@ -131,12 +131,16 @@ const REPORT = `Usage: ionwright report <path> --html <out.html>
 
 A self-contained HTML page: formulas and batches as tables, a chart of estimated lattice energies.
 
+The page holds no scripts and loads nothing: it can be mailed or archived as it is. Formulas, batches
+and reactions as tables, a chart of the estimated lattice energies of the salts against 1/(r₊ + r₋)
+with melting points where known, the findings, and (for Markdown) the notes as the preview shows them.
+
 Flags:
-  --html <out.html>   the page to write
+  --html <out.html>   the page to write (- or no flag: standard output)
   -h, --help          this help
 
 Example:
-  ionwright report examples/ --html report.html
+  ionwright report examples/rinse-trials.md --html report.html
 
 ${EXIT}`;
 

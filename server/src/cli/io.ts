@@ -1,5 +1,5 @@
 /** IO of the command line: the only place that touches the file system. */
-import { readFileSync, readdirSync, statSync } from 'node:fs';
+import { readFileSync, readdirSync, statSync, writeFileSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import { join } from 'node:path';
 import { parseArgs } from 'node:util';
@@ -14,6 +14,8 @@ export interface CliIO {
   /** One line to stderr; a newline is added when missing. */
   err(text: string): void;
   readFile(path: string): string;
+  /** Write a file the user named (the report's --html); absent: writing is not possible. */
+  writeFile?(path: string, text: string): void;
   readDir(path: string): string[];
   isDirectory(path: string): boolean;
   cwd: string;
@@ -37,6 +39,7 @@ export const nodeIO: CliIO = {
     if (!statSync(p).isFile()) throw new Error('not a regular file');
     return readFileSync(p, 'utf8');
   },
+  writeFile: (p, t) => writeFileSync(p, t, 'utf8'),
   readDir: (p) => readdirSync(p),
   isDirectory: (p) => statSync(p).isDirectory(),
   cwd: process.cwd(),

@@ -21,9 +21,10 @@ export function report(args: string[], io: CliIO): number {
     markdownIt: () => new MarkdownIt(),
     generator: `Ionwright ${VERSION}, ${new Date().toISOString().slice(0, 10)}`,
   });
-  const out = values.html;
+  const out = values.html as string | undefined;
   if (out === undefined || out === '-') io.out(html);
   else {
+    if (!io.writeFile) throw new UsageError('report cannot write files here; use --html - for standard output');
     try {
       io.writeFile(out, html);
     } catch (e) {
