@@ -4,7 +4,7 @@
  * (sources, tests, node_modules, source maps), and that the manifest inside declares what the editor needs.
  */
 import { execFileSync } from 'node:child_process';
-import { mkdtempSync } from 'node:fs';
+import { mkdtempSync, readFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { builtinModules } from 'node:module';
@@ -42,8 +42,10 @@ describe('the .vsix', () => {
   let manifest: any;
   beforeAll(async () => {
     const out = join(mkdtempSync(join(tmpdir(), 'ionwright-vsix-')), 'ionwright.vsix');
-    // npm test has just built dist/; pack exactly as `npm run package` does.
-    execFileSync(process.execPath, [join(ROOT, 'node_modules/@vscode/vsce/vsce'), 'package', '--no-dependencies', '--allow-missing-repository', '--skip-license', '-o', out], { cwd: ROOT, stdio: 'pipe' });
+    // npm test has just built dist/; pack with the flags of `npm run package`, into a temp folder.
+    const pkg = JSON.parse(readFileSync(join(ROOT, 'package.json'), 'utf8'));
+    const flags = (pkg.scripts.package as string).split('vsce package')[1].trim().split(/\s+/).filter((f, k, all) => f !== '-o' && all[k - 1] !== '-o');
+    execFileSync(process.execPath, [join(ROOT, 'node_modules/@vscode/vsce/vsce'), 'package', ...flags, '-o', out], { cwd: ROOT, stdio: 'pipe' });
     files = await readZip(out);
     manifest = JSON.parse(files.get('extension/package.json')!.toString('utf8'));
   }, 120_000);
@@ -54,6 +56,10 @@ describe('the .vsix', () => {
       'syntaxes/fnote.tmLanguage.json', 'syntaxes/chem-formula.tmLanguage.json', 'syntaxes/markdown-formulas.tmLanguage.json', 'syntaxes/fnote.language-configuration.json']) {
       expect(files.has(`extension/${f}`), f).toBe(true);
     }
+  });
+
+  it('carries the README written for the marketplace page', () => {
+    expect(files.get('extension/readme.md')!.toString('utf8')).toBe(readFileSync(join(ROOT, 'docs/marketplace.md'), 'utf8'));
   });
 
   it('leaves out sources, tests, dependencies and source maps', () => {
