@@ -4,26 +4,19 @@
  * a terminal. The real worker is the built bundle (dist/cli.js; npm test builds first).
  */
 import { spawnSync } from 'node:child_process';
-import { existsSync, mkdirSync, mkdtempSync as makeTemp, writeFileSync, rmSync } from 'node:fs';
+import { existsSync, mkdirSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { Worker } from 'node:worker_threads';
-import { afterAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
+import { tempFolders } from './temp';
 import { generateNotes } from '../bench/generate';
 import { AUTO_MIN_CHARS, AUTO_MIN_CORES, AUTO_MIN_FILES, readJobs, workerCount } from '../server/src/cli/check';
 import { nodeIO, run, type CliIO } from '../server/src/cli/main';
 import { checkHere, checkInWorkers, WORKER_ROLE, type CheckJob, type CheckOutcome } from '../server/src/cli/pool';
 
 /** Temporary folders of this file, removed when it is done. */
-const temps: string[] = [];
-const mkdtempSync = (prefix: string) => {
-  const d = makeTemp(prefix);
-  temps.push(d);
-  return d;
-};
-afterAll(() => {
-  for (const d of temps) rmSync(d, { recursive: true, force: true });
-});
+const mkdtempSync = tempFolders();
 
 const CLI = join(__dirname, '../dist/cli.js');
 const bundleWorker = () => new Worker(CLI, { workerData: { role: WORKER_ROLE } });

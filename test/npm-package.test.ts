@@ -8,21 +8,14 @@
  * (they are devDependencies): the install has nothing to fetch and works offline on any machine.
  */
 import { spawnSync, type SpawnSyncReturns } from 'node:child_process';
-import { copyFileSync, existsSync, mkdirSync, mkdtempSync as makeTemp, readFileSync, writeFileSync, rmSync } from 'node:fs';
+import { copyFileSync, existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { afterAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
+import { tempFolders } from './temp';
 
 /** Temporary folders of this file, removed when it is done. */
-const temps: string[] = [];
-const mkdtempSync = (prefix: string) => {
-  const d = makeTemp(prefix);
-  temps.push(d);
-  return d;
-};
-afterAll(() => {
-  for (const d of temps) rmSync(d, { recursive: true, force: true });
-});
+const mkdtempSync = tempFolders();
 
 const ROOT = join(__dirname, '..');
 const pkg = JSON.parse(readFileSync(join(ROOT, 'package.json'), 'utf8'));

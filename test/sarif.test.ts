@@ -13,26 +13,19 @@
  * ECMA-262 regular expressions are.
  */
 import { spawnSync } from 'node:child_process';
-import { mkdirSync, mkdtempSync as makeTemp, readFileSync, realpathSync, writeFileSync, existsSync, rmSync } from 'node:fs';
+import { mkdirSync, readFileSync, realpathSync, writeFileSync, existsSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import Ajv from 'ajv';
 import addFormats from 'ajv-formats';
-import { afterAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
+import { tempFolders } from './temp';
 import { checkText } from '../server/src/cli/analyse';
 import { RULES } from '../server/src/cli/sarif';
 
 /** Temporary folders of this file, removed when it is done. */
-const temps: string[] = [];
-const mkdtempSync = (prefix: string) => {
-  const d = makeTemp(prefix);
-  temps.push(d);
-  return d;
-};
-afterAll(() => {
-  for (const d of temps) rmSync(d, { recursive: true, force: true });
-});
+const mkdtempSync = tempFolders();
 
 const CLI = join(__dirname, '../dist/cli.js');
 const SCHEMA_FILE = join(__dirname, '../node_modules/@microsoft/jest-sarif/lib/schemas/sarif-2.1.0-rtm.5.json');
