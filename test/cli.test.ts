@@ -1,10 +1,15 @@
 /** The command line as outside checks drive it: the built dist/cli.js (npm test builds first). */
 import { execFileSync, spawnSync } from 'node:child_process';
-import { mkdtempSync, readFileSync, writeFileSync, mkdirSync } from 'node:fs';
+import { readFileSync, writeFileSync, mkdirSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
+import { tempFolders } from './temp';
+
 import { COMMAND_HELP } from '../server/src/cli/help';
+
+/** Temporary folders of this file, removed when it is done. */
+const mkdtempSync = tempFolders();
 
 const CLI = join(__dirname, '../dist/cli.js');
 const cli = (args: string[], cwd = join(__dirname, '..')) => spawnSync('node', [CLI, ...args], { cwd, encoding: 'utf8' });

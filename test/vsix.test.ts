@@ -4,12 +4,17 @@
  * (sources, tests, node_modules, source maps), and that the manifest inside declares what the editor needs.
  */
 import { execFileSync } from 'node:child_process';
-import { mkdtempSync, readFileSync } from 'node:fs';
+import { readFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { builtinModules } from 'node:module';
 import { beforeAll, describe, expect, it } from 'vitest';
+import { tempFolders } from './temp';
+
 import yauzl from 'yauzl';
+
+/** Temporary folders of this file, removed when it is done. */
+const mkdtempSync = tempFolders();
 
 const ROOT = join(__dirname, '..');
 
