@@ -4,9 +4,8 @@ import { readFileSync, writeFileSync, mkdirSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { tempFolders } from './temp';
-
 import { COMMAND_HELP } from '../server/src/cli/help';
+import { tempFolders } from './temp';
 
 /** Temporary folders of this file, removed when it is done. */
 const mkdtempSync = tempFolders();
