@@ -50,6 +50,8 @@ export interface RenderState {
   problems: PreviewProblem[];
   /** Render without markers (a page that lists its findings in its own way). */
   silent?: boolean;
+  /** The options of this render, read once when the note is parsed. */
+  options?: PreviewOptions;
 }
 
 export const silentState = (): RenderState => ({ problems: [], silent: true });
@@ -85,6 +87,15 @@ function worst(diagnostics: readonly ChemDiagnostic[]): ChemDiagnostic['severity
   return w;
 }
 
+/** A typeset formula's inner HTML and escaped tooltip, memoised per analysis (and settings object). */
+const spans = new WeakMap<FormulaAnalysis, { settings: ServiceSettings; title: string; html: string }>();
+
+function formulaSpan(a: FormulaAnalysis, s: ServiceSettings, cls: string): string {
+  let hit = spans.get(a);
+  if (!hit || hit.settings !== s) spans.set(a, (hit = { settings: s, title: escapeHtml(formulaTitle(a, s)), html: typesetDisplay(a.display) }));
+  return `<span class="iw-formula${cls}" title="${hit.title}">${hit.html}</span>`;
+}
+
 /** The tooltip of a typeset formula: the headline numbers of its card. */
 export function formulaTitle(a: FormulaAnalysis, s: ServiceSettings): string {
   const bits = [`${a.display}: ${a.molarMass ? `${a.molarMass.value.toFixed(s.decimals)} g/mol` : 'no molar mass'}`];
@@ -115,14 +126,34 @@ function inlineFormula(a: FormulaAnalysis, o: PreviewOptions, state: RenderState
   const w = worst(a.diagnostics);
   if (!o.typesetFormulas || !a.ok || !a.molarMass) return w ? `<span class="iw-code-flagged iw-${w}">${fallback}</span>${flags}` : fallback;
   const cls = w ? ` iw-${w}` : '';
-  return `<span class="iw-formula${cls}" title="${escapeHtml(formulaTitle(a, o.settings))}">${typesetDisplay(a.display)}</span>${flags}`;
+  return formulaSpan(a, o.settings, cls) + flags;
 }
 
 /**
  * Bare formulas in prose, read by the editor's own prose rule (setting `prose`): typeset, and their problems
  * marked (information findings are not shown for prose, as in the editor).
  */
+/** Rendered prose that needed no marker, memoised per settings object and typeset flag (the preview re-renders the whole note on every change). */
+const proseCache = new WeakMap<ServiceSettings, [Map<string, string | null>, Map<string, string | null>]>();
+const PROSE_CACHE_LIMIT = 50_000;
+
 function proseHtml(text: string, o: PreviewOptions, state: RenderState, escape: (t: string) => string): string | undefined {
+  let caches = proseCache.get(o.settings);
+  if (!caches) proseCache.set(o.settings, (caches = [new Map(), new Map()]));
+  const cache = caches[o.typesetFormulas ? 1 : 0];
+  const key = text;
+  const hit = cache.get(key);
+  if (hit !== undefined) return hit ?? undefined;
+  const before = state.problems.length;
+  const html = proseHtmlUncached(text, o, state, escape);
+  if (state.problems.length === before && !state.silent) {
+    if (cache.size >= PROSE_CACHE_LIMIT) cache.clear();
+    cache.set(key, html ?? null);
+  }
+  return html;
+}
+
+function proseHtmlUncached(text: string, o: PreviewOptions, state: RenderState, escape: (t: string) => string): string | undefined {
   const found: FormulaRef[] = [];
   scanProse(text, 0, text.length, o.settings.prose, found);
   if (found.length === 0) return undefined;
@@ -134,7 +165,7 @@ function proseHtml(text: string, o: PreviewOptions, state: RenderState, escape: 
     out += escape(text.slice(at, f.start));
     const flags = mark(state, shown, f.text);
     const w = worst(shown);
-    if (o.typesetFormulas && a.ok && a.molarMass) out += `<span class="iw-formula iw-prose${w ? ` iw-${w}` : ''}" title="${escapeHtml(formulaTitle(a, o.settings))}">${typesetDisplay(a.display)}</span>`;
+    if (o.typesetFormulas && a.ok && a.molarMass) out += formulaSpan(a, o.settings, ` iw-prose${w ? ` iw-${w}` : ''}`);
     else out += w ? `<span class="iw-code-flagged iw-${w}">${escape(f.text)}</span>` : escape(f.text);
     out += flags;
     at = f.end;
@@ -157,7 +188,19 @@ function analyseFence(info: 'batch' | 'reaction', content: string, settings: Ser
 
 const num = (x: number | null | undefined, digits = 4) => sig(x, digits);
 
+/** A batch without findings renders the same every time: memoised per analysis and settings object. */
+const batches = new WeakMap<BatchAnalysis, { settings: ServiceSettings; html: string }>();
+
 export function batchHtml(b: BatchAnalysis, o: PreviewOptions, state: RenderState, lineOf: (d: ChemDiagnostic) => number | undefined, subjectOf: (d: ChemDiagnostic) => string): string {
+  if (b.diagnostics.length) return batchHtmlUncached(b, o, state, lineOf, subjectOf);
+  const hit = batches.get(b);
+  if (hit && hit.settings === o.settings) return hit.html;
+  const html = batchHtmlUncached(b, o, state, lineOf, subjectOf);
+  batches.set(b, { settings: o.settings, html });
+  return html;
+}
+
+function batchHtmlUncached(b: BatchAnalysis, o: PreviewOptions, state: RenderState, lineOf: (d: ChemDiagnostic) => number | undefined, subjectOf: (d: ChemDiagnostic) => string): string {
   const s = o.settings;
   const head = [
     `<strong>${escapeHtml(b.name ?? 'Batch')}</strong>`,
@@ -169,7 +212,7 @@ export function batchHtml(b: BatchAnalysis, o: PreviewOptions, state: RenderStat
     const own = b.diagnostics.filter((d) => d.severity !== 'hint' && d.start >= i.lineStart && d.start <= i.lineEnd);
     for (const d of own) inRow.add(d);
     const flags = mark(state, own, subjectOf(own[0] ?? { start: i.lineStart } as ChemDiagnostic), lineOf);
-    return `<tr><td class="iw-ing">${i.analysis.ok ? `<span class="iw-formula" title="${escapeHtml(formulaTitle(i.analysis, s))}">${typesetDisplay(i.formula)}</span>` : escapeHtml(i.formulaText)}${flags}</td>` +
+    return `<tr><td class="iw-ing">${i.analysis.ok ? formulaSpan(i.analysis, s, '') : escapeHtml(i.formulaText)}${flags}</td>` +
       `<td>${escapeHtml(i.amount.text)}${i.assay < 1 ? ` @ ${num(i.assay * 100)} %` : ''}</td>` +
       `<td class="iw-n">${i.molarMass.toFixed(s.decimals)}</td>` +
       `<td class="iw-n">${num(i.massG)}</td>` +
@@ -224,9 +267,13 @@ type OptionsSource = Partial<PreviewOptions> | (() => Partial<PreviewOptions>) |
  * (the editor's settings can change while the preview is open).
  */
 export function ionwrightPreview(md: MarkdownIt, options?: OptionsSource): void {
-  const current = (): PreviewOptions => {
+  const read = (): PreviewOptions => {
     const o = typeof options === 'function' ? options() : options;
     return { ...DEFAULT_PREVIEW_OPTIONS, ...(o ?? {}) };
+  };
+  const current = (env: Record<string, unknown> | undefined): PreviewOptions => {
+    const s = env?.[ENV_KEY] as RenderState | undefined;
+    return s ? (s.options ??= read()) : read();
   };
   const rules = md.renderer.rules;
   const baseCode = rules.code_inline ?? ((tokens: Token[], idx: number) => `<code>${escapeHtml(tokens[idx].content)}</code>`);
@@ -234,7 +281,7 @@ export function ionwrightPreview(md: MarkdownIt, options?: OptionsSource): void 
 
   // A fresh list of problems per parse, and a place at the end of the page to list them.
   md.core.ruler.push('ionwright_problems', (state) => {
-    state.env[ENV_KEY] = { problems: [] } satisfies RenderState;
+    state.env[ENV_KEY] = { problems: [], options: read() } satisfies RenderState;
     state.tokens.push(new state.Token('ionwright_problems', '', 0));
     return true;
   });
@@ -243,7 +290,7 @@ export function ionwrightPreview(md: MarkdownIt, options?: OptionsSource): void 
     const fallback = baseCode(tokens, idx, opts, env, self);
     const content = tokens[idx].content.trim();
     if (!content) return fallback;
-    const o = current();
+    const o = current(env);
     const state = stateOf(env);
     try {
       if (findArrow(content)) return inlineReaction(analyseReaction(content), o, state, fallback);
@@ -255,7 +302,7 @@ export function ionwrightPreview(md: MarkdownIt, options?: OptionsSource): void 
 
   const baseText = rules.text ?? ((tokens: Token[], idx: number) => escapeHtml(tokens[idx].content));
   rules.text = (tokens, idx, opts, env, self) => {
-    const o = current();
+    const o = current(env);
     if (o.settings.prose === 'off') return baseText(tokens, idx, opts, env, self);
     try {
       return proseHtml(tokens[idx].content, o, stateOf(env), md.utils.escapeHtml) ?? baseText(tokens, idx, opts, env, self);
@@ -268,7 +315,7 @@ export function ionwrightPreview(md: MarkdownIt, options?: OptionsSource): void 
     const t = tokens[idx];
     const info = t.info.trim().split(/\s+/)[0]?.toLowerCase();
     if (info !== 'batch' && info !== 'reaction') return baseFence(tokens, idx, opts, env, self);
-    const o = current();
+    const o = current(env);
     const state = stateOf(env);
     try {
       const { doc, contentLine } = analyseFence(info, t.content, o.settings);
