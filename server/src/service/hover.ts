@@ -11,7 +11,7 @@ import type { AnalysedDocument } from './document';
 import { targetAt } from './lookup';
 import type { Range } from './positions';
 import type { ServiceSettings } from './settings';
-import { sig } from './tables';
+import { amountText, sig } from './tables';
 
 export interface HoverResult {
   markdown: string;
@@ -78,7 +78,7 @@ export function formulaCardMarkdown(a: FormulaAnalysis, s: ServiceSettings): str
 }
 
 function ingredientMarkdown(i: Ingredient, b: BatchAnalysis, s: ServiceSettings): string {
-  const lines = [`**${esc(i.formula)}** · ${esc(i.amount.text)}${i.assay < 1 ? ` @ ${sig(i.assay * 100)} %` : ''}`, ''];
+  const lines = [`**${esc(i.formula)}** · ${esc(amountText(i))}`, ''];
   const bits = [`weigh **${sig(i.massG)} g**`, `${sig(i.moles)} mol`];
   if (i.concentrationM !== null) bits.push(`**${sig(i.concentrationM)} M** in ${sig((b.volumeL as number) * 1000)} mL`);
   if (i.massFraction !== null) bits.push(`${(i.massFraction * 100).toFixed(1)} % of the weighed mass`);

@@ -18,12 +18,12 @@ import { analyseFormula, type FormulaAnalysis } from '../chem/analyse';
 import type { BatchAnalysis } from '../chem/batch';
 import { CAUTION_FOOTNOTE, cautionsFor } from '../chem/cautions';
 import type { ChemDiagnostic } from '../chem/diagnostic';
-import { analyseReaction, findArrow, type ReactionAnalysis } from '../chem/equation';
+import { analyseReaction, findArrow, formatSignedCharge, type ReactionAnalysis } from '../chem/equation';
 import type { FormulaRef } from '../notes/types';
 import { scanProse } from '../notes/prose';
 import { analyseDocument } from './document';
 import { DEFAULT_SETTINGS, type ServiceSettings } from './settings';
-import { sig } from './tables';
+import { amountText, fractionText, sig, undissociatedOf } from './tables';
 import { escapeHtml, typesetDisplay, typesetEquation } from './typeset';
 
 export interface PreviewOptions {
@@ -90,7 +90,7 @@ function worst(diagnostics: readonly ChemDiagnostic[]): ChemDiagnostic['severity
 /** A typeset formula's inner HTML and escaped tooltip, memoised per analysis (and settings object). */
 const spans = new WeakMap<FormulaAnalysis, { settings: ServiceSettings; title: string; html: string }>();
 
-function formulaSpan(a: FormulaAnalysis, s: ServiceSettings, cls: string): string {
+export function formulaSpan(a: FormulaAnalysis, s: ServiceSettings, cls: string): string {
   let hit = spans.get(a);
   if (!hit || hit.settings !== s) spans.set(a, (hit = { settings: s, title: escapeHtml(formulaTitle(a, s)), html: typesetDisplay(a.display) }));
   return `<span class="iw-formula${cls}" title="${hit.title}">${hit.html}</span>`;
@@ -114,10 +114,16 @@ export function reactionMark(r: ReactionAnalysis): string {
   return `<span class="iw-mark iw-unbalanced" title="${escapeHtml(r.balance.message)}">✗ not balanced</span>`;
 }
 
+/** The typeset balanced form of an equation that was balanced, or undefined. */
+function balancedForm(r: ReactionAnalysis): string | undefined {
+  return r.balance.status === 'balanced' && r.balance.coefficients ? typesetEquation(r.parsed, r.balance.coefficients) : undefined;
+}
+
 function inlineReaction(r: ReactionAnalysis, o: PreviewOptions, state: RenderState, fallback: string): string {
   const flags = mark(state, r.diagnostics, r.text);
   if (!o.typesetFormulas || !r.ok) return `<span class="iw-code-flagged">${fallback}</span>${flags}`;
-  const balanced = r.balance.status === 'balanced' && r.balance.coefficients ? ` <span class="iw-balanced-form">(balanced: ${typesetEquation(r.parsed, r.balance.coefficients)})</span>` : '';
+  const form = balancedForm(r);
+  const balanced = form ? ` <span class="iw-balanced-form">(balanced: ${form})</span>` : '';
   return `<span class="iw-equation" title="${escapeHtml(r.balance.message)}">${typesetEquation(r.parsed)}</span> ${reactionMark(r)}${balanced}${flags}`;
 }
 
@@ -129,10 +135,6 @@ function inlineFormula(a: FormulaAnalysis, o: PreviewOptions, state: RenderState
   return formulaSpan(a, o.settings, cls) + flags;
 }
 
-/**
- * Bare formulas in prose, read by the editor's own prose rule (setting `prose`): typeset, and their problems
- * marked (information findings are not shown for prose, as in the editor).
- */
 /** Rendered prose that needed no marker, memoised per settings object and typeset flag (the preview re-renders the whole note on every change). */
 const proseCache = new WeakMap<ServiceSettings, [Map<string, string | null>, Map<string, string | null>]>();
 const PROSE_CACHE_LIMIT = 50_000;
@@ -141,18 +143,21 @@ function proseHtml(text: string, o: PreviewOptions, state: RenderState, escape: 
   let caches = proseCache.get(o.settings);
   if (!caches) proseCache.set(o.settings, (caches = [new Map(), new Map()]));
   const cache = caches[o.typesetFormulas ? 1 : 0];
-  const key = text;
-  const hit = cache.get(key);
+  const hit = cache.get(text);
   if (hit !== undefined) return hit ?? undefined;
   const before = state.problems.length;
   const html = proseHtmlUncached(text, o, state, escape);
   if (state.problems.length === before && !state.silent) {
     if (cache.size >= PROSE_CACHE_LIMIT) cache.clear();
-    cache.set(key, html ?? null);
+    cache.set(text, html ?? null);
   }
   return html;
 }
 
+/**
+ * Bare formulas in prose, read by the editor's own prose rule (setting `prose`): typeset, and their problems
+ * marked (information findings are not shown for prose, as in the editor).
+ */
 function proseHtmlUncached(text: string, o: PreviewOptions, state: RenderState, escape: (t: string) => string): string | undefined {
   const found: FormulaRef[] = [];
   scanProse(text, 0, text.length, o.settings.prose, found);
@@ -186,8 +191,6 @@ function analyseFence(info: 'batch' | 'reaction', content: string, settings: Ser
   return { doc, contentLine };
 }
 
-const num = (x: number | null | undefined, digits = 4) => sig(x, digits);
-
 /** A batch without findings renders the same every time: memoised per analysis and settings object. */
 const batches = new WeakMap<BatchAnalysis, { settings: ServiceSettings; html: string }>();
 
@@ -204,21 +207,21 @@ function batchHtmlUncached(b: BatchAnalysis, o: PreviewOptions, state: RenderSta
   const s = o.settings;
   const head = [
     `<strong>${escapeHtml(b.name ?? 'Batch')}</strong>`,
-    b.volumeL !== null ? `final volume ${num(b.volumeL * 1000)} mL` : 'no final volume given',
-    b.totalMassG !== null ? `total ${num(b.totalMassG)} g` : null,
+    b.volumeL !== null ? `final volume ${sig(b.volumeL * 1000)} mL` : 'no final volume given',
+    b.totalMassG !== null ? `total ${sig(b.totalMassG)} g` : null,
   ].filter(Boolean);
   const inRow = new Set<ChemDiagnostic>();
   const rows = b.ingredients.map((i) => {
     const own = b.diagnostics.filter((d) => d.severity !== 'hint' && d.start >= i.lineStart && d.start <= i.lineEnd);
     for (const d of own) inRow.add(d);
-    const flags = mark(state, own, subjectOf(own[0] ?? { start: i.lineStart } as ChemDiagnostic), lineOf);
+    const flags = own.length ? mark(state, own, subjectOf(own[0]), lineOf) : '';
     return `<tr><td class="iw-ing">${i.analysis.ok ? formulaSpan(i.analysis, s, '') : escapeHtml(i.formulaText)}${flags}</td>` +
-      `<td>${escapeHtml(i.amount.text)}${i.assay < 1 ? ` @ ${num(i.assay * 100)} %` : ''}</td>` +
+      `<td>${escapeHtml(amountText(i))}</td>` +
       `<td class="iw-n">${i.molarMass.toFixed(s.decimals)}</td>` +
-      `<td class="iw-n">${num(i.massG)}</td>` +
-      `<td class="iw-n">${num(i.moles)}</td>` +
-      `<td class="iw-n">${num(i.concentrationM)}</td>` +
-      `<td class="iw-n">${i.massFraction === null ? '—' : `${(i.massFraction * 100).toFixed(1)} %`}</td></tr>`;
+      `<td class="iw-n">${sig(i.massG)}</td>` +
+      `<td class="iw-n">${sig(i.moles)}</td>` +
+      `<td class="iw-n">${sig(i.concentrationM)}</td>` +
+      `<td class="iw-n">${fractionText(i.massFraction)}</td></tr>`;
   });
   const parts = [
     `<figcaption>${head.join(' · ')} <span class="iw-by">computed by Ionwright</span></figcaption>`,
@@ -227,13 +230,13 @@ function batchHtmlUncached(b: BatchAnalysis, o: PreviewOptions, state: RenderSta
   ];
   if (b.ions.length) {
     parts.push('<table class="iw-table iw-ions"><thead><tr><th>Ion</th><th>Charge</th><th>Concentration (M)</th></tr></thead><tbody>' +
-      b.ions.map((x) => `<tr><td>${typesetDisplay(x.ion)}</td><td class="iw-n">${x.charge > 0 ? '+' : '−'}${Math.abs(x.charge)}</td><td class="iw-n">${num(x.concentrationM)}</td></tr>`).join('') +
+      b.ions.map((x) => `<tr><td>${typesetDisplay(x.ion)}</td><td class="iw-n">${formatSignedCharge(x.charge)}</td><td class="iw-n">${sig(x.concentrationM)}</td></tr>`).join('') +
       '</tbody></table>');
   }
   if (b.ionicStrengthM !== null) {
-    parts.push(`<p class="iw-summary">Ionic strength <var>I</var> = ½ Σ <var>c</var><sub><var>i</var></sub><var>z</var><sub><var>i</var></sub><sup>2</sup> = <strong>${num(b.ionicStrengthM)} M</strong>; net charge ${num(b.netChargeEqPerL ?? 0, 2)} eq/L.</p>`);
+    parts.push(`<p class="iw-summary">Ionic strength <var>I</var> = ½ Σ <var>c</var><sub><var>i</var></sub><var>z</var><sub><var>i</var></sub><sup>2</sup> = <strong>${sig(b.ionicStrengthM)} M</strong>; net charge ${sig(b.netChargeEqPerL ?? 0, 2)} eq/L.</p>`);
   }
-  const undissociated = b.ingredients.filter((i) => i.undissociated && i.ions.length === 0).map((i) => typesetDisplay(i.formula));
+  const undissociated = undissociatedOf(b).map((i) => typesetDisplay(i.formula));
   if (undissociated.length) parts.push(`<p class="iw-note">Not split into ions: ${undissociated.join(', ')}.</p>`);
   for (const n of b.notes) parts.push(`<p class="iw-note">${escapeHtml(n)}</p>`);
   if (b.cautions.length) {
@@ -252,8 +255,9 @@ function batchHtmlUncached(b: BatchAnalysis, o: PreviewOptions, state: RenderSta
 export function reactionBlockHtml(r: ReactionAnalysis, state: RenderState, line: number | undefined): string {
   const flags = mark(state, r.diagnostics, r.text, () => line);
   if (!r.ok) return `<div class="iw-reaction iw-unreadable"><code>${escapeHtml(r.text)}</code>${flags}</div>`;
-  const balanced = r.balance.status === 'balanced' && r.balance.coefficients
-    ? `<div class="iw-balanced-form">Balanced: ${typesetEquation(r.parsed, r.balance.coefficients)}</div>`
+  const form = balancedForm(r);
+  const balanced = form
+    ? `<div class="iw-balanced-form">Balanced: ${form}</div>`
     : r.balance.status !== 'already-balanced' ? `<div class="iw-balanced-form">${escapeHtml(r.balance.message)}</div>` : '';
   return `<div class="iw-reaction"><span class="iw-equation">${typesetEquation(r.parsed)}</span> ${reactionMark(r)}${flags}${balanced}</div>`;
 }
@@ -321,7 +325,8 @@ export function ionwrightPreview(md: MarkdownIt, options?: OptionsSource): void 
       const { doc, contentLine } = analyseFence(info, t.content, o.settings);
       // 1-based line in the rendered source: the fence opens on map[0], its content starts on the next line.
       const sourceLine = (offset: number) => (t.map ? t.map[0] + 1 + contentLine(offset) + 1 : undefined);
-      const lineText = (offset: number) => t.content.split('\n')[contentLine(offset)]?.trim() ?? '';
+      const contentLines = t.content.split('\n');
+      const lineText = (offset: number) => contentLines[contentLine(offset)]?.trim() ?? '';
       const attrs = self.renderAttrs(t);
       const source = `<details class="iw-source"><summary>As written</summary><pre><code>${escapeHtml(t.content)}</code></pre></details>`;
       if (info === 'batch') {

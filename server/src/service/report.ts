@@ -9,13 +9,15 @@
 import type { MarkdownIt } from 'markdown-it';
 import type { FormulaAnalysis } from '../chem/analyse';
 import { CAUTION_FOOTNOTE, cautionsFor } from '../chem/cautions';
+import { subscriptDigits } from '../chem/formula/compute';
 import { TYPICAL_ERROR } from '../chem/lattice/lattice';
 import { oxidationText } from './card';
 import { latticeChart, type LatticePoint } from './chart';
 import { documentDiagnostics } from './diagnostics';
 import type { AnalysedDocument } from './document';
-import { batchHtml, formulaTitle, ionwrightPreview, reactionBlockHtml, silentState, type PreviewOptions } from './preview';
-import { escapeHtml, typesetDisplay } from './typeset';
+import { batchHtml, formulaSpan, ionwrightPreview, reactionBlockHtml, silentState, type PreviewOptions } from './preview';
+import { shortMethod } from './tables';
+import { escapeHtml } from './typeset';
 
 export interface ReportOptions {
   /** Shown as the page title, usually the file's path. */
@@ -75,7 +77,7 @@ export function latticePoints(formulas: readonly FormulaAnalysis[]): LatticePoin
     if (!L || seen.has(L.salt)) continue;
     seen.add(L.salt);
     points.push({
-      label: typesetLabel(L.salt),
+      label: subscriptDigits(L.salt),
       kJPerMol: L.kJPerMol,
       method: L.method,
       estimate: L.estimate,
@@ -87,19 +89,14 @@ export function latticePoints(formulas: readonly FormulaAnalysis[]): LatticePoin
   return points;
 }
 
-/** `CaF2` → `CaF₂` for chart labels (plain text inside SVG). */
-function typesetLabel(salt: string): string {
-  return salt.replace(/(?<=[A-Za-z)\]])[0-9]+/g, (m) => [...m].map((d) => '₀₁₂₃₄₅₆₇₈₉'[Number(d)]).join(''));
-}
-
 function formulaRows(list: readonly FormulaAnalysis[], o: PreviewOptions): string {
   const s = o.settings;
   return list.map((a) => {
     const L = a.lattice;
-    const lattice = L ? `${L.estimate ? '≈ ' : ''}${Math.round(L.kJPerMol)} <span class="iw-by">${escapeHtml(L.method.replace(' equation', '').replace(' cycle', ''))}${L.estimate ? ', estimate' : ''}</span>` : '—';
+    const lattice = L ? `${L.estimate ? '≈ ' : ''}${Math.round(L.kJPerMol)} <span class="iw-by">${escapeHtml(shortMethod(L.method))}${L.estimate ? ', estimate' : ''}</span>` : '—';
     const balance = a.charges ? (a.charges.balanced ? 'balanced' : `<span class="iw-formula iw-warning">not balanced</span>: ${escapeHtml(a.charges.message)}`) : '—';
     const cautions = cautionsFor(a);
-    return `<tr><td><span class="iw-formula" title="${escapeHtml(formulaTitle(a, s))}">${typesetDisplay(a.display)}</span>${cautions.length ? ` <span title="${escapeHtml(cautions.map((c) => c.text).join('; '))}">⚠</span>` : ''}</td>` +
+    return `<tr><td>${formulaSpan(a, s, '')}${cautions.length ? ` <span title="${escapeHtml(cautions.map((c) => c.text).join('; '))}">⚠</span>` : ''}</td>` +
       `<td class="iw-n">${(a.molarMass as { value: number }).value.toFixed(s.decimals)}</td>` +
       `<td>${a.bond ? escapeHtml(a.bond.type) : '—'}</td>` +
       `<td>${a.bond ? `${a.bond.deltaEN.toFixed(2)} (${escapeHtml(a.bond.pair.join('–'))})` : '—'}</td>` +

@@ -2,7 +2,7 @@
  * The computed tables Ionwright inserts into a report, as Markdown: one for the formulas of a section and
  * one per batch (ingredients, then ions and ionic strength, with the model's notes and the cautions).
  */
-import type { BatchAnalysis } from '../chem/batch';
+import type { BatchAnalysis, Ingredient } from '../chem/batch';
 import { CAUTION_FOOTNOTE } from '../chem/cautions';
 import type { FormulaAnalysis } from '../chem/analyse';
 import { subscriptDigits } from '../chem/formula/compute';
@@ -23,10 +23,22 @@ export function sig(x: number | null | undefined, digits = 4): string {
   return Number(x.toPrecision(digits)).toString();
 }
 
+/** A lattice-energy method without its kind: 'Kapustinskii', 'Born–Haber'. */
+export const shortMethod = (method: string) => method.replace(' equation', '').replace(' cycle', '');
+
+/** An ingredient's amount as written, with its assay (`2.5 g @ 98 %`). */
+export const amountText = (i: Ingredient) => i.amount.text + (i.assay < 1 ? ` @ ${sig(i.assay * 100)} %` : '');
+
+/** A mass fraction as a percentage with one decimal, or a dash. */
+export const fractionText = (x: number | null) => (x === null ? '—' : `${(x * 100).toFixed(1)} %`);
+
+/** The ingredients the batch does not split into ions. */
+export const undissociatedOf = (b: BatchAnalysis) => b.ingredients.filter((i) => i.undissociated && i.ions.length === 0);
+
 function latticeCell(a: FormulaAnalysis, s: ServiceSettings): string {
   const L = a.lattice;
   if (!L) return '—';
-  const short = L.method.replace(' equation', '').replace(' cycle', '');
+  const short = shortMethod(L.method);
   const salt = a.formula && a.formula.parts.length > 1 ? `${subscriptDigits(L.salt)}, ` : '';
   return `${L.estimate ? '≈ ' : ''}${energy(L.kJPerMol, s)} (${salt}${short}${L.estimate ? ', est.' : ''})`;
 }
@@ -67,12 +79,12 @@ export function batchTable(b: BatchAnalysis, settings: ServiceSettings = DEFAULT
   for (const i of b.ingredients) {
     lines.push(row([
       i.formula,
-      i.amount.text + (i.assay < 1 ? ` @ ${sig(i.assay * 100)} %` : ''),
+      amountText(i),
       i.molarMass.toFixed(settings.decimals),
       sig(i.massG),
       sig(i.moles),
       sig(i.concentrationM),
-      i.massFraction === null ? '—' : `${(i.massFraction * 100).toFixed(1)} %`,
+      fractionText(i.massFraction),
     ]));
   }
   if (b.ions.length) {
@@ -81,7 +93,7 @@ export function batchTable(b: BatchAnalysis, settings: ServiceSettings = DEFAULT
   }
   lines.push('');
   if (b.ionicStrengthM !== null) lines.push(`Ionic strength I = ½ Σ cᵢzᵢ² = ${sig(b.ionicStrengthM)} M; net charge ${sig(b.netChargeEqPerL ?? 0, 2)} eq/L.`);
-  const undissociated = b.ingredients.filter((i) => i.undissociated && i.ions.length === 0).map((i) => i.formula);
+  const undissociated = undissociatedOf(b).map((i) => i.formula);
   if (undissociated.length) lines.push(`Not split into ions: ${undissociated.join(', ')}.`);
   for (const n of b.notes) lines.push(`_${n}_`);
   if (b.cautions.length) {
