@@ -10,7 +10,7 @@
  */
 import { relative, resolve } from 'node:path';
 import type { LspDiagnostic } from '../service/diagnostics';
-import { collectFiles, parse, UsageError, type CliIO, type FileProblem } from './io';
+import { parse, readFiles, UsageError, type CliIO, type FileProblem } from './io';
 import { checkHere, checkInWorkers, type CheckJob, type CheckOutcome } from './pool';
 import { toSarif } from './sarif';
 
@@ -87,17 +87,8 @@ export async function cmdCheck(args: string[], io: CliIO): Promise<number> {
   if (positionals.length === 0) throw new UsageError('check needs at least one file or folder');
 
   const problems: FileProblem[] = [];
-  const jobs: CheckJob[] = [];
-  let chars = 0;
-  for (const path of collectFiles(positionals, io, problems)) {
-    try {
-      const text = io.readFile(path);
-      jobs.push({ path, text });
-      chars += text.length;
-    } catch {
-      problems.push({ path, message: 'cannot be read' });
-    }
-  }
+  const jobs: CheckJob[] = readFiles(positionals, io, problems);
+  const chars = jobs.reduce((n, job) => n + job.text.length, 0);
 
   const progress = progressLine(io, jobs.length);
   progress.start();

@@ -112,19 +112,26 @@ export interface LoadedFile {
   doc: AnalysedDocument;
 }
 
-/** Read and analyse files; a file that cannot be read is reported and skipped. */
-export function loadFiles(paths: string[], io: CliIO, problems: FileProblem[]): LoadedFile[] {
-  const out: LoadedFile[] = [];
+export interface ReadFile {
+  path: string;
+  text: string;
+}
+
+/** Read the notes files the paths name; a file that cannot be read is reported and skipped. */
+export function readFiles(paths: string[], io: CliIO, problems: FileProblem[]): ReadFile[] {
+  const out: ReadFile[] = [];
   for (const path of collectFiles(paths, io, problems)) {
-    let text: string;
     try {
-      text = io.readFile(path);
+      out.push({ path, text: io.readFile(path) });
     } catch {
       problems.push({ path, message: 'cannot be read' });
-      continue;
     }
-    out.push({ path, doc: analyseFile(path, text) });
   }
   return out;
+}
+
+/** Read and analyse files; a file that cannot be read is reported and skipped. */
+export function loadFiles(paths: string[], io: CliIO, problems: FileProblem[]): LoadedFile[] {
+  return readFiles(paths, io, problems).map((f) => ({ path: f.path, doc: analyseFile(f.path, f.text) }));
 }
 
