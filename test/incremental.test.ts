@@ -53,6 +53,40 @@ describe('incremental re-analysis', () => {
     });
   }
 
+  // A note that is one enormous line is read in pieces (LONG_BLOCK); edits must still equal a full analysis.
+  const oneLine = generateNotes(70_000, 11).replace(/\r?\n/g, ' ');
+  for (const language of ['markdown', 'fnote'] as NotesLanguage[]) {
+    it(`equals a full analysis after random edits to one long line (${language})`, () => {
+      fc.assert(
+        fc.property(fc.array(edit, { minLength: 1, maxLength: 3 }), (edits) => {
+          let doc = analyseDocument(oneLine, language);
+          let text = oneLine;
+          for (const e of edits) {
+            const next = applyEdit(text, e);
+            doc = updateDocument(doc, next);
+            text = next;
+            expect(summary(doc)).toEqual(summary(analyseDocument(text, language)));
+          }
+        }),
+        { numRuns: 25 },
+      );
+    });
+  }
+
+  it('re-reads only the piece of a long line that an edit touched', () => {
+    const text = generateNotes(400_000, 13).replace(/\r?\n/g, ' ');
+    const doc = analyseDocument(text, 'markdown');
+    expect(doc.blocks.length).toBeGreaterThan(10);
+    expect(doc.diagnostics.filter((d) => d.code === 'long-paragraph')).toHaveLength(1);
+    const at = text.indexOf(' ', text.length >> 1);
+    const next = text.slice(0, at) + ' `NaCl`' + text.slice(at);
+    const updated = updateDocument(doc, next, { start: at, oldEnd: at, newEnd: at + 7 });
+    const before = new Set(doc.blocks.map((b) => b.rel));
+    const fresh = updated.blocks.filter((b) => !before.has(b.rel));
+    expect(fresh.length).toBeLessThanOrEqual(2);
+    expect(summary(updated)).toEqual(summary(analyseDocument(next, 'markdown')));
+  });
+
   it('uses a change hint when given one (the server knows the edited range)', () => {
     const base = generateNotes(8000, 5);
     const doc = analyseDocument(base, 'markdown');

@@ -4,7 +4,7 @@
  * their sources; here the editor behaviour is checked.
  */
 import { describe, expect, it } from 'vitest';
-import { codeActions, sectionTableEdit, tableEditForSelection } from '../server/src/service/actions';
+import { codeActions, sectionTableEdit, tableEditForSelection, type EditOutcome } from '../server/src/service/actions';
 import { documentDiagnostics } from '../server/src/service/diagnostics';
 import { analyseDocument } from '../server/src/service/document';
 import { hover } from '../server/src/service/hover';
@@ -177,15 +177,20 @@ describe('code actions', () => {
   it('the table of a selection lists just the selected formulas; an empty selection takes the section', () => {
     const text = '# A\nUse `NaCl`, `KCl`.\n# B\nUse `LiF`.\n';
     const doc = analyseDocument(text, 'markdown');
-    const sel = tableEditForSelection(doc, text.indexOf('`NaCl`'), text.indexOf('`NaCl`') + 6)!;
+    const sel = editOf(tableEditForSelection(doc, text.indexOf('`NaCl`'), text.indexOf('`NaCl`') + 6));
     expect(sel.newText).toContain('NaCl');
     expect(sel.newText).not.toContain('KCl');
-    const sec = sectionTableEdit(doc, text.indexOf('LiF'))!;
+    const sec = editOf(sectionTableEdit(doc, text.indexOf('LiF')));
     expect(sec.newText).toContain('Formulas — B');
     expect(sec.newText).toContain('LiF');
     expect(sec.newText).not.toContain('NaCl');
   });
 });
+
+function editOf(o: EditOutcome) {
+  if (!('edit' in o)) throw new Error(`no edit: ${o.reason}`);
+  return o.edit;
+}
 
 describe('symbols and lenses', () => {
   const text = '# Bench\n\n```batch\nname: Rinse A\nvolume: 1 L\nNaCl 1 g\n```\n\n## Reactions\n\n`2 H2 + O2 -> 2 H2O`\n';

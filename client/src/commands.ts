@@ -2,28 +2,15 @@
  * Client-side command logic that needs no VS Code: which server command to call with which arguments.
  * extension.ts feeds it the active editor's state.
  */
-export const CLIENT_COMMANDS = {
-  insertTable: 'ionwright.insertTable',
-  insertSectionTable: 'ionwright.insertSectionTable',
-  copyCard: 'ionwright.copyCard',
-  restartServer: 'ionwright.restartServer',
-  showOutput: 'ionwright.showOutput',
-} as const;
+import { CLIENT_COMMANDS, NOTES_LANGUAGES, SERVER_COMMANDS } from '../../server/src/shared/commands';
 
-export const SERVER_COMMANDS = {
-  insertTable: 'ionwright.server.insertTable',
-  insertSectionTable: 'ionwright.server.insertSectionTable',
-  insertTableAt: 'ionwright.server.insertTableAt',
-  cardMarkdown: 'ionwright.server.cardMarkdown',
-} as const;
+export { CLIENT_COMMANDS, NOTES_LANGUAGES, SERVER_COMMANDS };
 
 export interface EditorState {
   uri: string;
   languageId: string;
   selection: { start: { line: number; character: number }; end: { line: number; character: number } };
 }
-
-export const NOTES_LANGUAGES = ['markdown', 'fnote'];
 
 export type Plan =
   | { kind: 'server'; command: string; args: unknown[] }
@@ -32,7 +19,7 @@ export type Plan =
 /** What a client command asks of the server, for the editor state it runs in. */
 export function planCommand(command: string, editor: EditorState | undefined): Plan {
   if (!editor) return { kind: 'error', message: 'Open a Markdown or .fnote notes file first.' };
-  if (!NOTES_LANGUAGES.includes(editor.languageId)) return { kind: 'error', message: `Ionwright works on Markdown and .fnote notes, not on '${editor.languageId}' files.` };
+  if (!(NOTES_LANGUAGES as readonly string[]).includes(editor.languageId)) return { kind: 'error', message: `Ionwright works on Markdown and .fnote notes, not on '${editor.languageId}' files.` };
   const { uri, selection } = editor;
   switch (command) {
     case CLIENT_COMMANDS.insertTable:

@@ -1,6 +1,7 @@
 /**
  * Everything the core knows about one formula, computed once per formula text (memoised).
  */
+import { BoundedCache, CachesBySettings, detach } from './cache';
 import type { ChemDiagnostic } from './diagnostic';
 import type { Formula } from './formula/ast';
 import { composition, displayFormula, formulaAtoms, hillFormula, molarMass, type AtomCounts, type CompositionRow, type MolarMass } from './formula/compute';
@@ -30,29 +31,32 @@ export interface FormulaAnalysis {
   diagnostics: ChemDiagnostic[];
 }
 
-const cache = new Map<string, FormulaAnalysis>();
-let cacheSettings: ChemSettings = DEFAULT_CHEM_SETTINGS;
-const CACHE_LIMIT = 50_000;
+/**
+ * Analyses memoised by formula text, one bounded cache per settings content. A formula's analysis is a
+ * few kilobytes (its tree, atoms, composition, charge readings); the estimate below errs high.
+ */
+const CACHE_ENTRIES = 50_000;
+const CACHE_BYTES = 96 * 1024 * 1024;
+const analysisBytes = (text: string) => 3072 + 16 * text.length;
+const caches = new CachesBySettings<FormulaAnalysis>(CACHE_ENTRIES, CACHE_BYTES);
 
 /**
  * Analyse a formula. Offsets in diagnostics are relative to `text`. Results are shared: treat them as
  * read-only.
  */
 export function analyseFormula(text: string, settings: ChemSettings = DEFAULT_CHEM_SETTINGS): FormulaAnalysis {
-  if (settings !== cacheSettings) {
-    cache.clear();
-    cacheSettings = settings;
-  }
+  const cache = caches.for(settings);
   const hit = cache.get(text);
   if (hit) return hit;
-  const result = compute(text, settings);
-  if (cache.size >= CACHE_LIMIT) cache.clear();
-  cache.set(text, result);
+  // The analysis keeps slices of its text: analyse a flat copy, so that they cannot pin a whole document.
+  const own = detach(text);
+  const result = compute(own, settings);
+  cache.set(own, result, analysisBytes(own));
   return result;
 }
 
 export function clearFormulaCache() {
-  cache.clear();
+  caches.clear();
   speciesCache.clear();
 }
 
@@ -65,14 +69,15 @@ export interface SpeciesReading {
   diagnostics: ChemDiagnostic[];
 }
 
-const speciesCache = new Map<string, SpeciesReading>();
+const speciesCache = new BoundedCache<SpeciesReading>(CACHE_ENTRIES, CACHE_BYTES / 4);
 
 /** Read a species of an equation (memoised); a full analysis already made for the same text is reused. */
 export function readSpecies(text: string): SpeciesReading {
-  const full = cache.get(text);
+  const full = caches.for(DEFAULT_CHEM_SETTINGS).get(text);
   if (full) return full;
   const hit = speciesCache.get(text);
   if (hit) return hit;
+  text = detach(text);
   const parsed = parseFormula(text);
   let r: SpeciesReading;
   if (!parsed.ok || !parsed.formula) r = { formula: parsed.formula, ok: false, atoms: {}, charge: 0, diagnostics: parsed.diagnostics };
@@ -80,8 +85,7 @@ export function readSpecies(text: string): SpeciesReading {
     const formula = chooseReading(parsed.formula);
     r = { formula, ok: true, atoms: formulaAtoms(formula), charge: formula.charge, diagnostics: parsed.diagnostics };
   }
-  if (speciesCache.size >= CACHE_LIMIT) speciesCache.clear();
-  speciesCache.set(text, r);
+  speciesCache.set(text, r, analysisBytes(text) / 2);
   return r;
 }
 

@@ -6,6 +6,7 @@
 import type { FormulaItem } from '../chem/formula/ast';
 import { parseFormula } from '../chem/formula/parse';
 import type { FormulaRef, ProseMode } from './types';
+import { BoundedCache, detach } from '../chem/cache';
 
 /** Elements that are usually written as molecules in prose. */
 const ELEMENT_MOLECULES = new Set(['H2', 'N2', 'O2', 'O3', 'F2', 'Cl2', 'Br2', 'I2', 'P4', 'S8', 'D2']);
@@ -71,7 +72,8 @@ function countSymbols(items: readonly FormulaItem[]): { tokens: number; elements
 
 const SIGN_FIRST_LABEL = /^[A-Z][a-z]?[+\-−][0-9]+$/;
 
-const verdicts: Record<ProseMode, Map<string, boolean>> = { off: new Map(), conservative: new Map(), eager: new Map() };
+/** Verdicts per word and mode (words are at most 80 characters; kept as flat copies, see chem/cache.ts). */
+const verdicts: Record<ProseMode, BoundedCache<boolean>> = { off: new BoundedCache(1, 1024), conservative: new BoundedCache(100_000, 32 * 1024 * 1024), eager: new BoundedCache(100_000, 32 * 1024 * 1024) };
 
 /** Is this word (already trimmed) a formula a chemist would recognise? Memoised per word. */
 export function isProseFormula(word: string, mode: ProseMode): boolean {
@@ -82,8 +84,7 @@ export function isProseFormula(word: string, mode: ProseMode): boolean {
   const hit = memo.get(word);
   if (hit !== undefined) return hit;
   const v = judge(word, mode);
-  if (memo.size > 100_000) memo.clear();
-  memo.set(word, v);
+  memo.set(detach(word), v);
   return v;
 }
 

@@ -161,6 +161,26 @@ export interface MdBlock {
   fence?: Fence;
 }
 
+const shiftLineSpan = (l: Line, by: number): Line => ({ start: l.start + by, end: l.end + by, next: l.next + by });
+
+/**
+ * A block moved by `by` characters, with its own copy of the info string: used to scan a block on its
+ * own text (`text.slice(b.start, b.end)` with `by = -b.start`).
+ */
+export function shiftMdBlock(b: MdBlock, by: number, copy: (s: string) => string = (s) => s): MdBlock {
+  const out: MdBlock = { kind: b.kind, start: b.start + by, end: b.end + by };
+  if (b.level !== undefined) out.level = b.level;
+  if (b.titleStart !== undefined) out.titleStart = b.titleStart + by;
+  if (b.titleEnd !== undefined) out.titleEnd = b.titleEnd + by;
+  if (b.fence) {
+    const f = b.fence as Fence & { closed?: boolean };
+    const moved: Fence & { closed?: boolean } = { char: f.char, len: f.len, info: copy(f.info), infoStart: f.infoStart + by, open: shiftLineSpan(f.open, by), lines: f.lines.map((l) => shiftLineSpan(l, by)) };
+    if (f.closed !== undefined) moved.closed = f.closed;
+    out.fence = moved;
+  }
+  return out;
+}
+
 /** The line that starts at `pos` (\n, \r\n and \r end a line). */
 export function readLine(text: string, pos: number): Line {
   for (let i = pos; i < text.length; i++) {
@@ -304,8 +324,13 @@ export function scanMarkdownBlock(text: string, b: MdBlock, options: ScanOptions
 /** A line of a reaction block: the equation, with comments (`#`) and surrounding space cut off. */
 function reactionLine(text: string, start: number, end: number): NoteItem | undefined {
   let e = end;
-  const hash = text.indexOf('#', start);
-  if (hash >= 0 && hash < e) e = hash;
+  // Only this line is searched: a search to the end of the text would make a block of many lines quadratic.
+  for (let i = start; i < end; i++) {
+    if (text.charCodeAt(i) === 35) {
+      e = i;
+      break;
+    }
+  }
   let s = start;
   while (s < e && /\s/.test(text[s])) s++;
   while (e > s && /\s/.test(text[e - 1])) e--;

@@ -56,64 +56,115 @@ export function quickFixes(doc: AnalysedDocument, start: number, end: number): C
   return out;
 }
 
-/** Where a table goes: after the end of the line that ends the block, with a blank line around it. */
-function insertAfter(doc: AnalysedDocument, offset: number, table: string): TextEdit {
-  const p = doc.lines.positionAt(offset);
-  const nextLine = p.line + 1;
-  const atEnd = nextLine >= doc.lines.lineCount;
-  const pos = atEnd ? doc.lines.positionAt(doc.text.length) : { line: nextLine, character: 0 };
-  return { range: { start: pos, end: pos }, newText: atEnd ? `\n\n${table}\n` : `\n${table}\n\n` };
+/** An edit to insert, or why there is none. */
+export type EditOutcome = { edit: TextEdit; title?: string } | { reason: string };
+
+/** The document's own line ending: that of its first line (LF when it has a single line). */
+export function lineEnding(text: string): string {
+  for (let i = 0; i < text.length; i++) {
+    const c = text.charCodeAt(i);
+    if (c === 10) return '\n';
+    if (c === 13) return text.charCodeAt(i + 1) === 10 ? '\r\n' : '\r';
+  }
+  return '\n';
 }
 
-/** The paragraph (run of non-blank lines) around an offset, in offsets. */
-function paragraphAround(doc: AnalysedDocument, offset: number): { start: number; end: number } {
+/** The whole block (all its pieces) that contains `offset`, or the last one before it. */
+function blockAround(doc: AnalysedDocument, offset: number): { start: number; end: number; open: boolean } | undefined {
+  const blocks = doc.blocks;
+  let lo = 0;
+  let hi = blocks.length - 1;
+  let i = -1;
+  while (lo <= hi) {
+    const mid = (lo + hi) >> 1;
+    if (blocks[mid].start <= offset) {
+      i = mid;
+      lo = mid + 1;
+    } else hi = mid - 1;
+  }
+  if (i < 0) return undefined;
+  while (i > 0 && blocks[i].cont) i--;
+  let j = i;
+  while (j + 1 < blocks.length && blocks[j + 1].cont) j++;
+  return { start: blocks[i].start, end: blocks[j].end, open: !!blocks[j].open };
+}
+
+/**
+ * Insert a table after the block that holds `offset` (or the last block before it), never inside a fence
+ * or a paragraph, with a blank line before and after it, in the document's own line ending.
+ */
+function insertAfterBlock(doc: AnalysedDocument, offset: number, table: string): EditOutcome {
   const text = doc.text;
-  const { line } = doc.lines.positionAt(offset);
-  const lineText = (n: number) => text.slice(doc.lines.starts[n], n + 1 < doc.lines.lineCount ? doc.lines.starts[n + 1] : text.length);
-  let a = line;
-  let b = line;
-  while (a > 0 && lineText(a - 1).trim() !== '') a--;
-  while (b + 1 < doc.lines.lineCount && lineText(b + 1).trim() !== '') b++;
-  const endLine = lineText(b).replace(/\r?\n$|\r$/, '');
-  return { start: doc.lines.starts[a], end: doc.lines.starts[b] + endLine.length };
+  const eol = lineEnding(text);
+  const body = table.replace(/\s+$/, '').replace(/\r\n|\r|\n/g, eol);
+  const block = blockAround(doc, offset);
+  if (!block) {
+    const at = doc.lines.positionAt(0);
+    return { edit: { range: { start: at, end: at }, newText: body + eol + eol } };
+  }
+  if (block.open) return { reason: 'the block here is a fence that is never closed, so anything after it would be inside it; close the fence first' };
+  // The end of the block's last line (its content, before the line ending).
+  let end = block.end;
+  while (end > block.start && (text.charCodeAt(end - 1) === 10 || text.charCodeAt(end - 1) === 13)) end--;
+  let next = end;
+  if (text.charCodeAt(next) === 13) next++;
+  if (text.charCodeAt(next) === 10) next++;
+  const atEnd = next >= text.length;
+  let blankAfter = true;
+  if (!atEnd) {
+    for (let k = next; k < text.length; k++) {
+      const c = text.charCodeAt(k);
+      if (c === 10 || c === 13) break;
+      if (c !== 32 && c !== 9) {
+        blankAfter = false;
+        break;
+      }
+    }
+  }
+  const pos = doc.lines.positionAt(end);
+  const newText = eol + eol + body + (atEnd ? eol : blankAfter ? '' : eol);
+  return { edit: { range: { start: pos, end: pos }, newText } };
 }
 
 /** The edit that inserts the computed table for what is at the cursor: the batch, else the paragraph's formulas. */
-export function tableEditAt(doc: AnalysedDocument, offset: number): { title: string; edit: TextEdit } | undefined {
+export function tableEditAt(doc: AnalysedDocument, offset: number): EditOutcome {
   const t = targetAt(doc, offset);
   if (t && (t.kind === 'batch-line' || t.kind === 'batch-header')) {
-    return { title: `Insert the table of batch '${t.occ.analysis.name ?? 'batch'}' below it`, edit: insertAfter(doc, t.occ.ref.end, batchTable(t.occ.analysis, doc.settings)) };
+    const outcome = insertAfterBlock(doc, t.occ.ref.start, batchTable(t.occ.analysis, doc.settings));
+    return 'edit' in outcome ? { ...outcome, title: `Insert the table of batch '${t.occ.analysis.name ?? 'batch'}' below it` } : outcome;
   }
-  const para = paragraphAround(doc, offset);
-  const formulas = formulasIn(doc, para.start, para.end + 1);
-  if (formulas.length === 0) return undefined;
-  const table = formulaTable(formulas.map((f) => f.analysis), doc.settings);
-  if (!table) return undefined;
-  return { title: 'Insert a table of these formulas below the paragraph', edit: insertAfter(doc, para.end, table) };
+  const block = blockAround(doc, offset);
+  if (!block || offset > block.end) return { reason: 'there are no formulas here to tabulate' };
+  const formulas = formulasIn(doc, block.start, block.end + 1);
+  const table = formulas.length ? formulaTable(formulas.map((f) => f.analysis), doc.settings) : '';
+  if (!table) return { reason: 'there are no formulas here to tabulate' };
+  const outcome = insertAfterBlock(doc, block.start, table);
+  return 'edit' in outcome ? { ...outcome, title: 'Insert a table of these formulas below the paragraph' } : outcome;
 }
 
 /** The edit for the formulas in a selection (or, with an empty selection, the whole section at the cursor). */
-export function tableEditForSelection(doc: AnalysedDocument, start: number, end: number): TextEdit | undefined {
+export function tableEditForSelection(doc: AnalysedDocument, start: number, end: number): EditOutcome {
   if (end > start) {
     const formulas = formulasIn(doc, start, end);
     const table = formulaTable(formulas.map((f) => f.analysis), doc.settings);
-    if (!table) return undefined;
-    return insertAfter(doc, end, table);
+    if (!table) return { reason: 'there are no formulas in the selection to tabulate' };
+    // After the block where the selection ends: a selection ending mid-paragraph does not split it.
+    return insertAfterBlock(doc, Math.max(start, end - 1), table);
   }
   return sectionTableEdit(doc, start);
 }
 
-/** The tables of the whole section at the cursor, inserted at the end of the section. */
-export function sectionTableEdit(doc: AnalysedDocument, offset: number): TextEdit | undefined {
+/** The tables of the whole section at the cursor, inserted after the section's last block. */
+export function sectionTableEdit(doc: AnalysedDocument, offset: number): EditOutcome {
   const sections = sectionsOf(doc);
   const s = [...sections].reverse().find((x) => x.start <= offset) ?? sections[0];
-  if (!s) return undefined;
+  if (!s) return { reason: 'there is nothing to tabulate in this section' };
   const tables = sectionTables(s, doc.settings);
-  if (!tables) return undefined;
-  // The section ends where the next heading starts: insert before it.
+  if (!tables) return { reason: 'there is nothing to tabulate in this section' };
+  // The section ends where the next heading starts: after its last block, before that heading.
   let endOffset = s.end;
-  while (endOffset > 0 && /\s/.test(doc.text[endOffset - 1])) endOffset--;
-  return insertAfter(doc, endOffset, tables);
+  while (endOffset > s.start && /\s/.test(doc.text[endOffset - 1])) endOffset--;
+  return insertAfterBlock(doc, Math.max(s.start, endOffset - 1), tables);
 }
 
 /** All code actions for a range. */
@@ -123,7 +174,7 @@ export function codeActions(doc: AnalysedDocument, start: number, end: number, o
   if (want('quickfix')) out.push(...quickFixes(doc, start, end));
   if (want('refactor.rewrite')) {
     const t = tableEditAt(doc, start);
-    if (t) out.push({ title: t.title, kind: 'refactor.rewrite', edits: [t.edit] });
+    if ('edit' in t) out.push({ title: t.title ?? 'Insert a table', kind: 'refactor.rewrite', edits: [t.edit] });
   }
   return out;
 }

@@ -10,7 +10,8 @@ import { analyseFormula, type FormulaAnalysis } from '../chem/analyse';
 import { analyseBatch, type BatchAnalysis } from '../chem/batch';
 import { shiftDiagnostic, type ChemDiagnostic } from '../chem/diagnostic';
 import { analyseReaction, type ReactionAnalysis } from '../chem/equation';
-import { closesFnoteBatch, markdownBlocksFrom, opensFnoteBatch, readLine, scanDocument, scanMarkdownBlock, type MdBlock } from '../notes/scan';
+import { BoundedCache, detach } from '../chem/cache';
+import { closesFnoteBatch, markdownBlocksFrom, opensFnoteBatch, readLine, scanDocument, scanMarkdownBlock, shiftMdBlock, type MdBlock } from '../notes/scan';
 import type { BatchRef, FormulaRef, LineRef, NoteItem, NotesLanguage, ReactionRef, SectionRef } from '../notes/types';
 import { LineIndex } from './positions';
 import { DEFAULT_SETTINGS, type ServiceSettings } from './settings';
@@ -44,6 +45,10 @@ export interface PlacedBlock {
   start: number;
   end: number;
   rel: BlockResult;
+  /** A piece of a long block after its first (see LONG_BLOCK). */
+  cont: boolean;
+  /** A fence or `.fnote` batch never closed: it runs to the end of the document. */
+  open: boolean;
 }
 
 export interface AnalysedDocument {
@@ -73,11 +78,6 @@ export function languageOf(fileName: string): NotesLanguage | undefined {
 // ── one block ─────────────────────────────────────────────────────────────
 
 const EMPTY: BlockResult = Object.freeze({ formulas: [], reactions: [], batches: [], diagnostics: [] }) as never;
-
-/** A scanned item moved by `by` characters. */
-function shiftItem(item: NoteItem, by: number): NoteItem {
-  return item.kind === 'formula' ? shiftFormulaRef(item, by) : item.kind === 'reaction' ? shiftReactionRef(item, by) : shiftBatchRef(item, by);
-}
 
 /** Analyse the scanned items of a block (offsets relative to the block). */
 function analyseItems(items: readonly NoteItem[], language: NotesLanguage, settings: ServiceSettings, heading?: BlockResult['heading']): BlockResult {
@@ -113,21 +113,33 @@ function analyseItems(items: readonly NoteItem[], language: NotesLanguage, setti
   return heading ? { formulas, reactions, batches, diagnostics, heading } : { formulas, reactions, batches, diagnostics };
 }
 
-/** Scan and analyse one block; offsets relative to the block's start. */
-function analyseBlock(text: string, b: Span, language: NotesLanguage, settings: ServiceSettings): BlockResult {
-  if (language === 'fnote') {
-    const scan = scanDocument(text.slice(b.start, b.end), 'fnote', { prose: settings.prose });
+/**
+ * Scan and analyse one block on its own text (`own`, a flat copy of the block): every slice the result
+ * keeps points into that copy, never into the document, so a cached result holds only its block.
+ */
+function analyseBlock(own: string, b: Span, language: NotesLanguage, settings: ServiceSettings): BlockResult {
+  const options = { prose: settings.prose };
+  let r: BlockResult;
+  if (b.kind === 'chunk') {
+    // A later piece of a long block: prose.
+    const items: NoteItem[] = [];
+    scanMarkdownBlock(own, { kind: 'paragraph', start: 0, end: own.length }, options, items);
+    r = analyseItems(items, language, settings);
+  } else if (language === 'fnote') {
+    const scan = scanDocument(own, 'fnote', options);
     const h = scan.sections[0];
-    return analyseItems(scan.items, language, settings, h ? { title: h.title, level: h.level, start: h.start, headingEnd: h.headingEnd } : undefined);
+    r = analyseItems(scan.items, language, settings, h ? { title: h.title, level: h.level, start: h.start, headingEnd: h.headingEnd } : undefined);
+  } else {
+    const md: MdBlock = b.kind === 'chunk-first' ? { kind: 'paragraph', start: 0, end: own.length } : { ...shiftMdBlock(b as MdBlock, -b.start, detach), ...(b.kind === 'heading-long' ? { kind: 'heading' as const } : {}) };
+    const items: NoteItem[] = [];
+    scanMarkdownBlock(own, md, options, items);
+    const heading = md.kind === 'heading'
+      ? { title: own.slice(md.titleStart, md.titleEnd).replace(/\s+/g, ' '), level: md.level as number, start: 0, headingEnd: own.length }
+      : undefined;
+    r = analyseItems(items, language, settings, heading);
   }
-  const md = b as MdBlock;
-  const items: NoteItem[] = [];
-  scanMarkdownBlock(text, md, { prose: settings.prose }, items);
-  const rel = items.map((i) => shiftItem(i, -b.start));
-  const heading = md.kind === 'heading'
-    ? { title: text.slice(md.titleStart, md.titleEnd).replace(/\s+/g, ' '), level: md.level as number, start: 0, headingEnd: b.end - b.start }
-    : undefined;
-  return analyseItems(rel, language, settings, heading);
+  if (b.kind === 'chunk-first' || b.kind === 'heading-long') r.diagnostics.unshift(longBlockNotice(own));
+  return r;
 }
 
 const shiftLine = (x: LineRef, by: number): LineRef => ({ text: x.text, start: x.start + by, end: x.end + by });
@@ -158,26 +170,111 @@ export const shiftFormula = (f: FormulaOccurrence, by: number): FormulaOccurrenc
 export const shiftReaction = (r: ReactionOccurrence, by: number): ReactionOccurrence => (by === 0 ? r : { ref: shiftReactionRef(r.ref, by), analysis: r.analysis });
 export { shiftDiagnostic };
 
-/** Block results memoised by text, per settings object (settings objects are interned by the server). */
-const blockCaches = new WeakMap<ServiceSettings, Map<string, Map<string, BlockResult>>>();
-const BLOCK_CACHE_LIMIT = 200_000;
+/**
+ * Block results memoised by the block's text. Each analysed document has its own cache, handed on to the
+ * documents `updateDocument` makes from it, so that a document's entries go when the editor lets go of
+ * it; the cache is bounded by entries and by estimated bytes (its keys are flat copies of the blocks).
+ */
+export type BlockCache = BoundedCache<{ kind: string; rel: BlockResult }>;
 
-function blockResult(text: string, b: Span, language: NotesLanguage, settings: ServiceSettings): PlacedBlock {
+export function newBlockCache(textLength: number): BlockCache {
+  return new BoundedCache(8192, 16 * 1024 * 1024 + 8 * textLength);
+}
+
+/** Estimated bytes held by a block result (its items and their analyses are shared and counted roughly). */
+const resultBytes = (own: string, r: BlockResult) => 2 * own.length + 256 * (r.formulas.length + r.reactions.length + r.diagnostics.length) + 4096 * r.batches.length;
+
+function blockResult(text: string, b: Span, language: NotesLanguage, settings: ServiceSettings, cache: BlockCache): PlacedBlock {
   const { start, end, kind } = b;
-  if (kind === 'code' || kind === 'html') return { start, end, rel: EMPTY };
-  let byKind = blockCaches.get(settings);
-  if (!byKind) blockCaches.set(settings, (byKind = new Map()));
-  const k = language + kind;
-  let cache = byKind.get(k);
-  if (!cache) byKind.set(k, (cache = new Map()));
+  if (kind === 'code' || kind === 'html') return place(b, EMPTY);
   const sub = text.slice(start, end);
-  let rel = cache.get(sub);
-  if (!rel) {
-    rel = analyseBlock(text, b, language, settings);
-    if (cache.size >= BLOCK_CACHE_LIMIT) cache.clear();
-    cache.set(sub, rel);
+  const hit = cache.get(sub);
+  if (hit && hit.kind === kind) return place(b, hit.rel);
+  const own = detach(sub);
+  const rel = analyseBlock(own, b, language, settings);
+  cache.set(own, { kind, rel }, resultBytes(own, rel));
+  return place(b, rel);
+}
+
+function place(b: Span, rel: BlockResult): PlacedBlock {
+  const fence = (b as MdBlock).fence as { closed?: boolean } | undefined;
+  return { start: b.start, end: b.end, rel, cont: b.kind === 'chunk', open: !!b.open || (!!fence && fence.closed === false) };
+}
+
+// ── long blocks ───────────────────────────────────────────────────────────
+
+/**
+ * A paragraph (or `.fnote` line) longer than LONG_BLOCK characters is read in pieces, each analysed and
+ * cached on its own, so that typing in a note that is one enormous line re-reads one piece, not the
+ * whole line. Pieces end at whitespace chosen by the text around it (content-defined: a piece's end does
+ * not move when text before it is edited), at least PIECE_MIN and at most about PIECE_MAX characters
+ * long. A code span that runs across two pieces is not read as one; the first piece says so.
+ */
+export const LONG_BLOCK = 32_768;
+const PIECE_MIN = 8_192;
+const PIECE_MAX = 32_768;
+const PIECE_HARD = 65_536;
+
+function longBlockNotice(own: string): ChemDiagnostic {
+  let end = 0;
+  while (end < own.length && end < 200 && own.charCodeAt(end) !== 10 && own.charCodeAt(end) !== 13) end++;
+  return {
+    code: 'long-paragraph', severity: 'information', start: 0, end: Math.max(1, end),
+    message: `This paragraph is longer than ${LONG_BLOCK.toLocaleString('en-US')} characters, so it is read in pieces of ${PIECE_MIN / 1024}–${PIECE_MAX / 1024} thousand characters: a code span that runs across two pieces is not read as one. Blank lines between paragraphs avoid this.`,
+  };
+}
+
+const isSpace = (c: number) => c === 32 || c === 9 || c === 10 || c === 13;
+
+/** The pieces of a long block [start, end); the first keeps a heading's kind and title. */
+function pieces(text: string, block: Span): Span[] {
+  const { start, end } = block;
+  const out: Span[] = [];
+  let from = start;
+  while (end - from > PIECE_MAX) {
+    let cut = -1;
+    let forced = -1;
+    for (let i = from + PIECE_MIN; i < end && i < from + PIECE_HARD; i++) {
+      const c = text.charCodeAt(i);
+      if (!isSpace(c)) continue;
+      // A cut after whitespace whose 8 preceding characters hash to 0 mod 256; a line end is preferred.
+      let h = c === 10 ? 0 : 2166136261;
+      if (h !== 0) {
+        for (let k = Math.max(from, i - 8); k < i; k++) h = Math.imul(h ^ text.charCodeAt(k), 16777619);
+        h = (h >>> 0) & 255;
+      }
+      if (h === 0) {
+        cut = i + 1;
+        break;
+      }
+      if (forced < 0 && i >= from + PIECE_MAX) forced = i + 1;
+      if (forced >= 0) break;
+    }
+    if (cut < 0) cut = forced >= 0 ? forced : Math.min(end, from + PIECE_HARD);
+    if (end - cut < PIECE_MIN / 2) break;
+    out.push({ start: from, end: cut, kind: out.length === 0 ? 'chunk-first' : 'chunk' });
+    from = cut;
   }
-  return { start, end, rel };
+  out.push({ start: from, end, kind: out.length === 0 ? 'chunk-first' : 'chunk' });
+  if (block.kind === 'heading') {
+    const h = block as MdBlock;
+    const first = out[0];
+    out[0] = { kind: 'heading-long', start: first.start, end: first.end, level: h.level, titleStart: h.titleStart, titleEnd: Math.min(h.titleEnd as number, first.end) } as unknown as Span;
+  }
+  return out;
+}
+
+/** Long paragraphs and `.fnote` lines replaced by their pieces. */
+const isLong = (b: Span) => (b.kind === 'paragraph' || b.kind === 'heading' || b.kind === 'line') && b.end - b.start > LONG_BLOCK;
+
+function withPieces(text: string, spans: Span[]): Span[] {
+  if (!spans.some(isLong)) return spans;
+  const out: Span[] = [];
+  for (const b of spans) {
+    if (isLong(b)) out.push(...pieces(text, b));
+    else out.push(b);
+  }
+  return out;
 }
 
 // ── splitting ─────────────────────────────────────────────────────────────
@@ -186,6 +283,8 @@ interface Span {
   start: number;
   end: number;
   kind: string;
+  /** A `.fnote` batch without its `end` line. */
+  open?: boolean;
 }
 
 /** `.fnote` blocks: one per line, except a `batch` … `end` block, which is one. */
@@ -198,12 +297,16 @@ function fnoteBlocksFrom(text: string, from: number, stopAt?: (pos: number) => b
     const body = text.slice(l.start, l.end).trimStart();
     if (opensFnoteBatch(body)) {
       let last = l;
+      let closed = false;
       while (last.next < text.length) {
         const nl = readLine(text, last.next);
         last = nl;
-        if (closesFnoteBatch(text.slice(nl.start, nl.end).trimStart())) break;
+        if (closesFnoteBatch(text.slice(nl.start, nl.end).trimStart())) {
+          closed = true;
+          break;
+        }
       }
-      blocks.push({ start: l.start, end: last.end, kind: 'batch' });
+      blocks.push(closed ? { start: l.start, end: last.end, kind: 'batch' } : { start: l.start, end: last.end, kind: 'batch', open: true });
       pos = last.next;
     } else {
       if (body.trim() !== '') blocks.push({ start: l.start, end: l.end, kind: 'line' });
@@ -214,7 +317,8 @@ function fnoteBlocksFrom(text: string, from: number, stopAt?: (pos: number) => b
 }
 
 function split(text: string, language: NotesLanguage, from: number, stopAt?: (pos: number) => boolean): { blocks: Span[]; stoppedAt: number | null } {
-  return language === 'fnote' ? fnoteBlocksFrom(text, from, stopAt) : markdownBlocksFrom(text, from, stopAt);
+  const r = language === 'fnote' ? fnoteBlocksFrom(text, from, stopAt) : markdownBlocksFrom(text, from, stopAt);
+  return { blocks: withPieces(text, r.blocks), stoppedAt: r.stoppedAt };
 }
 
 // ── assembling ────────────────────────────────────────────────────────────
@@ -228,6 +332,7 @@ class Doc implements AnalysedDocument {
     readonly settings: ServiceSettings,
     readonly blocks: PlacedBlock[],
     readonly lines: LineIndex,
+    readonly blockCache: BlockCache,
   ) {}
 
   get sections(): SectionRef[] {
@@ -272,10 +377,14 @@ class Doc implements AnalysedDocument {
   }
 }
 
-export function analyseDocument(text: string, language: NotesLanguage, settings: ServiceSettings = DEFAULT_SETTINGS): AnalysedDocument {
+/**
+ * Analyse a whole document. Its block cache is its own unless one is handed in (the preview shares one
+ * across renders of the same settings); `updateDocument` hands it on to the next version.
+ */
+export function analyseDocument(text: string, language: NotesLanguage, settings: ServiceSettings = DEFAULT_SETTINGS, cache: BlockCache = newBlockCache(text.length)): AnalysedDocument {
   const { blocks } = split(text, language, 0);
-  const results = blocks.map((b) => blockResult(text, b, language, settings));
-  return new Doc(text, language, settings, results, new LineIndex(text));
+  const results = blocks.map((b) => blockResult(text, b, language, settings, cache));
+  return new Doc(text, language, settings, results, new LineIndex(text), cache);
 }
 
 /** Where two versions of a text differ: [start, oldEnd) in the old text became [start, newEnd) in the new. */
@@ -326,7 +435,8 @@ export function updateDocument(prev: AnalysedDocument, text: string, hint: Chang
       lo = mid + 1;
     } else hi = mid - 1;
   }
-  if (language === 'markdown') while (i0 > 0 && !precededByBlank(prev.text, old[i0].start)) i0--;
+  // A piece of a long block is no restart point: its block is split again from its start.
+  while (i0 > 0 && (old[i0].cont || (language === 'markdown' && !precededByBlank(prev.text, old[i0].start)))) i0--;
   const from = old.length && old[i0].start <= hint.start ? old[i0].start : 0;
   if (from === 0) i0 = 0;
   // Resume with the old blocks once a new block starts where an old one did, past the edit.
@@ -339,7 +449,7 @@ export function updateDocument(prev: AnalysedDocument, text: string, hint: Chang
     while (a <= b) {
       const mid = (a + b) >> 1;
       if (old[mid].start === target) {
-        if (target >= hint.oldEnd) {
+        if (target >= hint.oldEnd && !old[mid].cont) {
           resumeAt = mid;
           return true;
         }
@@ -351,9 +461,10 @@ export function updateDocument(prev: AnalysedDocument, text: string, hint: Chang
     return false;
   };
   const { blocks, stoppedAt } = split(text, language, from, stopAt);
-  const fresh = blocks.map((b) => blockResult(text, b, language, settings));
+  const cache = (prev as Doc).blockCache ?? newBlockCache(text.length);
+  const fresh = blocks.map((b) => blockResult(text, b, language, settings, cache));
   const kept = old.slice(0, i0);
-  const moved = stoppedAt !== null && resumeAt >= 0 ? old.slice(resumeAt).map((b) => (delta === 0 ? b : { start: b.start + delta, end: b.end + delta, rel: b.rel })) : [];
+  const moved = stoppedAt !== null && resumeAt >= 0 ? old.slice(resumeAt).map((b) => (delta === 0 ? b : { start: b.start + delta, end: b.end + delta, rel: b.rel, cont: b.cont, open: b.open })) : [];
   const lines = prev.lines.update(text, hint.start, hint.oldEnd, hint.newEnd);
-  return new Doc(text, language, settings, kept.concat(fresh, moved), lines);
+  return new Doc(text, language, settings, kept.concat(fresh, moved), lines, cache);
 }

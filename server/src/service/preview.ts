@@ -21,10 +21,11 @@ import type { ChemDiagnostic } from '../chem/diagnostic';
 import { analyseReaction, findArrow, formatSignedCharge, type ReactionAnalysis } from '../chem/equation';
 import type { FormulaRef } from '../notes/types';
 import { scanProse } from '../notes/prose';
-import { analyseDocument } from './document';
+import { analyseDocument, type BlockResult } from './document';
 import { DEFAULT_SETTINGS, type ServiceSettings } from './settings';
 import { amountText, fractionText, sig, undissociatedOf } from './tables';
 import { escapeHtml, typesetDisplay, typesetEquation } from './typeset';
+import { CachesBySettings, detach } from '../chem/cache';
 
 export interface PreviewOptions {
   /** Typeset formulas and equations in inline code; when false they stay code (problems are still marked). */
@@ -135,23 +136,30 @@ function inlineFormula(a: FormulaAnalysis, o: PreviewOptions, state: RenderState
   return formulaSpan(a, o.settings, cls) + flags;
 }
 
-/** Rendered prose that needed no marker, memoised per settings object and typeset flag (the preview re-renders the whole note on every change). */
-const proseCache = new WeakMap<ServiceSettings, [Map<string, string | null>, Map<string, string | null>]>();
-const PROSE_CACHE_LIMIT = 50_000;
+/**
+ * Rendered prose that needed no marker, memoised per settings content and typeset flag (the preview
+ * re-renders the whole note on every change). The host's tokens are slices of the whole note, and so is
+ * HTML built from them: keys and values are kept as flat copies, so that the cache never holds a note.
+ */
+const proseCaches = [new CachesBySettings<string | null>(25_000, 16 * 1024 * 1024), new CachesBySettings<string | null>(25_000, 16 * 1024 * 1024)];
 
 function proseHtml(text: string, o: PreviewOptions, state: RenderState, escape: (t: string) => string): string | undefined {
-  let caches = proseCache.get(o.settings);
-  if (!caches) proseCache.set(o.settings, (caches = [new Map(), new Map()]));
-  const cache = caches[o.typesetFormulas ? 1 : 0];
+  const cache = proseCaches[o.typesetFormulas ? 1 : 0].for(o.settings);
   const hit = cache.get(text);
   if (hit !== undefined) return hit ?? undefined;
   const before = state.problems.length;
   const html = proseHtmlUncached(text, o, state, escape);
   if (state.problems.length === before && !state.silent) {
-    if (cache.size >= PROSE_CACHE_LIMIT) cache.clear();
-    cache.set(text, html ?? null);
+    const value = html === undefined ? null : detach(html);
+    cache.set(detach(text), value, value === null ? 0 : 2 * value.length);
   }
   return html;
+}
+
+/** Forget the memoised prose (benchmarks of a cold render). */
+export function clearPreviewCache() {
+  for (const c of proseCaches) c.clear();
+  fenceCaches.clear();
 }
 
 /**
@@ -180,12 +188,15 @@ function proseHtmlUncached(text: string, o: PreviewOptions, state: RenderState, 
 
 // ── fenced blocks ─────────────────────────────────────────────────────────
 
+/** Fenced blocks analysed in earlier renders, by settings content (bounded; see document.ts). */
+const fenceCaches = new CachesBySettings<{ kind: string; rel: BlockResult }>(4096, 16 * 1024 * 1024);
+
 /** Analyse a fenced block on its own, through the editor's document analysis. */
 function analyseFence(info: 'batch' | 'reaction', content: string, settings: ServiceSettings) {
   const head = '```' + info + '\n';
   const body = content.endsWith('\n') ? content : content + '\n';
   const text = head + body + '```\n';
-  const doc = analyseDocument(text, 'markdown', settings);
+  const doc = analyseDocument(text, 'markdown', settings, fenceCaches.for(settings));
   /** 0-based line of a finding within the fence's content. */
   const contentLine = (offset: number) => doc.lines.positionAt(offset).line - 1;
   return { doc, contentLine };

@@ -6,6 +6,7 @@
 import type { ChemDiagnostic } from '../diagnostic';
 import { formatCount } from '../formula/compute';
 import { allSpecies, parseEquation, type ParsedEquation, type Species } from './parse';
+import { BoundedCache, detach } from '../cache';
 import {
   add, fromNumber, gcd, isZero, lcm, mul, neg, ONE, rational, sub, toNumber, ZERO, type Rational,
 } from './rational';
@@ -367,8 +368,8 @@ export interface ReactionAnalysis {
   ok: boolean;
 }
 
-const cache = new Map<string, ReactionAnalysis>();
-const CACHE_LIMIT = 5000;
+/** Analyses by equation text (flat copies of the texts: see ../cache.ts). */
+const cache = new BoundedCache<ReactionAnalysis>(5000, 32 * 1024 * 1024);
 
 /**
  * Parse and balance an equation, with its diagnostics: `unbalanced-equation` (warning) when atoms or charge
@@ -378,6 +379,7 @@ const CACHE_LIMIT = 5000;
 export function analyseReaction(text: string): ReactionAnalysis {
   const hit = cache.get(text);
   if (hit) return hit;
+  text = detach(text);
   const parsed = parseEquation(text);
   const balance = balanceEquation(parsed);
   const diagnostics = [...parsed.diagnostics];
@@ -393,8 +395,7 @@ export function analyseReaction(text: string): ReactionAnalysis {
     diagnostics.push({ code, severity: 'information', start: 0, end: text.length, message: balance.message, data: { status: balance.status } });
   }
   const analysis: ReactionAnalysis = { text, parsed, balance, diagnostics, ok: parsed.ok };
-  if (cache.size >= CACHE_LIMIT) cache.delete(cache.keys().next().value as string);
-  cache.set(text, analysis);
+  cache.set(text, analysis, 4096 + 64 * text.length);
   return analysis;
 }
 

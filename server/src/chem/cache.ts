@@ -1,0 +1,150 @@
+/**
+ * Memoisation with bounds: the one cache every layer uses.
+ *
+ * A `BoundedCache` keeps at most `maxEntries` entries and at most `maxBytes` (estimated) bytes, and
+ * evicts the least recently used entry first. Keys are strings, and callers store flat copies
+ * (`detach`) of keys cut from larger texts: in V8 a slice of 13 or more characters is a view into its
+ * parent string, so a cache keyed by slices of a 1 MB note would hold every version of the note ever
+ * typed. The same holds for values that keep slices: compute them from the flat copy.
+ *
+ * `cacheFor(settings, …)` gives one cache per distinct settings *content* (not per object), keeping the
+ * few most recently used settings, so a new but equal settings object finds the cache warm and a
+ * changed one neither clears nor grows without bound.
+ */
+
+/**
+ * A copy of `s` that shares no storage with any string it was cut from. Concatenating forces a new
+ * string of the concatenation's length; slicing that copies nothing more than `s` itself.
+ */
+export function detach(s: string): string {
+  return s.length < 13 ? s : (' ' + s).slice(1);
+}
+
+/** Estimated bytes of a string held in a cache (UTF-16 worst case, plus the object header). */
+export const stringBytes = (s: string): number => 2 * s.length + 32;
+
+interface Entry<V> {
+  /** The key as stored (the flat copy given to `set`), kept when the entry is touched. */
+  key: string;
+  value: V;
+  bytes: number;
+}
+
+export class BoundedCache<V> {
+  private readonly map = new Map<string, Entry<V>>();
+  private used = 0;
+
+  constructor(
+    readonly maxEntries: number,
+    readonly maxBytes: number,
+  ) {}
+
+  get size(): number {
+    return this.map.size;
+  }
+
+  /** Estimated bytes held (keys and values). */
+  get bytes(): number {
+    return this.used;
+  }
+
+  get(key: string): V | undefined {
+    const e = this.map.get(key);
+    if (!e) return undefined;
+    // Most recently used last (Map keeps insertion order), under the stored key: the caller's key may be
+    // a slice of a larger text.
+    this.map.delete(key);
+    this.map.set(e.key, e);
+    return e.value;
+  }
+
+  has(key: string): boolean {
+    return this.map.has(key);
+  }
+
+  /**
+   * Remember `value` under `key`; `valueBytes` estimates what the value holds. A value larger than the
+   * whole budget is not kept. The key is kept as given: pass a flat copy (`detach`) of a key cut from a
+   * larger text, or that text stays alive with the entry.
+   */
+  set(key: string, value: V, valueBytes = 0): void {
+    const bytes = stringBytes(key) + valueBytes;
+    const old = this.map.get(key);
+    if (old) {
+      this.used -= old.bytes;
+      this.map.delete(key);
+    }
+    if (bytes > this.maxBytes) return;
+    this.map.set(key, { key, value, bytes });
+    this.used += bytes;
+    this.evict();
+  }
+
+  delete(key: string): void {
+    const e = this.map.get(key);
+    if (!e) return;
+    this.used -= e.bytes;
+    this.map.delete(key);
+  }
+
+  clear(): void {
+    this.map.clear();
+    this.used = 0;
+  }
+
+  private evict() {
+    if (this.map.size <= this.maxEntries && this.used <= this.maxBytes) return;
+    for (const [k, e] of this.map) {
+      if (this.map.size <= this.maxEntries && this.used <= this.maxBytes) break;
+      this.map.delete(k);
+      this.used -= e.bytes;
+    }
+  }
+}
+
+const fingerprints = new WeakMap<object, string>();
+
+/** A stable text of a settings object's content (memoised per object). */
+export function settingsKey(settings: object): string {
+  let k = fingerprints.get(settings);
+  if (k === undefined) fingerprints.set(settings, (k = JSON.stringify(settings, Object.keys(flatten(settings)).sort())));
+  return k;
+}
+
+/** All keys of a nested plain object, so that JSON.stringify's key list reaches nested values. */
+function flatten(o: object, out: Record<string, true> = {}): Record<string, true> {
+  for (const [k, v] of Object.entries(o)) {
+    out[k] = true;
+    if (v && typeof v === 'object') flatten(v as object, out);
+  }
+  return out;
+}
+
+/** A family of caches, one per settings content; at most `keep` settings are remembered. */
+export class CachesBySettings<V> {
+  private readonly bySettings = new Map<string, BoundedCache<V>>();
+
+  constructor(
+    private readonly maxEntries: number,
+    private readonly maxBytes: number,
+    private readonly keep = 4,
+  ) {}
+
+  for(settings: object): BoundedCache<V> {
+    const key = settingsKey(settings);
+    let c = this.bySettings.get(key);
+    if (c) {
+      this.bySettings.delete(key);
+      this.bySettings.set(key, c);
+      return c;
+    }
+    c = new BoundedCache<V>(this.maxEntries, this.maxBytes);
+    this.bySettings.set(key, c);
+    if (this.bySettings.size > this.keep) this.bySettings.delete(this.bySettings.keys().next().value as string);
+    return c;
+  }
+
+  clear(): void {
+    this.bySettings.clear();
+  }
+}

@@ -1,0 +1,71 @@
+/**
+ * `workspace/executeCommand`: the server's commands. Table insertion computes an edit on the analysed
+ * version of the note and asks the client to apply it (`workspace/applyEdit`), tagged with that version
+ * wherever the client can check it, so that an edit computed on an old text is never applied to a new one.
+ */
+import { ErrorCodes, ResponseError, type Connection, type ExecuteCommandParams } from 'vscode-languageserver';
+import { analyseFormula } from '../chem/analyse';
+import { sectionTableEdit, tableEditAt, tableEditForSelection, type EditOutcome } from '../service/actions';
+import { formulaCardMarkdown, hover } from '../service/hover';
+import { targetAt } from '../service/lookup';
+import { SERVER_COMMANDS } from '../shared/commands';
+import { invalidParams, isPosition, isRange } from './requests';
+import type { NotesWorkspace, Snapshot } from './workspace';
+import type { EditShape } from './server';
+
+export interface CommandResult {
+  applied: boolean;
+  reason?: string;
+}
+
+export function commandHandler(connection: Connection, workspace: NotesWorkspace, shape: EditShape) {
+  const snapshotFor = (uri: unknown): Snapshot | undefined => (typeof uri === 'string' ? workspace.snapshot(uri) : undefined);
+
+  const apply = async (snap: Snapshot, outcome: EditOutcome, label: string): Promise<CommandResult> => {
+    if ('reason' in outcome) return { applied: false, reason: outcome.reason };
+    // Without a versioned edit the client cannot refuse a stale one: check here, just before sending.
+    if (!shape.versioned && workspace.versionOf(snap.uri) !== snap.version) return { applied: false, reason: 'the note changed while the table was computed; run the command again' };
+    const r = await connection.workspace.applyEdit({ label, edit: shape.edit(snap, [outcome.edit]) });
+    if (r.applied) return { applied: true };
+    return { applied: false, reason: r.failureReason ? `the editor did not apply the table (${r.failureReason})` : 'the editor did not apply the table (the note may have changed; run the command again)' };
+  };
+
+  return async (params: ExecuteCommandParams): Promise<unknown> => {
+    const arg = (params.arguments?.[0] ?? {}) as { uri?: unknown; position?: unknown; range?: unknown; formula?: unknown };
+    switch (params.command) {
+      case SERVER_COMMANDS.cardMarkdown: {
+        if (typeof arg.formula === 'string') return formulaCardMarkdown(analyseFormula(arg.formula.trim(), workspace.defaults.service.chem), workspace.defaults.service);
+        if (!isPosition(arg.position)) throw invalidParams('cardMarkdown needs {formula} or {uri, position}');
+        const snap = snapshotFor(arg.uri);
+        if (!snap) return null;
+        const offset = snap.doc.lines.offsetAt(arg.position);
+        const t = targetAt(snap.doc, offset);
+        if (!t) return null;
+        if (t.kind === 'formula') return formulaCardMarkdown(t.occ.analysis, snap.doc.settings);
+        if (t.kind === 'batch-line') return formulaCardMarkdown(t.ingredient.analysis, snap.doc.settings);
+        return hover(snap.doc, offset)?.markdown ?? null;
+      }
+      case SERVER_COMMANDS.insertTable: {
+        if (typeof arg.uri !== 'string' || !isRange(arg.range)) throw invalidParams('insertTable needs {uri, range}');
+        const snap = snapshotFor(arg.uri);
+        if (!snap) return null;
+        let s = snap.doc.lines.offsetAt(arg.range.start);
+        let e = snap.doc.lines.offsetAt(arg.range.end);
+        if (e < s) [s, e] = [e, s];
+        return apply(snap, tableEditForSelection(snap.doc, s, e), 'Insert Ionwright table');
+      }
+      case SERVER_COMMANDS.insertSectionTable:
+      case SERVER_COMMANDS.insertTableAt: {
+        if (typeof arg.uri !== 'string' || !isPosition(arg.position)) throw invalidParams(`${params.command} needs {uri, position}`);
+        const snap = snapshotFor(arg.uri);
+        if (!snap) return null;
+        const offset = snap.doc.lines.offsetAt(arg.position);
+        return params.command === SERVER_COMMANDS.insertSectionTable
+          ? apply(snap, sectionTableEdit(snap.doc, offset), 'Insert Ionwright section tables')
+          : apply(snap, tableEditAt(snap.doc, offset), 'Insert Ionwright table');
+      }
+      default:
+        throw new ResponseError(ErrorCodes.MethodNotFound, `unknown command ${String(params.command)}`);
+    }
+  };
+}
