@@ -40,7 +40,8 @@ export function cardJson(a: FormulaAnalysis): CardJson {
     formulaAscii: a.ascii,
     hill: a.hill,
     charge: a.charge,
-    atoms: a.atoms,
+    // A count written `x` has no number: that element is left out here, and a diagnostic says why.
+    atoms: Object.fromEntries(Object.entries(a.atoms).filter(([, n]) => Number.isFinite(n))),
     molarMass: a.molarMass ? round(a.molarMass.value) : null,
     molarMassUncertainty: a.molarMass?.uncertainty == null ? null : round(a.molarMass.uncertainty, 6),
     composition: a.composition.map((c) => ({ element: c.element, count: c.count, massFraction: round(c.massFraction, 6) })),

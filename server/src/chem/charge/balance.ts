@@ -156,6 +156,7 @@ function statesOf(sol: IonicSolution): { states: Record<string, number>; sites: 
     const site = label(s, unit);
     const atoms = segmentAtoms(s);
     if (!atoms) return null;
+    if (Object.values(atoms).some(Number.isNaN)) continue; // `Sx`: its state depends on x (see variablePart)
     let inner: Record<string, number> | null = null;
     if (s.ion?.states) {
       // Internal states given for some atoms (peroxo O, thio S, amine N); the others by the usual rules.
@@ -347,6 +348,8 @@ function assessPart(formula: Formula, part: FormulaPart, target: number): PartRe
     sites: r.sites ?? (r.states ? wholeSites(r.states, unitAtoms, partLabel) : undefined), undetermined: r.undetermined,
   });
   if (els.length === 0) return mk({ balanced: true, states: null, basis: 'none', message: '' });
+  const varEls = els.filter((el) => Number.isNaN(atoms[el]));
+  if (varEls.length) return variablePart(formula, part, target, mk, unitAtoms, partLabel);
   if (els.length === 1 && target === 0) {
     return mk({ balanced: true, states: { [els[0]]: 0 }, basis: 'element', message: `${element(els[0])?.name ?? els[0]} as the element: oxidation state 0.` });
   }
@@ -467,6 +470,34 @@ function assessPart(formula: Formula, part: FormulaPart, target: number): PartRe
   return mk({ balanced: false, states: null, basis: 'states', span,
     message: `No usual oxidation states of ${els.join(', ')} sum to ${signed(target)}.`,
   });
+}
+
+const RULE_STATES: Record<string, number> = { O: -2, H: 1, F: -1, Li: 1, Na: 1, K: 1, Rb: 1, Cs: 1, Be: 2, Mg: 2, Ca: 2, Sr: 2, Ba: 2 };
+
+/**
+ * A part with a count written `x` (`(NH4)2Sx`, `NOx`): read as ions where a table ion has that form
+ * (polysulfide Sx²⁻), and never flagged; the state of an element that depends on x is not given.
+ */
+function variablePart(formula: Formula, part: FormulaPart, target: number, mk: (r: Pick<PartResult, 'balanced' | 'states' | 'basis' | 'message'> & Partial<PartResult>) => PartResult, unitAtoms: AtomCounts, partLabel: string): PartResult {
+  const why = (el: string) => ({ element: el, reason: `${el}: its state depends on the count x, which the formula leaves open.` });
+  for (const segs of segmentations(formula.text, part.items, false)) {
+    if (!plausible(segs) || !decisive(segs, target) || !segs.some((x) => x.ion && Number.isNaN(itemAtoms(parseFormula(x.ionText).formula?.parts[0].items ?? []).S))) continue;
+    const sol = solve(segs.filter((x) => Number.isFinite(x.multiplicity)), target, false);
+    if (!sol) continue;
+    const ions = ionsOf(sol);
+    const st = statesOf(sol);
+    const known = st ? st.states : {};
+    const undetermined = Object.keys(unitAtoms).filter((el) => !(el in known)).map(why);
+    return mk({ balanced: true, states: known, basis: 'ionic', message: `Balanced: ${describeIons(ions)}.`, ions, sites: st?.sites ?? [], undetermined });
+  }
+  const states: Record<string, number> = {};
+  const undetermined: Array<{ element: string; reason: string }> = [];
+  for (const el of Object.keys(unitAtoms)) {
+    if (el in RULE_STATES) states[el] = RULE_STATES[el];
+    else undetermined.push(why(el));
+  }
+  const counted = Object.fromEntries(Object.entries(unitAtoms).filter(([, n]) => Number.isFinite(n)));
+  return mk({ balanced: true, states, basis: 'molecular', message: 'A count is written x: no charge balance is checked, and states that depend on x are not given.', sites: wholeSites(states, counted, partLabel), undetermined });
 }
 
 /** Charge balance, oxidation states and the ionic reading of a parsed formula. */

@@ -111,6 +111,7 @@ export const ANIONS: IonDef[] = [
   { name: 'tetrasulfide', forms: ['S4'], charges: [-2], catenated: true },
   { name: 'pentasulfide', forms: ['S5'], charges: [-2], catenated: true },
   { name: 'hexasulfide', forms: ['S6'], charges: [-2], catenated: true },
+  { name: 'polysulfide', forms: ['Sx'], charges: [-2], catenated: true },
   { name: 'ozonide', forms: ['O3'], charges: [-1], catenated: true },
   { name: 'sulfamate', forms: ['SO3NH2', 'NH2SO3', 'H2NSO3', 'OSO2NH2'], charges: [-1], states: { N: -3 } },
   // Sulfonates: with Pauling's values (C 2.55 < S 2.58) the C–S bond's electrons go to S, so S is +4.
