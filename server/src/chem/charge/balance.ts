@@ -13,6 +13,7 @@ import { element, isMetal } from '../data/elements';
 import type { Formula, FormulaItem, FormulaPart } from '../formula/ast';
 import { cleanCount, formatCharge, formatCount, formulaAtoms, itemAtoms, partAtoms, subscriptDigits, type AtomCounts } from '../formula/compute';
 import { parseFormula } from '../formula/parse';
+import { readAlloyDesignation, type AlloyDesignation } from '../formula/alloy';
 import { assignStates } from './oxidation';
 import { organicNitrogen } from './structure';
 import { solve, type IonicSolution } from './ionic';
@@ -49,6 +50,8 @@ export interface ChargeAssessment {
   sites: SiteState[] | null;
   /** Elements whose state the formula cannot determine (absent from both), with the reason. */
   undetermined: Array<{ element: string; reason: string }>;
+  /** Where the text is an alloy designation (`AlSi10Mg`), its nominal composition. */
+  designation?: AlloyDesignation;
   /** The ionic reading of the main part, when the formula reads as ions. */
   ions: IonInReading[] | null;
   /** `ionic` (read as ions), `states` (oxidation-state rules), `molecular`, `element`, `alloy`, `none`. */
@@ -456,7 +459,7 @@ function assessPart(formula: Formula, part: FormulaPart, target: number): PartRe
       const m = anySolution.sol.segments.filter((x) => x.segment.kind === 'metal').map((x) => x.segment.element as string);
       return mk({ balanced: true, states: st.states, basis: 'states', message: `Metal carbonyl: ${[...new Set(m)].join(', ')} in oxidation state 0 with neutral ligands.`, sites: st.sites });
     }
-    if (st) return mk({ balanced: true, states: st.states, basis: metals.length ? 'states' : 'molecular', message: metals.length ? 'Balanced by oxidation states.' : 'Molecular substance: oxidation states by the usual rules.', sites: st.sites });
+    if (st) return mk({ balanced: true, states: st.states, basis: metals.length ? 'states' : 'molecular', message: metals.length ? 'Balanced by oxidation states.' : 'Molecular substance: oxidation states by the usual rules.' });
   }
   const assigned = assignStates(atoms, target);
   if (assigned) {
@@ -500,8 +503,26 @@ function variablePart(formula: Formula, part: FormulaPart, target: number, mk: (
   return mk({ balanced: true, states, basis: 'molecular', message: 'A count is written x: no charge balance is checked, and states that depend on x are not given.', sites: wholeSites(states, counted, partLabel), undetermined });
 }
 
+const pctText = (x: number) => `${formatCount(x)} %`;
+
+/** An alloy designation is no formula: its nominal composition, and no charge to balance. */
+function designationAssessment(formula: Formula, alloy: AlloyDesignation): ChargeAssessment {
+  const parts = alloy.components.map((c) => `${c.element} ${c.massPercent === null ? 'minor (under 1 %)' : pctText(c.massPercent)}`);
+  const minor = alloy.components.some((c) => c.massPercent === null);
+  const message = `Alloy designation, not a formula: nominal mass percent ${parts.join(', ')}, ${alloy.base} the balance (${minor ? 'about ' : ''}${pctText(alloy.baseMassPercent)}${minor ? ' less the minor additions' : ''}).`;
+  const atoms = formulaAtoms(formula);
+  const states = Object.fromEntries(Object.keys(atoms).map((el) => [el, 0]));
+  return {
+    balanced: true, message, suggestions: [], oxidationStates: states,
+    sites: Object.keys(atoms).map((el) => ({ element: el, state: 0, count: atoms[el], site: 'alloy' })),
+    undetermined: [], ions: null, basis: 'alloy', mixedValence: [], unusual: [], diagnostics: [], designation: alloy,
+  };
+}
+
 /** Charge balance, oxidation states and the ionic reading of a parsed formula. */
 export function assessCharge(formula: Formula): ChargeAssessment {
+  const alloy = readAlloyDesignation(formula);
+  if (alloy) return designationAssessment(formula, alloy);
   const results = formula.parts.map((p, k) => (p.items.length ? assessPart(formula, p, k === 0 ? formula.charge : 0) : null)).filter((r): r is PartResult => r !== null);
   const diagnostics: ChemDiagnostic[] = [];
   const suggestions: string[] = [];
