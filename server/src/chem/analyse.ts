@@ -100,10 +100,17 @@ function compute(text: string, settings: ChemSettings): FormulaAnalysis {
   }
   const formula = chooseReading(parsed.formula);
   const atoms = formulaAtoms(formula);
-  const mm = molarMass(atoms);
+  const variable = formula.variableCounts ?? [];
+  const mm = variable.length ? null : molarMass(atoms);
   const charges = assessCharge(formula);
   for (const d of charges.diagnostics) diagnostics.push(d);
-  if (mm.nominal.length) {
+  for (const v of variable) {
+    diagnostics.push({
+      code: 'variable-count', severity: 'warning', start: v.start, end: v.end,
+      message: `The count '${text.slice(v.start, v.end)}' is not a number: the ions are read, but a molar mass, a composition and amounts need it (e.g. ${text.slice(0, v.start)}4).`,
+    });
+  }
+  if (mm?.nominal.length) {
     diagnostics.push({
       code: 'no-standard-weight', severity: 'information', start: 0, end: text.length,
       message: `${mm.nominal.join(', ')} ${mm.nominal.length === 1 ? 'has' : 'have'} no standard atomic weight; the mass number of a long-lived isotope was used.`,
@@ -114,7 +121,7 @@ function compute(text: string, settings: ChemSettings): FormulaAnalysis {
   let lattice: LatticeAssessment | null | undefined;
   return {
     input: text, formula, ok: true, display: displayFormula(formula, true), ascii: displayFormula(formula, false),
-    hill: hillFormula(atoms), charge: formula.charge, atoms, molarMass: mm, composition: composition(atoms, mm.value),
+    hill: hillFormula(atoms), charge: formula.charge, atoms, molarMass: mm, composition: mm ? composition(atoms, mm.value) : [],
     charges, diagnostics,
     get bond() {
       return bond === undefined ? (bond = assessBond(formula, atoms, charges, settings)) : bond;

@@ -18,7 +18,8 @@
 import { analyseFormula, type FormulaAnalysis } from './analyse';
 import { cautionsFor, type Caution } from './cautions';
 import { shiftDiagnostic, type ChemDiagnostic } from './diagnostic';
-import { formatCharge, subscriptDigits } from './formula/compute';
+import { joinSpacedAdduct } from './formula/spaced';
+import { electrolyteIons } from './ions/dissociation';
 import type { ChemSettings } from './settings';
 import { DEFAULT_CHEM_SETTINGS } from './settings';
 
@@ -89,11 +90,6 @@ const MASS_TOTAL: Record<string, number> = { g: 1, kg: 1e3, mg: 1e-3 };
 const NUMBER = /^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?$/;
 const MAX_AMOUNT = 1e9;
 
-/** Strong acids and the ion they give with their first proton (common practice). */
-const STRONG_ACIDS: Record<string, [string, number]> = {
-  HCl: ['Cl', -1], HBr: ['Br', -1], HI: ['I', -1], HNO3: ['NO3', -1], HClO4: ['ClO4', -1], HClO3: ['ClO3', -1], H2SO4: ['HSO4', -1],
-};
-
 interface Token {
   text: string;
   start: number;
@@ -117,35 +113,8 @@ const dissociated = new WeakMap<FormulaAnalysis, { ions: IonShare[]; undissociat
 /** Ions of a strong electrolyte, or why it stays whole (memoised per analysis; read-only). */
 export function dissociate(a: FormulaAnalysis): { ions: IonShare[]; undissociated?: string } {
   let hit = dissociated.get(a);
-  if (!hit) dissociated.set(a, (hit = dissociateUncached(a)));
+  if (!hit) dissociated.set(a, (hit = electrolyteIons(a)));
   return hit;
-}
-
-function dissociateUncached(a: FormulaAnalysis): { ions: IonShare[]; undissociated?: string } {
-  if (!a.ok || !a.formula) return { ions: [], undissociated: 'not readable' };
-  const ascii = a.formula.parts.length === 1 ? a.ascii.replace(/\(aq\)$/, '') : '';
-  if (a.charge !== 0 && a.formula.parts.length === 1) {
-    return { ions: [{ ion: a.display.replace(/\(aq\)$/, ''), key: a.ascii.replace(/\(aq\)$/, ''), charge: a.charge, count: 1 }] };
-  }
-  const acid = STRONG_ACIDS[ascii];
-  if (acid) {
-    return { ions: [{ ion: 'H⁺', key: 'H^+', charge: 1, count: 1 }, { ion: subscriptDigits(acid[0]) + formatCharge(acid[1], true), key: acid[0] + formatCharge(acid[1], false), charge: acid[1], count: 1 }] };
-  }
-  const c = a.charges;
-  if (!c || !c.balanced || c.basis !== 'ionic' || !c.ions) return { ions: [], undissociated: c?.basis === 'ionic' ? 'charges do not balance' : 'molecular or weak: treated as undissociated' };
-  const ions = c.ions.filter((i) => i.role !== 'neutral');
-  if (ions.some((i) => i.kind === 'proton')) return { ions: [], undissociated: 'weak acid: treated as undissociated' };
-  if (ions.some((i) => i.kind === 'monatomic-anion' && (i.element === 'O' || i.element === 'N' || i.element === 'C'))) return { ions: [], undissociated: 'oxide, nitride or carbide: not dissolved' };
-  if (ions.some((i) => new Set(i.states).size > 1 || !Number.isInteger(i.charge))) return { ions: [], undissociated: 'mixed-valence solid: not dissolved' };
-  const out = new Map<string, IonShare>();
-  for (const i of ions) {
-    const key = (i.kind === 'complex' ? `[${i.text}]` : i.text) + formatCharge(i.charge, false);
-    const label = subscriptDigits(i.kind === 'complex' ? `[${i.text}]` : i.text) + formatCharge(i.charge, true);
-    const at = out.get(key);
-    if (at) at.count += i.count;
-    else out.set(key, { ion: label, key, charge: i.charge, count: i.count });
-  }
-  return { ions: [...out.values()] };
 }
 
 /** Analyse a batch block's lines. Offsets in diagnostics are absolute (the lines carry their offsets). */
@@ -204,7 +173,7 @@ export function analyseBatch(lines: BatchLine[], openName: string | null = null,
       else totalMassG = v * table[unit];
       continue;
     }
-    const tk = tokens(text, start);
+    const tk = joinSpacedAdduct(tokens(text, start), text, start);
     const [formula, amount, unitTok, ...rest] = tk;
     if (!amount) {
       diagnostics.push(err('batch-amount', formula.start, formula.end, `'${formula.text}' needs an amount and a unit, e.g. '${formula.text} 5.0 g'.`));

@@ -18,8 +18,18 @@ export interface CardJson {
   molarMassUncertainty: number | null;
   composition: Array<{ element: string; count: number; massFraction: number }>;
   oxidationStates: Record<string, number> | null;
+  /** Second round: states per site where the formula shows the sites (NH4NO3: N −3 in NH₄⁺, +5 in NO₃⁻). */
+  oxidationStatesBySite: Array<{ element: string; state: number; count: number; site: string }>;
+  /** Elements whose state the formula cannot determine (absent from both lists above), and why. */
+  oxidationStatesUndetermined: Array<{ element: string; reason: string }>;
+  /** Where the text is an alloy designation (`AlSi10Mg`): its nominal composition in mass percent. */
+  alloyDesignation: { base: string; baseMassPercent: number; components: Array<{ element: string; massPercent: number | null; note?: string }> } | null;
   chargeBalance: { balanced: boolean; message: string; suggestions: string[] };
-  bond: { pair: [string, string]; deltaEN: number; type: string; percentIonic: number; note?: string } | null;
+  bond: {
+    pair: [string, string]; deltaEN: number; type: string; percentIonic: number; note?: string;
+    betweenIons?: { cation: string; anion: string; type: 'ionic' }; pairWithin?: string;
+    within?: Array<{ ion: string; pair: [string, string]; deltaEN: number; type: string; percentIonic: number }>;
+  } | null;
   latticeEnergy: {
     kJPerMol: number; method: string; inputs: Record<string, unknown>; alternatives: Array<{ method: string; kJPerMol: number }>;
     estimate: boolean; typicalError: string; salt: string; meltingPointC: number | null; meltingPointSource: string | null;
@@ -40,15 +50,24 @@ export function cardJson(a: FormulaAnalysis): CardJson {
     formulaAscii: a.ascii,
     hill: a.hill,
     charge: a.charge,
-    atoms: a.atoms,
+    // A count written `x` has no number: that element is left out here, and a diagnostic says why.
+    atoms: Object.fromEntries(Object.entries(a.atoms).filter(([, n]) => Number.isFinite(n))),
     molarMass: a.molarMass ? round(a.molarMass.value) : null,
     molarMassUncertainty: a.molarMass?.uncertainty == null ? null : round(a.molarMass.uncertainty, 6),
     composition: a.composition.map((c) => ({ element: c.element, count: c.count, massFraction: round(c.massFraction, 6) })),
     oxidationStates: a.charges?.oxidationStates ?? null,
+    oxidationStatesBySite: (a.charges?.sites ?? []).map((x) => ({ element: x.element, state: round(x.state, 4), count: x.count, site: x.site })),
+    oxidationStatesUndetermined: a.charges?.undetermined ?? [],
+    alloyDesignation: a.charges?.designation ?? null,
     chargeBalance: a.charges
       ? { balanced: a.charges.balanced, message: a.charges.message, suggestions: a.charges.suggestions }
       : { balanced: false, message: 'The formula could not be read.', suggestions: [] },
-    bond: a.bond ? { ...a.bond, deltaEN: round(a.bond.deltaEN, 3), percentIonic: round(a.bond.percentIonic, 1) } : null,
+    bond: a.bond
+      ? {
+          ...a.bond, deltaEN: round(a.bond.deltaEN, 3), percentIonic: round(a.bond.percentIonic, 1),
+          ...(a.bond.within ? { within: a.bond.within.map((w) => ({ ...w, deltaEN: round(w.deltaEN, 3), percentIonic: round(w.percentIonic, 1) })) } : {}),
+        }
+      : null,
     latticeEnergy: a.lattice
       ? {
           kJPerMol: round(a.lattice.kJPerMol, 0),
@@ -90,9 +109,47 @@ export function oxidationText(states: Record<string, number>): string {
     .join(', ');
 }
 
+/**
+ * The per-site states in words, where they say more than the averages (an element at two or more
+ * states, or a named group): "N −3 in NH₄⁺, N +5 in NO₃⁻". Undefined where every element has one state.
+ */
+export function sitesText(a: FormulaAnalysis): string | undefined {
+  const sites = a.charges?.sites;
+  if (!sites || sites.length === 0) return undefined;
+  const byEl = new Map<string, Set<number>>();
+  for (const x of sites) (byEl.get(x.element) ?? byEl.set(x.element, new Set()).get(x.element)!).add(Math.round(x.state * 1e4));
+  const split = [...byEl].filter(([, v]) => v.size > 1).map(([el]) => el);
+  if (split.length === 0) return undefined;
+  return sites
+    .filter((x) => split.includes(x.element))
+    .map((x) => `${x.element} ${signed(x.state)} in ${x.count === 1 ? '' : `${x.count} `}${x.site}`)
+    .join(', ');
+}
+
+/** Why an element has no state, in one line each. */
+export function undeterminedText(a: FormulaAnalysis): string[] {
+  return (a.charges?.undetermined ?? []).map((u) => u.reason);
+}
+
+/** An alloy designation's nominal composition: "Si 10 %, Mg minor, Al balance (≈ 90 %)". */
+export function designationText(a: FormulaAnalysis): string | undefined {
+  const d = a.charges?.designation;
+  if (!d) return undefined;
+  const minor = d.components.some((c) => c.massPercent === null);
+  return `${d.components.map((c) => `${c.element} ${c.massPercent === null ? 'minor (< 1 %)' : `${c.massPercent} %`}`).join(', ')}, ${d.base} balance (${minor ? '≈ ' : ''}${d.baseMassPercent} %) — mass percent, nominal`;
+}
+
 /** The card as plain text, for the terminal. */
 export function cardText(a: FormulaAnalysis, settings: ServiceSettings = DEFAULT_SETTINGS): string {
   const out: string[] = [];
+  if (a.ok && !a.molarMass) {
+    out.push(`${a.display}   (Hill: ${a.hill})`);
+    out.push('  molar mass      not computed: a count is not a number');
+    if (a.charges) out.push(`  charge balance  ${a.charges.message}`);
+    for (const r of undeterminedText(a)) out.push(`  oxidation       ${r}`);
+    for (const d of a.diagnostics) out.push(`  ${d.severity} [${d.code}]: ${d.message}`);
+    return out.join('\n');
+  }
   if (!a.ok || !a.molarMass) {
     out.push(`${a.input}: not a readable formula`);
     for (const d of a.diagnostics) out.push(`  ${d.severity} [${d.code}] col ${d.start + 1}-${d.end}: ${d.message}`);
@@ -102,11 +159,19 @@ export function cardText(a: FormulaAnalysis, settings: ServiceSettings = DEFAULT
   out.push(`${a.display}   (Hill: ${a.hill}${a.charge ? `, charge ${signed(a.charge)}` : ''})`);
   out.push(`  molar mass      ${fmt(mm.value, settings.decimals + 1)}${mm.uncertainty !== null ? ` ± ${mm.uncertainty.toPrecision(1)}` : ' (nominal)'} g/mol`);
   out.push(`  composition     ${a.composition.map((c) => `${c.element} ${pct(c.massFraction)}`).join(', ')}`);
+  const designation = designationText(a);
+  if (designation) out.push(`  alloy           ${designation}`);
   if (a.charges) {
     out.push(`  oxidation       ${a.charges.oxidationStates ? oxidationText(a.charges.oxidationStates) : 'not assigned'}`);
+    const bySite = sitesText(a);
+    if (bySite) out.push(`  by site         ${bySite}`);
+    for (const r of undeterminedText(a)) out.push(`                  ${r}`);
     out.push(`  charge balance  ${a.charges.balanced ? '' : 'NOT BALANCED: '}${a.charges.message}${a.charges.suggestions.length ? ` Try: ${a.charges.suggestions.join(', ')}` : ''}`);
   }
-  if (a.bond) out.push(`  bonding         ${a.bond.type} (ΔEN ${a.bond.pair.join('–')} = ${a.bond.deltaEN.toFixed(2)}, ${a.bond.percentIonic.toFixed(0)} % ionic)`);
+  if (a.bond) {
+    const between = a.bond.betweenIons && a.bond.pairWithin ? `ionic between ${a.bond.betweenIons.cation} and ${a.bond.betweenIons.anion}; ` : '';
+    out.push(`  bonding         ${between}${a.bond.type} (ΔEN ${a.bond.pair.join('–')} = ${a.bond.deltaEN.toFixed(2)}, ${a.bond.percentIonic.toFixed(0)} % ionic)`);
+  }
   if (a.lattice) {
     const L = a.lattice;
     out.push(`  lattice energy  ${L.estimate ? '≈ ' : ''}${energy(L.kJPerMol, settings)} — ${L.method}${a.formula && a.formula.parts.length > 1 ? ` (for ${L.salt})` : ''}; ${L.typicalError}`);

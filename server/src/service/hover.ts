@@ -6,7 +6,7 @@ import type { BatchAnalysis, Ingredient } from '../chem/batch';
 import { CAUTION_FOOTNOTE, cautionsFor } from '../chem/cautions';
 import type { ReactionAnalysis } from '../chem/equation';
 import { subscriptDigits } from '../chem/formula/compute';
-import { energy, oxidationText, signed } from './card';
+import { designationText, energy, oxidationText, signed, sitesText, undeterminedText } from './card';
 import type { AnalysedDocument } from './document';
 import { targetAt } from './lookup';
 import type { Range } from './positions';
@@ -50,8 +50,19 @@ function latticeInputs(a: FormulaAnalysis, s: ServiceSettings): string[] {
 
 /** The card of a formula as Markdown (hover and "copy card"). */
 export function formulaCardMarkdown(a: FormulaAnalysis, s: ServiceSettings): string {
+  if (a.ok && !a.molarMass) {
+    const lines = [`**${esc(a.display)}** · molar mass not computed: a count is not a number`, ''];
+    if (a.charges) lines.push(esc(a.charges.message), '');
+    for (const r of undeterminedText(a)) lines.push(esc(r), '');
+    lines.push(...a.diagnostics.map((d) => `- ${esc(d.message)}`));
+    return lines.join('\n');
+  }
   if (!a.ok || !a.molarMass) {
     return [`**${esc(a.input)}** — not a readable formula`, '', ...a.diagnostics.map((d) => `- ${esc(d.message)}`)].join('\n');
+  }
+  const designation = designationText(a);
+  if (designation) {
+    return [`**${esc(a.input)}** · alloy designation`, '', `Nominal composition: **${esc(designation)}**`, '', '---', '', esc('The numbers of a designation are mass percent, the base metal the balance; it is not a chemical formula, so no charge balance applies.')].join('\n');
   }
   const mm = a.molarMass;
   const head = `**${esc(a.display)}** · **${mm.value.toFixed(s.decimals)} g/mol**${a.charge ? ` · charge ${a.charge > 0 ? '+' : '−'}${Math.abs(a.charge)}` : ''}`;
@@ -61,8 +72,14 @@ export function formulaCardMarkdown(a: FormulaAnalysis, s: ServiceSettings): str
     if (!c.balanced) lines.push(`⚠ **Not charge-balanced:** ${esc(c.message)}${c.suggestions.length ? ` Try ${c.suggestions.map((x) => `\`${x}\``).join(', ')}.` : ''}`, '');
     else if (c.basis === 'ionic') lines.push(`${esc(c.message)}`, '');
     if (c.oxidationStates) lines.push(`Oxidation states: ${oxidationText(c.oxidationStates)}${c.mixedValence.length ? ' (averages: mixed valence)' : ''}`, '');
+    const bySite = sitesText(a);
+    if (bySite) lines.push(`By site: ${esc(bySite)}`, '');
+    for (const r of undeterminedText(a)) lines.push(`No state given for ${esc(r)}`, '');
   }
-  if (a.bond) lines.push(`Bonding: **${a.bond.type}** — ΔEN ${a.bond.pair.join('–')} ${a.bond.deltaEN.toFixed(2)}, ${a.bond.percentIonic.toFixed(0)} % ionic`, '');
+  if (a.bond) {
+    const between = a.bond.betweenIons && a.bond.pairWithin ? `**ionic** between ${esc(a.bond.betweenIons.cation)} and ${esc(a.bond.betweenIons.anion)}; ` : '';
+    lines.push(`Bonding: ${between}**${a.bond.type}** — ΔEN ${a.bond.pair.join('–')} ${a.bond.deltaEN.toFixed(2)}, ${a.bond.percentIonic.toFixed(0)} % ionic`, '');
+  }
   const lat = latticeLine(a, s);
   if (lat) lines.push(lat, '');
   const cautions = cautionsFor(a);

@@ -42,7 +42,8 @@ function segmentOptions(s: Segment): Opt[] {
           out.push({
             total: j * u[a].charge + (m - j) * u[b].charge,
             unitCharges: [...Array(j).fill(u[a].charge), ...Array(m - j).fill(u[b].charge)],
-            cost: Math.max(u[a].cost, u[b].cost) + 0.5,
+            // Neighbouring states first: Mn3O4 is Mn²⁺ + 2 Mn³⁺ (hausmannite), not 2 Mn²⁺ + Mn⁴⁺.
+            cost: Math.max(u[a].cost, u[b].cost) + 0.5 + 0.05 * (Math.abs(u[a].charge - u[b].charge) - 1),
           });
         }
       }

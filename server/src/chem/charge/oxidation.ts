@@ -119,6 +119,14 @@ export function assignStates(atoms: AtomCounts, charge: number): StateAssignment
   return null;
 }
 
+/**
+ * Weight of the electronegativity tie-break: among assignments of equal cost, the one that gives the
+ * negative states to the more electronegative elements (the definition of oxidation states: bonding
+ * electrons go to the more electronegative partner; IUPAC, Pure Appl. Chem. 88 (2016) 831, "Toward a
+ * comprehensive definition of oxidation state"). SiC is Si +4, C −4; SO2Cl2 is S +6, Cl −1.
+ */
+const EN_TIE = 1e-3;
+
 function searchWhole(free: string[], atoms: AtomCounts, target: number): Record<string, number> | null {
   // Dynamic programming over elements: sum → cheapest choice. Counts may be fractional.
   let layer = new Map<number, { cost: number; pick: Record<string, number> }>([[0, { cost: 0, pick: {} }]]);
@@ -127,7 +135,7 @@ function searchWhole(free: string[], atoms: AtomCounts, target: number): Record<
     for (const [sum, v] of layer) {
       for (const c of knownStates(el)) {
         const s = Math.round((sum + c.state * atoms[el]) * 1e6) / 1e6;
-        const cost = v.cost + c.cost;
+        const cost = v.cost + c.cost + EN_TIE * c.state * atoms[el] * en(el);
         const at = next.get(s);
         if (!at || cost < at.cost) next.set(s, { cost, pick: { ...v.pick, [el]: c.state } });
       }

@@ -4,6 +4,7 @@
  */
 import { element, isMetal } from '../data/elements';
 import type { IonDef } from '../data/ions';
+import { SALT_STATES, USUAL_EXTRA } from '../data/states';
 import type { FormulaItem, GroupNode } from '../formula/ast';
 import { itemsKey, ligandCharge, matchIon, matchKey, MAX_ION_ITEMS } from '../ions/match';
 
@@ -32,9 +33,29 @@ export interface Segment {
   element?: string;
   ion?: IonDef;
   /** For complexes: the central metal and the sum of the ligands' charges. */
-  complex?: { metal: string; ligandCharge: number };
+  complex?: { metal: string; ligandCharge: number; carbonyl?: boolean };
+  /** A carbonyl or phosphine ligand written as a group (`(CO)4`). */
+  carbonyl?: boolean;
   /** Per-unit charge options (for metals: per atom), usual first. */
   unitOptions: Array<{ charge: number; cost: number }>;
+  /** An oxidation state written in Stock notation (`Fe(III)`): kept whatever the reading. */
+  stock?: number;
+  /** For a metal read in a salt with its salt states only: the options it had before. */
+  unrestricted?: Array<{ charge: number; cost: number }>;
+}
+
+/**
+ * Extra cost of a catenated anion (peroxide, superoxide, ozonide, disulfide, polysulfide): more than a
+ * metal state observed in solids (cost ≤ 1), less than an unusual one (cost ≥ 2). So MnO2 reads as
+ * Mn⁴⁺ + 2 O²⁻, not Mn²⁺ + O₂²⁻, while BaO2, Na2O2, KO2 and FeS2 (no oxide or sulfide reading with a
+ * usual state) stay peroxide, superoxide and disulfide.
+ */
+export const CATENATED_COST = 1.5;
+
+/** Charge options of a table ion: the usual charge first, a catenated anion at its extra cost. */
+export function ionOptions(ion: IonDef): Array<{ charge: number; cost: number }> {
+  const extra = ion.catenated ? CATENATED_COST : 0;
+  return ion.charges.map((charge, k) => ({ charge, cost: (k === 0 ? 0 : 1) + extra }));
 }
 
 const HALOGENS = new Set(['F', 'Cl', 'Br', 'I', 'At']);
@@ -51,9 +72,12 @@ const D_OR_F_BLOCK = (z: number) => (z >= 21 && z <= 29) || (z >= 39 && z <= 47)
  * Elements, 2nd ed. (1997), the chapters on these elements (from memory): gold(I) (AuCl, [Au(CN)2]⁻),
  * osmium(II, III, VI, VIII) and ruthenium(VIII) (OsO4, RuO4), iron(IV) (SrFeO3).
  */
-const EXTRA_USUAL: Record<string, number[]> = { Au: [1], Os: [2, 3, 6, 8], Ru: [8], Fe: [4], Pt: [6] };
+const EXTRA_USUAL: Record<string, number[]> = { Os: [2, 3, 6], Fe: [4], Pt: [6] };
 
-/** Usual positive charges of a metal as an ion: common states first, then those seen in the ICSD. */
+/**
+ * Usual positive charges of a metal as an ion: the common states and the usual ones of data/states.ts
+ * first (cost 0), then those seen in the ICSD (1), then the few above (2), then, as a fallback, any known.
+ */
 export function metalCharges(symbol: string, fallback: boolean): Array<{ charge: number; cost: number }> {
   const e = element(symbol);
   if (!e) return [];
@@ -66,6 +90,7 @@ export function metalCharges(symbol: string, fallback: boolean): Array<{ charge:
     }
   };
   e.commonStates.forEach((q) => add(q, 0));
+  (USUAL_EXTRA[symbol] ?? []).forEach((q) => add(q, 0));
   e.icsdStates.forEach((q) => add(q, 1));
   (EXTRA_USUAL[symbol] ?? []).forEach((q) => add(q, 2));
   if (fallback && D_OR_F_BLOCK(e.z)) e.otherStates.forEach((q) => add(q, 4));
@@ -92,10 +117,11 @@ function groupInner(formula: string, g: GroupNode): string {
 }
 
 /** Read a bracket as a complex: a metal first, then ligands whose charges are known. */
-function readComplex(g: GroupNode): { metal: string; ligandCharge: number } | undefined {
+function readComplex(g: GroupNode): { metal: string; ligandCharge: number; carbonyl: boolean } | undefined {
   const [first, ...rest] = g.items;
   if (!first || first.kind !== 'element' || first.count !== 1 || !isMetal(first.symbol) || rest.length === 0) return undefined;
   let sum = 0;
+  const carbonyl = rest.every((it) => it.kind === 'group' && isCarbonylLigand(it.items));
   for (const it of rest) {
     let q: number | undefined;
     if (it.kind === 'element') {
@@ -110,7 +136,27 @@ function readComplex(g: GroupNode): { metal: string; ligandCharge: number } | un
       sum += q * it.count;
     }
   }
-  return { metal: first.symbol, ligandCharge: sum };
+  return { metal: first.symbol, ligandCharge: sum, carbonyl };
+}
+
+/**
+ * Carbonyl and phosphine ligands (CO, PPh3): a metal that has only these is in oxidation state 0
+ * (Ni(CO)4, Fe(CO)5, Cr(CO)6; IUPAC Red Book 2005, IR-10; Greenwood & Earnshaw, ch. 8).
+ */
+export function isCarbonylLigand(items: readonly FormulaItem[]): boolean {
+  const k = itemsKey(items);
+  return k === 'C1O1' || k === 'P1Ph3';
+}
+
+/**
+ * A metal with neutral carbonyl ligands only (`Ni(CO)4`, `Fe2(CO)9`): the metals' options become 0; null
+ * where the segments are anything else.
+ */
+export function carbonylReading(segs: Segment[]): Segment[] | null {
+  if (!segs.some((s) => s.kind === 'metal')) return null;
+  if (!segs.some((s) => s.kind === 'neutral-ligand' && s.carbonyl)) return null;
+  if (!segs.every((s) => s.kind === 'metal' || (s.kind === 'neutral-ligand' && s.carbonyl))) return null;
+  return segs.map((s) => (s.kind === 'metal' ? { ...s, unitOptions: [{ charge: 0, cost: 0 }] } : s));
 }
 
 function groupSegments(formula: string, g: GroupNode, fallback: boolean): Segment[] {
@@ -118,16 +164,17 @@ function groupSegments(formula: string, g: GroupNode, fallback: boolean): Segmen
   const inner = groupInner(formula, g);
   const base = { ionText: inner, bracket: g.open, multiplicity: g.count, start: g.start, end: g.end } as const;
   for (const m of matchIon(g.items)) {
-    out.push({ ...base, kind: 'polyatomic', role: m.role, ion: m.ion, unitOptions: m.ion.charges.map((charge, k) => ({ charge, cost: k === 0 ? 0 : 1 })) });
+    out.push({ ...base, kind: 'polyatomic', role: m.role, ion: m.ion, unitOptions: ionOptions(m.ion) });
   }
   const cx = readComplex(g);
   if (cx) {
     const opts = metalCharges(cx.metal, fallback).map((o) => ({ charge: o.charge + cx.ligandCharge, cost: o.cost }));
+    if (cx.carbonyl) opts.unshift({ charge: 0, cost: 0 });
     const role = opts.every((o) => o.charge < 0) ? 'anion' : opts.every((o) => o.charge > 0) ? 'cation' : 'neutral';
     out.push({ ...base, kind: 'complex', role, complex: cx, unitOptions: opts });
   }
   const lig = ligandCharge(g.items);
-  if (lig === 0) out.push({ ...base, kind: 'neutral-ligand', role: 'neutral', unitOptions: [{ charge: 0, cost: 0 }] });
+  if (lig === 0) out.push({ ...base, kind: 'neutral-ligand', role: 'neutral', unitOptions: [{ charge: 0, cost: 0 }], ...(isCarbonylLigand(g.items) ? { carbonyl: true } : {}) });
   else if (lig !== undefined && out.length === 0) out.push({ ...base, kind: 'polyatomic', role: lig < 0 ? 'anion' : 'cation', unitOptions: [{ charge: lig, cost: 0 }] });
   // A single element in brackets: (Cl)2 reads as Cl2.
   if (out.length === 0 && g.items.length === 1 && g.items[0].kind === 'element' && g.items[0].count === 1) {
@@ -178,7 +225,7 @@ export function segmentations(formula: string, items: readonly FormulaItem[], fa
       if (it.charge !== 0) out.push({ seg: { kind: 'polyatomic', role: 'anion', ionText: textOf(formula, { start: it.start, end: it.end - (it.count === 1 ? 0 : String(it.count).length) }), bracket: '', multiplicity: it.count, start: it.start, end: it.end, unitOptions: [{ charge: it.charge, cost: 0 }] }, next: i + 1 });
       else {
         const m = matchIon([it]);
-        for (const x of m) out.push({ seg: { kind: 'polyatomic', role: x.role, ion: x.ion, ionText: textOf(formula, it), bracket: '', multiplicity: 1, start: it.start, end: it.end, unitOptions: x.ion.charges.map((charge, k) => ({ charge, cost: k ? 1 : 0 })) }, next: i + 1 });
+        for (const x of m) out.push({ seg: { kind: 'polyatomic', role: x.role, ion: x.ion, ionText: textOf(formula, it), bracket: '', multiplicity: 1, start: it.start, end: it.end, unitOptions: ionOptions(x.ion) }, next: i + 1 });
       }
       return out;
     }
@@ -198,7 +245,7 @@ export function segmentations(formula: string, items: readonly FormulaItem[], fa
       const last = items[i + len - 1];
       for (const m of matchKey(runKey)) {
         out.push({
-          seg: { kind: 'polyatomic', role: m.role, ion: m.ion, ionText: formula.slice(first.start, last.end), bracket: '', multiplicity: 1, start: first.start, end: last.end, unitOptions: m.ion.charges.map((charge, k) => ({ charge, cost: k ? 1 : 0 })) },
+          seg: { kind: 'polyatomic', role: m.role, ion: m.ion, ionText: formula.slice(first.start, last.end), bracket: '', multiplicity: 1, start: first.start, end: last.end, unitOptions: ionOptions(m.ion) },
           next: i + len,
         });
       }
@@ -207,7 +254,7 @@ export function segmentations(formula: string, items: readonly FormulaItem[], fa
     for (const s of singleElement(it.symbol, fallback)) {
       const opts = it.stock !== undefined ? s.unitOptions.filter((o) => o.charge === it.stock).concat(s.unitOptions.some((o) => o.charge === it.stock) || s.kind !== 'metal' ? [] : [{ charge: it.stock, cost: 0 }]) : s.unitOptions;
       if (opts.length === 0) continue;
-      out.push({ seg: { kind: s.kind, role: s.role, unitOptions: opts, element: it.symbol, ionText: formula.slice(it.start, symEnd), bracket: '', multiplicity: it.count, start: it.start, end: it.end }, next: i + 1 });
+      out.push({ seg: { kind: s.kind, role: s.role, unitOptions: opts, element: it.symbol, ionText: formula.slice(it.start, symEnd), bracket: '', multiplicity: it.count, start: it.start, end: it.end, ...(it.stock !== undefined ? { stock: it.stock } : {}) }, next: i + 1 });
     }
     return out;
   };
@@ -259,4 +306,41 @@ export function plausible(segs: Segment[]): boolean {
 /** A real cation: a metal, a polyatomic cation or a complex cation (protons alone make an acid, a molecule). */
 export function hasRealCation(segs: Segment[]): boolean {
   return segs.some((s) => s.role === 'cation' && s.kind !== 'proton');
+}
+
+/** A complex whose charge may take either sign (`[Au(CN)2]`: +1 or −1 by the metal's state) can be either ion. */
+const eitherSign = (s: Segment) => s.kind === 'complex' && s.role === 'neutral';
+
+/** A real cation and an anion, two different segments (a complex of either sign counts as either). */
+export function cationWithAnion(segs: Segment[]): boolean {
+  const cat = segs.filter((s) => (s.role === 'cation' && s.kind !== 'proton') || eitherSign(s));
+  const an = segs.filter((s) => s.role === 'anion' || eitherSign(s));
+  return cat.some((c) => an.some((a) => a !== c));
+}
+
+const SALT_HALIDES = new Set(['Cl', 'Br', 'I']);
+const OXIDE_LIKE = new Set(['O', 'S', 'Se', 'Te', 'N', 'P', 'As', 'Sb', 'C', 'Si', 'Ge', 'B', 'H']);
+
+/**
+ * A salt of polyatomic anions or of chloride, bromide, iodide read with each metal's salt states only
+ * (data/states.ts): the same segments with the metals' options replaced, or null where the reading is
+ * not such a salt (oxides, chalcogenides, fluorides, hydrides, intermetallic phases keep the usual set).
+ */
+export function saltReading(segs: Segment[]): Segment[] | null {
+  const anions = segs.filter((s) => s.role === 'anion' || (s.kind === 'complex' && s.role === 'neutral'));
+  if (anions.length === 0) return null;
+  for (const a of anions) {
+    if (a.kind === 'monatomic-anion') {
+      if (a.element === 'F' || OXIDE_LIKE.has(a.element as string) || !SALT_HALIDES.has(a.element as string)) return null;
+    } else if (a.ion?.catenated) return null;
+  }
+  let changed = false;
+  const out = segs.map((s) => {
+    if (s.kind !== 'metal' || s.stock !== undefined) return s;
+    const states = SALT_STATES[s.element as string];
+    if (!states) return s;
+    changed = true;
+    return { ...s, unitOptions: states.map((charge, k) => ({ charge, cost: k === 0 ? 0 : 0.25 })), unrestricted: s.unitOptions };
+  });
+  return changed ? out : null;
 }

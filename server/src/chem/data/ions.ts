@@ -27,6 +27,8 @@ export interface IonDef {
   radiusFromMemory?: boolean;
   /** Weak acid/base or amphiprotic: treated as undissociated beyond the first step in batches. */
   weak?: boolean;
+  /** A chain of like atoms (peroxide, superoxide, ozonide, disulfide, polysulfide): read only where no oxide or sulfide reading with usual states exists. */
+  catenated?: boolean;
 }
 
 const mem = (r: number) => ({ radius: r, radiusFromMemory: true });
@@ -94,12 +96,61 @@ export const ANIONS: IonDef[] = [
   { name: 'selenite', forms: ['SeO3'], charges: [-2], ...mem(2.39) },
   { name: 'azide', forms: ['N3'], charges: [-1], ...mem(1.95) },
   { name: 'hydrogen difluoride', forms: ['HF2'], charges: [-1], states: { H: 1, F: -1 }, radius: 1.72 },
-  { name: 'peroxide', forms: ['O2'], charges: [-2, -1], namesByCharge: { [-1]: 'superoxide' }, ...mem(1.73) },
-  { name: 'disulfide', forms: ['S2'], charges: [-2] },
+  { name: 'peroxide', forms: ['O2'], charges: [-2, -1], namesByCharge: { [-1]: 'superoxide' }, catenated: true, ...mem(1.73) },
+  { name: 'disulfide', forms: ['S2'], charges: [-2], catenated: true },
   { name: 'acetylide', forms: ['C2'], charges: [-2] },
   { name: 'triiodide', forms: ['I3'], charges: [-1] },
   { name: 'amide', forms: ['NH2'], charges: [-1] },
   { name: 'hydrogen sulfide', forms: ['HS'], charges: [-1], ...mem(2.07) },
+  // Sulfur oxoanions and chains (Greenwood & Earnshaw, ch. 15; IUPAC Red Book 2005, Table IX).
+  { name: 'dithionate', forms: ['S2O6'], charges: [-2] },
+  { name: 'trithionate', forms: ['S3O6'], charges: [-2] },
+  { name: 'tetrathionate', forms: ['S4O6'], charges: [-2] },
+  { name: 'pentathionate', forms: ['S5O6'], charges: [-2] },
+  { name: 'trisulfide', forms: ['S3'], charges: [-2], catenated: true },
+  { name: 'tetrasulfide', forms: ['S4'], charges: [-2], catenated: true },
+  { name: 'pentasulfide', forms: ['S5'], charges: [-2], catenated: true },
+  { name: 'hexasulfide', forms: ['S6'], charges: [-2], catenated: true },
+  { name: 'polysulfide', forms: ['Sx'], charges: [-2], catenated: true },
+  { name: 'ozonide', forms: ['O3'], charges: [-1], catenated: true },
+  { name: 'sulfamate', forms: ['SO3NH2', 'NH2SO3', 'H2NSO3', 'OSO2NH2'], charges: [-1], states: { N: -3 } },
+  // Sulfonates: with Pauling's values (C 2.55 < S 2.58) the C–S bond's electrons go to S, so S is +4.
+  { name: 'methanesulfonate', forms: ['CH3SO3', 'SO3CH3'], charges: [-1], states: { S: 4, C: -2 } },
+  // Phosphates (Greenwood & Earnshaw, ch. 12): triphosphate (tripolyphosphate), cyclic trimetaphosphate,
+  // metaphosphate as in (NaPO3)n.
+  { name: 'triphosphate', forms: ['P3O10'], charges: [-5] },
+  { name: 'trimetaphosphate', forms: ['P3O9'], charges: [-3] },
+  { name: 'metaphosphate', forms: ['PO3'], charges: [-1] },
+  { name: 'hexametaphosphate', forms: ['P6O18'], charges: [-6] },
+  // Perborate: the peroxoborate of the trade formula NaBO3·4H2O (really Na2[B2(O2)2(OH)4]·6H2O;
+  // Greenwood & Earnshaw, ch. 6): B +3, O −4/3 on average.
+  { name: 'perborate', forms: ['BO3'], charges: [-1], states: { B: 3, O: -4 / 3 }, catenated: true },
+  { name: 'zincate', forms: ['ZnO2'], charges: [-2] },
+  { name: 'stannate', forms: ['SnO3'], charges: [-2] },
+  // Alkoxides (IUPAC Red Book 2005, Table IX: methanolate, ethanolate…; common practice for the forms).
+  { name: 'methoxide', forms: ['OCH3', 'CH3O', 'OMe', 'MeO'], charges: [-1] },
+  { name: 'ethoxide', forms: ['OC2H5', 'C2H5O', 'OEt', 'EtO'], charges: [-1] },
+  { name: 'propoxide', forms: ['OC3H7', 'C3H7O', 'OCH(CH3)2'], charges: [-1] },
+  { name: 'butoxide', forms: ['OC4H9', 'C4H9O', 'OBu', 'OC(CH3)3'], charges: [-1] },
+  // Organic anions of formulation work: charges of the fully or partly deprotonated acids (CRC Handbook,
+  // "Dissociation constants of organic acids and bases"; common practice for the formulas).
+  { name: 'hydrogen citrate', forms: ['C6H6O7', 'HC6H5O7'], charges: [-2], weak: true },
+  { name: 'dihydrogen citrate', forms: ['C6H7O7', 'H2C6H5O7'], charges: [-1], weak: true },
+  { name: 'gluconate', forms: ['C6H11O7', 'HOCH2(CHOH)4COO'], charges: [-1] },
+  { name: 'glycolate', forms: ['C2H3O3', 'HOCH2COO'], charges: [-1] },
+  { name: 'hydrogen oxalate', forms: ['HC2O4', 'C2HO4'], charges: [-1], weak: true },
+  { name: 'hydrogen tartrate', forms: ['C4H5O6', 'HC4H4O6'], charges: [-1], weak: true },
+  { name: 'stearate', forms: ['C17H35COO', 'C18H35O2', 'C17H35CO2'], charges: [-1] },
+  { name: 'edetate', forms: ['C10H12N2O8'], charges: [-4], states: { N: -3 } },
+  { name: 'hydrogen edetate', forms: ['C10H13N2O8'], charges: [-3], states: { N: -3 }, weak: true },
+  { name: 'dihydrogen edetate', forms: ['C10H14N2O8'], charges: [-2], states: { N: -3 }, weak: true },
+  { name: 'trihydrogen edetate', forms: ['C10H15N2O8'], charges: [-1], states: { N: -3 }, weak: true },
+  { name: 'nitrilotriacetate', forms: ['C6H6NO6', 'N(CH2COO)3'], charges: [-3], states: { N: -3 } },
+  { name: 'dodecyl sulfate', forms: ['C12H25SO4', 'C12H25OSO3', 'CH3(CH2)11OSO3'], charges: [-1] },
+  { name: 'dodecylbenzenesulfonate', forms: ['C18H29SO3', 'C12H25C6H4SO3'], charges: [-1], states: { S: 4 } },
+  { name: 'saccharinate', forms: ['C7H4NO3S'], charges: [-1], states: { N: -3 } },
+  // Dichloroisocyanurate: the chlorine counted +1 as the trade does (it is released as HOCl).
+  { name: 'dichloroisocyanurate', forms: ['C3Cl2N3O3', 'Cl2C3N3O3'], charges: [-1], states: { C: 4, N: -3, Cl: 1 } },
 ];
 
 export const CATIONS: IonDef[] = [

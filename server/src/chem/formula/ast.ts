@@ -69,4 +69,9 @@ export interface Formula {
   alternative?: Formula;
   state?: StateSymbol;
   stateSpan?: { start: number; end: number };
+  /**
+   * Where a count is written as `x` (`(NH4)2Sx`, a polysulfide of unstated chain length): such an item's
+   * count is NaN, so nothing computes a number from it (molar mass, composition) by mistake.
+   */
+  variableCounts?: Array<{ start: number; end: number }>;
 }

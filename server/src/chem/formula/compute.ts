@@ -10,6 +10,7 @@ export type AtomCounts = Record<string, number>;
 
 /** Round away binary noise from fractional counts (0.1 + 0.2) without hiding real decimals. */
 export function cleanCount(x: number): number {
+  if (Number.isNaN(x)) return x;
   const r = Math.round(x * 1e9) / 1e9;
   return Object.is(r, -0) ? 0 : r;
 }
@@ -55,6 +56,7 @@ export function hillOrder(symbols: string[]): string[] {
 }
 
 export function formatCount(n: number): string {
+  if (Number.isNaN(n)) return 'x';
   if (Number.isInteger(n)) return String(n);
   return String(Number(n.toFixed(4)));
 }

@@ -15,6 +15,8 @@
  *   A bare `<digits><sign>` at the end is ambiguous (`Fe3+` vs `NH4+`): on a single element the last digit
  *   is the charge (`Fe3+` is Fe³⁺); otherwise the sign alone is the charge and the parser also offers the
  *   other reading (`SO42-` as SO₄²⁻), which the chemistry layer keeps when it names a known ion.
+ * - spaces around an adduct dot other than `.` (`CuSO4 · 5H2O`, `CuSO4 · 5 H2O`), read as without,
+ * - a count written `x` (`(NH4)2Sx`): read, but nothing is computed from it (its count is NaN),
  * - state symbols `(s)`, `(l)`, `(g)`, `(aq)`, `(cr)` at the very end,
  * - organic shorthand `Me Et Bu Ph Bn OAc` and ligand abbreviations `en py bpy phen acac ox edta`
  *   (ligands only inside brackets, so that words such as "Ben" are not read as B + en),
@@ -77,6 +79,9 @@ const isLower = (c: string | undefined) => c !== undefined && c >= 'a' && c <= '
 const isSubDigit = (c: string | undefined) => c !== undefined && SUBSCRIPT_DIGITS.includes(c);
 const isSupDigit = (c: string | undefined) => c !== undefined && SUPERSCRIPT_DIGITS.includes(c);
 const isSign = (c: string | undefined) => c === '+' || c === '-' || c === '−';
+const isSpace = (c: string | undefined) => c === ' ' || c === '\t' || c === '\u00a0';
+/** Adduct separators that may stand between spaces (`CuSO4 · 5H2O`); a spaced `.` is left to prose. */
+const SPACED_SEPARATORS = new Set(['·', '•', '∙', '⋅', '*']);
 const isSupSign = (c: string | undefined) => c === SUP_PLUS || c === SUP_MINUS;
 const signOf = (c: string) => (c === '+' || c === SUP_PLUS ? 1 : -1);
 
@@ -102,6 +107,7 @@ class FormulaParser {
   private readonly n: number;
   /** The item whose ASCII count ended right here, for the bare-charge ambiguity. */
   private lastCount: { item: FormulaItem; text: string; end: number } | undefined;
+  private readonly variables: Array<{ start: number; end: number }> = [];
 
   constructor(private readonly s: string, private readonly options: ParseOptions) {
     this.n = s.length;
@@ -174,7 +180,9 @@ class FormulaParser {
       } else if (SEPARATORS.has(c)) {
         this.closeAll(stack);
         part.end = this.i;
+        if (isSpace(s[this.i - 1])) while (part.end > part.start && isSpace(s[part.end - 1])) part.end--;
         this.i++;
+        if (SPACED_SEPARATORS.has(c)) while (isSpace(s[this.i])) this.i++;
         part = this.startPart();
         formula.parts.push(part);
         items = part.items;
@@ -192,6 +200,13 @@ class FormulaParser {
         while (isDigit(s[this.i]) || isSubDigit(s[this.i]) || s[this.i] === '.') this.i++;
         this.error(start, this.i, `The number '${s.slice(start, this.i)}' does not follow an element or a bracket.`);
       } else if (c === ' ' || c === '\t' || c === '\u00a0') {
+        // Spaces around an adduct dot are read as without (`CuSO4 · 5H2O`, `CuSO4 · 5 H2O`).
+        let j = this.i;
+        while (isSpace(s[j])) j++;
+        if (s[j] !== undefined && SPACED_SEPARATORS.has(s[j]) && stack.length === 0 && part.items.length > 0) {
+          this.i = j;
+          continue;
+        }
         this.error(this.i, this.i + 1, 'Space inside a formula.');
         this.i++;
       } else {
@@ -213,6 +228,7 @@ class FormulaParser {
     if (formula.parts.every((p) => p.items.length === 0) && this.diags.length === 0) {
       this.error(0, this.n, 'No element symbols in this formula.');
     }
+    if (this.variables.length) formula.variableCounts = this.variables;
     return this.result(formula);
   }
 
@@ -238,7 +254,9 @@ class FormulaParser {
       multiplier = FRACTIONS[s[this.i]];
       this.i++;
     } else if (isDigit(s[this.i])) {
-      const m = this.readNumber();
+      // A leading multiplier may be a decimal (`CaCl2·1.5H2O`, `Na2CO3·1.5H2O2`): a dot right after the
+      // multiplier's digits cannot start another adduct part.
+      const m = this.readNumber(true);
       multiplier = m;
       if (s[this.i] === '/' && isDigit(s[this.i + 1])) {
         this.i++;
@@ -249,15 +267,22 @@ class FormulaParser {
       else if (multiplier > MAX_COUNT) this.error(start, this.i, `Multiplier ${s.slice(start, this.i)} is beyond the limit of ${MAX_COUNT}.`);
       if (!(multiplier > 0 && multiplier <= MAX_COUNT)) multiplier = 1;
     }
-    return { multiplier, multiplierText: s.slice(start, this.i), items: [], start, end: this.i };
+    const multiplierText = s.slice(start, this.i);
+    // `5 H2O`: a space between a multiplier and the molecule it multiplies.
+    if (multiplierText !== '' && isSpace(s[this.i])) {
+      let j = this.i;
+      while (isSpace(s[j])) j++;
+      if (isUpper(s[j]) || s[j] === '(' || s[j] === '[') this.i = j;
+    }
+    return { multiplier, multiplierText, items: [], start, end: this.i };
   }
 
   /** Read ASCII digits with an optional decimal part (subject to the hydrate-dot rule). */
-  private readNumber(): number {
+  private readNumber(multiplier = false): number {
     const s = this.s;
     const start = this.i;
     while (isDigit(s[this.i])) this.i++;
-    if (s[this.i] === '.' && isDigit(s[this.i + 1]) && (s.slice(start, this.i) === '0' || !this.dotStartsAdduct(this.i))) {
+    if (s[this.i] === '.' && isDigit(s[this.i + 1]) && (multiplier || s.slice(start, this.i) === '0' || !this.dotStartsAdduct(this.i))) {
       this.i++;
       while (isDigit(s[this.i])) this.i++;
     }
@@ -281,6 +306,10 @@ class FormulaParser {
     const s = this.s;
     const start = this.i;
     let value = 1;
+    if (s[this.i] === 'x' && !isLower(s[this.i + 1])) {
+      this.i++;
+      return this.variableCount(start);
+    }
     if (isDigit(s[this.i])) {
       value = this.readNumber();
       this.lastCount = { item, text: s.slice(start, this.i), end: this.i };
@@ -306,11 +335,19 @@ class FormulaParser {
     return value;
   }
 
+  /** A count written `x`: NaN, recorded on the formula. */
+  private variableCount(start: number): number {
+    this.variables.push({ start, end: this.i });
+    return NaN;
+  }
+
   private readSymbol(items: FormulaItem[]) {
     const s = this.s;
     const start = this.i;
     this.i++;
     while (isLower(s[this.i])) this.i++;
+    // `Sx`: no symbol ends in x, so a trailing x is a count (`(NH4)2Sx`).
+    if (s[this.i - 1] === 'x' && this.i - start >= 2 && isElementSymbol(s.slice(start, this.i - 1))) this.i--;
     let token = s.slice(start, this.i);
     if (token === 'O' && s.startsWith('Ac', this.i) && !isLower(s[this.i + 2])) {
       this.i += 2;
@@ -426,7 +463,7 @@ class FormulaParser {
         this.error(start, this.i, "A charge after '^' needs a sign, e.g. ^2- or ^+.");
         return;
       }
-      if (new Set(signs.replace('−', '-')).size > 1 || (digits !== '' && signs.length > 1)) {
+      if (new Set(signs.replace(/−/g, '-')).size > 1 || (digits !== '' && signs.length > 1)) {
         this.error(start, this.i, `Charge '${s.slice(start, this.i)}' is not readable; write it as ^2- or ^+.`);
         return;
       }
@@ -454,7 +491,7 @@ class FormulaParser {
       while (isSign(s[this.i])) signs += s[this.i++];
       let digits = '';
       while (isDigit(s[this.i])) digits += s[this.i++];
-      if (new Set(signs.replace('−', '-')).size > 1 || (digits !== '' && signs.length > 1)) {
+      if (new Set(signs.replace(/−/g, '-')).size > 1 || (digits !== '' && signs.length > 1)) {
         this.error(start, this.i, `Charge '${s.slice(start, this.i)}' is not readable; write it as ^2- or ^+.`);
         return;
       }
