@@ -1,17 +1,20 @@
 /** `ionwright --help` and `ionwright <command> --help`. The examples run on the demo notes in examples/. */
 
 const EXIT = `Exit status: 0 ran without error-severity findings, 1 ran with them, 2 usage or input problem
-(one line on stderr), 141 the reader of the output went away early (as '| head' does; nothing more is printed).`;
+(one line on stderr), 141 the reader of the output went away early (as with '| head'; nothing more
+is printed).`;
 
-const FILES = `Files: folders are read recursively (hidden folders and node_modules skipped), each file once in
-sorted order. Symbolic links inside a folder are followed only to places inside the folder named on the
-command line; links leading out of it, back to what was already read, or nowhere are not followed, and
-one line on stderr says which (this does not change the exit status). A file that cannot be read, or
-is skipped because it is not UTF-8 text (binary, NUL bytes, UTF-16, invalid bytes), is one line on
-stderr with the reason, and makes the exit status 2.`;
+const FILES = `Files: folders are read recursively (hidden folders and node_modules skipped), each file once, in
+sorted order. A path named on the command line is followed wherever it leads; inside a folder,
+symbolic links are followed only to places inside that folder. Links that lead out of it, back to
+what was already read, or nowhere are not followed, and one line on stderr says which (this does not
+change the exit status; a link named like a note that leads nowhere is a file that cannot be read).
+A file that cannot be read, or is skipped because it is not UTF-8 text (NUL bytes, UTF-16, invalid
+bytes), is one line on stderr with the reason, and makes the exit status 2.`;
 
-const CONTROLS = `Control characters in the notes or in file names are printed as pictures (ESC as ␛, CR as ␍, BEL
-as ␇; C1 controls as \\x9b), never sent to the terminal as they are; JSON output escapes them as JSON does.`;
+const CONTROLS = `Control characters in the notes or in file names are printed as pictures (ESC as ␛, CR as ␍,
+BEL as ␇; C1 controls as \\x9b), never sent to the terminal as they are; JSON output escapes them
+as JSON does.`;
 
 export const OVERVIEW = `Ionwright: formulas, reactions and batch recipes in formulation notes
 (Markdown .md/.markdown and .fnote files): molar masses, charge balance, balanced equations, batch arithmetic.
