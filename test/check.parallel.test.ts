@@ -203,7 +203,7 @@ describe('ionwright check on a folder of 40 notes', () => {
     const two = run('2');
     for (const r of [one, two]) {
       expect(r.status).toBe(2);
-      expect(r.stderr).toBe('ionwright: bench/pipe.md: cannot be read\n');
+      expect(r.stderr).toBe('ionwright: bench/pipe.md: cannot be read: a named pipe, not a regular file\n');
     }
     expect(two.stdout).toBe(one.stdout);
     expect(JSON.parse(one.stdout).length).toBeGreaterThan(0);

@@ -125,7 +125,7 @@ describe('ionwright --help and --version', () => {
       expect(r.status).toBe(0);
       expect(r.stderr).toBe('');
       for (const c of ['card', 'check', 'balance', 'batch', 'table', 'report', 'demo']) expect(r.stdout).toMatch(new RegExp(`^  ionwright ${c} `, 'm'));
-      expect(r.stdout).toContain('ionwright report <path> --html <out.html>   a self-contained HTML page: formulas and batches as tables, a chart of estimated lattice energies');
+      expect(r.stdout).toContain('ionwright report <path> [--html <out.html>] a self-contained HTML page: formulas and batches as tables, a chart of estimated lattice energies');
       for (const flag of ['--format text|json|sarif', '--jobs <n>|auto', '--json', '--version', 'IONWRIGHT_JOBS']) expect(r.stdout).toContain(flag);
       expect(r.stdout).toMatch(/^Examples.*\n  ionwright check examples\//m);
     }

@@ -13,7 +13,7 @@
  * ECMA-262 regular expressions are.
  */
 import { spawnSync } from 'node:child_process';
-import { mkdirSync, readFileSync, realpathSync, writeFileSync, existsSync } from 'node:fs';
+import { mkdirSync, readFileSync, realpathSync, symlinkSync, writeFileSync, existsSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -149,11 +149,43 @@ describe('check --format sarif', () => {
     expect(errors).toBe('No errors');
     expect(valid).toBe(true);
     expect(r.status).toBe(2);
-    expect(r.stderr).toBe('ionwright: pipe.md: cannot be read\n');
+    expect(r.stderr).toBe('ionwright: pipe.md: cannot be read: a named pipe, not a regular file\n');
     const [inv] = doc.runs[0].invocations;
     expect(inv.executionSuccessful).toBe(false);
-    expect(inv.toolExecutionNotifications).toEqual([{ level: 'error', message: { text: 'cannot be read' }, locations: [{ physicalLocation: { artifactLocation: { uri: 'pipe.md', uriBaseId: '%SRCROOT%' } } }] }]);
+    expect(inv.toolExecutionNotifications).toEqual([{ level: 'error', message: { text: 'cannot be read: a named pipe, not a regular file' }, locations: [{ physicalLocation: { artifactLocation: { uri: 'pipe.md', uriBaseId: '%SRCROOT%' } } }] }]);
     expect(doc.runs[0].results).toHaveLength(1);
+  });
+});
+
+describe('check --format sarif with files left out', () => {
+  it('a link not followed is a note notification (the run still successful), a file not UTF-8 an error one; valid either way', () => {
+    const root = realpathSync(mkdtempSync(join(tmpdir(), 'ionwright-sarif-links-')));
+    mkdirSync(join(root, 'notes'));
+    mkdirSync(join(root, 'outside'));
+    writeFileSync(join(root, 'notes', 'a.md'), '`NaXx`\n');
+    writeFileSync(join(root, 'outside', 'o.md'), '`Qq`\n');
+    symlinkSync('../outside', join(root, 'notes', 'elsewhere'));
+    const links = sarifOf(['notes'], root);
+    expect(links.errors).toBe('No errors');
+    expect(links.r.status).toBe(1);
+    expect(links.doc.runs[0].invocations).toEqual([
+      {
+        executionSuccessful: true,
+        toolExecutionNotifications: [
+          { level: 'note', message: { text: 'symbolic link not followed: it leads out of the folder named on the command line' }, locations: [{ physicalLocation: { artifactLocation: { uri: 'notes/elsewhere', uriBaseId: '%SRCROOT%' } } }] },
+        ],
+      },
+    ]);
+    writeFileSync(join(root, 'notes', 'latin1.md'), Buffer.from([0x4b, 0xfc, 0x68, 0x6c, 0x0a]));
+    const both = sarifOf(['notes'], root);
+    expect(both.errors).toBe('No errors');
+    expect(both.r.status).toBe(2);
+    const [inv] = both.doc.runs[0].invocations;
+    expect(inv.executionSuccessful).toBe(false);
+    expect(inv.toolExecutionNotifications.map((n: Sarif) => [n.level, n.message.text])).toEqual([
+      ['error', 'skipped: not UTF-8 text (invalid byte 0xFC at offset 1, line 1)'],
+      ['note', 'symbolic link not followed: it leads out of the folder named on the command line'],
+    ]);
   });
 });
 

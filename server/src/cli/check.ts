@@ -10,11 +10,10 @@
  */
 import { relative, resolve } from 'node:path';
 import type { LspDiagnostic } from '../service/diagnostics';
-import { parse, readFiles, UsageError, type CliIO, type FileProblem } from './io';
+import { emptyReport, parse, readFiles, skippedLinksLine, UsageError, type CliIO, type InputReport } from './io';
 import { checkHere, checkInWorkers, type CheckJob, type CheckOutcome } from './pool';
-import { toSarif } from './sarif';
-
-const SEVERITY_WORD = { 1: 'error', 2: 'warning', 3: 'info', 4: 'hint' } as const;
+import { writeSarif } from './sarif';
+import { diagnosticJson, findingLine, OutputWriter, visibleLine, writeJsonArray } from './text';
 
 /**
  * When `auto` uses workers. Measured on a 2-core machine (folders of 200 generated notes, 0.4 to
@@ -86,8 +85,9 @@ export async function cmdCheck(args: string[], io: CliIO): Promise<number> {
   const setting = readJobs(values.jobs as string | undefined, io.env?.IONWRIGHT_JOBS);
   if (positionals.length === 0) throw new UsageError('check needs at least one file or folder');
 
-  const problems: FileProblem[] = [];
-  const jobs: CheckJob[] = readFiles(positionals, io, problems);
+  const report = emptyReport();
+  const jobs: CheckJob[] = readFiles(positionals, io, report);
+  const problems = report.problems;
   const chars = jobs.reduce((n, job) => n + job.text.length, 0);
 
   const progress = progressLine(io, jobs.length);
@@ -109,34 +109,61 @@ export async function cmdCheck(args: string[], io: CliIO): Promise<number> {
   const results: Array<{ path: string; diagnostics: LspDiagnostic[] }> = [];
   jobs.forEach((job, i) => {
     const o = outcomes[i];
+    // The texts are no longer needed: let the collector have them while the output is written.
+    job.text = '';
     if ('failure' in o) problems.push({ path: job.path, message: o.failure });
     else results.push({ path: job.path, diagnostics: o.diagnostics });
   });
 
-  const display = (p: string) => relative(io.cwd, resolve(io.cwd, p)) || p;
+  const display = displayPath(io);
+  const w = new OutputWriter((t) => io.out(t));
   if (format === 'json') {
-    io.out(JSON.stringify(results.flatMap((r) => r.diagnostics.map((d) => ({ file: display(r.path), ...d }))), null, 2));
+    await writeJsonArray(w, jsonItems(results, display), { render: ([file, d], inner) => diagnosticJson(file, d, inner) });
   } else if (format === 'sarif') {
     const abs = (p: string) => resolve(io.cwd, p);
-    io.out(JSON.stringify(toSarif(results.map((r) => ({ path: abs(r.path), diagnostics: r.diagnostics })), { cwd: io.cwd, problems: problems.map((p) => ({ path: abs(p.path), message: p.message })) }), null, 2));
+    await writeSarif(w, results.map((r) => ({ path: abs(r.path), diagnostics: r.diagnostics })), {
+      cwd: io.cwd,
+      problems: problems.map((p) => ({ path: abs(p.path), message: p.message })),
+      notes: report.links.map((l) => ({ path: abs(l.path), message: `symbolic link not followed: ${LINK_WHY[l.why]}` })),
+    });
   } else {
     let errors = 0;
     let warnings = 0;
-    const lines: string[] = [];
     for (const r of results) {
       const file = display(r.path);
       for (const d of r.diagnostics) {
         if (d.severity === 1) errors++;
         if (d.severity === 2) warnings++;
-        lines.push(`${file}:${d.range.start.line + 1}:${d.range.start.character + 1} ${SEVERITY_WORD[d.severity]} ${d.code} ${d.message}`);
+        const p = w.line(findingLine(file, d));
+        if (p) await p;
       }
     }
     const n = results.length;
-    lines.push(`${n} file${n === 1 ? '' : 's'} checked: ${errors} error${errors === 1 ? '' : 's'}, ${warnings} warning${warnings === 1 ? '' : 's'}.`);
-    io.out(lines.join('\n'));
+    w.line(`${n} file${n === 1 ? '' : 's'} checked: ${errors} error${errors === 1 ? '' : 's'}, ${warnings} warning${warnings === 1 ? '' : 's'}.`);
   }
+  await w.flush();
   if (notice) io.err(`ionwright: note: ${notice}`);
-  for (const p of problems) io.err(`ionwright: ${display(p.path)}: ${p.message}`);
+  reportInputs(io, report, display);
   if (problems.length) return 2;
   return results.some((r) => r.diagnostics.some((d) => d.severity === 1)) ? 1 : 0;
+}
+
+const LINK_WHY = { outside: 'it leads out of the folder named on the command line', again: 'it leads to what was already read', broken: 'it leads nowhere' } as const;
+
+/** The json items, one finding at a time, with its file: written as `{file, range, severity, code, message, source}`. */
+function* jsonItems(results: Array<{ path: string; diagnostics: LspDiagnostic[] }>, display: (p: string) => string): Generator<[string, LspDiagnostic]> {
+  for (const r of results) {
+    const file = display(r.path);
+    for (const d of r.diagnostics) yield [file, d];
+  }
+}
+
+/** A path as the outputs show it: relative to the working folder where it is inside it. */
+export const displayPath = (io: CliIO) => (p: string) => relative(io.cwd, resolve(io.cwd, p)) || p;
+
+/** The links not followed (one line) and the files not read (one line each), on stderr. */
+export function reportInputs(io: CliIO, report: InputReport, display: (p: string) => string): void {
+  const links = skippedLinksLine(report.links, (p) => visibleLine(display(p)));
+  if (links) io.err(`ionwright: ${links}`);
+  for (const p of report.problems) io.err(`ionwright: ${visibleLine(display(p.path))}: ${p.message}`);
 }

@@ -1,6 +1,20 @@
 /** `ionwright --help` and `ionwright <command> --help`. The examples run on the demo notes in examples/. */
 
-const EXIT = 'Exit status: 0 ran without error-severity findings, 1 ran with them, 2 usage or input problem (one line on stderr).';
+const EXIT = `Exit status: 0 ran without error-severity findings, 1 ran with them, 2 usage or input problem
+(one line on stderr), 141 the reader of the output went away early (as with '| head'; nothing more
+is printed).`;
+
+const FILES = `Files: folders are read recursively (hidden folders and node_modules skipped), each file once, in
+sorted order. A path named on the command line is followed wherever it leads; inside a folder,
+symbolic links are followed only to places inside that folder. Links that lead out of it, back to
+what was already read, or nowhere are not followed, and one line on stderr says which (this does not
+change the exit status; a link named like a note that leads nowhere is a file that cannot be read).
+A file that cannot be read, or is skipped because it is not UTF-8 text (NUL bytes, UTF-16, invalid
+bytes), is one line on stderr with the reason, and makes the exit status 2.`;
+
+const CONTROLS = `Control characters in the notes or in file names are printed as pictures (ESC as ␛, CR as ␍,
+BEL as ␇; C1 controls as \\x9b), never sent to the terminal as they are; JSON output escapes them
+as JSON does.`;
 
 export const OVERVIEW = `Ionwright: formulas, reactions and batch recipes in formulation notes
 (Markdown .md/.markdown and .fnote files): molar masses, charge balance, balanced equations, batch arithmetic.
@@ -11,9 +25,9 @@ Commands:
   ionwright card <formula>... [--json]        the card of each formula: molar mass, ions, charge balance, bonding
   ionwright check <path>... [flags]           the findings in notes files (folders are read recursively)
   ionwright balance "<equation>" [--json]     balance a reaction
-  ionwright batch <path> [--json]             the arithmetic of every batch block in a file
-  ionwright table <path>                      the Markdown tables the editor inserts for a file
-  ionwright report <path> --html <out.html>   a self-contained HTML page: formulas and batches as tables, a chart of estimated lattice energies
+  ionwright batch <path>... [--json]          the arithmetic of every batch block in notes files (folders too)
+  ionwright table <path>...                   the Markdown tables the editor inserts, for notes files (folders too)
+  ionwright report <path> [--html <out.html>] a self-contained HTML page: formulas and batches as tables, a chart of estimated lattice energies
   ionwright demo [<folder>]                   a tour of a folder of notes (default: examples)
 
 Flags of check:
@@ -30,6 +44,10 @@ Everywhere:
 Environment:
   IONWRIGHT_JOBS=<n>|auto    as --jobs, when the flag is not given
 
+${FILES}
+
+${CONTROLS}
+
 Examples (on the demo notes in examples/):
   ionwright check examples/
   ionwright check examples/ --format sarif > ionwright.sarif
@@ -43,8 +61,8 @@ ${EXIT}`;
 const CHECK = `Usage: ionwright check <path>... [--format text|json|sarif] [--jobs <n>|auto]
 
 The findings in Markdown (.md, .markdown) and notes (.fnote) files: unknown elements, unreadable
-formulas, charge imbalances, unbalanced reactions, mistakes in batch blocks. Folders are read
-recursively; hidden folders and node_modules are skipped. Findings come in sorted file order.
+formulas, charge imbalances, unbalanced reactions, mistakes in batch blocks. Findings come in sorted
+file order; all three formats are written as they go, so any number of findings can be printed.
 
 Flags:
   --format text      'file:line:col severity code message' per finding (1-based line and column),
@@ -62,6 +80,11 @@ Environment:
   IONWRIGHT_JOBS=<n>|auto   as --jobs, when the flag is not given
 
 On a terminal, a progress line ('checking 12/40 files…') is drawn on stderr and wiped at the end.
+
+${FILES} In SARIF, files not read are error notifications
+(the run not successful) and links not followed are note notifications.
+
+${CONTROLS}
 
 Examples:
   ionwright check examples/
@@ -100,14 +123,17 @@ Examples:
 
 ${EXIT}`;
 
-const BATCH = `Usage: ionwright batch <path> [--json]
+const BATCH = `Usage: ionwright batch <path>... [--json]
 
-The arithmetic of every batch block in one notes file: what to weigh, moles, concentrations, mass
-fractions, ions and ionic strength.
+The arithmetic of every batch block in notes files: what to weigh, moles, concentrations, mass
+fractions, ions and ionic strength. A folder stands for every notes file in it, read as check reads it;
+when the paths name more than one file, each file's part of the text starts with a '════ <file>' line.
 
 Flags:
-  --json       the batches as JSON
+  --json       one array of all the batches, each with the file it is in ('file')
   -h, --help   this help
+
+${FILES}
 
 Examples:
   ionwright batch examples/plating-bath.fnote
@@ -115,19 +141,23 @@ Examples:
 
 ${EXIT}`;
 
-const TABLE = `Usage: ionwright table <path>
+const TABLE = `Usage: ionwright table <path>...
 
-The Markdown tables the editor inserts for one notes file: formulas by section and batches.
+The Markdown tables the editor inserts for notes files: formulas by section and batches. A folder
+stands for every notes file in it; when the paths name more than one file, each file's tables start
+with a '════ <file>' line.
 
 Flags:
   -h, --help   this help
+
+${FILES}
 
 Example:
   ionwright table examples/rinse-trials.md
 
 ${EXIT}`;
 
-const REPORT = `Usage: ionwright report <path> --html <out.html>
+const REPORT = `Usage: ionwright report <path> [--html <out.html>]
 
 A self-contained HTML page: formulas and batches as tables, a chart of estimated lattice energies.
 
@@ -136,11 +166,17 @@ and reactions as tables, a chart of the estimated lattice energies of the salts 
 with melting points where known, the findings, and (for Markdown) the notes as the preview shows them.
 
 Flags:
-  --html <out.html>   the page to write (- or no flag: standard output)
+  --html <out.html>   write the page to this file; without the flag (or with --html -) the page goes
+                      to standard output
   -h, --help          this help
 
-Example:
+The page never replaces what you wrote: an output path that is the notes file read, a notes file
+(.md, .markdown, .fnote), or a link to one is refused (exit 2). The file is written whole or not at
+all: the page goes to a temporary file in the same folder, which then takes the name.
+
+Examples:
   ionwright report examples/rinse-trials.md --html report.html
+  ionwright report examples/rinse-trials.md > report.html
 
 ${EXIT}`;
 

@@ -1,7 +1,11 @@
 /**
  * The command line: the language service over files. All IO is here; the service is pure.
  * Exit status: 0 ran without error-severity findings; 1 ran with them; 2 usage or input problem
- * (one line on stderr, never a stack trace).
+ * (one line on stderr, never a stack trace); 141 when the reader of stdout went away early (nothing
+ * more is printed).
+ *
+ * Everything a command prints goes through `visibleText` (text.ts): control characters from the notes
+ * or from file names reach the terminal as visible pictures, never as escape sequences.
  */
 import { analyseFormula } from '../chem/analyse';
 import { cardJson, cardText } from '../service/card';
@@ -9,7 +13,8 @@ import { DEFAULT_SETTINGS } from '../service/settings';
 import { cmdCheck } from './check';
 import { extraCommands } from './commands';
 import { asksForHelp, COMMAND_HELP, OVERVIEW } from './help';
-import { nodeIO, parse, UsageError, type CliIO } from './io';
+import { EXIT_OUTPUT_CLOSED, nodeIO, OutputClosed, parse, UsageError, type CliIO } from './io';
+import { jsonText, visibleLine, visibleText } from './text';
 import { VERSION } from './version';
 
 export { nodeIO, type CliIO };
@@ -18,14 +23,23 @@ function cmdCard(args: string[], io: CliIO): number {
   const { values, positionals } = parse(args, { json: { type: 'boolean' } });
   if (positionals.length === 0) throw new UsageError('card needs at least one formula');
   const analyses = positionals.map((p) => analyseFormula(p.trim(), DEFAULT_SETTINGS.chem));
-  if (values.json) io.out(JSON.stringify(analyses.map(cardJson), null, 2));
+  if (values.json) io.out(jsonText(analyses.map(cardJson)));
   else io.out(analyses.map((a) => cardText(a)).join('\n\n'));
   return analyses.some((a) => a.diagnostics.some((d) => d.severity === 'error')) ? 1 : 0;
 }
 
 const builtIn: Record<string, (args: string[], io: CliIO) => number | Promise<number>> = { card: cmdCard, check: cmdCheck };
 
-export async function run(argv: string[], io: CliIO = nodeIO): Promise<number> {
+/** The IO a command sees: what it prints made safe for a terminal. */
+function shown(io: CliIO): CliIO {
+  return Object.assign(Object.create(io) as CliIO, {
+    out: (t: string) => io.out(visibleText(t)),
+    err: (t: string) => io.err(visibleText(t)),
+  });
+}
+
+export async function run(argv: string[], outer: CliIO = nodeIO): Promise<number> {
+  const io = shown(outer);
   try {
     const [command, ...rest] = argv;
     switch (command) {
@@ -53,11 +67,12 @@ export async function run(argv: string[], io: CliIO = nodeIO): Promise<number> {
       }
     }
   } catch (e) {
+    if (e instanceof OutputClosed) return EXIT_OUTPUT_CLOSED;
     if (e instanceof UsageError) {
-      io.err(`ionwright: ${e.message}`);
+      io.err(`ionwright: ${visibleLine(e.message)}`);
       return 2;
     }
-    io.err(`ionwright: internal error: ${(e as Error)?.message?.split('\n')[0] ?? String(e)}`);
+    io.err(`ionwright: internal error: ${visibleLine((e as Error)?.message?.split('\n')[0] ?? String(e))}`);
     return 2;
   }
 }
