@@ -65,6 +65,7 @@ export function formulaCardMarkdown(a: FormulaAnalysis, s: ServiceSettings): str
   if (a.bond) lines.push(`Bonding: **${a.bond.type}** — ΔEN ${a.bond.pair.join('–')} ${a.bond.deltaEN.toFixed(2)}, ${a.bond.percentIonic.toFixed(0)} % ionic`, '');
   const lat = latticeLine(a, s);
   if (lat) lines.push(lat, '');
+  else if (a.latticeWithheld) lines.push(esc(a.latticeWithheld.text), '');
   const cautions = cautionsFor(a);
   if (cautions.length) lines.push(`⚠ ${cautions.map((x) => esc(x.text)).join('; ')}. _${CAUTION_FOOTNOTE}_`, '');
   lines.push('---', '');
