@@ -125,6 +125,7 @@ export function reactionMarkdown(r: ReactionAnalysis): string {
     if (b.charge.left !== b.charge.right) lines.push(`Charge ${signed(b.charge.left)} → ${signed(b.charge.right)}`, '');
     if (b.balancedText) lines.push('Balanced:', '', '```', b.balancedText, '```');
     else lines.push(esc(b.message));
+    if (b.note) lines.push('', esc(b.note));
   }
   return lines.join('\n');
 }
