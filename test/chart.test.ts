@@ -355,6 +355,10 @@ describe('latticeChart: markers, legend, tooltips', () => {
     expect(est.text).toMatch(/estimate/);
     expect(meas.children.some((c) => c.name === 'rect')).toBe(true);
     expect(meas.text).toMatch(/Born–Haber/);
+    // The enthalpies behind the Born–Haber values were recalled, not measured here (server/src/chem/data/thermo.ts):
+    // the legend and the description say so and do not call them measured.
+    expect(meas.text).toBe('Born–Haber cycle (from recalled enthalpies)');
+    expect(latticeChart(SALTS)).not.toMatch(/measured enthalp/);
   });
 
   it('shows only the legend entries for what is drawn', () => {
@@ -371,7 +375,7 @@ describe('latticeChart: markers, legend, tooltips', () => {
     expect(t.get('MgO')).toBe('MgO: ≈ 3800 kJ/mol (estimate, Born–Mayer equation)\n1/(r₊ + r₋) = 0.472 Å⁻¹, |z₊z₋| = 4\nmelting point 2852 °C');
     expect(t.get('CaO')).toMatch(/^CaO: ≈ 3413 kJ\/mol \(estimate, Kapustinskii equation\)\n1\/\(r₊ \+ r₋\) = 0\.417 Å⁻¹/);
     expect(t.get('CaO')).not.toMatch(/melting/);
-    expect(t.get('NaCl')).toMatch(/^NaCl: 787 kJ\/mol \(Born–Haber cycle, from measured enthalpies\)/);
+    expect(t.get('NaCl')).toMatch(/^NaCl: 787 kJ\/mol \(Born–Haber cycle, from recalled enthalpies\)/);
     expect(t.get('NaCl')).not.toContain('≈');
   });
 });

@@ -106,9 +106,9 @@ describe('json written item by item', () => {
   });
 });
 
-/** A note with `n` findings (ten unknown elements a line). */
+/** A note with `n` findings (ten unknown elements a line, a paragraph each). */
 function manyFindings(n: number): string {
-  const line = Array.from({ length: 10 }, () => '`Xx`').join(' ') + '\n';
+  const line = Array.from({ length: 10 }, () => '`Xx`').join(' ') + '\n\n';
   return line.repeat(Math.ceil(n / 10));
 }
 

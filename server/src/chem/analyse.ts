@@ -9,7 +9,7 @@ import { parseFormula } from './formula/parse';
 import { chooseReading } from './ions/reading';
 import { assessCharge, type ChargeAssessment } from './charge/balance';
 import { assessBond, type BondAssessment } from './bond';
-import { estimateLattice, type LatticeAssessment } from './lattice/lattice';
+import { estimateLattice, latticeWithheld, type LatticeAssessment, type LatticeWithheld } from './lattice/lattice';
 import type { ChemSettings } from './settings';
 import { DEFAULT_CHEM_SETTINGS } from './settings';
 
@@ -28,6 +28,8 @@ export interface FormulaAnalysis {
   charges: ChargeAssessment | null;
   bond: BondAssessment | null;
   lattice: LatticeAssessment | null;
+  /** Why there is no lattice energy, where the reason is that the substance is molecular (null otherwise). */
+  latticeWithheld: LatticeWithheld | null;
   diagnostics: ChemDiagnostic[];
 }
 
@@ -95,7 +97,7 @@ function compute(text: string, settings: ChemSettings): FormulaAnalysis {
   if (!parsed.ok || !parsed.formula) {
     return {
       input: text, formula: parsed.formula, ok: false, display: text, ascii: text, hill: '', charge: 0, atoms: {},
-      molarMass: null, composition: [], charges: null, bond: null, lattice: null, diagnostics,
+      molarMass: null, composition: [], charges: null, bond: null, lattice: null, latticeWithheld: null, diagnostics,
     };
   }
   const formula = chooseReading(parsed.formula);
@@ -119,6 +121,7 @@ function compute(text: string, settings: ChemSettings): FormulaAnalysis {
   // Bonding and lattice energy are shown in cards, not needed for diagnostics: computed on first use.
   let bond: BondAssessment | null | undefined;
   let lattice: LatticeAssessment | null | undefined;
+  let withheld: LatticeWithheld | null | undefined;
   return {
     input: text, formula, ok: true, display: displayFormula(formula, true), ascii: displayFormula(formula, false),
     hill: hillFormula(atoms), charge: formula.charge, atoms, molarMass: mm, composition: mm ? composition(atoms, mm.value) : [],
@@ -128,6 +131,9 @@ function compute(text: string, settings: ChemSettings): FormulaAnalysis {
     },
     get lattice() {
       return lattice === undefined ? (lattice = estimateLattice(formula, atoms, charges, settings)) : lattice;
+    },
+    get latticeWithheld() {
+      return withheld === undefined ? (withheld = latticeWithheld(formula, charges)) : withheld;
     },
   };
 }

@@ -34,6 +34,8 @@ export interface CardJson {
     kJPerMol: number; method: string; inputs: Record<string, unknown>; alternatives: Array<{ method: string; kJPerMol: number }>;
     estimate: boolean; typicalError: string; salt: string; meltingPointC: number | null; meltingPointSource: string | null;
   } | null;
+  /** Why `latticeEnergy` is null, where the substance is molecular: `{reason, text, stateAt25C, …}`; null otherwise. */
+  latticeEnergyNote: { reason: string; text: string; stateAt25C: string | null; meltingPointC: number | null; boilingPointC: number | null } | null;
   diagnostics: LspDiagnostic[];
 }
 
@@ -79,6 +81,12 @@ export function cardJson(a: FormulaAnalysis): CardJson {
           salt: a.lattice.salt,
           meltingPointC: a.lattice.meltingPointC ?? null,
           meltingPointSource: a.lattice.meltingPointSource ?? null,
+        }
+      : null,
+    latticeEnergyNote: !a.lattice && a.latticeWithheld
+      ? {
+          reason: a.latticeWithheld.reason, text: a.latticeWithheld.text, stateAt25C: a.latticeWithheld.stateAt25C ?? null,
+          meltingPointC: a.latticeWithheld.meltingPointC ?? null, boilingPointC: a.latticeWithheld.boilingPointC ?? null,
         }
       : null,
     diagnostics: (() => {
@@ -177,7 +185,7 @@ export function cardText(a: FormulaAnalysis, settings: ServiceSettings = DEFAULT
     out.push(`  lattice energy  ${L.estimate ? '≈ ' : ''}${energy(L.kJPerMol, settings)} — ${L.method}${a.formula && a.formula.parts.length > 1 ? ` (for ${L.salt})` : ''}; ${L.typicalError}`);
     for (const alt of L.alternatives) out.push(`                  ${alt.method}: ${energy(alt.kJPerMol, settings)}`);
     if (L.meltingPointC !== undefined) out.push(`  melting point   ${L.meltingPointC} °C (${L.meltingPointSource})`);
-  }
+  } else if (a.latticeWithheld) out.push(`  lattice energy  none — ${a.latticeWithheld.text.replace(/^No lattice energy(?: \(([^)]*)\))?: /, (_, x) => (x ? `${x}: ` : ''))}`);
   for (const d of a.diagnostics) out.push(`  ${d.severity} [${d.code}]: ${d.message}`);
   return out.join('\n');
 }

@@ -5,7 +5,7 @@
  * What it shows:
  * - x: 1/(r₊ + r₋) in Å⁻¹ (default; salts without known radii are left out and counted in the <desc>) or
  *   the charge product |z₊z₋|; y (left): lattice energy in kJ/mol. "Nice" ticks (1, 2, 2.5, 5 × 10ⁿ).
- * - Model estimates as hollow circles, Born–Haber values (from measured enthalpies) as filled squares,
+ * - Model estimates as hollow circles, Born–Haber values (from tabulated enthalpies, recalled) as filled squares,
  *   with a legend, so the two never differ by colour alone.
  * - Melting points, where known, on a second y axis on the right (°C) as crosses (×) at the salt's x,
  *   joined to the salt's energy marker by a faint dotted line, with their own legend entry. The right axis
@@ -36,7 +36,7 @@ export interface LatticePoint {
   kJPerMol: number;
   /** E.g. "Kapustinskii equation", "Born–Mayer equation", "Born–Haber cycle". */
   method: string;
-  /** Model estimate (true) or from measured enthalpies (false, Born–Haber). */
+  /** Model estimate (true) or a Born–Haber value from tabulated enthalpies (false). */
   estimate: boolean;
   /** 1/(r₊ + r₋) in 1/Å, six-coordinate radii; null if unknown. */
   inverseR0: number | null;
@@ -495,7 +495,7 @@ export function latticeChart(points: LatticePoint[], options?: LatticeChartOptio
   // Legend entries, only for the kinds present, in rows under the title wrapped to the width.
   const legend: Array<{ kind: 'est' | 'meas' | 'melt' | 'guide'; text: string }> = [];
   if (hasEst) legend.push({ kind: 'est', text: 'model estimate' });
-  if (hasMeas) legend.push({ kind: 'meas', text: 'Born–Haber cycle (measured enthalpies)' });
+  if (hasMeas) legend.push({ kind: 'meas', text: 'Born–Haber cycle (from recalled enthalpies)' });
   if (hasMelt) legend.push({ kind: 'melt', text: 'melting point (right axis, °C)' });
   if (guides.length) legend.push({ kind: 'guide', text: 'least-squares guide per |z₊z₋|, not a model' });
   const legendItems: Array<{ kind: string; text: string; x: number; y: number }> = [];
@@ -651,7 +651,7 @@ export function latticeChart(points: LatticePoint[], options?: LatticeChartOptio
   descParts.push(
     `Scatter chart of lattice energy (kJ/mol) against ${xName} for ${plotted.length} ${plotted.length === 1 ? 'salt' : 'salts'}: ` +
       `${nEst} model ${nEst === 1 ? 'estimate' : 'estimates'} (hollow circles) and ${nMeas} ` +
-      `Born–Haber ${nMeas === 1 ? 'value' : 'values'} from measured enthalpies (filled squares).`,
+      `Born–Haber ${nMeas === 1 ? 'value' : 'values'} from tabulated enthalpies, recalled (filled squares).`,
   );
   const top = plotted.reduce((a, b) => (b.kJ > a.kJ ? b : a));
   const bottom = plotted.reduce((a, b) => (b.kJ < a.kJ ? b : a));
@@ -781,7 +781,7 @@ export function latticeChart(points: LatticePoint[], options?: LatticeChartOptio
         : `|z₊z₋| = ${p.z}${p.inverseR0 !== null ? `, 1/(r₊ + r₋) = ${p.inverseR0.toFixed(3)} Å⁻¹` : ''}`;
     const value = p.estimate
       ? `≈ ${energyText(p.kJ)} kJ/mol (estimate, ${p.method})`
-      : `${energyText(p.kJ)} kJ/mol (${p.method}, from measured enthalpies)`;
+      : `${energyText(p.kJ)} kJ/mol (${p.method}, from recalled enthalpies)`;
     const lines = [`${p.label}: ${value}`, xText];
     if (p.mp !== null) lines.push(`melting point ${Math.round(p.mp)} °C`);
     out.push(

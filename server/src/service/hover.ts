@@ -82,6 +82,7 @@ export function formulaCardMarkdown(a: FormulaAnalysis, s: ServiceSettings): str
   }
   const lat = latticeLine(a, s);
   if (lat) lines.push(lat, '');
+  else if (a.latticeWithheld) lines.push(esc(a.latticeWithheld.text), '');
   const cautions = cautionsFor(a);
   if (cautions.length) lines.push(`⚠ ${cautions.map((x) => esc(x.text)).join('; ')}. _${CAUTION_FOOTNOTE}_`, '');
   lines.push('---', '');
@@ -141,6 +142,7 @@ export function reactionMarkdown(r: ReactionAnalysis): string {
     if (b.charge.left !== b.charge.right) lines.push(`Charge ${signed(b.charge.left)} → ${signed(b.charge.right)}`, '');
     if (b.balancedText) lines.push('Balanced:', '', '```', b.balancedText, '```');
     else lines.push(esc(b.message));
+    if (b.note) lines.push('', esc(b.note));
   }
   return lines.join('\n');
 }

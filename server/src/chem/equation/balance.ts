@@ -1,12 +1,15 @@
 /**
  * Balancing: the equation as a matrix (rows = elements and charge, columns = species, reactants positive,
  * products negative), its null space by Gauss–Jordan elimination over exact rationals, and what the null
- * space says: one solution (balanced), none (impossible), several independent ones (ambiguous).
+ * space says: one solution (balanced), none (impossible), several independent ones. In the last case a redox
+ * equation is balanced by half-reactions where they decide one solution (./redox.ts: balanced, with a note
+ * that other combinations also conserve atoms and charge); otherwise it is ambiguous.
  */
 import type { ChemDiagnostic } from '../diagnostic';
 import { formatCount } from '../formula/compute';
 import { allSpecies, parseEquation, type ParsedEquation, type Species } from './parse';
 import { BoundedCache, detach } from '../cache';
+import { balanceByHalfReactions } from './redox';
 import {
   add, fromNumber, gcd, isZero, lcm, mul, neg, ONE, rational, sub, toNumber, ZERO, type Rational,
 } from './rational';
@@ -34,6 +37,10 @@ export interface BalanceResult {
   nullity: number | null;
   /** For `already-balanced`: the written coefficients share a factor or are fractional, so a smaller whole-number form exists. */
   reducible: boolean;
+  /** How a `balanced` answer was found: the unique solution of the atoms and charge, or the half-reactions (nullity > 1). */
+  method?: 'unique' | 'half-reactions';
+  /** For `half-reactions`: the redox couples used and that other combinations also conserve atoms and charge. */
+  note?: string;
 }
 
 export interface BalanceCheck {
@@ -281,6 +288,14 @@ export function balanceEquation(parsed: ParsedEquation): BalanceResult {
     return result('impossible', impossibleReason(parsed, t), { ...asWritten, nullity });
   }
   if (nullity >= 2) {
+    const hr = balanceByHalfReactions(species);
+    if (hr && hr.coefficients.every((x) => x <= SAFE) && balanceCheck(parsed, hr.coefficients.map(Number)).balanced) {
+      const coefficients = hr.coefficients.map(Number);
+      const balancedText = writeEquation(parsed, coefficients);
+      const couples = hr.couples.map((c) => `${c.element} ${formatSignedCharge(c.from)} → ${formatSignedCharge(c.to)}`).join(', ');
+      const note = `Balanced by half-reactions (electrons lost = electrons gained; ${couples}; every other atom keeps its oxidation state). Other combinations of these species also conserve atoms and charge (${nullity} independent ones), such as a side reaction of one of them; these coefficients are the redox reaction as a titration writes it.`;
+      return result('balanced', `Balanced: ${balancedText}. ${note}`, { ...asWritten, coefficients, balancedText, nullity, method: 'half-reactions', note });
+    }
     return result(
       'ambiguous',
       `These species can be balanced in ${nullity} independent ways (the equation combines more than one reaction), so no single set of coefficients follows from them. Write the coefficients, or split it into separate reactions.`,
@@ -323,7 +338,7 @@ export function balanceEquation(parsed: ParsedEquation): BalanceResult {
   }
   const coefficients = w.map(Number);
   const balancedText = writeEquation(parsed, coefficients);
-  return result('balanced', `Balanced: ${balancedText}`, { ...asWritten, coefficients, balancedText, nullity });
+  return result('balanced', `Balanced: ${balancedText}`, { ...asWritten, coefficients, balancedText, nullity, method: 'unique' });
 }
 
 /** Why no coefficients balance the equation: elements or charge on one side only, when that is the case. */
@@ -349,7 +364,7 @@ export function unbalancedMessage(r: BalanceResult): string {
   }
   if (r.charge.left !== r.charge.right) parts.push(`charge ${formatSignedCharge(r.charge.left)} vs ${formatSignedCharge(r.charge.right)}`);
   let text = parts.length ? `Not balanced — ${parts.join('; ')}.` : 'Balanced as written.';
-  if (r.status === 'balanced' && r.balancedText) text += ` Balanced: ${r.balancedText}`;
+  if (r.status === 'balanced' && r.balancedText) text += ` Balanced: ${r.balancedText}${r.method === 'half-reactions' ? ' (by half-reactions; other combinations also conserve atoms and charge)' : ''}`;
   else if (r.status === 'impossible') text += ' No coefficients balance these species as placed.';
   else if (r.status === 'ambiguous') text += ' These species have more than one independent balanced form; write the coefficients.';
   else if (r.status === 'too-large') text += ` ${r.message}`;

@@ -1,29 +1,27 @@
 /**
  * Lattice energy of an ionic solid: the energy to separate one mole of it into gaseous ions (positive).
- * Every model value is an estimate and is labelled as one.
+ * Every model value is an estimate and is labelled as one. The methods are in ./methods.ts; how far each
+ * runs from the Born–Haber cycle per structure type is measured in ./accuracy.ts; molecular substances,
+ * which have no ionic lattice, are recognised in ./molecular.ts.
  *
- * - Kapustinskii equation: U = K ν |z₊ z₋| / r₀ · (1 − d / r₀), K = 1.2025 × 10⁻⁴ J m mol⁻¹
- *   (1202.5 kJ Å mol⁻¹), d = 0.345 Å, r₀ = r₊ + r₋ with Shannon six-coordinate radii, or thermochemical
- *   radii for polyatomic ions. Needs no structure.
- * - Born–Landé: U = N_A M z₊ z₋ e² / (4π ε₀ r₀) · (1 − 1/n), with the CRC Madelung constant M of the
- *   structure type and the Born exponent n averaged over the two ions (Pauling's values).
- * - Born–Mayer: the same with (1 − ρ/r₀), ρ = 0.345 Å, instead of (1 − 1/n).
- *   For both, r₀ is the sum of Shannon radii at the coordination numbers of the structure type.
- * - Born–Haber cycle: U = ΔatomH(M) + ΣIE + ΔatomH(X) − EA − ΔfH°(salt), from tabulated enthalpies
- *   (data/thermo.ts); an enthalpy at 298 K rather than a model, so the reference where data exist.
- *   Only for halides and hydrides: the second electron affinity of O²⁻ and S²⁻ cannot be measured.
- *
- * Constants: N_A e² / (4π ε₀) = 1389.35 kJ Å mol⁻¹ (CODATA 2018 values of e, ε₀, N_A).
+ * Which method heads the card (setting `best`): the Born–Haber cycle where its data exist; otherwise the
+ * model with the smallest median error against Born–Haber for the salt's structure type (over all salts
+ * with a cycle when the type has too few), and the card prints that type's measured error.
  */
-import type { ChargeAssessment, IonInReading } from '../charge/balance';
-import { BORN_ROWS } from '../data/generated';
-import { element } from '../data/elements';
-import { shannonRadius } from '../data/radii';
-import { structureOf, type StructureType } from '../data/structures';
-import { ATOMISATION, ELECTRON_AFFINITY, FORMATION_SOLID, IONISATION, MELTING_POINT_C } from '../data/thermo';
+import type { ChargeAssessment } from '../charge/balance';
+import { structureOf } from '../data/structures';
+import { MELTING_POINT_C, MOLECULAR_SUBSTANCES, SOURCES } from '../data/thermo';
 import type { Formula } from '../formula/ast';
 import type { AtomCounts } from '../formula/compute';
 import type { ChemSettings } from '../settings';
+import { accuracyTable, ALL_IONIC, COVALENT_GROUP, errorPhrase, MIN_REFERENCES, type GroupAccuracy } from './accuracy';
+import { isCovalentHalide, latticeMethods, METHODS, MODEL_METHODS, type Method, type MethodName } from './methods';
+import { covalentByCharge } from './molecular';
+
+export {
+  BORN_MAYER_RHO, COULOMB_KJ_A, KAPUSTINSKII_D, KAPUSTINSKII_K, METHODS, bornExponent, bornHaber, bornLande, bornMayer, kapustinskii,
+} from './methods';
+export { latticeWithheld, type LatticeWithheld } from './molecular';
 
 export interface LatticeAlternative {
   method: string;
@@ -35,8 +33,9 @@ export interface LatticeAssessment {
   method: string;
   inputs: Record<string, unknown>;
   alternatives: LatticeAlternative[];
-  /** True for the model-based methods; a Born–Haber value rests on measured enthalpies. */
+  /** True for the model-based methods; a Born–Haber value rests on tabulated enthalpies. */
   estimate: boolean;
+  /** The measured error of the heading method for this salt's structure type (and any covalency warning). */
   typicalError: string;
   /** Which salt the value is for (the anhydrous salt of a hydrate). */
   salt: string;
@@ -46,101 +45,87 @@ export interface LatticeAssessment {
   chargeProduct: number;
   /** r₊ + r₋ in Å with six-coordinate Shannon or thermochemical radii (as Kapustinskii uses), where both are known. */
   radiusSum?: number;
+  /** The structure type whose measured errors chose the method, or the group used instead. */
+  accuracyGroup?: string;
+  /** Set for the silver and copper(I) halides: the ionic models run far low (covalent character). */
+  covalency?: string;
 }
 
-export const KAPUSTINSKII_K = 1202.5;
-export const KAPUSTINSKII_D = 0.345;
-export const COULOMB_KJ_A = 1389.35;
-export const BORN_MAYER_RHO = 0.345;
-
-export const METHODS = {
-  kapustinskii: 'Kapustinskii equation',
-  bornLande: 'Born–Landé equation',
-  bornMayer: 'Born–Mayer equation',
-  bornHaber: 'Born–Haber cycle',
-} as const;
+const BORN_HABER_ERROR = 'about 1 % against the CRC lattice energies (a lattice enthalpy at 298 K from tabulated enthalpies, recalled)';
 
 /**
- * Typical errors against the CRC lattice energy table (alkali halides, alkaline-earth oxides and fluorides,
- * silver halides), as measured by test/lattice.test.ts. The models are purely ionic: they run low, most of
- * all for salts with covalent character such as the silver halides.
+ * Differences in median error smaller than this are not taken to rank the models: compilations of lattice
+ * energies differ by 1–2 % for the same salt (data/reference/README.md), so the default order stands.
  */
-export const TYPICAL_ERROR: Record<string, string> = {
-  [METHODS.kapustinskii]: 'estimate: median 6 % low, up to 9 % for alkali and alkaline-earth salts, ~25 % low for silver halides',
-  [METHODS.bornLande]: 'estimate: median 5 % low, up to 8 % for alkali and alkaline-earth salts, ~25 % low for silver halides',
-  [METHODS.bornMayer]: 'estimate: median 6 % low, up to 9 % for alkali and alkaline-earth salts, ~25 % low for silver halides',
-  [METHODS.bornHaber]: 'about 1 % (lattice enthalpy at 298 K from tabulated enthalpies)',
-};
+export const RANKING_MARGIN = 0.01;
 
-interface Method {
-  method: string;
-  kJPerMol: number;
-  inputs: Record<string, unknown>;
-  estimate: boolean;
-}
-
-const NOBLE_N: Record<number, number> = {};
-for (const [type, , n] of BORN_ROWS) {
-  const z = { 'He-type': 2, 'Ne-type': 10, 'Ar-type': 18, 'Kr-type': 36, 'Xe-type': 54 }[type];
-  if (z) NOBLE_N[z] = n;
-}
-/** d¹⁰ ions take the exponent of Cu⁺ (Ar type), Ag⁺ (Kr type) and Au⁺ (Xe type), as the CRC table groups them. */
-const D10_N: Record<number, number> = { 28: NOBLE_N[18], 46: NOBLE_N[36], 78: NOBLE_N[54] };
-
-/** Born exponent of a monatomic ion from its electron count, or undefined. */
-export function bornExponent(symbol: string, charge: number): number | undefined {
-  const e = element(symbol);
-  if (!e) return undefined;
-  const electrons = e.z - charge;
-  return NOBLE_N[electrons] ?? D10_N[electrons];
-}
-
-interface IonRadius {
-  radius: number;
-  source: string;
-  coordination?: string;
-  fromMemory?: boolean;
-}
-
-function radiusOf(ion: IonInReading, cn: number): IonRadius | undefined {
-  if (ion.element && Number.isInteger(ion.charge)) {
-    const r = shannonRadius(ion.element, ion.charge, cn);
-    if (r) return { radius: r.ionicRadius, source: 'Shannon (1976) ionic radius', coordination: r.coordinationLabel + (r.spin ? ` ${r.spin}` : '') };
-    return undefined;
-  }
-  if (ion.radius !== undefined) return { radius: ion.radius, source: 'thermochemical radius (Jenkins et al.)', fromMemory: ion.radiusFromMemory };
-  return undefined;
-}
-
-const round2 = (x: number) => Math.round(x * 100) / 100;
-
-export function kapustinskii(nu: number, zc: number, za: number, rc: number, ra: number): number {
-  const r0 = rc + ra;
-  return (KAPUSTINSKII_K * nu * Math.abs(zc * za)) / r0 * (1 - KAPUSTINSKII_D / r0);
-}
-
-export function bornLande(madelung: number, zc: number, za: number, r0: number, n: number): number {
-  return (COULOMB_KJ_A * madelung * Math.abs(zc * za)) / r0 * (1 - 1 / n);
-}
-
-export function bornMayer(madelung: number, zc: number, za: number, r0: number): number {
-  return (COULOMB_KJ_A * madelung * Math.abs(zc * za)) / r0 * (1 - BORN_MAYER_RHO / r0);
-}
-
-/** Born–Haber lattice enthalpy of MₐXᵦ (halides and hydrides) from tabulated enthalpies, or undefined. */
-export function bornHaber(salt: string, metal: string, m: number, zc: number, anion: string, x: number): { kJPerMol: number; inputs: Record<string, unknown> } | undefined {
-  const dfH = FORMATION_SOLID[salt];
-  const atomM = ATOMISATION[metal];
-  const ies = IONISATION[metal];
-  const atomX = ATOMISATION[anion];
-  const ea = ELECTRON_AFFINITY[anion];
-  if (dfH === undefined || atomM === undefined || !ies || ies.length < zc || atomX === undefined || ea === undefined) return undefined;
-  const ie = ies.slice(0, zc).reduce((a, b) => a + b, 0);
-  const u = m * (atomM + ie) + x * (atomX - ea) - dfH;
-  return {
-    kJPerMol: u,
-    inputs: { formationEnthalpy: dfH, atomisationMetal: atomM, ionisationEnergies: ies.slice(0, zc), atomisationAnion: atomX, electronAffinity: ea, cations: m, anions: x, source: 'NBS/CRC thermochemical tables (values recalled, not checked against the book)' },
+/**
+ * The heading order of the models for a group: the model with the smallest measured median |error| (on the
+ * salts all candidates cover) first, unless an earlier one in the default order is within RANKING_MARGIN of it.
+ */
+function modelOrder(g: GroupAccuracy | undefined): MethodName[] {
+  if (!g) return [...MODEL_METHODS];
+  const have = MODEL_METHODS.filter((m) => (g.methods[m]?.n ?? 0) >= MIN_REFERENCES);
+  if (have.length === 0) return [...MODEL_METHODS];
+  // Compare on the salts every candidate covers, so that a method is not favoured by the salts it lacks.
+  let common = new Set(g.methods[have[0]]!.salts);
+  for (const m of have.slice(1)) common = new Set(g.methods[m]!.salts.filter((s) => common.has(s)));
+  const medianOn = (m: MethodName) => {
+    const e = g.methods[m]!;
+    const xs = common.size >= MIN_REFERENCES ? e.salts.map((s, k) => [s, e.errors[k]] as const).filter(([s]) => common.has(s)).map(([, x]) => x) : e.errors;
+    const s = [...xs].sort((a, b) => a - b);
+    return Math.abs(s.length % 2 ? s[(s.length - 1) / 2] : (s[s.length / 2 - 1] + s[s.length / 2]) / 2);
   };
+  const best = Math.min(...have.map(medianOn));
+  const first = have.find((m) => medianOn(m) <= best + RANKING_MARGIN) as MethodName;
+  return [first, ...MODEL_METHODS.filter((m) => m !== first)];
+}
+
+/** The group whose measured errors apply to a salt: the d¹⁰ halides, its structure type, or all salts. */
+function groupFor(structure: string | undefined, covalent: boolean): { group: GroupAccuracy | undefined; own: boolean } {
+  const t = accuracyTable();
+  if (covalent) return { group: t.get(COVALENT_GROUP), own: true };
+  const g = structure ? t.get(structure) : undefined;
+  if (g && Object.values(g.methods).some((e) => (e?.n ?? 0) >= MIN_REFERENCES)) return { group: g, own: true };
+  return { group: t.get(ALL_IONIC), own: false };
+}
+
+/** The typical-error text of a model in the context of a salt's group. */
+function modelError(method: MethodName, structure: string | undefined, covalent: boolean): string {
+  const { group, own } = groupFor(structure, covalent);
+  const phrase = errorPhrase(group?.methods[method]);
+  const short = method.replace(' equation', '');
+  if (!phrase) return `estimate: no salt of this kind with a Born–Haber value to measure the ${short} equation against`;
+  if (covalent) return `estimate: for the ${COVALENT_GROUP} the ${short} equation ${phrase}`;
+  if (own && structure) return `estimate: for the ${structure} type the ${short} equation ${phrase}`;
+  const why = structure ? `too few salts of the ${structure} type have one` : 'no structure type is assigned';
+  return `estimate: over ${ALL_IONIC} (${why}) the ${short} equation ${phrase}`;
+}
+
+function covalencyText(): string {
+  const g = accuracyTable().get(COVALENT_GROUP);
+  const meds = MODEL_METHODS.map((m) => g?.methods[m]?.median).filter((x): x is number => x !== undefined);
+  const lo = Math.round(Math.abs(Math.max(...meds)) * 100);
+  const hi = Math.round(Math.abs(Math.min(...meds)) * 100);
+  return `covalent character (d¹⁰ cation, polarisable halide): like the silver halides, the purely ionic models run a median ${lo}–${hi} % low for the ${COVALENT_GROUP}; the Born–Haber value is the one to use`;
+}
+
+/** A model's error over all salts with a Born–Haber value, and for the d¹⁰ halides (the report's caption). */
+function globalModelError(method: MethodName): string {
+  const t = accuracyTable();
+  const short = method.replace(' equation', '');
+  const all = errorPhrase(t.get(ALL_IONIC)?.methods[method]);
+  const d10 = t.get(COVALENT_GROUP)?.methods[method];
+  return `estimate: over ${ALL_IONIC} the ${short} equation ${all ?? 'has no reference'}${d10 ? `; a median ${Math.round(Math.abs(d10.median) * 100)} % low for the ${COVALENT_GROUP}` : ''}`;
+}
+
+/** Typical error of each method over all salts with a Born–Haber value (computed on first read). */
+export const TYPICAL_ERROR: Record<string, string> = {};
+for (const method of Object.values(METHODS)) {
+  Object.defineProperty(TYPICAL_ERROR, method, {
+    enumerable: true,
+    get: () => (method === METHODS.bornHaber ? BORN_HABER_ERROR : globalModelError(method)),
+  });
 }
 
 /** Lattice energy of the formula's ionic solid, best value first; null for molecules and what cannot be read as one salt. */
@@ -155,64 +140,36 @@ export function estimateLattice(formula: Formula, _atoms: AtomCounts, charges: C
   if (c.kind === 'proton' || !Number.isInteger(c.charge) || !Number.isInteger(a.charge) || new Set(c.states).size > 1) return null;
   if (!Number.isInteger(c.count) || !Number.isInteger(a.count)) return null;
   const saltText = `${c.text}${c.count === 1 ? '' : c.count}${/[A-Z].*[A-Z0-9]/.test(a.text) && a.count > 1 ? `(${a.text})${a.count}` : `${a.text}${a.count === 1 ? '' : a.count}`}`;
-  const nu = c.count + a.count;
-  const methods: Method[] = [];
+  // Molecular substances have no ionic lattice (./molecular.ts).
+  if (MOLECULAR_SUBSTANCES.has(saltText) || covalentByCharge(charges)) return null;
 
-  const rc6 = radiusOf(c, 6);
-  const ra6 = radiusOf(a, 6);
-  if (rc6 && ra6) {
-    methods.push({
-      method: METHODS.kapustinskii,
-      kJPerMol: kapustinskii(nu, c.charge, a.charge, rc6.radius, ra6.radius),
-      estimate: true,
-      inputs: {
-        charges: { cation: c.charge, anion: a.charge }, nu,
-        radii: { cation: rc6.radius, anion: ra6.radius }, radiusSources: { cation: `${rc6.source}${rc6.coordination ? `, ${rc6.coordination}` : ''}`, anion: `${ra6.source}${ra6.coordination ? `, ${ra6.coordination}` : ''}${ra6.fromMemory ? ' (value from memory)' : ''}` },
-        r0: round2(rc6.radius + ra6.radius), K: KAPUSTINSKII_K, d: KAPUSTINSKII_D,
-      },
-    });
-  }
-  const st: StructureType | undefined = structureOf(saltText);
-  if (st && c.element && a.element) {
-    const rc = radiusOf(c, st.cationCN);
-    const ra = radiusOf(a, st.anionCN);
-    if (rc && ra) {
-      const r0 = rc.radius + ra.radius;
-      const common = { charges: { cation: c.charge, anion: a.charge }, structure: st.structure, madelung: st.madelung, r0: round2(r0), radii: { cation: rc.radius, anion: ra.radius }, coordination: { cation: rc.coordination, anion: ra.coordination }, ...(st.note ? { note: st.note } : {}) };
-      const nc = bornExponent(c.element, c.charge);
-      const na = bornExponent(a.element, a.charge);
-      methods.push({ method: METHODS.bornMayer, kJPerMol: bornMayer(st.madelung, c.charge, a.charge, r0), estimate: true, inputs: { ...common, rho: BORN_MAYER_RHO } });
-      if (nc !== undefined && na !== undefined) {
-        const n = (nc + na) / 2;
-        methods.push({ method: METHODS.bornLande, kJPerMol: bornLande(st.madelung, c.charge, a.charge, r0, n), estimate: true, inputs: { ...common, bornExponent: n, bornExponents: { cation: nc, anion: na } } });
-      }
-    }
-  }
-  if (c.element && a.element) {
-    const bh = bornHaber(saltText, c.element, c.count, c.charge, a.element, a.count);
-    if (bh) methods.push({ method: METHODS.bornHaber, kJPerMol: bh.kJPerMol, estimate: false, inputs: bh.inputs });
-  }
-  const finite = methods.filter((m) => Number.isFinite(m.kJPerMol) && m.kJPerMol > 0);
-  if (finite.length === 0) return null;
-  const rank = (m: Method) => {
-    const pref = settings.latticePreference;
-    const wanted = pref === 'kapustinskii' ? METHODS.kapustinskii : pref === 'born-lande' ? METHODS.bornLande : pref === 'born-mayer' ? METHODS.bornMayer : pref === 'born-haber' ? METHODS.bornHaber : undefined;
-    if (wanted && m.method === wanted) return -1;
-    return [METHODS.bornHaber, METHODS.bornMayer, METHODS.bornLande, METHODS.kapustinskii].indexOf(m.method as never);
-  };
-  finite.sort((x, y) => rank(x) - rank(y));
-  const [best, ...rest] = finite;
+  const st = structureOf(saltText);
+  const { methods, radiusSum } = latticeMethods(saltText, c, a, st);
+  if (methods.length === 0) return null;
+  const covalent = isCovalentHalide(c, a);
+  const { group } = groupFor(st?.structure, covalent);
+  const order: string[] = [METHODS.bornHaber, ...modelOrder(group)];
+  const pref = settings.latticePreference;
+  const wanted = pref === 'kapustinskii' ? METHODS.kapustinskii : pref === 'born-lande' ? METHODS.bornLande : pref === 'born-mayer' ? METHODS.bornMayer : pref === 'born-haber' ? METHODS.bornHaber : undefined;
+  const head = methods.find((m) => m.method === wanted) ?? [...methods].sort((x, y) => order.indexOf(x.method) - order.indexOf(y.method))[0];
+  // The others in a fixed order, so that cards list them alike.
+  const fixed: string[] = [METHODS.bornHaber, ...MODEL_METHODS];
+  const rest = methods.filter((m) => m !== head).sort((x, y) => fixed.indexOf(x.method) - fixed.indexOf(y.method));
+  const covalency = covalent ? covalencyText() : undefined;
+  const base = head.method === METHODS.bornHaber ? BORN_HABER_ERROR : modelError(head.method as MethodName, st?.structure, covalent);
   const mp = MELTING_POINT_C[saltText];
   return {
-    kJPerMol: best.kJPerMol,
-    method: best.method,
-    inputs: best.inputs,
-    alternatives: rest.map((m) => ({ method: m.method, kJPerMol: m.kJPerMol })),
-    estimate: best.estimate,
-    typicalError: TYPICAL_ERROR[best.method],
+    kJPerMol: head.kJPerMol,
+    method: head.method,
+    inputs: head.inputs,
+    alternatives: rest.map((m: Method) => ({ method: m.method, kJPerMol: m.kJPerMol })),
+    estimate: head.estimate,
+    typicalError: covalency ? `${base}; ${covalency}` : base,
     salt: saltText,
     chargeProduct: Math.abs(c.charge * a.charge),
-    ...(rc6 && ra6 ? { radiusSum: round2(rc6.radius + ra6.radius) } : {}),
-    ...(mp !== undefined ? { meltingPointC: mp, meltingPointSource: 'CRC Handbook (value recalled, not checked against the book)' } : {}),
+    ...(radiusSum !== undefined ? { radiusSum } : {}),
+    ...(group ? { accuracyGroup: group.group } : {}),
+    ...(covalency ? { covalency } : {}),
+    ...(mp !== undefined ? { meltingPointC: mp, meltingPointSource: SOURCES.meltingPoint } : {}),
   };
 }
