@@ -94,7 +94,7 @@ describe('a batch block', () => {
     expect(fig.length).toBe(1);
     expect(fig.find('figcaption').text()).toContain('Rinse K-1');
     expect(fig.find('figcaption').text()).toContain('final volume 500 mL');
-    expect(fig.find('table.iw-table').first().find('thead th').map((_, e) => $(e).text()).get()).toEqual(['Ingredient', 'Amount', 'Molar mass (g/mol)', 'To weigh (g)', 'Moles (mol)', 'Concentration (M)', 'Mass fraction']);
+    expect(fig.find('table.iw-table').first().find('thead th').map((_, e) => $(e).text()).get()).toEqual(['Ingredient', 'Amount', 'Molar mass (g/mol)', 'To weigh (g)', 'Moles (mol)', 'Concentration (M)', 'Share of weighed mass']);
   });
 
   it('0.1000 M NaCl in 500 mL: 0.05 mol, 2.922 g (common textbook example, as in test/batch.test.ts)', () => {
