@@ -135,6 +135,24 @@ describe('one rule for every line error: not counted, listed with the reason, th
     expect(b.skipped[0].kind).toBe('header');
   });
 
+  it('a hydrate written with a space is not read as an amount without a word: the hint says how to write it', () => {
+    const block = 'volume: 20 L\nNa2SiO3 5H2O 200 g';
+    const b = batch(block);
+    const d = b.diagnostics.find((x) => x.code === 'batch-amount')!;
+    expect(block.slice(d.start, d.end)).toBe('5H2O');
+    expect(d.message).toContain("'Na2SiO3·5H2O'");
+    expect(b.skipped[0].reason).toBe(d.message);
+  });
+
+  it('ingredients that weigh more than the total get a warning on the total: 60 wt% + 50 wt% of 100 g', () => {
+    const block = 'total: 100 g\nNaCl 60 wt%\nKCl 50 wt%';
+    const d = batch(block).diagnostics.find((x) => x.code === 'batch-total')!;
+    expect(d.severity).toBe('warning');
+    expect(block.slice(d.start, d.end)).toBe('100 g');
+    expect(d.message).toContain('110 %');
+    expect(batch('total: 100 g\nNaCl 60 wt%\nKCl 40 wt%').diagnostics).toEqual([]);
+  });
+
   it('a block made only of errors counts nothing and lists every line', () => {
     const b = batch('NaCl 1 parsec\nKCl\n# a comment\n\nNaXx 2 g');
     expect(b.ingredients).toEqual([]);

@@ -271,6 +271,10 @@ function readIngredient(raw: PendingLine['raw'], text: string, base: number, lin
   }
   p.amount = amountTok;
   const value = NUMBER.test(amountTok.text) ? Number(amountTok.text) : NaN;
+  if (/^\d*(?:H2O|H₂O)$/.test(amount.text)) {
+    diagnostics.push(err('batch-amount', amount.start, amount.end, `'${amount.text}' after the formula reads as the amount; write the hydrate as one formula, e.g. '${formula.text}·${amount.text}' or '${formula.text}.${amount.text}'.`));
+    return p;
+  }
   if (!Number.isFinite(value) || value <= 0 || value > MAX_AMOUNT) {
     diagnostics.push(err('batch-amount', amountTok.start, amountTok.end, Number.isFinite(value) && value > MAX_AMOUNT ? `Amount ${amountTok.text} is beyond the limit of ${MAX_AMOUNT}.` : `'${amountTok.text}' is not a positive number.`));
     return p;
@@ -457,6 +461,7 @@ export function analyseBatch(lines: BatchLine[], openName: string | null = null,
   let name: string | null = openName;
   let volumeL: number | null = null;
   let totalMassG: number | null = null;
+  let totalRange: { start: number; end: number } | null = null;
   /** Headers read so far (the first readable one counts). */
   const counted = new Set<HeaderKey>(openName ? ['name'] : []);
 
@@ -501,7 +506,10 @@ export function analyseBatch(lines: BatchLine[], openName: string | null = null,
     }
     counted.add(key);
     if (key === 'volume') volumeL = read.value;
-    else totalMassG = read.value;
+    else {
+      totalMassG = read.value;
+      totalRange = { start: valueStart, end: valueStart + header[2].trimEnd().length };
+    }
   }
 
   const ingredients: Ingredient[] = [];
@@ -541,6 +549,9 @@ export function analyseBatch(lines: BatchLine[], openName: string | null = null,
     i.fractionOfTotal = i.massG !== null && totalMassG !== null ? i.massG / totalMassG : null;
   }
 
+  if (totalMassG !== null && totalRange && totalWeighed > totalMassG * (1 + 1e-9)) {
+    diagnostics.push(err('batch-total', totalRange.start, totalRange.end, `The ingredients weigh ${fmt(totalWeighed)} g, more than the batch's total of ${fmt(totalMassG)} g; the shares of the total add up to ${fmt((totalWeighed / totalMassG) * 100)} %.`, 'warning'));
+  }
   const mix = ionsOf(ingredients, volumeL, diagnostics);
   const waterG = checkSolubility(ingredients, volumeL, diagnostics);
   const notes = ['Salts are taken as fully dissolved and dissociated; weak acids and bases are treated as undissociated; activities are not modelled.'];

@@ -11,7 +11,7 @@ import type { AnalysedDocument } from './document';
 import { targetAt } from './lookup';
 import type { Range } from './positions';
 import type { ServiceSettings } from './settings';
-import { amountText, batchWarnings, codeSpan, countsText, fractionText, shareCells, shareHeads, sig, weighedMass } from './tables';
+import { amountText, batchWarnings, codeSpan, countsText, fractionText, notCountedText, shareCells, shareHeads, sig, weighedMass } from './tables';
 
 export interface HoverResult {
   markdown: string;
@@ -92,7 +92,7 @@ function ingredientMarkdown(i: Ingredient, b: BatchAnalysis, s: ServiceSettings)
     lines.push('', `${sol.exceeds ? '⚠ ' : ''}Solubility of ${esc(sol.salt)} in water: ${sig(sol.row.gPer100gWater, 3)} g per 100 g water at ${sol.row.temperatureC} °C — ${esc(sol.row.source)}; ${here}.`);
   }
   if (i.cautions.length) lines.push('', `⚠ ${i.cautions.map((c) => esc(c.text)).join('; ')}. _${CAUTION_FOOTNOTE}_`);
-  if (b.skipped.length) lines.push('', `_The batch is incomplete: ${b.skipped.length} line${b.skipped.length === 1 ? '' : 's'} not counted, so its shares and totals leave them out._`);
+  if (b.skipped.length) lines.push('', `_The batch is incomplete: ${notCountedText(b)} (hover the batch's opening line for the list); shares and totals are of the counted lines._`);
   return lines.join('\n');
 }
 
