@@ -218,6 +218,14 @@ describe('code actions', () => {
     expect(applyEdits(text, fix.edits)).toContain('Ca(NO3)2 1 g');
   });
 
+  it('fix a formula on a batch line that is not counted (its unit is wrong too)', () => {
+    const text = '```batch\nvolume: 1 L\nCaNO3 1 gallon\n```\n';
+    const doc = analyseDocument(text, 'markdown');
+    const s = text.indexOf('CaNO3');
+    const fix = codeActions(doc, s, s, ['quickfix'])[0];
+    expect(applyEdits(text, fix.edits)).toContain('Ca(NO3)2 1 gallon');
+  });
+
   it('insert the computed table below the batch or the paragraph', () => {
     const text = '# Trial\n\n```batch\nname: A\nvolume: 1 L\nNaCl 1 g\n```\nAfter.\n';
     const doc = analyseDocument(text, 'markdown');
