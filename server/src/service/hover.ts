@@ -11,14 +11,15 @@ import type { AnalysedDocument } from './document';
 import { targetAt } from './lookup';
 import type { Range } from './positions';
 import type { ServiceSettings } from './settings';
-import { amountText, batchWarnings, codeSpan, countsText, fractionText, notCountedText, shareCells, shareHeads, sig, weighedMass } from './tables';
+import { amountText, batchWarnings, codeSpan, countsText, escapeMarkdown, fractionText, notCountedText, shareCells, shareHeads, sig, weighedMass } from './tables';
 
 export interface HoverResult {
   markdown: string;
   range: Range;
 }
 
-const esc = (t: string) => t.replace(/([\\`*_[\]<>|])/g, '\\$1');
+/** Markdown escaping of text that may quote the notes (the tables' escaper). */
+const esc = escapeMarkdown;
 
 function latticeLine(a: FormulaAnalysis, s: ServiceSettings): string | undefined {
   const L = a.lattice;
