@@ -49,7 +49,9 @@ describe('standard solutions (worked examples)', () => {
     const b = batch('total: 250 g\nNaCl 2 wt%\nKCl 0.5 %w/w');
     expect(b.ingredients[0].massG).toBeCloseTo(5, 9);
     expect(b.ingredients[1].moles).toBeCloseTo(1.25 / KCl, 9);
-    expect(b.ingredients[0].massFraction).toBeCloseTo(0.02, 9);
+    // 5 g of NaCl is 2 % of the 250 g total, and 5 / (5 + 1.25) = 80 % of what is weighed: two shares, two names.
+    expect(b.ingredients[0].fractionOfTotal).toBeCloseTo(0.02, 9);
+    expect(b.ingredients[0].massFraction).toBeCloseTo(5 / 6.25, 9);
   });
 });
 

@@ -50,7 +50,10 @@ describe.runIf(HAVE_BROWSER || REQUIRE_BROWSER)('the preview in headless Chromiu
         expect(box.width).toBeGreaterThan(300);
         expect(box.x + box.width).toBeLessThanOrEqual(960);
         expect(await page.locator('figure.iw-batch td.iw-n').first().evaluate((e) => getComputedStyle(e).textAlign)).toBe('right');
-        expect(await table.locator('tbody tr').count()).toBe(2);
+        // Two counted rows and the line not counted ('KCl 3 furlongs'), whose reason wraps inside the page.
+        expect(await table.locator('tbody tr').count()).toBe(3);
+        expect(await table.locator('tbody tr.iw-skipped td.iw-reason').textContent()).toMatch(/^not counted: Unknown unit 'furlongs'/);
+        expect(await table.locator('tbody tr.iw-skipped td.iw-reason').evaluate((e) => getComputedStyle(e).whiteSpace)).toBe('normal');
 
         // Colours come from the theme: body text and table text legible (WCAG AA 4.5:1), markers visible.
         const colours = await page.evaluate(() => {

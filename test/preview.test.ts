@@ -94,7 +94,7 @@ describe('a batch block', () => {
     expect(fig.length).toBe(1);
     expect(fig.find('figcaption').text()).toContain('Rinse K-1');
     expect(fig.find('figcaption').text()).toContain('final volume 500 mL');
-    expect(fig.find('table.iw-table').first().find('thead th').map((_, e) => $(e).text()).get()).toEqual(['Ingredient', 'Amount', 'Molar mass (g/mol)', 'To weigh (g)', 'Moles (mol)', 'Concentration (M)', 'Mass fraction']);
+    expect(fig.find('table.iw-table').first().find('thead th').map((_, e) => $(e).text()).get()).toEqual(['Ingredient', 'Amount', 'Molar mass (g/mol)', 'To weigh (g)', 'Moles (mol)', 'Concentration (M)', 'Share of weighed mass']);
   });
 
   it('0.1000 M NaCl in 500 mL: 0.05 mol, 2.922 g (common textbook example, as in test/batch.test.ts)', () => {
@@ -140,6 +140,45 @@ describe('a batch block', () => {
     const $c = dom('```batch\nvolume: 1 L\nH2SO4 0.5 M\n```\n');
     expect($c('.iw-cautions').text()).toMatch(/strong acid/);
     expect($c('.iw-cautions').text()).toMatch(/safety data sheet/);
+  });
+});
+
+describe('a batch with lines in error (an invented desmut bath whose acids are written by volume)', () => {
+  const src = '```batch\nname: Desmut D-4\nvolume: 2 L\nHNO3 120 mL @ 68%\n(NH4)HF2 30 g\nH2SO4 80 mL\nFe2(SO4)3 33 g\n```\n';
+  const $ = dom(src);
+  const fig = $('figure.iw-batch');
+  const rows = fig.find('table.iw-table').first().find('tbody tr');
+
+  it('shows every line in the order written: the two counted with figures, the two not counted with the reason', () => {
+    expect(fig.find('figcaption').text()).toContain('incomplete: 2 lines not counted');
+    expect(rows.length).toBe(4);
+    expect(rows.map((_, r) => $(r).hasClass('iw-skipped')).get()).toEqual([true, false, true, false]);
+    expect(rows.eq(0).find('td').first().text()).toMatch(/^HNO3 120 mL @ 68%/);
+    expect(rows.eq(0).find('td.iw-reason').text()).toMatch(/^not counted: Unknown unit 'mL'/);
+    expect(rows.eq(1).find('td').first().text()).toBe('(NH4)HF2');
+    // 30 g of 63 g weighed.
+    expect(parseFloat(rows.eq(1).find('td').last().text())).toBeCloseTo((30 / 63) * 100, 1);
+  });
+
+  it('puts each line\'s marker in its own row and keeps the acid caution', () => {
+    expect(rows.eq(0).find('a.iw-flag.iw-error').length).toBe(1);
+    expect(rows.eq(2).find('a.iw-flag.iw-error').length).toBe(1);
+    expect(fig.find('ul.iw-findings').length).toBe(0);
+    expect(fig.find('.iw-cautions').text()).toContain('HNO₃ (line not counted), H₂SO₄ (line not counted): strong acid');
+  });
+
+  it('names the two shares: of the weighed mass always, of the total where one is given', () => {
+    const $t = dom('```batch\ntotal: 250 g\nNaCl 2 wt%\nKCl 0.5 wt%\n```\n');
+    const heads = $t('figure.iw-batch table.iw-table').first().find('thead th').map((_, e) => $t(e).text()).get();
+    expect(heads.slice(-2)).toEqual(['Share of weighed mass', 'Share of total']);
+    const cells = $t('figure.iw-batch table.iw-table').first().find('tbody tr').first().find('td').map((_, e) => $t(e).text()).get();
+    expect(cells.slice(-2)).toEqual(['80.0 %', '2.0 %']);
+  });
+
+  it('marks a solubility warning on the amount\'s row', () => {
+    const $s = dom('```batch\nvolume: 100 mL\nNaCl 500 g\n```\n');
+    expect($s('figure.iw-batch tbody tr').first().find('a.iw-flag.iw-warning').attr('title')).toMatch(/^warning: NaCl: the dissolved mass \(500 g\)/);
+    expect($s('section.iw-problems .iw-code').text()).toBe('batch-solubility');
   });
 });
 

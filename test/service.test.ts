@@ -105,6 +105,66 @@ describe('hover', () => {
   });
 });
 
+describe('a batch with lines in error (an invented desmut bath whose acids are written by volume)', () => {
+  const DESMUT = '# Desmut\n\n```batch\nname: Desmut D-4\nvolume: 2 L\nHNO3 120 mL @ 68%\n(NH4)HF2 30 g\nH2SO4 80 mL\nFe2(SO4)3 33 g\n```\n';
+  const doc = analyseDocument(DESMUT, 'markdown');
+
+  it('the summary hover counts what is counted, lists what is not with the reason, and keeps the acid caution', () => {
+    const md = hoverAt(DESMUT.replace('```batch', '```ba|tch'))!;
+    expect(md).toMatch(/^\*\*Desmut D-4\*\* · 2 ingredients, 2 lines not counted — incomplete · 63 g to weigh · 2000 mL/);
+    expect(md).toContain("- `HNO3 120 mL @ 68%` — Unknown unit 'mL'");
+    expect(md).toContain("- `H2SO4 80 mL` — Unknown unit 'mL'");
+    expect(md).toContain('⚠ HNO₃ (line not counted), H₂SO₄ (line not counted): strong acid');
+  });
+
+  it('a hover on a line not counted says so, why, and its cautions, over the exact line', () => {
+    const { doc: d, offset } = at(DESMUT.replace('H2SO4 80', 'H2S|O4 80'));
+    const h = hover(d, offset)!;
+    expect(h.markdown).toMatch(/^`H2SO4 80 mL` — \*\*not counted\*\*/);
+    expect(h.markdown).toContain("Unknown unit 'mL'");
+    expect(h.markdown).toContain('strong acid');
+    expect(h.range).toEqual({ start: { line: 7, character: 0 }, end: { line: 7, character: 11 } });
+  });
+
+  it('the same in .fnote, indented, with the range on the line as written', () => {
+    const { doc: d, offset } = at('batch Desmut D-4\n  volume: 2 L\n  HN|O3 120 mL\nend\n', 'fnote');
+    const h = hover(d, offset)!;
+    expect(h.markdown).toContain('**not counted**');
+    expect(h.range).toEqual({ start: { line: 2, character: 2 }, end: { line: 2, character: 13 } });
+  });
+
+  it('the code lens and the outline say the batch is incomplete', () => {
+    const [lens] = codeLenses(doc);
+    expect(lens.title).toMatch(/^2 ingredients · ⚠ 2 lines not counted \(incomplete\) · 63 g to weigh · I = /);
+    expect(lens.title).toContain('⚠ cautions');
+    expect(documentSymbols(doc)[0].children[0].detail).toBe('2 ingredients, 2 lines not counted — incomplete, 2000 mL');
+  });
+
+  it('the inserted table marks the batch incomplete and lists the lines not counted, with the acid caution', () => {
+    const act = codeActions(doc, DESMUT.indexOf('(NH4)'), DESMUT.indexOf('(NH4)'), ['refactor']).find((a) => a.kind === 'refactor.rewrite')!;
+    const out = applyEdits(DESMUT, act.edits);
+    expect(out).toContain('**Desmut D-4, final volume 2000 mL** — **incomplete: 2 lines not counted** (computed by Ionwright)');
+    expect(out).toContain("- `HNO3 120 mL @ 68%` — Unknown unit 'mL'");
+    expect(out).toContain('- HNO₃ (line not counted), H₂SO₄ (line not counted): strong acid');
+  });
+
+  it('an ingredient hover gives both shares where the batch has a total: 5 g NaCl of 6.25 g weighed, of a 250 g total', () => {
+    const md = hoverAt('```batch\ntotal: 250 g\nNa|Cl 2 wt%\nKCl 0.5 wt%\n```\n')!;
+    expect(md).toContain('80.0 % of the weighed mass');
+    expect(md).toContain('2.0 % of the total 250 g');
+    const sum = hoverAt('```ba|tch\ntotal: 250 g\nNaCl 2 wt%\nKCl 0.5 wt%\n```\n')!;
+    expect(sum).toContain('| Ingredient | To weigh (g) | mol | M | Share of weighed mass | Share of total |');
+    expect(sum).toContain('| NaCl | 5 | 0.08556 | — | 80.0 % | 2.0 % |');
+  });
+
+  it('an ingredient hover gives its solubility in water and the estimate for the batch', () => {
+    const md = hoverAt('```batch\nvolume: 100 mL\nNa|Cl 40 g\n```\n')!;
+    // 36 g per 100 g water at 25 °C: the table value (from memory); 40 g in about 60 g of water.
+    expect(md).toContain('⚠ Solubility of NaCl in water: 36 g per 100 g water at 25 °C — from memory');
+    expect(md).toContain('about 66.7 g per 100 g water here (estimate)');
+  });
+});
+
 describe('diagnostics', () => {
   it('point at the exact characters, with LSP shape', () => {
     const text = 'Intro é 🧪\nUsed `NaXx` and `CaNO3`, then `Fe + O2 -> Fe2O3`.\n';
@@ -156,6 +216,14 @@ describe('code actions', () => {
     const s = text.indexOf('CaNO3');
     const fix = codeActions(doc, s, s, ['quickfix'])[0];
     expect(applyEdits(text, fix.edits)).toContain('Ca(NO3)2 1 g');
+  });
+
+  it('fix a formula on a batch line that is not counted (its unit is wrong too)', () => {
+    const text = '```batch\nvolume: 1 L\nCaNO3 1 gallon\n```\n';
+    const doc = analyseDocument(text, 'markdown');
+    const s = text.indexOf('CaNO3');
+    const fix = codeActions(doc, s, s, ['quickfix'])[0];
+    expect(applyEdits(text, fix.edits)).toContain('Ca(NO3)2 1 gallon');
   });
 
   it('insert the computed table below the batch or the paragraph', () => {

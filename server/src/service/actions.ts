@@ -32,6 +32,8 @@ function formulaRangeOf(doc: AnalysedDocument, d: ChemDiagnostic): { start: numb
     if (b.ref.start > d.start || b.ref.end < d.end) continue;
     const i = b.analysis.ingredients.find((x) => x.formulaStart <= d.start && x.formulaEnd >= d.end);
     if (i) return { start: i.formulaStart, end: i.formulaEnd };
+    const l = b.analysis.skipped.find((x) => x.formulaStart !== undefined && x.formulaStart <= d.start && (x.formulaEnd as number) >= d.end);
+    if (l) return { start: l.formulaStart as number, end: l.formulaEnd as number };
   }
   return undefined;
 }

@@ -22,13 +22,30 @@ export function batchJson(doc: AnalysedDocument, b: BatchOccurrence) {
       moles: r(i.moles),
       massG: r(i.massG),
       concentrationM: r(i.concentrationM),
+      /** Share of the weighed mass (the counted ingredients), with or without `total:`. */
       massFraction: r(i.massFraction),
+      ...(a.totalMassG !== null ? { fractionOfTotal: r(i.fractionOfTotal) } : {}),
       ions: i.ions.map((x) => ({ ion: x.key, count: x.count, charge: x.charge })),
       ...(i.undissociated ? { undissociated: i.undissociated } : {}),
       cautions: i.cautions.map((c) => c.text),
+      ...(i.solubility ? { solubility: {
+        salt: i.solubility.row.formula, gPer100gWater: i.solubility.row.gPer100gWater, temperatureC: i.solubility.row.temperatureC,
+        per100gWaterEstimate: r(i.solubility.per100gWater, 6), exceeds: i.solubility.exceeds, source: i.solubility.row.source,
+      } } : {}),
     })),
+    /** Every non-blank line that is not counted: 0-based document line, the line as written, why. */
+    skipped: a.skipped.map((l) => ({
+      line: doc.lines.positionAt(l.lineStart).line,
+      text: l.text,
+      reason: l.reason,
+      code: l.code,
+      ...(l.analysis ? { formula: l.formulaText, cautions: l.cautions.map((c) => c.text) } : {}),
+    })),
+    incomplete: a.skipped.length > 0,
     ions: a.ions.map((x) => ({ ion: x.key, display: x.ion, charge: x.charge, concentrationM: r(x.concentrationM) })),
     ionicStrengthM: r(a.ionicStrengthM),
+    /** Estimated water in the batch, g: final volume × 1 g/mL less the dissolved mass (null without a volume). */
+    waterEstimateG: r(a.waterG, 6),
     netChargeEqPerL: r(a.netChargeEqPerL),
     notes: a.notes,
     cautions: a.cautions.map((c) => c.text),

@@ -162,6 +162,9 @@ export function shiftBatch(b: BatchOccurrence, by: number): BatchOccurrence {
       ingredients: a.ingredients.map((i) => ({
         ...i, lineStart: i.lineStart + by, lineEnd: i.lineEnd + by, formulaStart: i.formulaStart + by, formulaEnd: i.formulaEnd + by, amount: { ...i.amount, start: i.amount.start + by, end: i.amount.end + by },
       })),
+      skipped: a.skipped.map((l) => ({
+        ...l, lineStart: l.lineStart + by, lineEnd: l.lineEnd + by, ...(l.formulaStart !== undefined ? { formulaStart: l.formulaStart + by, formulaEnd: (l.formulaEnd as number) + by } : {}),
+      })),
     },
   };
 }

@@ -2,7 +2,7 @@
  * Hover cards in Markdown: the headline numbers first, then the method, inputs and sources.
  */
 import type { FormulaAnalysis } from '../chem/analyse';
-import type { BatchAnalysis, Ingredient } from '../chem/batch';
+import type { BatchAnalysis, Ingredient, SkippedLine } from '../chem/batch';
 import { CAUTION_FOOTNOTE, cautionsFor } from '../chem/cautions';
 import type { ReactionAnalysis } from '../chem/equation';
 import { subscriptDigits } from '../chem/formula/compute';
@@ -11,14 +11,15 @@ import type { AnalysedDocument } from './document';
 import { targetAt } from './lookup';
 import type { Range } from './positions';
 import type { ServiceSettings } from './settings';
-import { amountText, sig } from './tables';
+import { amountText, batchWarnings, codeSpan, countsText, escapeMarkdown, fractionText, notCountedText, shareCells, shareHeads, sig, weighedMass } from './tables';
 
 export interface HoverResult {
   markdown: string;
   range: Range;
 }
 
-const esc = (t: string) => t.replace(/([\\`*_[\]<>|])/g, '\\$1');
+/** Markdown escaping of text that may quote the notes (the tables' escaper). */
+const esc = escapeMarkdown;
 
 function latticeLine(a: FormulaAnalysis, s: ServiceSettings): string | undefined {
   const L = a.lattice;
@@ -99,21 +100,41 @@ function ingredientMarkdown(i: Ingredient, b: BatchAnalysis, s: ServiceSettings)
   const lines = [`**${esc(i.formula)}** · ${esc(amountText(i))}`, ''];
   const bits = [`weigh **${sig(i.massG)} g**`, `${sig(i.moles)} mol`];
   if (i.concentrationM !== null) bits.push(`**${sig(i.concentrationM)} M** in ${sig((b.volumeL as number) * 1000)} mL`);
-  if (i.massFraction !== null) bits.push(`${(i.massFraction * 100).toFixed(1)} % of the weighed mass`);
+  if (i.massFraction !== null) bits.push(`${fractionText(i.massFraction)} of the weighed mass`);
+  if (i.fractionOfTotal !== null && b.totalMassG !== null) bits.push(`${fractionText(i.fractionOfTotal)} of the total ${sig(b.totalMassG)} g`);
   lines.push(bits.join(' · '), '');
   lines.push(i.ions.length ? `Dissociates to ${i.ions.map((x) => `${x.count === 1 ? '' : x.count + ' '}${x.ion}`).join(' + ')}` : `Not split into ions (${i.undissociated ?? 'undissociated'})`, '');
   lines.push(`Molar mass ${i.molarMass.toFixed(s.decimals)} g/mol${i.analysis.formula && i.analysis.formula.parts.length > 1 ? ' (hydrate water included)' : ''}`);
+  const sol = i.solubility;
+  if (sol) {
+    const here = sol.per100gWater === null ? 'no water left by the estimate' : `about ${sig(sol.per100gWater, 3)} g per 100 g water here (estimate)`;
+    lines.push('', `${sol.exceeds ? '⚠ ' : ''}Solubility of ${esc(sol.salt)} in water: ${sig(sol.row.gPer100gWater, 3)} g per 100 g water at ${sol.row.temperatureC} °C — ${esc(sol.row.source)}; ${here}.`);
+  }
   if (i.cautions.length) lines.push('', `⚠ ${i.cautions.map((c) => esc(c.text)).join('; ')}. _${CAUTION_FOOTNOTE}_`);
+  if (b.skipped.length) lines.push('', `_The batch is incomplete: ${notCountedText(b)} (hover the batch's opening line for the list); shares and totals are of the counted lines._`);
+  return lines.join('\n');
+}
+
+/** A line of a batch that is not counted: what it says, why, and the cautions of its formula. */
+function skippedMarkdown(l: SkippedLine, s: ServiceSettings): string {
+  const a = l.analysis;
+  const lines = [`${codeSpan(l.text)} — **not counted**`, '', esc(l.reason), ''];
+  if (a?.molarMass) lines.push(`${esc(a.display)}: molar mass ${a.molarMass.value.toFixed(s.decimals)} g/mol`, '');
+  if (l.cautions.length) lines.push(`⚠ ${l.cautions.map((c) => esc(c.text)).join('; ')}. _${CAUTION_FOOTNOTE}_`, '');
+  lines.push('_Nothing on this line is in the batch\'s figures until it is fixed._');
   return lines.join('\n');
 }
 
 export function batchSummaryMarkdown(b: BatchAnalysis, _s: ServiceSettings): string {
-  const total = b.ingredients.reduce((x, i) => x + (i.massG ?? 0), 0);
-  const lines = [`**${esc(b.name ?? 'Batch')}** · ${b.ingredients.length} ingredient${b.ingredients.length === 1 ? '' : 's'} · ${sig(total)} g to weigh${b.volumeL !== null ? ` · ${sig(b.volumeL * 1000)} mL` : ''}`, ''];
+  const lines = [`**${esc(b.name ?? 'Batch')}** · ${esc(countsText(b))} · ${sig(weighedMass(b))} g to weigh${b.volumeL !== null ? ` · ${sig(b.volumeL * 1000)} mL` : ''}${b.totalMassG !== null ? ` · total ${sig(b.totalMassG)} g` : ''}`, ''];
   if (b.ionicStrengthM !== null) lines.push(`Ionic strength **${sig(b.ionicStrengthM)} M** · net charge ${sig(b.netChargeEqPerL ?? 0, 2)} eq/L`, '');
   if (b.ions.length) lines.push(b.ions.map((x) => `${x.ion} ${sig(x.concentrationM)} M`).join(' · '), '');
-  lines.push('| Ingredient | To weigh (g) | mol | M |', '|---|---:|---:|---:|');
-  for (const i of b.ingredients) lines.push(`| ${esc(i.formula)} | ${sig(i.massG)} | ${sig(i.moles)} | ${sig(i.concentrationM)} |`);
+  const heads = shareHeads(b);
+  lines.push(`| Ingredient | To weigh (g) | mol | M | ${heads.join(' | ')} |`, `|---|---:|---:|---:|${heads.map(() => '---:|').join('')}`);
+  for (const i of b.ingredients) lines.push(`| ${esc(i.formula)} | ${sig(i.massG)} | ${sig(i.moles)} | ${sig(i.concentrationM)} | ${shareCells(b, i).join(' | ')} |`);
+  if (b.skipped.length) lines.push('', `**Not counted** (left out of the figures above):`, '', ...b.skipped.map((l) => `- ${codeSpan(l.text)} — ${esc(l.reason)}`));
+  const warnings = batchWarnings(b);
+  if (warnings.length) lines.push('', ...warnings.map((d) => `⚠ ${esc(d.message)}`));
   lines.push('', ...b.notes.map((n) => `_${n}_`));
   if (b.cautions.length) lines.push('', ...b.cautions.map((c) => `⚠ ${esc(c.text)}`), '', `_${CAUTION_FOOTNOTE}_`);
   return lines.join('\n');
@@ -155,6 +176,10 @@ export function hover(doc: AnalysedDocument, offset: number): HoverResult | null
   if (t.kind === 'formula') markdown = formulaCardMarkdown(t.occ.analysis, s);
   else if (t.kind === 'reaction') markdown = reactionMarkdown(t.occ.analysis);
   else if (t.kind === 'batch-line') markdown = ingredientMarkdown(t.ingredient, t.occ.analysis, s);
-  else markdown = batchSummaryMarkdown(t.occ.analysis, s);
+  else {
+    const line = t.occ.analysis.skipped.find((l) => offset >= l.lineStart && offset <= l.lineEnd);
+    if (line) return { markdown: skippedMarkdown(line, s), range: doc.lines.range(line.lineStart, line.lineEnd) };
+    markdown = batchSummaryMarkdown(t.occ.analysis, s);
+  }
   return { markdown, range: doc.lines.range(t.start, t.end) };
 }

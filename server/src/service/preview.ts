@@ -15,7 +15,7 @@
  */
 import type { MarkdownIt, Token } from 'markdown-it';
 import { analyseFormula, type FormulaAnalysis } from '../chem/analyse';
-import type { BatchAnalysis } from '../chem/batch';
+import type { BatchAnalysis, Ingredient, SkippedLine } from '../chem/batch';
 import { CAUTION_FOOTNOTE, cautionsFor } from '../chem/cautions';
 import type { ChemDiagnostic } from '../chem/diagnostic';
 import { analyseReaction, findArrow, formatSignedCharge, type ReactionAnalysis } from '../chem/equation';
@@ -23,7 +23,7 @@ import type { FormulaRef } from '../notes/types';
 import { scanProse } from '../notes/prose';
 import { analyseDocument, type BlockResult } from './document';
 import { DEFAULT_SETTINGS, type ServiceSettings } from './settings';
-import { amountText, fractionText, sig, undissociatedOf } from './tables';
+import { amountText, notCountedText, shareCells, shareHeads, sig, undissociatedOf } from './tables';
 import { escapeHtml, typesetDisplay, typesetEquation } from './typeset';
 import { CachesBySettings, detach } from '../chem/cache';
 
@@ -222,21 +222,35 @@ function batchHtmlUncached(b: BatchAnalysis, o: PreviewOptions, state: RenderSta
     b.totalMassG !== null ? `total ${sig(b.totalMassG)} g` : null,
   ].filter(Boolean);
   const inRow = new Set<ChemDiagnostic>();
-  const rows = b.ingredients.map((i) => {
-    const own = b.diagnostics.filter((d) => d.severity !== 'hint' && d.start >= i.lineStart && d.start <= i.lineEnd);
+  const flagsOf = (start: number, end: number) => {
+    const own = b.diagnostics.filter((d) => d.severity !== 'hint' && !inRow.has(d) && d.start >= start && d.start <= end);
     for (const d of own) inRow.add(d);
-    const flags = own.length ? mark(state, own, subjectOf(own[0]), lineOf) : '';
-    return `<tr><td class="iw-ing">${i.analysis.ok ? formulaSpan(i.analysis, s, '') : escapeHtml(i.formulaText)}${flags}</td>` +
-      `<td>${escapeHtml(amountText(i))}</td>` +
-      `<td class="iw-n">${i.molarMass.toFixed(s.decimals)}</td>` +
-      `<td class="iw-n">${sig(i.massG)}</td>` +
-      `<td class="iw-n">${sig(i.moles)}</td>` +
-      `<td class="iw-n">${sig(i.concentrationM)}</td>` +
-      `<td class="iw-n">${fractionText(i.massFraction)}</td></tr>`;
+    return own.length ? mark(state, own, subjectOf(own[0]), lineOf) : '';
+  };
+  const heads = shareHeads(b);
+  // Every line in the order written: counted ingredients with their figures, the others with why they are not counted.
+  const entries: Array<{ at: number; i?: Ingredient; l?: SkippedLine }> = [
+    ...b.ingredients.map((i) => ({ at: i.lineStart, i })),
+    ...b.skipped.map((l) => ({ at: l.lineStart, l })),
+  ].sort((x, y) => x.at - y.at);
+  const rows = entries.map(({ i, l }) => {
+    if (l) {
+      return `<tr class="iw-skipped"><td class="iw-ing"><code>${escapeHtml(l.text)}</code>${flagsOf(l.lineStart, l.lineEnd)}</td>` +
+        `<td class="iw-reason" colspan="${5 + heads.length}"><strong>not counted</strong>: ${escapeHtml(l.reason)}</td></tr>`;
+    }
+    const g = i as Ingredient;
+    return `<tr><td class="iw-ing">${g.analysis.ok ? formulaSpan(g.analysis, s, '') : escapeHtml(g.formulaText)}${flagsOf(g.lineStart, g.lineEnd)}</td>` +
+      `<td>${escapeHtml(amountText(g))}</td>` +
+      `<td class="iw-n">${g.molarMass.toFixed(s.decimals)}</td>` +
+      `<td class="iw-n">${sig(g.massG)}</td>` +
+      `<td class="iw-n">${sig(g.moles)}</td>` +
+      `<td class="iw-n">${sig(g.concentrationM)}</td>` +
+      shareCells(b, g).map((c) => `<td class="iw-n">${c}</td>`).join('') + '</tr>';
   });
+  const incomplete = b.skipped.length ? ` · <strong class="iw-incomplete">incomplete: ${notCountedText(b)}</strong>` : '';
   const parts = [
-    `<figcaption>${head.join(' · ')} <span class="iw-by">computed by Ionwright</span></figcaption>`,
-    '<table class="iw-table"><thead><tr><th>Ingredient</th><th>Amount</th><th>Molar mass (g/mol)</th><th>To weigh (g)</th><th>Moles (mol)</th><th>Concentration (M)</th><th>Mass fraction</th></tr></thead>',
+    `<figcaption>${head.join(' · ')}${incomplete} <span class="iw-by">computed by Ionwright</span></figcaption>`,
+    `<table class="iw-table"><thead><tr><th>Ingredient</th><th>Amount</th><th>Molar mass (g/mol)</th><th>To weigh (g)</th><th>Moles (mol)</th><th>Concentration (M)</th>${heads.map((h) => `<th>${h}</th>`).join('')}</tr></thead>`,
     `<tbody>${rows.join('')}</tbody></table>`,
   ];
   if (b.ions.length) {

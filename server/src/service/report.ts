@@ -64,7 +64,11 @@ function distinctFormulas(doc: AnalysedDocument): FormulaAnalysis[] {
     out.push(a);
   };
   for (const f of doc.formulas) add(f.analysis);
-  for (const b of doc.batches) for (const i of b.analysis.ingredients) add(i.analysis);
+  for (const b of doc.batches) {
+    for (const i of b.analysis.ingredients) add(i.analysis);
+    // A batch line that is not counted still names its substance: its card and cautions belong in the report.
+    for (const l of b.analysis.skipped) if (l.analysis) add(l.analysis);
+  }
   return out;
 }
 

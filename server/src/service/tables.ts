@@ -35,6 +35,39 @@ export const fractionText = (x: number | null) => (x === null ? '—' : `${(x * 
 /** The ingredients the batch does not split into ions. */
 export const undissociatedOf = (b: BatchAnalysis) => b.ingredients.filter((i) => i.undissociated && i.ions.length === 0);
 
+const plural = (n: number, word: string) => `${n} ${word}${n === 1 ? '' : 's'}`;
+
+/** The mass to weigh of the counted ingredients, g. */
+export const weighedMass = (b: BatchAnalysis) => b.ingredients.reduce((s, i) => s + (i.massG ?? 0), 0);
+
+/** '2 lines not counted' (the batch is incomplete), or '' when every line counts. */
+export const notCountedText = (b: BatchAnalysis) => (b.skipped.length ? `${plural(b.skipped.length, 'line')} not counted` : '');
+
+/** '3 ingredients', or '3 ingredients, 2 lines not counted — incomplete'. */
+export function countsText(b: BatchAnalysis): string {
+  const n = plural(b.ingredients.length, 'ingredient');
+  return b.skipped.length ? `${n}, ${notCountedText(b)} — incomplete` : n;
+}
+
+/** The two share columns: of the weighed mass always, of the total where the batch gives one. */
+export const shareHeads = (b: BatchAnalysis) => (b.totalMassG !== null ? ['Share of weighed mass', 'Share of total'] : ['Share of weighed mass']);
+export const shareCells = (b: BatchAnalysis, i: Ingredient) => (b.totalMassG !== null ? [fractionText(i.massFraction), fractionText(i.fractionOfTotal)] : [fractionText(i.massFraction)]);
+
+/** The batch's warnings on counted lines or on the batch (solubility, charge, formulas counted as written); a line not counted shows its reason instead. */
+export const batchWarnings = (b: BatchAnalysis) =>
+  b.diagnostics.filter((d) => d.severity === 'warning' && !b.skipped.some((s) => d.start >= s.lineStart && d.start <= s.lineEnd));
+
+/** Escape text for Markdown prose (messages may quote what the user wrote). */
+export const escapeMarkdown = (t: string) => t.replace(/([\\`*_[\]<>|])/g, '\\$1');
+
+/** Inline code for Markdown that survives any backticks in the text. */
+export function codeSpan(t: string): string {
+  const runs = t.match(/`+/g) ?? [];
+  const fence = '`'.repeat(Math.max(0, ...runs.map((r) => r.length)) + 1);
+  const pad = t.startsWith('`') || t.endsWith('`') ? ' ' : '';
+  return `${fence}${pad}${t}${pad}${fence}`;
+}
+
 function latticeCell(a: FormulaAnalysis, s: ServiceSettings): string {
   const L = a.lattice;
   if (!L) return '—';
@@ -69,13 +102,14 @@ export function formulaTable(formulas: readonly FormulaAnalysis[], settings: Ser
   return lines.join('\n');
 }
 
-/** Markdown tables of a batch. */
+/** Markdown tables of a batch: every line shows, counted in the table or listed as not counted with the reason. */
 export function batchTable(b: BatchAnalysis, settings: ServiceSettings = DEFAULT_SETTINGS): string {
   const lines: string[] = [];
   const head = [b.name ?? 'Batch', b.volumeL !== null ? `final volume ${sig(b.volumeL * 1000)} mL` : null, b.totalMassG !== null ? `total ${sig(b.totalMassG)} g` : null].filter(Boolean).join(', ');
-  lines.push(`**${head}** (computed by Ionwright)`, '');
-  lines.push(row(['Ingredient', 'Amount', 'Molar mass (g/mol)', 'To weigh (g)', 'Moles (mol)', 'Concentration (M)', 'Mass fraction']));
-  lines.push('|---|---|---:|---:|---:|---:|---:|');
+  lines.push(`**${head}**${b.skipped.length ? ` — **incomplete: ${notCountedText(b)}**` : ''} (computed by Ionwright)`, '');
+  const heads = shareHeads(b);
+  lines.push(row(['Ingredient', 'Amount', 'Molar mass (g/mol)', 'To weigh (g)', 'Moles (mol)', 'Concentration (M)', ...heads]));
+  lines.push(`|---|---|---:|---:|---:|---:|${heads.map(() => '---:|').join('')}`);
   for (const i of b.ingredients) {
     lines.push(row([
       i.formula,
@@ -84,8 +118,12 @@ export function batchTable(b: BatchAnalysis, settings: ServiceSettings = DEFAULT
       sig(i.massG),
       sig(i.moles),
       sig(i.concentrationM),
-      fractionText(i.massFraction),
+      ...shareCells(b, i),
     ]));
+  }
+  if (b.ingredients.length === 0) lines.push(row(['(none counted)', '', '', '', '', '', ...heads.map(() => '')]));
+  if (b.skipped.length) {
+    lines.push('', `**Not counted** (left out of every figure here; fix the line to count it):`, ...b.skipped.map((s) => `- ${codeSpan(s.text)} — ${escapeMarkdown(s.reason)}`));
   }
   if (b.ions.length) {
     lines.push('', row(['Ion', 'Charge', 'Concentration (M)']), '|---|---:|---:|');
@@ -96,6 +134,8 @@ export function batchTable(b: BatchAnalysis, settings: ServiceSettings = DEFAULT
   const undissociated = undissociatedOf(b).map((i) => i.formula);
   if (undissociated.length) lines.push(`Not split into ions: ${undissociated.join(', ')}.`);
   for (const n of b.notes) lines.push(`_${n}_`);
+  const warnings = batchWarnings(b);
+  if (warnings.length) lines.push('', '**Warnings**', ...warnings.map((d) => `- ${escapeMarkdown(d.message)}`));
   if (b.cautions.length) {
     lines.push('', '**Cautions**', ...b.cautions.map((c) => `- ${c.text}`), '', `_${CAUTION_FOOTNOTE}_`);
   }
