@@ -15,7 +15,7 @@ import {
   type WorkspaceEdit,
 } from 'vscode-languageserver';
 import { codeActions, type TextEdit } from '../service/actions';
-import { documentDiagnostics } from '../service/diagnostics';
+import { editorDiagnostics } from '../service/diagnostics';
 import { hover } from '../service/hover';
 import { codeLenses, documentSymbols } from '../service/symbols';
 import { SERVER_COMMANDS } from '../shared/commands';
@@ -63,7 +63,7 @@ export function startServer(connection: Connection, options: ServerOptions = {})
     const snap = workspace.snapshot(uri);
     // Stale: a newer version arrived while this one was analysed.
     if (!snap || workspace.versionOf(uri) !== snap.version) return;
-    void connection.sendDiagnostics({ uri, version: snap.version, diagnostics: documentDiagnostics(snap.doc) as never });
+    void connection.sendDiagnostics({ uri, version: snap.version, diagnostics: editorDiagnostics(snap.doc) as never });
   };
   const validator = new DebouncedValidator(timers, (uri) => {
     try {
@@ -134,14 +134,12 @@ export function startServer(connection: Connection, options: ServerOptions = {})
   );
 
   const toLspActions = (snap: Snapshot, start: number, end: number, only?: string[]): LspCodeAction[] => {
-    const actions = codeActions(snap.doc, start, end, only);
-    const diagnostics = actions.some((a) => a.fixes) ? documentDiagnostics(snap.doc) : [];
-    return actions.map((a) => ({
+    return codeActions(snap.doc, start, end, only).map((a) => ({
       title: a.title,
       kind: a.kind,
       edit: shape.edit(snap, a.edits),
       ...(a.isPreferred ? { isPreferred: true } : {}),
-      ...(a.fixes ? { diagnostics: diagnostics.filter((d) => d.code === a.fixes!.code && JSON.stringify(d.range) === JSON.stringify(a.fixes!.range)) as never } : {}),
+      ...(a.fixes ? { diagnostics: [a.fixes.diagnostic] as never } : {}),
     }));
   };
 

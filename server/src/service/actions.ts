@@ -4,6 +4,7 @@
  * Everything here returns edits; nothing is applied without the user asking.
  */
 import type { ChemDiagnostic } from '../chem/diagnostic';
+import { toLsp, type LspDiagnostic } from './diagnostics';
 import type { AnalysedDocument } from './document';
 import { formulasIn, targetAt } from './lookup';
 import type { Range } from './positions';
@@ -18,8 +19,8 @@ export interface CodeAction {
   title: string;
   kind: 'quickfix' | 'refactor.rewrite' | 'source';
   edits: TextEdit[];
-  /** The diagnostic it fixes, by its range and code. */
-  fixes?: { code: string; range: Range };
+  /** The diagnostic it fixes, by its range and code, and in LSP shape. */
+  fixes?: { code: string; range: Range; diagnostic: LspDiagnostic };
   isPreferred?: boolean;
 }
 
@@ -43,7 +44,8 @@ export function quickFixes(doc: AnalysedDocument, start: number, end: number): C
   const out: CodeAction[] = [];
   for (const d of doc.diagnostics) {
     if (!overlaps(d, start, end)) continue;
-    const fixes = { code: d.code, range: doc.lines.range(d.start, d.end) };
+    const diagnostic = toLsp(doc.lines, d);
+    const fixes = { code: d.code, range: diagnostic.range, diagnostic };
     const suggestions = (d.data?.suggestions as string[] | undefined) ?? [];
     if (d.code === 'charge-imbalance') {
       const target = formulaRangeOf(doc, d);
