@@ -9,8 +9,10 @@ import type { MarkdownIt } from 'markdown-it';
 import { readPreviewOptions } from '../../server/src/service/config';
 import { ionwrightPreview, type PreviewOptions } from '../../server/src/service/preview';
 import { CLIENT_COMMANDS, NOTES_LANGUAGES, planCommand, resultMessage, type EditorState } from './commands';
+import { ServerLifecycle } from './lifecycle';
 
 let client: LanguageClient | undefined;
+let lifecycleOfClient: ServerLifecycle | undefined;
 
 function editorState(): EditorState | undefined {
   const e = vscode.window.activeTextEditor;
@@ -31,11 +33,24 @@ export function activate(context: vscode.ExtensionContext) {
     debug: { module, transport: TransportKind.ipc, options: { execArgv: ['--nolazy', '--inspect=6019'] } },
   };
   const clientOptions: LanguageClientOptions = {
-    documentSelector: NOTES_LANGUAGES.flatMap((language) => [{ scheme: 'file', language }, { scheme: 'untitled', language }]),
+    // The server reads nothing from disk (the editor sends the text), so notes of any scheme are served:
+    // files, untitled notes and virtual workspaces alike.
+    documentSelector: NOTES_LANGUAGES.map((language) => ({ language })),
     outputChannel: output,
     synchronize: { configurationSection: 'ionwright' },
   };
   client = new LanguageClient('ionwright', 'Ionwright', serverOptions, clientOptions);
+
+  // The server starts when the first note is open and stops a minute after the last one is closed.
+  const lifecycle = new ServerLifecycle({
+    start: () => client!.start(),
+    stop: () => client!.stop(),
+    openDocuments: () => vscode.workspace.textDocuments,
+    setTimer: (fn, ms) => setTimeout(fn, ms),
+    clearTimer: (h) => clearTimeout(h as ReturnType<typeof setTimeout>),
+    log: (line) => output.info(line),
+  });
+  lifecycleOfClient = lifecycle;
 
   const runServerCommand = (command: string) => async () => {
     const plan = planCommand(command, editorState());
@@ -44,6 +59,7 @@ export function activate(context: vscode.ExtensionContext) {
       return;
     }
     try {
+      await lifecycle.ensureRunning();
       const result = await client?.sendRequest('workspace/executeCommand', { command: plan.command, arguments: plan.args });
       if (command === CLIENT_COMMANDS.copyCard && typeof result === 'string') await vscode.env.clipboard.writeText(result);
       const msg = resultMessage(command, result);
@@ -61,8 +77,11 @@ export function activate(context: vscode.ExtensionContext) {
     vscode.commands.registerCommand(CLIENT_COMMANDS.copyCard, runServerCommand(CLIENT_COMMANDS.copyCard)),
     vscode.commands.registerCommand(CLIENT_COMMANDS.restartServer, async () => {
       output.info('Restarting the Ionwright server.');
-      await client?.restart();
+      if (lifecycle.isRunning) await client?.restart();
+      else await lifecycle.ensureRunning();
     }),
+    vscode.workspace.onDidOpenTextDocument(() => void lifecycle.update()),
+    vscode.workspace.onDidCloseTextDocument(() => void lifecycle.update()),
     vscode.commands.registerCommand(CLIENT_COMMANDS.showOutput, () => output.show(true)),
   );
   // The preview reads the settings once per change, not once per render.
@@ -76,10 +95,7 @@ export function activate(context: vscode.ExtensionContext) {
   );
 
   // Not awaited: the preview plugin must not wait for the server.
-  client.start().then(
-    () => output.info('Ionwright server started.'),
-    (e) => output.info(`The Ionwright server did not start: ${(e as Error).message}`),
-  );
+  void lifecycle.update();
 
   return {
     extendMarkdownIt(md: MarkdownIt) {
@@ -89,5 +105,5 @@ export function activate(context: vscode.ExtensionContext) {
 }
 
 export async function deactivate() {
-  await client?.stop();
+  await lifecycleOfClient?.dispose();
 }
