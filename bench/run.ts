@@ -21,6 +21,7 @@ import { documentDiagnostics } from '../server/src/service/diagnostics';
 import { analyseDocument, updateDocument } from '../server/src/service/document';
 import { DEFAULT_SETTINGS, type ServiceSettings } from '../server/src/service/settings';
 import { generateNotes, rng } from './generate';
+import { pause, startSession } from './lsp-session';
 import { REAL, MISWRITTEN } from '../test/fixtures/charge-sets';
 
 const quick = process.argv.includes('--quick');
@@ -249,6 +250,86 @@ function childMemory(mode: string, dir: string) {
   figures.preview = { coldMs: cold, warmMs: warm, markdownItRenderMs: base };
 }
 
+// ── 6. long use: memory while typing, preview re-renders, one enormous line, cancellation ──
+async function longUseCase() {
+  const server = join(__dirname, 'server.js');
+  {
+    const s = await startSession(server);
+    const uri = 'file:///bench/long-notebook.md';
+    await s.open(uri, generateNotes(1_000_000, 5));
+    await s.type(uri, 20, 40);
+    const start = s.rssMB();
+    let peak = start;
+    const keys = 1000;
+    const t0 = now();
+    for (let k = 0; k < keys; k += 50) {
+      await s.type(uri, 50, 41);
+      peak = Math.max(peak, s.rssMB());
+    }
+    const perKey = (now() - t0) / keys;
+    await s.close(uri);
+    let after = s.rssMB();
+    for (let waited = 0; waited < 10_000 && after - start >= 60; waited += 100) {
+      await pause(100);
+      after = s.rssMB();
+    }
+    await s.stop();
+    rows.push({ case: 'server RSS growth, 1,000 keystrokes into 1 MB', ours: `+${(peak - start).toFixed(0)} MB`, baseline: `RSS with the note open ${start.toFixed(0)} MB`, ratio: peak / start, target: '≤ +100 MB', met: peak - start <= 100 });
+    rows.push({ case: 'server RSS after closing that note', ours: `${after - start >= 0 ? '+' : ''}${(after - start).toFixed(0)} MB`, baseline: `RSS with the note open ${start.toFixed(0)} MB`, ratio: after / start, target: '≤ +60 MB', met: after - start <= 60 });
+    figures.typing = { startMB: start, peakMB: peak, afterCloseMB: after, msPerKeystrokeWithHover: perKey };
+  }
+  {
+    const probe = (mode: string) => JSON.parse(spawnSync(process.execPath, ['--expose-gc', join(__dirname, 'memory-probes.js'), mode, quick ? '40' : '200'], { encoding: 'utf8' }).stdout) as { startMB: number; peakMB: number; startHeapMB: number; retainedHeapMB: number; msEach: number; n: number };
+    const plugin = probe('preview');
+    const plain = probe('plain');
+    const growth = plugin.peakMB - plugin.startMB;
+    const plainGrowth = plain.peakMB - plain.startMB;
+    rows.push({ case: `preview RSS growth, ${plugin.n} re-renders of 1 MB`, ours: `+${growth.toFixed(0)} MB`, baseline: `markdown-it alone +${plainGrowth.toFixed(0)} MB`, ratio: growth / plainGrowth, target: '≤ +100 MB over it', met: growth - plainGrowth <= 100 });
+    rows.push({ case: `preview heap kept after ${plugin.n} re-renders (after GC)`, ours: `+${(plugin.retainedHeapMB - plugin.startHeapMB).toFixed(1)} MB`, baseline: `after the first render ${plugin.startHeapMB.toFixed(0)} MB`, ratio: plugin.retainedHeapMB / plugin.startHeapMB, target: '≤ +60 MB', met: plugin.retainedHeapMB - plugin.startHeapMB <= 60 });
+    figures.previewRenders = { plugin, plain };
+  }
+  {
+    const s = await startSession(server);
+    const uri = 'file:///bench/one-line.md';
+    const text = generateNotes(quick ? 2_000_000 : 10_000_000, 4).replace(/\r?\n/g, ' ');
+    await s.open(uri, text);
+    const keys: number[] = [];
+    for (let i = 0; i < 20; i++) {
+      const a = now();
+      await s.type(uri, 1, 0, 'x');
+      keys.push(now() - a);
+    }
+    const nulls: number[] = [];
+    for (let i = 0; i < 50; i++) {
+      const a = now();
+      await s.hover('file:///bench/none.md', 0, 0);
+      nulls.push(now() - a);
+    }
+    await s.stop();
+    const label = `${(text.length / 1e6).toFixed(1)} MB`;
+    rows.push({ case: `keystroke + hover in a ${label} one-line note`, ours: ms(median(keys)), baseline: `null request ${ms(median(nulls))}`, ratio: median(keys) / median(nulls), target: '< 200 ms', met: median(keys) < 200 });
+    figures.longLine = { chars: text.length, medianKeystrokeMs: median(keys), maxKeystrokeMs: Math.max(...keys) };
+  }
+  {
+    const { CancellationTokenSource } = await import('vscode-languageserver-protocol/node');
+    const s = await startSession(server);
+    const uri = 'file:///bench/cancel.md';
+    await s.open(uri, generateNotes(200_000, 3));
+    const outcomes = await Promise.all(
+      Array.from({ length: 2000 }, (_, i) => {
+        const src = new CancellationTokenSource();
+        const p = s.conn.sendRequest('textDocument/hover', { textDocument: { uri }, position: { line: 10 + (i % 50), character: 5 } }, src.token).then(() => 'answered', (e: { code?: number }) => (e.code === -32800 ? 'cancelled' : 'failed'));
+        src.cancel();
+        return p;
+      }),
+    );
+    await s.stop();
+    const cancelled = outcomes.filter((o) => o === 'cancelled').length;
+    rows.push({ case: '2,000 hovers cancelled at once: answered RequestCancelled', ours: `${cancelled}`, baseline: 'requests sent 2000', ratio: cancelled / 2000, target: '≥ 90 %', met: cancelled >= 1800 });
+    figures.cancellation = { sent: 2000, cancelled, answered: outcomes.filter((o) => o === 'answered').length };
+  }
+}
+
 async function main() {
   if (process.argv[2] === '--child-memory') {
     childMemory(process.argv[3], process.argv[4]);
@@ -256,6 +337,7 @@ async function main() {
   }
   await serverCase();
   memoryCase();
+  await longUseCase();
   const machine = { cpus: cpus().length, cpu: cpus()[0]?.model, memoryGB: Math.round(totalmem() / 2 ** 30), node: process.version, platform: `${process.platform} ${process.arch}` };
   const out = { date: new Date().toISOString(), quick, machine, rows, figures };
   if (!quick) writeFileSync(join(__dirname, '..', 'bench', 'results.json'), JSON.stringify(out, null, 2) + '\n');
