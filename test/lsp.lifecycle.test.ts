@@ -190,3 +190,37 @@ describe('requests', () => {
     }
   });
 });
+
+describe('hostile requests', () => {
+  it('2,000 requests and notifications with random parameters: every request answered, no crash, no stack trace', async () => {
+    const fc = (await import('fast-check')).default;
+    const { conn, proc, stderr } = await connect({ workspace: { applyEdit: true, workspaceEdit: { documentChanges: true } } });
+    try {
+      const uri = 'file:///lab/hostile.md';
+      await conn.sendNotification(DidOpenTextDocumentNotification.type, { textDocument: { uri, languageId: 'markdown', version: 1, text: 'Weighed `NaCl` and `CaNO3`.\n\n```batch\nvolume: 1 L\nKCl 3 g\n```\n' } });
+      const methods = ['textDocument/hover', 'textDocument/codeAction', 'textDocument/documentSymbol', 'textDocument/codeLens', 'workspace/executeCommand', 'textDocument/didChange', 'textDocument/didOpen', 'textDocument/didClose', 'workspace/didChangeConfiguration', '$/cancelRequest'];
+      const notifications = new Set(['textDocument/didChange', 'textDocument/didOpen', 'textDocument/didClose', 'workspace/didChangeConfiguration', '$/cancelRequest']);
+      const params = fc.oneof(
+        fc.jsonValue(),
+        fc.record({ textDocument: fc.record({ uri: fc.oneof(fc.constant(uri), fc.string(), fc.integer()) }), position: fc.oneof(fc.record({ line: fc.integer(), character: fc.integer() }), fc.jsonValue()), range: fc.jsonValue(), context: fc.record({ only: fc.jsonValue(), diagnostics: fc.jsonValue() }) }, { requiredKeys: [] }),
+        fc.record({ command: fc.constantFrom('ionwright.server.insertTable', 'ionwright.server.insertTableAt', 'ionwright.server.cardMarkdown', 'x'), arguments: fc.array(fc.jsonValue(), { maxLength: 2 }) }),
+      );
+      const sample = fc.sample(fc.tuple(fc.constantFrom(...methods), params), { numRuns: 2000, seed: 1312 });
+      const answers: Array<Promise<unknown>> = [];
+      for (const [m, p] of sample) {
+        if (notifications.has(m)) await conn.sendNotification(m, p as never);
+        else answers.push(conn.sendRequest(m, p as never).then(() => 'ok', (e: { code?: number }) => e.code));
+      }
+      const outcomes = await Promise.all(answers);
+      expect(outcomes.length).toBeGreaterThan(500);
+      // Every answer is a result or a protocol error the spec names (no InternalError from a crash).
+      for (const o of outcomes) expect(['ok', -32602, -32601, -32800, -32600]).toContain(o);
+      const h = await conn.sendRequest(HoverRequest.type, { textDocument: { uri: 'file:///lab/after.md' }, position: { line: 0, character: 0 } });
+      expect(h).toBeNull();
+      expect(proc.exitCode).toBeNull();
+      expect(stderr()).not.toMatch(/\n\s+at /);
+    } finally {
+      proc.kill();
+    }
+  }, 60_000);
+});

@@ -60,30 +60,43 @@ export function lifecycleGate(inner: MessageReader, writer: MessageWriter, optio
     onPartialMessage: inner.onPartialMessage,
     dispose: () => inner.dispose(),
     listen(callback: DataCallback) {
+      // A message the library cannot handle (it throws on some malformed ones) is logged and dropped;
+      // it must not reach the reader's error event, which ends the server.
+      const deliver = (m: Message) => {
+        try {
+          callback(m);
+        } catch (e) {
+          options.log(`ionwright: a ${(m as { method?: string }).method ?? 'response'} message was dropped: ${(e as Error)?.message ?? String(e)}`);
+        }
+      };
       return inner.listen((m: Message) => {
         if (fatal) return;
+        if (isNotification(m) && m.method === '$/cancelRequest') {
+          const id = (m as { params?: { id?: unknown } }).params?.id;
+          if (typeof id !== 'number' && typeof id !== 'string') return options.log('ionwright: a $/cancelRequest without an id was dropped.');
+        }
         if (isRequest(m)) {
           if (m.method === 'initialize') {
             if (state !== 'new') return refuse(m, ErrorCodes.InvalidRequest, 'initialize was already received: a server is initialised once');
             state = 'initializing';
             // A client that sends no capabilities (or no params) has none: say so, rather than fail on it.
             const params = m.params && typeof m.params === 'object' && !Array.isArray(m.params) ? (m.params as Record<string, unknown>) : {};
-            if (!params.capabilities || typeof params.capabilities !== 'object') return callback({ ...m, params: { processId: null, rootUri: null, ...params, capabilities: {} } } as Message);
-            return callback(m);
+            if (!params.capabilities || typeof params.capabilities !== 'object') return deliver({ ...m, params: { processId: null, rootUri: null, ...params, capabilities: {} } } as Message);
+            return deliver(m);
           }
           if (state === 'new') return refuse(m, ErrorCodes.ServerNotInitialized, `${m.method} before initialize: the server is not initialised yet`);
           if (state === 'shut-down') return refuse(m, ErrorCodes.InvalidRequest, `${m.method} after shutdown: only the exit notification is accepted now`);
           if (m.method === 'shutdown') state = 'shut-down';
-          return callback(m);
+          return deliver(m);
         }
         if (isNotification(m)) {
-          if (m.method === 'exit') return callback(m);
+          if (m.method === 'exit') return deliver(m);
           if (state === 'new' || state === 'shut-down') return;
           if (m.method === 'initialized') state = 'running';
-          return callback(m);
+          return deliver(m);
         }
         // Responses to the server's own requests.
-        return callback(m);
+        return deliver(m);
       });
     },
   };

@@ -108,9 +108,11 @@ export class NotesWorkspace {
     const settings = this.settingsOf(uri);
     const hit = this.snapshots.get(uri);
     if (hit && hit.snap.version === td.version && hit.settings === settings) return hit.snap;
+    const text = td.getText();
+    // A client that sent something other than text for a document gets nothing for it.
+    if (typeof text !== 'string') return undefined;
     const hint = this.hints.get(uri);
     this.hints.delete(uri);
-    const text = td.getText();
     const doc =
       hit && hit.settings === settings && hit.snap.doc.language === language
         ? updateDocument(hit.snap.doc, text, hint ?? undefined)
