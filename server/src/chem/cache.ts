@@ -2,7 +2,7 @@
  * Memoisation with bounds: the one cache every layer uses.
  *
  * A `BoundedCache` keeps at most `maxEntries` entries and at most `maxBytes` (estimated) bytes, and
- * evicts the least recently used entry first. Keys are strings, and callers store flat copies
+ * evicts entries not read lately first (the clock algorithm). Keys are strings, and callers store flat copies
  * (`detach`) of keys cut from larger texts: in V8 a slice of 13 or more characters is a view into its
  * parent string, so a cache keyed by slices of a 1 MB note would hold every version of the note ever
  * typed. The same holds for values that keep slices: compute them from the flat copy.
@@ -24,15 +24,24 @@ export function detach(s: string): string {
 export const stringBytes = (s: string): number => 2 * s.length + 32;
 
 interface Entry<V> {
-  /** The key as stored (the flat copy given to `set`), kept when the entry is touched. */
+  /** The key as stored (the flat copy given to `set`). */
   key: string;
   value: V;
   bytes: number;
+  /** Read since the clock hand last passed it. */
+  hot: boolean;
 }
 
+/**
+ * Eviction by the clock algorithm (an approximation of least recently used that costs a flag write per
+ * read instead of a reordering): a hand goes round the entries in insertion order; an entry read since the
+ * hand last passed gets a second chance, any other is evicted. The hand is a live Map iterator, so it
+ * keeps its place between evictions and never rescans what it has passed.
+ */
 export class BoundedCache<V> {
   private readonly map = new Map<string, Entry<V>>();
   private used = 0;
+  private hand: IterableIterator<[string, Entry<V>]> = this.map.entries();
 
   constructor(
     readonly maxEntries: number,
@@ -51,10 +60,7 @@ export class BoundedCache<V> {
   get(key: string): V | undefined {
     const e = this.map.get(key);
     if (!e) return undefined;
-    // Most recently used last (Map keeps insertion order), under the stored key: the caller's key may be
-    // a slice of a larger text.
-    this.map.delete(key);
-    this.map.set(e.key, e);
+    e.hot = true;
     return e.value;
   }
 
@@ -75,9 +81,9 @@ export class BoundedCache<V> {
       this.map.delete(key);
     }
     if (bytes > this.maxBytes) return;
-    this.map.set(key, { key, value, bytes });
+    this.map.set(key, { key, value, bytes, hot: false });
     this.used += bytes;
-    this.evict();
+    if (this.map.size > this.maxEntries || this.used > this.maxBytes) this.evict();
   }
 
   delete(key: string): void {
@@ -90,12 +96,22 @@ export class BoundedCache<V> {
   clear(): void {
     this.map.clear();
     this.used = 0;
+    this.hand = this.map.entries();
   }
 
   private evict() {
-    if (this.map.size <= this.maxEntries && this.used <= this.maxBytes) return;
-    for (const [k, e] of this.map) {
-      if (this.map.size <= this.maxEntries && this.used <= this.maxBytes) break;
+    while (this.map.size > this.maxEntries || this.used > this.maxBytes) {
+      let step = this.hand.next();
+      if (step.done) {
+        this.hand = this.map.entries();
+        step = this.hand.next();
+        if (step.done) return;
+      }
+      const [k, e] = step.value;
+      if (e.hot) {
+        e.hot = false;
+        continue;
+      }
       this.map.delete(k);
       this.used -= e.bytes;
     }
@@ -130,7 +146,17 @@ export class CachesBySettings<V> {
     private readonly keep = 4,
   ) {}
 
+  private last: { settings: object; cache: BoundedCache<V> } | undefined;
+
   for(settings: object): BoundedCache<V> {
+    // The same settings object as last time (nearly every call): no lookup at all.
+    if (this.last?.settings === settings) return this.last.cache;
+    const cache = this.lookup(settings);
+    this.last = { settings, cache };
+    return cache;
+  }
+
+  private lookup(settings: object): BoundedCache<V> {
     const key = settingsKey(settings);
     let c = this.bySettings.get(key);
     if (c) {
@@ -146,5 +172,6 @@ export class CachesBySettings<V> {
 
   clear(): void {
     this.bySettings.clear();
+    this.last = undefined;
   }
 }

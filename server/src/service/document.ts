@@ -181,7 +181,7 @@ export { shiftDiagnostic };
 export type BlockCache = BoundedCache<{ kind: string; rel: BlockResult }>;
 
 export function newBlockCache(textLength: number): BlockCache {
-  return new BoundedCache(8192 + (textLength >> 10), 64 * 1024 * 1024 + 40 * textLength);
+  return new BoundedCache(8192 + (textLength >> 6), 64 * 1024 * 1024 + 40 * textLength);
 }
 
 /** Estimated bytes held by a block result (its items and their analyses are shared and counted roughly). */
