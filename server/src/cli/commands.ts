@@ -1,10 +1,5 @@
 /** The commands beyond card and check: balance, batch, table, demo. */
-import { analyseReaction } from '../chem/equation';
-import { cardText } from '../service/card';
-import { documentDiagnostics } from '../service/diagnostics';
-import { batchJson } from '../service/batchJson';
-import { batchTable, documentTables } from '../service/tables';
-import { DEFAULT_SETTINGS } from '../service/settings';
+import { createLanguageService } from '../service/languageService';
 import { displayPath, reportInputs } from './check';
 import { report } from './report';
 import { emptyReport, loadFiles, parse, UsageError, type CliIO, type LoadedFile } from './io';
@@ -13,6 +8,8 @@ import { findingLine, jsonText, OutputWriter, visibleLine, writeJsonArray } from
 export type Command = (args: string[], io: CliIO) => number | Promise<number>;
 
 const hasErrors = (diags: Array<{ severity: number }>) => diags.some((d) => d.severity === 1);
+/** The command line reads notes with the default settings. */
+const service = createLanguageService();
 
 /**
  * The notes files of batch and table: every file the paths name, folders recursively, as check reads
@@ -30,7 +27,7 @@ function notesFiles(positionals: string[], io: CliIO, command: string) {
   const status = () => {
     reportInputs(io, inputs, display);
     if (inputs.problems.length) return 2;
-    return files.some((f) => hasErrors(documentDiagnostics(f.doc))) ? 1 : 0;
+    return files.some((f) => hasErrors(service.diagnostics(f.doc))) ? 1 : 0;
   };
   return { files, many, display, status };
 }
@@ -43,7 +40,7 @@ const balance: Command = (args, io) => {
   const { values, positionals } = parse(args, { json: { type: 'boolean' } });
   if (positionals.length !== 1) throw new UsageError('balance needs one equation in quotes, e.g. ionwright balance "H2 + O2 -> H2O"');
   const input = positionals[0].trim();
-  const r = analyseReaction(input);
+  const r = service.reaction(input);
   const b = r.balance;
   if (values.json) {
     io.out(jsonText({ input: positionals[0], status: b.status, balanced: b.balancedText, coefficients: b.coefficients, message: b.message, differences: b.differences, charge: b.charge, diagnostics: r.diagnostics }));
@@ -63,11 +60,11 @@ const batch: Command = async (args, io) => {
   const { files, many, display, status } = notesFiles(positionals, io, 'batch');
   const w = new OutputWriter((t) => io.out(t));
   if (values.json) {
-    const items = files.flatMap((f) => f.doc.batches.map((b) => ({ file: display(f.path), ...batchJson(f.doc, b) })));
+    const items = files.flatMap((f) => service.batchesJson(f.doc).map((b) => ({ file: display(f.path), ...b })));
     await writeJsonArray(w, items);
   } else {
     for (const [i, f] of files.entries()) {
-      const body = f.doc.batches.map((b) => batchTable(b.analysis, DEFAULT_SETTINGS)).join('\n\n') || 'No batch blocks in this file.';
+      const body = service.batchTables(f.doc).join('\n\n') || 'No batch blocks in this file.';
       const p = w.line(many ? `${i ? '\n' : ''}${heading(display, f)}\n\n${body}` : body);
       if (p) await p;
     }
@@ -81,7 +78,7 @@ const table: Command = async (args, io) => {
   const { files, many, display, status } = notesFiles(positionals, io, 'table');
   const w = new OutputWriter((t) => io.out(t));
   for (const [i, f] of files.entries()) {
-    const body = documentTables(f.doc) || '_No formulas or batches in this file._';
+    const body = service.tables(f.doc) || '_No formulas or batches in this file._';
     const p = w.line(many ? `${i ? '\n' : ''}${heading(display, f)}\n\n${body}` : body);
     if (p) await p;
   }
@@ -105,14 +102,14 @@ const demo: Command = async (args, io) => {
     for (const occ of f.doc.formulas) {
       if (seen.has(occ.analysis.ascii) || !occ.analysis.ok) continue;
       seen.add(occ.analysis.ascii);
-      put(cardText(occ.analysis, DEFAULT_SETTINGS) + '\n');
+      put(service.cardText(occ.analysis.input) + '\n');
     }
-    const diags = documentDiagnostics(f.doc);
+    const diags = service.diagnostics(f.doc);
     put(`── ${diags.length} finding${diags.length === 1 ? '' : 's'}\n`);
     const file = display(f.path);
     for (const d of diags) put(findingLine(file, d));
     put('\n── Tables (what "Insert tables" writes into the report)\n');
-    put(documentTables(f.doc));
+    put(service.tables(f.doc));
     await io.out(pieces.join(''));
   }
   reportInputs(io, inputs, display);

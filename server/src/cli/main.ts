@@ -7,9 +7,7 @@
  * Everything a command prints goes through `visibleText` (text.ts): control characters from the notes
  * or from file names reach the terminal as visible pictures, never as escape sequences.
  */
-import { analyseFormula } from '../chem/analyse';
-import { cardJson, cardText } from '../service/card';
-import { DEFAULT_SETTINGS } from '../service/settings';
+import { createLanguageService } from '../service/languageService';
 import { cmdCheck } from './check';
 import { extraCommands } from './commands';
 import { asksForHelp, COMMAND_HELP, OVERVIEW } from './help';
@@ -22,10 +20,10 @@ export { nodeIO, type CliIO };
 function cmdCard(args: string[], io: CliIO): number {
   const { values, positionals } = parse(args, { json: { type: 'boolean' } });
   if (positionals.length === 0) throw new UsageError('card needs at least one formula');
-  const analyses = positionals.map((p) => analyseFormula(p.trim(), DEFAULT_SETTINGS.chem));
-  if (values.json) io.out(jsonText(analyses.map(cardJson)));
-  else io.out(analyses.map((a) => cardText(a)).join('\n\n'));
-  return analyses.some((a) => a.diagnostics.some((d) => d.severity === 'error')) ? 1 : 0;
+  const service = createLanguageService();
+  if (values.json) io.out(jsonText(positionals.map((p) => service.cardJson(p))));
+  else io.out(positionals.map((p) => service.cardText(p)).join('\n\n'));
+  return positionals.some((p) => service.formula(p).diagnostics.some((d) => d.severity === 'error')) ? 1 : 0;
 }
 
 const builtIn: Record<string, (args: string[], io: CliIO) => number | Promise<number>> = { card: cmdCard, check: cmdCheck };

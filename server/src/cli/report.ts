@@ -2,7 +2,7 @@
 import MarkdownIt from 'markdown-it';
 import { basename } from 'node:path';
 import PREVIEW_CSS from '../../../media/preview.css';
-import { documentDiagnostics } from '../service/diagnostics';
+import { createLanguageService } from '../service/languageService';
 import { reportHtml } from '../service/report';
 import { VERSION } from './version';
 import { emptyReport, guardOutputPath, loadFiles, parse, reasonOf, UsageError, type CliIO } from './io';
@@ -39,5 +39,5 @@ export async function report(args: string[], io: CliIO): Promise<number> {
     }
     io.err(`ionwright: wrote ${out}`);
   }
-  return documentDiagnostics(file.doc).some((d) => d.severity === 1) ? 1 : 0;
+  return createLanguageService().diagnostics(file.doc).some((d) => d.severity === 1) ? 1 : 0;
 }

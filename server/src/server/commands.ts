@@ -4,10 +4,7 @@
  * wherever the client can check it, so that an edit computed on an old text is never applied to a new one.
  */
 import { ErrorCodes, ResponseError, type Connection, type ExecuteCommandParams } from 'vscode-languageserver';
-import { analyseFormula } from '../chem/analyse';
-import { sectionTableEdit, tableEditAt, tableEditForSelection, type EditOutcome } from '../service/actions';
-import { formulaCardMarkdown, hover } from '../service/hover';
-import { targetAt } from '../service/lookup';
+import { createLanguageService, type EditOutcome } from '../service/languageService';
 import { SERVER_COMMANDS } from '../shared/commands';
 import { invalidParams, isPosition, isRange } from './requests';
 import type { NotesWorkspace, Snapshot } from './workspace';
@@ -34,35 +31,25 @@ export function commandHandler(connection: Connection, workspace: NotesWorkspace
     const arg = (params.arguments?.[0] ?? {}) as { uri?: unknown; position?: unknown; range?: unknown; formula?: unknown };
     switch (params.command) {
       case SERVER_COMMANDS.cardMarkdown: {
-        if (typeof arg.formula === 'string') return formulaCardMarkdown(analyseFormula(arg.formula.trim(), workspace.defaults.service.chem), workspace.defaults.service);
+        if (typeof arg.formula === 'string') return createLanguageService(workspace.defaults.service).cardMarkdown(arg.formula);
         if (!isPosition(arg.position)) throw invalidParams('cardMarkdown needs {formula} or {uri, position}');
         const snap = snapshotFor(arg.uri);
-        if (!snap) return null;
-        const offset = snap.doc.lines.offsetAt(arg.position);
-        const t = targetAt(snap.doc, offset);
-        if (!t) return null;
-        if (t.kind === 'formula') return formulaCardMarkdown(t.occ.analysis, snap.doc.settings);
-        if (t.kind === 'batch-line') return formulaCardMarkdown(t.ingredient.analysis, snap.doc.settings);
-        return hover(snap.doc, offset)?.markdown ?? null;
+        return snap ? snap.service.cardMarkdownAt(snap.doc, arg.position) : null;
       }
       case SERVER_COMMANDS.insertTable: {
         if (typeof arg.uri !== 'string' || !isRange(arg.range)) throw invalidParams('insertTable needs {uri, range}');
         const snap = snapshotFor(arg.uri);
         if (!snap) return null;
-        let s = snap.doc.lines.offsetAt(arg.range.start);
-        let e = snap.doc.lines.offsetAt(arg.range.end);
-        if (e < s) [s, e] = [e, s];
-        return apply(snap, tableEditForSelection(snap.doc, s, e), 'Insert Ionwright table');
+        return apply(snap, snap.service.tableEdit(snap.doc, { selection: arg.range }), 'Insert Ionwright table');
       }
       case SERVER_COMMANDS.insertSectionTable:
       case SERVER_COMMANDS.insertTableAt: {
         if (typeof arg.uri !== 'string' || !isPosition(arg.position)) throw invalidParams(`${params.command} needs {uri, position}`);
         const snap = snapshotFor(arg.uri);
         if (!snap) return null;
-        const offset = snap.doc.lines.offsetAt(arg.position);
         return params.command === SERVER_COMMANDS.insertSectionTable
-          ? apply(snap, sectionTableEdit(snap.doc, offset), 'Insert Ionwright section tables')
-          : apply(snap, tableEditAt(snap.doc, offset), 'Insert Ionwright table');
+          ? apply(snap, snap.service.tableEdit(snap.doc, { section: arg.position }), 'Insert Ionwright section tables')
+          : apply(snap, snap.service.tableEdit(snap.doc, { at: arg.position }), 'Insert Ionwright table');
       }
       default:
         throw new ResponseError(ErrorCodes.MethodNotFound, `unknown command ${String(params.command)}`);

@@ -14,10 +14,7 @@ import {
   type InitializeResult,
   type WorkspaceEdit,
 } from 'vscode-languageserver';
-import { codeActions, type TextEdit } from '../service/actions';
-import { editorDiagnostics } from '../service/diagnostics';
-import { hover } from '../service/hover';
-import { codeLenses, documentSymbols } from '../service/symbols';
+import type { Range, TextEdit } from '../service/languageService';
 import { SERVER_COMMANDS } from '../shared/commands';
 import { VERSION } from '../shared/version';
 import { commandHandler } from './commands';
@@ -63,7 +60,7 @@ export function startServer(connection: Connection, options: ServerOptions = {})
     const snap = workspace.snapshot(uri);
     // Stale: a newer version arrived while this one was analysed.
     if (!snap || workspace.versionOf(uri) !== snap.version) return;
-    void connection.sendDiagnostics({ uri, version: snap.version, diagnostics: editorDiagnostics(snap.doc) as never });
+    void connection.sendDiagnostics({ uri, version: snap.version, diagnostics: snap.service.editorDiagnostics(snap.doc) as never });
   };
   const validator = new DebouncedValidator(timers, (uri) => {
     try {
@@ -128,20 +125,19 @@ export function startServer(connection: Connection, options: ServerOptions = {})
     request('hover', (params) => {
       const snap = workspace.snapshot(uriOf(params));
       if (!snap) return null;
-      const h = hover(snap.doc, snap.doc.lines.offsetAt(positionOf(params)));
+      const h = snap.service.hover(snap.doc, positionOf(params));
       return h ? { contents: { kind: 'markdown' as const, value: h.markdown }, range: h.range } : null;
     }),
   );
 
-  const toLspActions = (snap: Snapshot, start: number, end: number, only?: string[]): LspCodeAction[] => {
-    return codeActions(snap.doc, start, end, only).map((a) => ({
+  const toLspActions = (snap: Snapshot, range: Range, only?: string[]): LspCodeAction[] =>
+    snap.service.codeActions(snap.doc, range, only).map((a) => ({
       title: a.title,
       kind: a.kind,
       edit: shape.edit(snap, a.edits),
       ...(a.isPreferred ? { isPreferred: true } : {}),
       ...(a.fixes ? { diagnostics: [a.fixes.diagnostic] as never } : {}),
     }));
-  };
 
   connection.onCodeAction(
     request('codeAction', (params) => {
@@ -151,17 +147,14 @@ export function startServer(connection: Connection, options: ServerOptions = {})
       if (only !== undefined && only !== null && !(Array.isArray(only) && only.every((k) => typeof k === 'string'))) throw invalidParams('context.only must be a list of code action kinds (strings)');
       const snap = workspace.snapshot(uri);
       if (!snap) return null;
-      let start = snap.doc.lines.offsetAt(params.range.start);
-      let end = snap.doc.lines.offsetAt(params.range.end);
-      if (end < start) [start, end] = [end, start];
-      return toLspActions(snap, start, end, (only ?? undefined) as string[] | undefined);
+      return toLspActions(snap, params.range, (only ?? undefined) as string[] | undefined);
     }),
   );
 
   connection.onDocumentSymbol(
     request('documentSymbol', (params) => {
       const snap = workspace.snapshot(uriOf(params));
-      return snap ? (documentSymbols(snap.doc) as never) : null;
+      return snap ? (snap.service.documentSymbols(snap.doc) as never) : null;
     }),
   );
 
@@ -169,7 +162,7 @@ export function startServer(connection: Connection, options: ServerOptions = {})
     request('codeLens', (params) => {
       const snap = workspace.snapshot(uriOf(params));
       if (!snap) return null;
-      return codeLenses(snap.doc).map((l) => ({ range: l.range, command: { title: l.title, command: SERVER_COMMANDS.insertTableAt, arguments: [{ uri: snap.uri, position: l.range.start }] } }));
+      return snap.service.codeLenses(snap.doc).map((l) => ({ range: l.range, command: { title: l.title, command: SERVER_COMMANDS.insertTableAt, arguments: [{ uri: snap.uri, position: l.range.start }] } }));
     }),
   );
 

@@ -7,7 +7,7 @@ import { TextDocuments } from 'vscode-languageserver';
 import { TextDocument } from 'vscode-languageserver-textdocument';
 import type { NotesLanguage } from '../notes/types';
 import { readSettings, type ServerSettings } from '../service/config';
-import { analyseDocument, updateDocument, type AnalysedDocument, type ChangeHint } from '../service/document';
+import { createLanguageService, type AnalysedDocument, type ChangeHint, type LanguageService } from '../service/languageService';
 
 export function languageOfDocument(languageId: string, uri: string): NotesLanguage | undefined {
   if (languageId === 'fnote' || uri.endsWith('.fnote')) return 'fnote';
@@ -15,11 +15,12 @@ export function languageOfDocument(languageId: string, uri: string): NotesLangua
   return undefined;
 }
 
-/** An analysed document and the version of the text it was computed from. */
+/** An analysed document, the version of the text it was computed from, and the service that made it. */
 export interface Snapshot {
   uri: string;
   version: number;
   doc: AnalysedDocument;
+  service: LanguageService;
 }
 
 export interface WorkspaceOptions {
@@ -113,11 +114,9 @@ export class NotesWorkspace {
     if (typeof text !== 'string') return undefined;
     const hint = this.hints.get(uri);
     this.hints.delete(uri);
-    const doc =
-      hit && hit.settings === settings && hit.snap.doc.language === language
-        ? updateDocument(hit.snap.doc, text, hint ?? undefined)
-        : analyseDocument(text, language, settings.service);
-    const snap: Snapshot = { uri, version: td.version, doc };
+    const service = createLanguageService(settings.service);
+    const doc = service.analyse(text, language, hit && hit.settings === settings ? { doc: hit.snap.doc, hint: hint ?? undefined } : undefined);
+    const snap: Snapshot = { uri, version: td.version, doc, service };
     this.snapshots.set(uri, { settings, snap });
     this.options.onAnalysed?.(text.length);
     return snap;
