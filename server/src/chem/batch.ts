@@ -27,7 +27,7 @@
 import { analyseFormula, type FormulaAnalysis } from './analyse';
 import { cautionsFor, type Caution } from './cautions';
 import { PRACTICALLY_INSOLUBLE_BELOW, SOLUBILITY, type SolubilityRow } from './data/solubility';
-import { shiftDiagnostic, type ChemDiagnostic } from './diagnostic';
+import { shiftDiagnostic, type ChemDiagnostic, type DiagnosticCode } from './diagnostic';
 import { formulaAtoms, hillFormula, molarMass, partAtoms, subscriptDigits, type AtomCounts } from './formula/compute';
 import { parseFormula } from './formula/parse';
 import { joinSpacedAdduct } from './formula/spaced';
@@ -102,7 +102,7 @@ export interface SkippedLine {
   /** Why it is not counted: the messages of its errors (or of the warning that set it aside). */
   reason: string;
   /** Code of the first finding that set it aside. */
-  code: string;
+  code: DiagnosticCode;
   /** The formula as written on an ingredient line, with its offsets. */
   formulaText?: string;
   formulaStart?: number;
@@ -159,7 +159,7 @@ function tokens(line: string, base: number): Token[] {
   return out;
 }
 
-function err(code: string, start: number, end: number, message: string, severity: ChemDiagnostic['severity'] = 'error'): ChemDiagnostic {
+function err(code: DiagnosticCode, start: number, end: number, message: string, severity: ChemDiagnostic['severity'] = 'error'): ChemDiagnostic {
   return { code, severity, start, end, message };
 }
 
@@ -311,7 +311,7 @@ function amountsOf(p: PendingLine, M: number, volumeL: number | null, totalMassG
 }
 
 /** The reason a line is set aside: its error messages, in order. */
-function reasonOf(diagnostics: readonly ChemDiagnostic[]): { reason: string; code: string } {
+function reasonOf(diagnostics: readonly ChemDiagnostic[]): { reason: string; code: DiagnosticCode } {
   const errors = diagnostics.filter((d) => d.severity === 'error').sort((a, b) => a.start - b.start);
   const list = errors.length ? errors : diagnostics;
   return { reason: [...new Set(list.map((d) => d.message))].join(' '), code: list[0]?.code ?? 'batch-syntax' };
