@@ -8,6 +8,7 @@
  * Weak acids and bases and molecular substances stay undissociated. Activities are not modelled.
  */
 import type { FormulaAnalysis } from '../analyse';
+import { analysisDerivedCache } from '../cache';
 import type { ChemDiagnostic } from '../diagnostic';
 import { electrolyteIons, type IonShare } from '../ions/dissociation';
 import type { CountedLine } from './amounts';
@@ -28,12 +29,19 @@ export interface BatchMix {
   diagnostics: ChemDiagnostic[];
 }
 
-const dissociations = new WeakMap<FormulaAnalysis, Dissociation>();
+/**
+ * Dissociations by formula text. What a formula gives in water depends on its reading alone, not on the
+ * settings, and the text an analysis keeps is already a flat copy (analyse.ts), so it is the key.
+ */
+const dissociations = analysisDerivedCache<Dissociation>(50_000, 8 * 1024 * 1024);
 
-/** Ions of a strong electrolyte, or why it stays whole (memoised per analysis; read-only). */
+/** Ions of a strong electrolyte, or why it stays whole (memoised by formula text; read-only). */
 export function dissociate(a: FormulaAnalysis): Dissociation {
-  let hit = dissociations.get(a);
-  if (!hit) dissociations.set(a, (hit = electrolyteIons(a)));
+  let hit = dissociations.get(a.input);
+  if (!hit) {
+    hit = electrolyteIons(a);
+    dissociations.set(a.input, hit, 96 + hit.ions.length * 160 + 2 * (hit.undissociated?.length ?? 0));
+  }
   return hit;
 }
 
