@@ -1,5 +1,5 @@
 /**
- * Every line of a batch shows: counted, or listed as not counted with the reason (chem/batch.ts). One rule
+ * Every line of a batch shows: counted, or listed as not counted with the reason (chem/batch/amounts.ts). One rule
  * for all line errors, the first header counting, and the two shares (of the weighed mass, of the total).
  * Recipes are invented (a fictional metal-finishing shop). Molar masses in hand calculations are sums of
  * IUPAC/CIAAW 2021 abridged atomic weights (H 1.0080, N 14.007, O 15.999, F 18.998, Na 22.990, S 32.06,

@@ -1,6 +1,6 @@
 /**
  * Solubility in water: the table (chem/data/solubility.ts) and the `batch-solubility` warning of a batch
- * (chem/batch.ts), against the estimated water of the batch (final volume × 1 g/mL less the dissolved
+ * (chem/batch/solubility.ts), against the estimated water of the batch (final volume × 1 g/mL less the dissolved
  * mass, anhydrous). Recipes are invented; molar masses in hand calculations are sums of IUPAC/CIAAW 2021
  * abridged atomic weights (H 1.0080, O 15.999, Na 22.990, S 32.06, Cl 35.45, Ca 40.078, Cu 63.546).
  */

@@ -1,7 +1,7 @@
 /**
  * Everything the core knows about one formula, computed once per formula text (memoised).
  */
-import { BoundedCache, CachesBySettings, detach } from './cache';
+import { BoundedCache, CachesBySettings, clearAnalysisDerived, detach } from './cache';
 import type { ChemDiagnostic } from './diagnostic';
 import type { Formula } from './formula/ast';
 import { composition, displayFormula, formulaAtoms, hillFormula, molarMass, type AtomCounts, type CompositionRow, type MolarMass } from './formula/compute';
@@ -60,6 +60,7 @@ export function analyseFormula(text: string, settings: ChemSettings = DEFAULT_CH
 export function clearFormulaCache() {
   caches.clear();
   speciesCache.clear();
+  clearAnalysisDerived();
 }
 
 /** What an equation needs of a species: the reading, its atoms and charge (no chemistry of the card). */

@@ -175,3 +175,21 @@ export class CachesBySettings<V> {
     this.last = undefined;
   }
 }
+
+/** Caches of what follows from a formula's analysis alone, keyed by its text: cleared with the formula cache. */
+const analysisDerived = new Set<BoundedCache<unknown>>();
+
+/**
+ * A bounded cache of something computed from a formula's analysis (its cautions, its dissociation), keyed
+ * by the analysis's text; `clearAnalysisDerived` (called by `clearFormulaCache`) empties it, so a cold
+ * start is cold for these too.
+ */
+export function analysisDerivedCache<V>(maxEntries: number, maxBytes: number): BoundedCache<V> {
+  const c = new BoundedCache<V>(maxEntries, maxBytes);
+  analysisDerived.add(c as BoundedCache<unknown>);
+  return c;
+}
+
+export function clearAnalysisDerived(): void {
+  for (const c of analysisDerived) c.clear();
+}

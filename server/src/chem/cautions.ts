@@ -4,6 +4,7 @@
  * Rev. 9) as they are commonly applied to these substances (common practice). They are reminders, not a
  * safety judgement: the safety data sheet, local rules and a licensed chemist's review decide.
  */
+import { analysisDerivedCache } from './cache';
 import type { FormulaAnalysis } from './analyse';
 import type { Formula, FormulaItem } from './formula/ast';
 
@@ -55,12 +56,19 @@ function cyanideIn(f: Formula): boolean {
   return f.parts.some((p) => walk(p.items));
 }
 
-const memo = new WeakMap<FormulaAnalysis, Caution[]>();
+/**
+ * Cautions by formula text: they follow from the reading of the formula alone, not from the settings, and
+ * the text an analysis keeps is already a flat copy (analyse.ts), so it is the key.
+ */
+const memo = analysisDerivedCache<Caution[]>(50_000, 16 * 1024 * 1024);
 
-/** Cautions for one substance, from its analysis (memoised per analysis; treat as read-only). */
+/** Cautions for one substance, from its analysis (memoised by formula text; treat as read-only). */
 export function cautionsFor(a: FormulaAnalysis): Caution[] {
-  let hit = memo.get(a);
-  if (!hit) memo.set(a, (hit = compute(a)));
+  let hit = memo.get(a.input);
+  if (!hit) {
+    hit = compute(a);
+    memo.set(a.input, hit, 64 + hit.reduce((n, c) => n + 48 + 2 * c.text.length, 0));
+  }
   return hit;
 }
 

@@ -1,8 +1,13 @@
 /** A finding of the chemistry core, with offsets into the text it was given (UTF-16 code units). */
+import type { DiagnosticCode } from './codes';
+
+export type { DiagnosticCode } from './codes';
+
 export type Severity = 'error' | 'warning' | 'information' | 'hint';
 
 export interface ChemDiagnostic {
-  code: string;
+  /** One of the catalogue's codes (./codes.ts). */
+  code: DiagnosticCode;
   severity: Severity;
   message: string;
   /** Offset of the first character the finding is about. */

@@ -10,39 +10,23 @@
  */
 import { isAbsolute, relative, sep } from 'node:path';
 import { pathToFileURL } from 'node:url';
+import { DIAGNOSTIC_CATALOGUE, DIAGNOSTIC_CODES } from '../chem/codes';
+import { SEVERITY_NUMBER } from '../chem/diagnostic';
 import type { LspDiagnostic } from '../service/diagnostics';
 import { jsonNumber, jsonString, jsonText, recurringJson, writeJsonArray, type OutputWriter } from './text';
 import { VERSION } from './version';
 
 type Level = 'error' | 'warning' | 'note';
+/** SARIF has no hint: information and hints are notes. */
 const LEVEL: Record<LspDiagnostic['severity'], Level> = { 1: 'error', 2: 'warning', 3: 'note', 4: 'note' };
 
-/** Every finding the analysis makes, with the level it is reported at. */
-export const RULES: Record<string, { level: Level; text: string }> = {
-  'unknown-element': { level: 'error', text: 'A symbol in a formula that is no element (nor a known ligand abbreviation).' },
-  'malformed-formula': { level: 'error', text: 'A formula that cannot be read: unbalanced brackets, stray characters, impossible counts.' },
-  'charge-imbalance': { level: 'warning', text: 'A neutral formula whose ions or oxidation states cannot sum to zero, or an ion whose written charge disagrees with its composition.' },
-  'no-standard-weight': { level: 'note', text: 'An element without a standard atomic weight; the molar mass uses the mass number of a long-lived isotope.' },
-  'unbalanced-equation': { level: 'warning', text: 'A reaction whose atoms or charges differ between the sides.' },
-  'ambiguous-equation': { level: 'note', text: 'A reaction that balances in more than one independent way.' },
-  'impossible-equation': { level: 'note', text: 'A reaction that cannot be balanced with positive coefficients.' },
-  'equation-too-large': { level: 'note', text: 'A reaction too large to be balanced exactly.' },
-  'missing-arrow': { level: 'error', text: 'A reaction without an arrow between reactants and products.' },
-  'multiple-arrows': { level: 'error', text: 'A reaction with more than one arrow.' },
-  'empty-side': { level: 'error', text: 'A reaction with nothing before or after its arrow.' },
-  'empty-species': { level: 'error', text: "A reaction with an empty place between '+' signs." },
-  'bad-coefficient': { level: 'error', text: 'A coefficient in a reaction that is not a positive number.' },
-  'missing-formula': { level: 'error', text: 'A coefficient in a reaction with no formula after it.' },
-  'batch-header': { level: 'warning', text: "A batch header line (such as 'volume:') given twice." },
-  'batch-amount': { level: 'error', text: 'An amount in a batch that is missing, not a positive number, or beyond what the batch can hold.' },
-  'batch-unit': { level: 'error', text: 'A unit in a batch that is missing or unknown.' },
-  'batch-syntax': { level: 'error', text: 'Unexpected text after an amount in a batch line.' },
-  'batch-no-volume': { level: 'error', text: "A target concentration in a batch without the batch's final volume." },
-  'batch-no-total': { level: 'error', text: "A wt% target in a batch without the batch's total mass." },
-  'batch-charge': { level: 'warning', text: 'Ions listed on their own in a batch that leave it with a net charge.' },
-  'batch-unclosed': { level: 'warning', text: 'A batch block that is never closed.' },
-  'not-text': { level: 'warning', text: 'A notes file with NUL bytes, which does not look like text.' },
-};
+/**
+ * A rule for every code findings are raised with, from the catalogue (chem/codes.ts), at the level it is
+ * raised at; reserved codes get a rule once a stage raises them.
+ */
+export const RULES: Record<string, { level: Level; text: string }> = Object.fromEntries(
+  DIAGNOSTIC_CODES.map((code) => [code, { level: LEVEL[SEVERITY_NUMBER[DIAGNOSTIC_CATALOGUE[code].severity]], text: DIAGNOSTIC_CATALOGUE[code].description }]),
+);
 
 export const SRCROOT = '%SRCROOT%';
 
@@ -78,7 +62,8 @@ function sarifHead(files: Files, options: SarifOptions) {
     rules.push({ id, shortDescription: { text }, defaultConfiguration: { level } });
   };
   for (const [id, r] of Object.entries(RULES)) addRule(id, r.level, r.text);
-  // A code this catalogue does not know yet still gets a rule, at the level it was first seen with.
+  // A code from outside the catalogue (the types rule it out; a worker's message is data) still gets a
+  // rule, at the level it was first seen with.
   for (const f of files) for (const d of f.diagnostics) if (!ruleIndex.has(d.code)) addRule(d.code, LEVEL[d.severity], d.code);
 
   const problems = options.problems ?? [];

@@ -20,7 +20,7 @@ export interface CodeAction {
   kind: 'quickfix' | 'refactor.rewrite' | 'source';
   edits: TextEdit[];
   /** The diagnostic it fixes, by its range and code, and in LSP shape. */
-  fixes?: { code: string; range: Range; diagnostic: LspDiagnostic };
+  fixes?: { code: ChemDiagnostic['code']; range: Range; diagnostic: LspDiagnostic };
   isPreferred?: boolean;
 }
 

@@ -1,12 +1,12 @@
 /** Diagnostics in LSP shape (plain objects; the server hands them over as they are). */
-import { SEVERITY_NUMBER, type ChemDiagnostic } from '../chem/diagnostic';
+import { SEVERITY_NUMBER, type ChemDiagnostic, type DiagnosticCode } from '../chem/diagnostic';
 import type { AnalysedDocument } from './document';
 import type { LineIndex, Range } from './positions';
 
 export interface LspDiagnostic {
   range: Range;
   severity: 1 | 2 | 3 | 4;
-  code: string;
+  code: DiagnosticCode;
   message: string;
   source: 'ionwright';
   data?: Record<string, unknown>;

@@ -39,7 +39,7 @@ export const DEFAULT_PREVIEW_OPTIONS: PreviewOptions = Object.freeze({ typesetFo
 export interface PreviewProblem {
   n: number;
   severity: ChemDiagnostic['severity'];
-  code: string;
+  code: ChemDiagnostic['code'];
   message: string;
   /** What it is about, as written (a formula, an equation or a batch line). */
   subject: string;

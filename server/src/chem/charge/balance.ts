@@ -8,6 +8,7 @@
  * states are assigned by the usual rules (charge/oxidation.ts). Molecular and organic substances, elements
  * and alloys are never flagged.
  */
+import { BoundedCache, detach } from '../cache';
 import type { ChemDiagnostic } from '../diagnostic';
 import { element, isMetal } from '../data/elements';
 import type { Formula, FormulaItem, FormulaPart } from '../formula/ast';
@@ -214,11 +215,11 @@ function segmentAtoms(s: Segment): AtomCounts | null {
   const r = parseFormula(s.ionText);
   if (!r.ok || !r.formula) return null;
   const atoms = formulaAtoms(r.formula);
-  if (ATOMS_CACHE.size > 5000) ATOMS_CACHE.clear();
-  ATOMS_CACHE.set(s.ionText, atoms);
+  // The ion's text is a slice of the formula's: the key is a flat copy (see ../cache.ts).
+  ATOMS_CACHE.set(detach(s.ionText), atoms, 64 + 48 * Object.keys(atoms).length);
   return atoms;
 }
-const ATOMS_CACHE = new Map<string, AtomCounts>();
+const ATOMS_CACHE = new BoundedCache<AtomCounts>(5000, 2 * 1024 * 1024);
 
 function renderSegment(s: Segment, count: number): string {
   const c = count === 1 ? '' : formatCount(count);

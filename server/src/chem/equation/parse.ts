@@ -25,7 +25,7 @@
  * followed directly by another species (`H+Cl-`) reads as `H + Cl-`: write spaces around separators.
  */
 import { readSpecies as readSpeciesFormula } from '../analyse';
-import { shiftDiagnostic, type ChemDiagnostic } from '../diagnostic';
+import { shiftDiagnostic, type ChemDiagnostic, type DiagnosticCode } from '../diagnostic';
 import type { Formula } from '../formula/ast';
 import type { AtomCounts } from '../formula/compute';
 import { findArrow, type ArrowMatch } from './arrows';
@@ -87,7 +87,7 @@ const startsSpecies = (c: string | undefined) => isLetter(c) || isDigit(c) || (c
 /** Parse an equation. Offsets in the result are relative to `text`. */
 export function parseEquation(text: string): ParsedEquation {
   const diagnostics: ChemDiagnostic[] = [];
-  const error = (code: string, start: number, end: number, message: string) =>
+  const error = (code: DiagnosticCode, start: number, end: number, message: string) =>
     diagnostics.push({ code, severity: 'error', message, start, end });
 
   const first = findArrow(text);
@@ -208,7 +208,7 @@ function readSide(text: string, from: number, to: number, side: Species['side'],
 }
 
 function readSpecies(text: string, a: number, b: number, side: Species['side'], diagnostics: ChemDiagnostic[]): Species {
-  const error = (code: string, start: number, end: number, message: string) =>
+  const error = (code: DiagnosticCode, start: number, end: number, message: string) =>
     diagnostics.push({ code, severity: 'error', message, start, end });
   let ok = true;
 

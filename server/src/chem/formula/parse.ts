@@ -22,7 +22,7 @@
  *   (ligands only inside brackets, so that words such as "Ben" are not read as B + en),
  * - Stock notation right after an element, `Fe(III)`, read as an oxidation state, not as iodine.
  */
-import type { ChemDiagnostic } from '../diagnostic';
+import type { ChemDiagnostic, DiagnosticCode } from '../diagnostic';
 import { isElementSymbol, isMetal } from '../data/elements';
 import type { AbbrevNode, ElementNode, Formula, FormulaItem, FormulaPart, GroupNode, StateSymbol } from './ast';
 
@@ -113,7 +113,7 @@ class FormulaParser {
     this.n = s.length;
   }
 
-  private error(start: number, end: number, message: string, code = 'malformed-formula', data?: Record<string, unknown>) {
+  private error(start: number, end: number, message: string, code: DiagnosticCode = 'malformed-formula', data?: Record<string, unknown>) {
     this.diags.push({ code, severity: 'error', message, start, end, ...(data ? { data } : {}) });
   }
 

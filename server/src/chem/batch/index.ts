@@ -1,0 +1,68 @@
+/**
+ * Batch arithmetic: a batch block's lines → per-ingredient moles, mass to weigh, concentration and mass
+ * fraction; the ions of strong electrolytes, the ionic strength I = ½ Σ cᵢ zᵢ² and the net charge.
+ *
+ * Lines (each may end in a `#` comment):
+ *   name: Rinse buffer R-7
+ *   volume: 500 mL          final volume (L, mL, µL)
+ *   total: 250 g            total mass of the batch, for wt% targets
+ *   <formula> <number> <unit> [@ <assay>%]
+ * Units (units.ts): g mg µg kg (mass weighed), mol mmol µmol (amount: the tool computes the mass), M mM µM
+ * (target concentration in the final volume), wt% (mass fraction of the total). An assay (`@ 99.5%`) says
+ * how much of what is weighed is the substance: the mass to weigh is divided by it.
+ *
+ * The analysis is a pipeline of stages with plain data between them; each stage's data keeps the line it
+ * came from, so every output shows every line, counted or not (`skipped`, with the reason):
+ *   1. read.ts      lines read: headers, and ingredients as formula, amount, unit, assay
+ *   2. amounts.ts   moles, mass to weigh, concentration, the two shares; a line with any error is not counted
+ *   3. mix.ts       dissociation, the ions of the mix, ionic strength, net charge
+ *   4. checks.ts    cautions, the total, solubility (solubility.ts)
+ */
+import { DEFAULT_CHEM_SETTINGS, type ChemSettings } from '../settings';
+import { computeAmounts, type BatchAmounts } from './amounts';
+import { checkBatch, type BatchChecks } from './checks';
+import { mixIons, type BatchMix } from './mix';
+import { readLines, type BatchHeaders } from './read';
+import type { BatchAnalysis, BatchLine, Ingredient } from './types';
+
+export type { AmountUnit, BatchAnalysis, BatchIon, BatchLine, Ingredient, IonShare, SkippedLine, SolubilityCheck } from './types';
+export { dissociate } from './mix';
+export { anhydrousOf } from './solubility';
+
+const MODEL_NOTE = 'Salts are taken as fully dissolved and dissociated; weak acids and bases are treated as undissociated; activities are not modelled.';
+
+/** Analyse a batch block's lines. Offsets in diagnostics are absolute (the lines carry their offsets). */
+export function analyseBatch(lines: BatchLine[], openName: string | null = null, settings: ChemSettings = DEFAULT_CHEM_SETTINGS): BatchAnalysis {
+  const read = readLines(lines, openName, settings);
+  // Later, between reading and amounts: chem/names/ (an ingredient named instead of written as a formula)
+  // and chem/reagents/ (liquids by volume with density and assay, stock dilutions, units per volume).
+  const amounts = computeAmounts(read);
+  const mix = mixIons(amounts.counted, read.headers.volumeL);
+  // Later, after the nominal mix: chem/solution/ (the equilibrium of the made-up solution: pH, species,
+  // saturation indices; `batch-precipitation`, solved `to pH` lines).
+  const checks = checkBatch(amounts, read.headers);
+  // Later, beside the checks: chem/safety/ (incompatible pairs, heat of making up; `batch-incompatible`,
+  // `batch-heat`).
+  return assemble(read.headers, amounts, mix, checks, [...read.diagnostics, ...amounts.diagnostics, ...mix.diagnostics, ...checks.diagnostics]);
+}
+
+/** The stages' data as the batch's result: one ingredient per counted line, the findings in text order. */
+function assemble(headers: BatchHeaders, amounts: BatchAmounts, mix: BatchMix, checks: BatchChecks, diagnostics: BatchAnalysis['diagnostics']): BatchAnalysis {
+  const ingredients = amounts.counted.map((c, k): Ingredient => {
+    const { line } = c;
+    const d = mix.dissociations[k];
+    const solubility = checks.solubility[k];
+    return {
+      formulaText: line.formula.text, formula: line.analysis.display, analysis: line.analysis, lineStart: line.lineStart, lineEnd: line.lineEnd,
+      formulaStart: line.formula.start, formulaEnd: line.formula.end, amount: c.amount, assay: line.assay, molarMass: c.molarMass,
+      moles: c.moles, massG: c.massG, concentrationM: c.concentrationM, massFraction: c.massFraction, fractionOfTotal: c.fractionOfTotal,
+      ions: d.ions, ...(d.undissociated ? { undissociated: d.undissociated } : {}), cautions: checks.cautions[k], ...(solubility ? { solubility } : {}),
+    };
+  });
+  const notes = [MODEL_NOTE];
+  if (headers.volumeL === null && ingredients.length) notes.push('No final volume given: concentrations and ionic strength are not computed.');
+  diagnostics.sort((x, y) => x.start - y.start);
+  const { name, volumeL, totalMassG } = headers;
+  const { ions, ionicStrengthM, netChargeEqPerL } = mix;
+  return { name, volumeL, totalMassG, ingredients, skipped: amounts.skipped, ions, ionicStrengthM, netChargeEqPerL, waterG: checks.waterG, diagnostics, cautions: checks.batchCautions, notes };
+}

@@ -1,0 +1,240 @@
+/**
+ * Stage 1 of a batch: its lines read, each a header (`name:`, `volume:`, `total:`) or an ingredient
+ * (formula, amount, unit, assay), with the findings of what cannot be read on their exact characters.
+ * Nothing is computed yet: the volume and total a target needs are known only once every line is read.
+ *
+ * A header given twice: the first one that can be read counts; a later one is set aside with a warning.
+ */
+import { analyseFormula, type FormulaAnalysis } from '../analyse';
+import { shiftDiagnostic, type ChemDiagnostic } from '../diagnostic';
+import { joinSpacedAdduct } from '../formula/spaced';
+import type { ChemSettings } from '../settings';
+import { finding, tokens, type Token } from './tokens';
+import type { BatchLine } from './types';
+import { unitIn, unitList, unitSpelled, type BatchUnit } from './units';
+
+/** A line as written (the blanks around it trimmed), with its absolute offsets. */
+export interface SourceLine {
+  text: string;
+  start: number;
+  end: number;
+}
+
+/** An ingredient line as read. */
+export interface IngredientLine {
+  kind: 'ingredient';
+  source: SourceLine;
+  /** Offsets of the line without its comment and blanks. */
+  lineStart: number;
+  lineEnd: number;
+  formula: Token;
+  /** The formula's analysis (always made: its findings and cautions count even on a line not counted). */
+  analysis: FormulaAnalysis;
+  amount?: Token;
+  /** The unit token, its text the unit as results write it (`ug` → `µg`); set only where it is accepted. */
+  unit?: Token;
+  unitInfo?: BatchUnit;
+  /** The amount's number (NaN where it cannot be read). */
+  value: number;
+  /** Fraction 0–1 of what is weighed that is the substance. */
+  assay: number;
+  /** This line's findings (absolute offsets). */
+  diagnostics: ChemDiagnostic[];
+}
+
+/** A header line that does not count, with the finding that sets it aside. */
+export interface SetAsideHeader {
+  kind: 'header';
+  source: SourceLine;
+  finding: ChemDiagnostic;
+}
+
+export interface BatchHeaders {
+  name: string | null;
+  volumeL: number | null;
+  totalMassG: number | null;
+  /** Where the `total:` value is written, for a finding about it. */
+  totalRange: { start: number; end: number } | null;
+}
+
+export interface ReadBatch {
+  headers: BatchHeaders;
+  /** The ingredient lines and the headers set aside, in the order written (counted headers are in `headers`). */
+  lines: Array<IngredientLine | SetAsideHeader>;
+  /** The findings of the headers set aside. */
+  diagnostics: ChemDiagnostic[];
+}
+
+const NUMBER = /^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?$/;
+const MAX_AMOUNT = 1e9;
+const HEADER = /^(name|volume|total)\s*:\s*(.*)$/i;
+
+type HeaderKey = 'name' | 'volume' | 'total';
+
+/** A non-blank line: what it says (its comment cut off), where, and as written. */
+interface Located {
+  source: SourceLine;
+  /** The line without its comment, starting at offset `base`. */
+  text: string;
+  base: number;
+  trimmed: string;
+  lineStart: number;
+  lineEnd: number;
+}
+
+function locate({ text: raw, start }: BatchLine): Located | null {
+  const hash = raw.indexOf('#');
+  const text = hash >= 0 ? raw.slice(0, hash) : raw;
+  const trimmed = text.trim();
+  if (trimmed === '') return null;
+  const source = { text: raw.trim(), start: start + (raw.length - raw.trimStart().length), end: start + raw.trimEnd().length };
+  return { source, text, base: start, trimmed, lineStart: start + (text.length - text.trimStart().length), lineEnd: start + text.trimEnd().length };
+}
+
+/** Read a batch block's lines (stage 1). */
+export function readLines(lines: readonly BatchLine[], openName: string | null, settings: ChemSettings): ReadBatch {
+  const headers: BatchHeaders = { name: openName, volumeL: null, totalMassG: null, totalRange: null };
+  const counted = new Set<HeaderKey>(openName ? ['name'] : []);
+  const out: ReadBatch = { headers, lines: [], diagnostics: [] };
+  for (const line of lines) {
+    const at = locate(line);
+    if (!at) continue;
+    const header = HEADER.exec(at.trimmed);
+    if (!header) {
+      out.lines.push(readIngredient(at, settings));
+      continue;
+    }
+    const setAside = readHeader(headers, counted, openName, header, at);
+    if (setAside) {
+      out.diagnostics.push(setAside);
+      out.lines.push({ kind: 'header', source: at.source, finding: setAside });
+    }
+  }
+  return out;
+}
+
+/** Take a header into `headers` where it is the first readable one of its key; else the finding that sets it aside. */
+function readHeader(headers: BatchHeaders, counted: Set<HeaderKey>, openName: string | null, header: RegExpExecArray, at: Located): ChemDiagnostic | null {
+  const key = header[1].toLowerCase() as HeaderKey;
+  if (counted.has(key)) {
+    const message = key === 'name' && headers.name === openName && openName !== null
+      ? `This batch is already named '${openName}' on its opening line; the first name counts.`
+      : `'${key}:' is given twice; the first one counts.`;
+    return finding('batch-header', at.lineStart, at.lineEnd, message, 'warning');
+  }
+  if (key === 'name') {
+    const valueText = header[2].trim();
+    if (valueText) {
+      headers.name = valueText;
+      counted.add(key);
+    }
+    return null;
+  }
+  const valueStart = at.lineStart + at.trimmed.length - header[2].length;
+  const read = readHeaderValue(key, header[2], valueStart, at.lineStart, at.lineEnd);
+  if ('error' in read) return read.error;
+  counted.add(key);
+  if (key === 'volume') headers.volumeL = read.value;
+  else {
+    headers.totalMassG = read.value;
+    headers.totalRange = { start: valueStart, end: valueStart + header[2].trimEnd().length };
+  }
+  return null;
+}
+
+/** A `volume:` or `total:` value, or the finding that says why it cannot be read. */
+function readHeaderValue(key: 'volume' | 'total', value: string, valueStart: number, lineStart: number, lineEnd: number): { value: number } | { error: ChemDiagnostic } {
+  const tk = tokens(value, valueStart);
+  const units = unitList(key);
+  if (tk.length === 0) return { error: finding('batch-amount', lineStart, lineEnd, `'${key}:' needs a number and a unit (${units}).`) };
+  let num = tk[0].text;
+  let unit = tk[1]?.text;
+  const glued = /^([0-9.eE+-]+)([A-Za-zµ]+)$/.exec(num);
+  if (glued && !unit) {
+    num = glued[1];
+    unit = glued[2];
+  }
+  const v = NUMBER.test(num) ? Number(num) : NaN;
+  if (!(v > 0) || v > MAX_AMOUNT) return { error: finding('batch-amount', tk[0].start, tk[0].end, `'${tk[0].text}' is not a positive number.`) };
+  const u = unit === undefined ? undefined : unitIn(key, unit);
+  if (!u) {
+    const at = tk[1] ?? tk[0];
+    return { error: finding('batch-unit', at.start, at.end, unit ? `Unknown unit '${unit}' for ${key}; use ${units}.` : `'${key}:' needs a unit (${units}).`) };
+  }
+  if (tk.length > 2) {
+    const extra = tk.slice(2);
+    return { error: finding('batch-syntax', extra[0].start, extra[extra.length - 1].end, `Unexpected '${extra.map((t) => t.text).join(' ')}' after the ${key}.`) };
+  }
+  return { value: v * u.factor };
+}
+
+/** An ingredient line: its formula (always analysed, for its findings and cautions), amount, unit and assay. */
+function readIngredient(at: Located, settings: ChemSettings): IngredientLine {
+  // A hydrate written with spaces around its dot (`CuSO4 · 5H2O`) is one formula, as on a card.
+  const [formula, amount, unit, ...rest] = joinSpacedAdduct(tokens(at.text, at.base), at.text, at.base);
+  const analysis = analyseFormula(formula.text, settings);
+  const diagnostics: ChemDiagnostic[] = [];
+  for (const d of analysis.diagnostics) if (d.severity !== 'information') diagnostics.push(shiftDiagnostic(d, formula.start));
+  const line: IngredientLine = { kind: 'ingredient', source: at.source, lineStart: at.lineStart, lineEnd: at.lineEnd, formula, analysis, value: NaN, assay: 1, diagnostics };
+  if (!amount) diagnostics.push(finding('batch-amount', formula.start, formula.end, `'${formula.text}' needs an amount and a unit, e.g. '${formula.text} 5.0 g'.`));
+  else readQuantity(line, amount, unit, rest);
+  return line;
+}
+
+/** The amount, unit and assay after the formula, into `line` (its findings too). */
+function readQuantity(line: IngredientLine, amount: Token, unitTok: Token | undefined, rest: Token[]): void {
+  const { formula, diagnostics } = line;
+  let amountTok = amount;
+  let unit = unitTok;
+  // `5g`, `2wt%`: the number and the unit written together.
+  const glued = /^((?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?)((?:wt)?%|[A-Za-zµ/]+)$/.exec(amount.text);
+  if (glued && (!unitTok || unitTok.text.startsWith('@'))) {
+    amountTok = { text: glued[1], start: amount.start, end: amount.start + glued[1].length };
+    unit = { text: glued[2], start: amountTok.end, end: amount.end };
+    if (unitTok) rest.unshift(unitTok);
+  }
+  line.amount = amountTok;
+  const value = NUMBER.test(amountTok.text) ? Number(amountTok.text) : NaN;
+  if (/^\d*(?:H2O|H₂O)$/.test(amount.text)) {
+    diagnostics.push(finding('batch-amount', amount.start, amount.end, `'${amount.text}' after the formula reads as the amount; write the hydrate as one formula, e.g. '${formula.text}·${amount.text}' or '${formula.text}.${amount.text}'.`));
+    return;
+  }
+  if (!Number.isFinite(value) || value <= 0 || value > MAX_AMOUNT) {
+    diagnostics.push(finding('batch-amount', amountTok.start, amountTok.end, Number.isFinite(value) && value > MAX_AMOUNT ? `Amount ${amountTok.text} is beyond the limit of ${MAX_AMOUNT}.` : `'${amountTok.text}' is not a positive number.`));
+    return;
+  }
+  line.value = value;
+  if (readUnit(line, amountTok, unit) && rest.length) readAssay(line, rest);
+}
+
+/** The unit after the amount, into `line`; false where it is missing or not a unit of an ingredient. */
+function readUnit(line: IngredientLine, amount: Token, unit: Token | undefined): boolean {
+  const units = unitList('ingredient');
+  if (!unit) {
+    line.diagnostics.push(finding('batch-unit', amount.start, amount.end, `'${amount.text}' needs a unit: ${units}.`));
+    return false;
+  }
+  const u = unitIn('ingredient', unit.text);
+  if (!u) {
+    const hint = unitSpelled(unit.text)?.kind === 'volume' ? ' A volume of a liquid needs its density; give the mass or the amount instead.' : '';
+    line.diagnostics.push(finding('batch-unit', unit.start, unit.end, `Unknown unit '${unit.text}'; use ${units}.${hint}`));
+    return false;
+  }
+  line.unit = { text: u.unit, start: unit.start, end: unit.end };
+  line.unitInfo = u;
+  return true;
+}
+
+/** An assay (`@ 99.5%`) after the unit, into `line`; anything else there is a finding. */
+function readAssay(line: IngredientLine, rest: Token[]): void {
+  const restText = rest.map((r) => r.text).join(' ');
+  const m = /^@\s*((?:\d+(?:\.\d*)?|\.\d+))\s*%$/.exec(restText);
+  const first = rest[0];
+  const last = rest[rest.length - 1];
+  if (!m) line.diagnostics.push(finding('batch-syntax', first.start, last.end, `Unexpected '${restText}' after the amount; an assay is written '@ 99.5%'.`));
+  else {
+    const pct = Number(m[1]);
+    if (!(pct > 0 && pct <= 100)) line.diagnostics.push(finding('batch-amount', first.start, last.end, `Assay ${m[1]} % must be above 0 and at most 100.`));
+    else line.assay = pct / 100;
+  }
+}

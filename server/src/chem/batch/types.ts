@@ -1,0 +1,102 @@
+/** What a batch analysis returns: plain data, read by the tables, hovers, preview, report and `batch --json`. */
+import type { FormulaAnalysis } from '../analyse';
+import type { Caution } from '../cautions';
+import type { SolubilityRow } from '../data/solubility';
+import type { ChemDiagnostic, DiagnosticCode } from '../diagnostic';
+import type { IonShare } from '../ions/dissociation';
+import type { AmountUnit } from './units';
+
+export type { AmountUnit } from './units';
+export type { IonShare } from '../ions/dissociation';
+
+export interface BatchLine {
+  text: string;
+  /** Offset of the line's first character in the document. */
+  start: number;
+}
+
+/** An ingredient compared with its solubility in water (an estimate; see solubility.ts). */
+export interface SolubilityCheck {
+  /** The anhydrous substance compared, typeset (`CuSO₄`). */
+  salt: string;
+  row: SolubilityRow;
+  /** Grams of the anhydrous substance in the batch. */
+  anhydrousG: number;
+  /** Estimated grams of it per 100 g water in the batch; null where the estimate leaves no water. */
+  per100gWater: number | null;
+  exceeds: boolean;
+}
+
+export interface Ingredient {
+  formulaText: string;
+  formula: string;
+  analysis: FormulaAnalysis;
+  lineStart: number;
+  lineEnd: number;
+  formulaStart: number;
+  formulaEnd: number;
+  amount: { value: number; unit: AmountUnit; text: string; start: number; end: number };
+  /** Fraction 0–1 of what is weighed that is the substance. */
+  assay: number;
+  molarMass: number;
+  moles: number | null;
+  /** Mass to weigh, g (assay included). */
+  massG: number | null;
+  concentrationM: number | null;
+  /** Share 0–1 of the weighed mass (the counted ingredients), with or without `total:`. */
+  massFraction: number | null;
+  /** Share 0–1 of the batch's `total:` mass; null where no total is given. */
+  fractionOfTotal: number | null;
+  ions: IonShare[];
+  /** Why it is not split into ions, when it is not. */
+  undissociated?: string;
+  cautions: Caution[];
+  /** Where the substance is in the solubility table and the batch has a final volume. */
+  solubility?: SolubilityCheck;
+}
+
+/** A line of the block that is not counted, and why. */
+export interface SkippedLine {
+  kind: 'ingredient' | 'header';
+  /** The line as written (without the blanks around it). */
+  text: string;
+  /** Absolute offsets of `text`. */
+  lineStart: number;
+  lineEnd: number;
+  /** Why it is not counted: the messages of its errors (or of the warning that set it aside). */
+  reason: string;
+  /** Code of the first finding that set it aside. */
+  code: DiagnosticCode;
+  /** The formula as written on an ingredient line, with its offsets. */
+  formulaText?: string;
+  formulaStart?: number;
+  formulaEnd?: number;
+  /** The formula's analysis where it is readable: its cautions still apply. */
+  analysis?: FormulaAnalysis;
+  cautions: Caution[];
+}
+
+export interface BatchIon {
+  ion: string;
+  key: string;
+  charge: number;
+  concentrationM: number;
+}
+
+export interface BatchAnalysis {
+  name: string | null;
+  volumeL: number | null;
+  totalMassG: number | null;
+  /** The counted ingredient lines, in order. */
+  ingredients: Ingredient[];
+  /** Every other non-blank line that was not counted, in order; a batch with any is incomplete. */
+  skipped: SkippedLine[];
+  ions: BatchIon[];
+  ionicStrengthM: number | null;
+  netChargeEqPerL: number | null;
+  /** Estimated grams of water (final volume × 1 g/mL less the dissolved mass); null without a volume. */
+  waterG: number | null;
+  diagnostics: ChemDiagnostic[];
+  cautions: Caution[];
+  notes: string[];
+}
