@@ -29,6 +29,8 @@ export interface Column<R> {
   text: (row: R) => string;
   /** The cell as HTML, where it says more than the text. */
   html?: (row: R) => HtmlValue;
+  /** A class for the column's HTML cells (a column shown only in print). */
+  cls?: string;
 }
 
 export type Columns<R> = ReadonlyArray<Column<R>>;
@@ -69,7 +71,9 @@ export interface HtmlTableOptions<R> extends RenderOptions {
 
 /** An HTML table (`table.iw-table`), numbers right-aligned by `td.iw-n`. */
 export function htmlTable<R>(cols: Columns<R>, rows: readonly R[], o: HtmlTableOptions<R> = {}): Html {
-  const head = cols.map((c) => html`<th${c.align === 'right' ? html` class="iw-n"` : ''}>${(o.short && c.short) || c.head}</th>`);
+  const cellClass = (c: Column<R>) => [c.align === 'right' ? 'iw-n' : '', c.cls ?? ''].filter(Boolean).join(' ');
+  const attr = (c: Column<R>) => (cellClass(c) ? html` class="${cellClass(c)}"` : '');
+  const head = cols.map((c) => html`<th${attr(c)}>${(o.short && c.short) || c.head}</th>`);
   const body = rows.map((r) => {
     const cls = o.rowClass?.(r);
     const open = cls ? html`<tr class="${cls}">` : html`<tr>`;
@@ -77,7 +81,7 @@ export function htmlTable<R>(cols: Columns<R>, rows: readonly R[], o: HtmlTableO
     if (wide) {
       return html`${open}<td>${wide.first}</td><td${wide.restClass ? html` class="${wide.restClass}"` : ''} colspan="${Math.max(1, cols.length - 1)}">${wide.rest}</td></tr>`;
     }
-    const cells = cols.map((c) => html`<td${c.align === 'right' ? html` class="iw-n"` : ''}>${c.html ? c.html(r) : c.text(r)}</td>`);
+    const cells = cols.map((c) => html`<td${attr(c)}>${c.html ? c.html(r) : c.text(r)}</td>`);
     return html`${open}${cells}</tr>`;
   });
   return html`<table class="iw-table${o.cls ? ` ${o.cls}` : ''}"><thead><tr>${head}</tr></thead><tbody>${body}</tbody></table>`;

@@ -212,7 +212,7 @@ function batchHtmlUncached(b: BatchAnalysis, o: PreviewOptions, state: RenderSta
   };
   // Every line in the order written: counted ingredients with their figures, the others with why they are not counted.
   const cols = batchColumns(b, s, (i: Ingredient) => flagsOf(i.lineStart, i.lineEnd));
-  if (o.weighedColumn) cols.push({ key: 'weighed', head: 'Weighed', align: 'left', text: () => '', html: () => html`<span class="iw-tick" aria-hidden="true"></span>` });
+  if (o.weighedColumn) cols.push({ key: 'weighed', head: 'Weighed', align: 'left', cls: 'iw-weighed', text: () => '', html: () => html`<span class="iw-tick" aria-hidden="true"></span>` });
   const table = htmlTable(cols, batchRows(b), {
     rowClass: (r: BatchRow) => (r.skipped ? 'iw-skipped' : undefined),
     wide: (r: BatchRow) => r.skipped

@@ -117,7 +117,10 @@ export function reportHtml(doc: AnalysedDocument, options: ReportOptions): strin
   };
   const count = (sev: number) => diagnostics.filter((d) => d.severity === sev).length;
   const plural = (n: number, word: string) => html`<strong>${n}</strong> ${n === 1 ? word : /(ch|sh|s|x)$/.test(word) ? `${word}es` : `${word}s`}`;
-  const cautions = [...new Set(formulas.flatMap((a) => cautionsFor(a).map((c) => c.text)))];
+  // One line per caution, naming every substance it applies to (as the batches do).
+  const byText = new Map<string, string[]>();
+  for (const a of formulas) for (const c of cautionsFor(a)) (byText.get(c.text) ?? byText.set(c.text, []).get(c.text)!).push(a.display);
+  const cautions = [...byText].map(([text, who]) => `${who.join(', ')}: ${text}`);
   const incomplete = doc.batches.filter((b) => b.analysis.skipped.length > 0).length;
 
   const parts: Html[] = [];
