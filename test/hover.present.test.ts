@@ -79,10 +79,18 @@ describe('the batch-line hover', () => {
     expect(md).not.toContain('g/L');
   });
 
-  it('g/L for a salt of two metals names each; a metal weighed as the element only once', () => {
-    // 2 mg Pb(NO3)2 in 1 L: Pb 0.002 × 207.2 / 331.2 = 0.00125 g/L (CIAAW 2021: Pb 207.2)
+  it('mg/L below 1 g/L, for the salt and its metal', () => {
+    // 2 mg Pb(NO3)2 in 1 L: Pb 2 × 207.2 / 331.2 = 1.25 mg/L (CIAAW 2021: Pb 207.2), below 1 g/L in mg/L;
+    // the mass to weigh as a balance shows it.
     const md = hoverAt(NOTE.replace('Pb(NO3)2', 'Pb(NO|3)2'));
-    expect(md).toContain('**0.002 g/L** Pb(NO₃)₂ · **0.00125 g/L** Pb');
+    expect(md).toContain('**2 mg/L** Pb(NO₃)₂ · **1.25 mg/L** Pb');
+    expect(md).toContain('weigh **2 mg**');
+  });
+
+  it('names each metal of a double salt', () => {
+    // 10 g KAl(SO4)2·12H2O (474.37 g/mol) in 1 L: K 10 × 39.098 / 474.37 = 824 mg/L, Al 10 × 26.982 / 474.37 = 569 mg/L (by hand, CIAAW 2021)
+    const md = hoverAt('```batch\nvolume: 1 L\nKAl(SO4)2·12H|2O 10 g\n```\n');
+    expect(md).toContain('**10 g/L** KAl(SO₄)₂·12H₂O · **824 mg/L** K · **569 mg/L** Al');
   });
 
   it('shows the caution disclaimer once, also in the batch summary with several hazardous substances', () => {

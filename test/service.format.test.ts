@@ -9,7 +9,7 @@ import { analyseFormula } from '../server/src/chem/analyse';
 import { analyseDocument } from '../server/src/service/document';
 import { codeActions } from '../server/src/service/actions';
 import { batchColumns, countedRows, formulaColumns, htmlTable, ION_COLUMNS, markdownTable, textTable } from '../server/src/service/columns';
-import { chargeNumber, energy, fixed, formulaText, MINUS, percent, sig, signed } from '../server/src/service/format';
+import { chargeNumber, energy, fixed, formulaText, massText, MINUS, percent, perLitreText, sig, signed } from '../server/src/service/format';
 import { DEFAULT_SETTINGS } from '../server/src/service/settings';
 import { batchTable, batchText } from '../server/src/service/tables';
 
@@ -42,6 +42,11 @@ describe('numbers, charges and formulas', () => {
     expect(fixed(58.4428, 3)).toBe('58.443');
     expect(percent(0.8)).toBe('80.0 %');
     expect(sig(null)).toBe('—');
+    expect(massText(240)).toBe('240 g');
+    expect(massText(0.002)).toBe('2 mg');
+    expect(massText(1.5e-5)).toBe('15 µg');
+    expect(perLitreText(53.59)).toBe('53.6 g/L');
+    expect(perLitreText(0.00125)).toBe('1.25 mg/L');
     expect(energy(787.4, DEFAULT_SETTINGS)).toBe('787 kJ/mol');
     expect(energy(787.4, { ...DEFAULT_SETTINGS, energyUnit: 'kcal/mol' })).toBe('188 kcal/mol'); // 787.4 / 4.184 = 188.2
   });

@@ -68,6 +68,19 @@ export function percent(x: number | null | undefined, places = 1): string {
 /** A number and its unit, with the space SI asks for (`2.922 g`, `0.1 M`, `240 g/L`). */
 export const quantity = (x: number | null | undefined, unit: string, digits = 4) => `${sig(x, digits)} ${unit}`;
 
+/** A mass in grams in the unit a balance shows it in: `240 g`, `2 mg`, `15 µg` (below 1 g in mg, below 1 mg in µg). */
+export function massText(g: number | null | undefined, digits = 4): string {
+  if (g === null || g === undefined || !Number.isFinite(g)) return DASH;
+  const a = Math.abs(g);
+  if (a === 0 || a >= 1) return `${sig(g, digits)} g`;
+  return a >= 1e-3 ? `${sig(g * 1e3, digits)} mg` : `${sig(g * 1e6, digits)} µg`;
+}
+
+/** A mass concentration in g/L, or in mg/L below 1 g/L (`240 g/L`, `1.25 mg/L`). */
+export function perLitreText(gPerL: number, digits = 3): string {
+  return Math.abs(gPerL) >= 1 || gPerL === 0 ? `${sig(gPerL, digits)} g/L` : `${sig(gPerL * 1e3, digits)} mg/L`;
+}
+
 /** A volume in litres, written in mL (the unit batch notes use): `500 mL`, `2000 mL`. */
 export const volumeText = (litres: number) => `${sig(litres * 1000)} mL`;
 

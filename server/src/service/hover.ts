@@ -9,7 +9,7 @@ import type { ReactionAnalysis } from '../chem/equation';
 import { designationText, sitesText, undeterminedText } from './card';
 import { COMPACT_BATCH, batchColumns, countedRows, markdownTable, pick } from './columns';
 import type { AnalysedDocument } from './document';
-import { chargeWords, energy, fixed, formulaText, molarMassText, oxidationText, percent, plural, sig, signed, volumeText } from './format';
+import { chargeWords, energy, formulaText, massText, molarMassText, oxidationText, percent, perLitreText, sig, signed, volumeText } from './format';
 import { targetAt } from './lookup';
 import type { Range } from './positions';
 import type { ServiceSettings } from './settings';
@@ -164,14 +164,18 @@ export function perLitre(i: Ingredient, volumeL: number | null): { salt: number;
   if (volumeL === null || !(volumeL > 0) || i.moles === null) return undefined;
   const metals = Object.entries(i.analysis.atoms)
     .filter(([el, n]) => isMetal(el) && Number.isFinite(n) && n > 0)
-    .map(([el, n]) => ({ element: el, gPerL: (i.moles as number) * n * (element(el)?.mass ?? 0) / volumeL }));
+    .map(([el, n]) => ({ element: el, gPerL: (i.moles as number) * n * (element(el)?.mass ?? 0) / volumeL }))
+    // In the order the formula names them (KAl(SO4)2: K, then Al).
+    .map((m) => ({ m, at: i.analysis.ascii.search(new RegExp(`${m.element}(?![a-z])`)) }))
+    .sort((x, y) => x.at - y.at)
+    .map((x) => x.m);
   return { salt: (i.moles * i.molarMass) / volumeL, metals };
 }
 
 function ingredientMarkdown(i: Ingredient, b: BatchAnalysis, s: ServiceSettings): string {
   const name = knownName(i.analysis);
   const lines = [`**${esc(i.formula)}**${name ? ` · ${esc(name)}` : ''} · ${esc(amountText(i))}`, ''];
-  const bits = [`weigh **${sig(i.massG)} g**`, `${sig(i.moles)} mol`];
+  const bits = [`weigh **${massText(i.massG)}**`, `${sig(i.moles)} mol`];
   if (i.concentrationM !== null) bits.push(`**${sig(i.concentrationM)} M** in ${volumeText(b.volumeL as number)}`);
   if (i.massFraction !== null) bits.push(`${fractionText(i.massFraction)} of the weighed mass`);
   if (i.fractionOfTotal !== null && b.totalMassG !== null) bits.push(`${fractionText(i.fractionOfTotal)} of the total ${sig(b.totalMassG)} g`);
@@ -180,7 +184,7 @@ function ingredientMarkdown(i: Ingredient, b: BatchAnalysis, s: ServiceSettings)
   if (pl) {
     // The metal only where it says something the salt does not (not for a metal weighed as the element).
     const metals = pl.metals.filter((m) => Object.keys(i.analysis.atoms).length > 1 && m.gPerL > 0);
-    lines.push(`**${sig(pl.salt, 3)} g/L** ${esc(i.formula)}${metals.map((m) => ` · **${sig(m.gPerL, 3)} g/L** ${m.element}`).join('')}`, '');
+    lines.push(`**${perLitreText(pl.salt)}** ${esc(i.formula)}${metals.map((m) => ` · **${perLitreText(m.gPerL)}** ${m.element}`).join('')}`, '');
   }
   lines.push(i.ions.length ? `Dissociates to ${i.ions.map((x) => `${x.count === 1 ? '' : x.count + ' '}${x.ion}`).join(' + ')}` : `Not split into ions (${i.undissociated ?? 'undissociated'})`, '');
   lines.push(`Molar mass ${molarMassText(i.molarMass, s)} g/mol${i.analysis.formula && i.analysis.formula.parts.length > 1 ? ' (hydrate water included)' : ''}`);
