@@ -191,9 +191,9 @@ function analyseFence(info: 'batch' | 'reaction', content: string, settings: Ser
 }
 
 /** A batch without findings renders the same every time: memoised per analysis and settings object. */
-const batches = new WeakMap<BatchAnalysis, { settings: ServiceSettings; weighed: boolean; html: string }>();
+const batches = new WeakMap<BatchAnalysis, { settings: ServiceSettings; weighed: boolean; html: Html }>();
 
-export function batchHtml(b: BatchAnalysis, o: PreviewOptions, state: RenderState, lineOf: (d: ChemDiagnostic) => number | undefined, subjectOf: (d: ChemDiagnostic) => string): string {
+export function batchHtml(b: BatchAnalysis, o: PreviewOptions, state: RenderState, lineOf: (d: ChemDiagnostic) => number | undefined, subjectOf: (d: ChemDiagnostic) => string): Html {
   if (b.diagnostics.length) return batchHtmlUncached(b, o, state, lineOf, subjectOf);
   const hit = batches.get(b);
   if (hit && hit.settings === o.settings && hit.weighed === !!o.weighedColumn) return hit.html;
@@ -202,7 +202,7 @@ export function batchHtml(b: BatchAnalysis, o: PreviewOptions, state: RenderStat
   return out;
 }
 
-function batchHtmlUncached(b: BatchAnalysis, o: PreviewOptions, state: RenderState, lineOf: (d: ChemDiagnostic) => number | undefined, subjectOf: (d: ChemDiagnostic) => string): string {
+function batchHtmlUncached(b: BatchAnalysis, o: PreviewOptions, state: RenderState, lineOf: (d: ChemDiagnostic) => number | undefined, subjectOf: (d: ChemDiagnostic) => string): Html {
   const s = o.settings;
   const inRow = new Set<ChemDiagnostic>();
   const flagsOf = (start: number, end: number): Html | '' => {
@@ -246,17 +246,17 @@ function batchHtmlUncached(b: BatchAnalysis, o: PreviewOptions, state: RenderSta
     });
     if (items.length) parts.push(html`<ul class="iw-findings">${items}</ul>`);
   }
-  return join(parts, '\n').value;
+  return join(parts, '\n');
 }
 
-export function reactionBlockHtml(r: ReactionAnalysis, state: RenderState, line: number | undefined): string {
+export function reactionBlockHtml(r: ReactionAnalysis, state: RenderState, line: number | undefined): Html {
   const flags = mark(state, r.diagnostics, r.text, () => line);
-  if (!r.ok) return html`<div class="iw-reaction iw-unreadable"><code>${r.text}</code>${flags}</div>`.value;
+  if (!r.ok) return html`<div class="iw-reaction iw-unreadable"><code>${r.text}</code>${flags}</div>`;
   const form = balancedForm(r);
   const balanced = form
     ? html`<div class="iw-balanced-form">Balanced: ${form}</div>`
     : r.balance.status !== 'already-balanced' ? html`<div class="iw-balanced-form">${r.balance.message}</div>` : '';
-  return html`<div class="iw-reaction"><span class="iw-equation">${typesetEquation(r.parsed)}</span> ${reactionMark(r)}${flags}${balanced}</div>`.value;
+  return html`<div class="iw-reaction"><span class="iw-equation">${typesetEquation(r.parsed)}</span> ${reactionMark(r)}${flags}${balanced}</div>`;
 }
 
 // ── the plugin ────────────────────────────────────────────────────────────
@@ -328,12 +328,12 @@ export function ionwrightPreview(md: MarkdownIt, options?: OptionsSource): void 
       const attrs = trusted(self.renderAttrs(t));
       const source = html`<details class="iw-source"><summary>As written</summary><pre><code>${t.content}</code></pre></details>`;
       if (info === 'batch') {
-        const bodies = doc.batches.map((b) => trusted(batchHtml(b.analysis, o, state, (d) => sourceLine(d.start), (d) => lineText(d.start))));
+        const bodies = doc.batches.map((b) => batchHtml(b.analysis, o, state, (d) => sourceLine(d.start), (d) => lineText(d.start)));
         const unclosed = doc.diagnostics.filter((d) => d.code === 'batch-unclosed');
         const incomplete = doc.batches.some((b) => b.analysis.skipped.length > 0);
         return html`<figure class="iw-batch${incomplete ? ' iw-batch-incomplete' : ''}"${attrs}>\n${bodies.length ? join(bodies, '\n') : html`<p>An empty batch block.</p>`}${unclosed.length ? mark(state, unclosed, 'batch') : ''}\n${source}</figure>\n`.value;
       }
-      const lines = doc.reactions.map((r) => trusted(reactionBlockHtml(r.analysis, state, sourceLine(r.ref.start))));
+      const lines = doc.reactions.map((r) => reactionBlockHtml(r.analysis, state, sourceLine(r.ref.start)));
       return html`<figure class="iw-reactions"${attrs}>\n${lines.length ? join(lines, '\n') : html`<p>No equations in this block.</p>`}\n${source}</figure>\n`.value;
     } catch {
       return baseFence(tokens, idx, opts, env, self);
@@ -347,6 +347,6 @@ export function ionwrightPreview(md: MarkdownIt, options?: OptionsSource): void 
       html`<li id="iw-problem-${p.n}" class="iw-${p.severity}"><a href="#iw-flag-${p.n}" title="Back to the text">${p.n}</a> <span class="iw-sev">${SEVERITY_WORD[p.severity]}</span> <code>${p.subject}</code>${p.line !== undefined ? ` (line ${p.line})` : ''}: ${p.message} <span class="iw-code">${p.code}</span></li>`,
     );
     const n = problems.length;
-    return html`<section class="iw-problems" aria-label="Ionwright findings"><p><strong>Ionwright: ${plural(n, 'finding')} in these notes</strong></p><ol>${trusted(items.join(''))}</ol></section>\n`.value;
+    return html`<section class="iw-problems" aria-label="Ionwright findings"><p><strong>Ionwright: ${plural(n, 'finding')} in these notes</strong></p><ol>${items}</ol></section>\n`.value;
   };
 }

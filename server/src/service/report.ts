@@ -132,7 +132,7 @@ export function reportHtml(doc: AnalysedDocument, options: ReportOptions): strin
     parts.push(html`<p class="iw-caveat iw-bench-note" role="note">Figures assume full dissociation of strong electrolytes; weak acids and bases stay undissociated, and activities and non-ideal mixing are not modelled. Check each mass against the notes before weighing.</p>`);
     for (const b of doc.batches) {
       const cls = b.analysis.skipped.length ? 'iw-batch iw-batch-incomplete' : 'iw-batch';
-      parts.push(html`<figure class="${cls}">${trusted(batchHtml(b.analysis, o, silentState(), (d) => lineOf(d.start), (d) => lineText(d.start)))}<p class="iw-by">Block at line ${lineOf(b.ref.start)}.</p></figure>`);
+      parts.push(html`<figure class="${cls}">${batchHtml(b.analysis, o, silentState(), (d) => lineOf(d.start), (d) => lineText(d.start))}<p class="iw-by">Block at line ${lineOf(b.ref.start)}.</p></figure>`);
     }
   } else parts.push(html`<p>No batch blocks in these notes.</p>`);
   if (cautions.length) {
@@ -146,7 +146,7 @@ export function reportHtml(doc: AnalysedDocument, options: ReportOptions): strin
   } else parts.push(html`<p>No findings.</p>`);
 
   parts.push(html`<h2 id="reactions">Reactions</h2>`);
-  if (doc.reactions.length) parts.push(html`<figure class="iw-reactions">${join(doc.reactions.map((r) => trusted(reactionBlockHtml(r.analysis, silentState(), lineOf(r.ref.start)))), '\n')}</figure>`);
+  if (doc.reactions.length) parts.push(html`<figure class="iw-reactions">${join(doc.reactions.map((r) => reactionBlockHtml(r.analysis, silentState(), lineOf(r.ref.start))), '\n')}</figure>`);
   else parts.push(html`<p>No reactions in these notes.</p>`);
 
   parts.push(html`<h2 id="formulas">Formulas</h2>`);
