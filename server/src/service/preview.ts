@@ -76,8 +76,10 @@ function stateOf(env: Record<string, unknown> | undefined): RenderState {
 }
 
 /** Record problems and return their markers (one marker per problem, linked to the list at the end). */
+const NO_MARKS = new Html('');
+
 function mark(state: RenderState, diagnostics: readonly ChemDiagnostic[], subject: string, lineOf?: (d: ChemDiagnostic) => number | undefined): Html {
-  if (state.silent) return html``;
+  if (state.silent || diagnostics.length === 0) return NO_MARKS;
   const out: Html[] = [];
   for (const d of diagnostics) {
     if (d.severity === 'hint') continue;
@@ -87,7 +89,7 @@ function mark(state: RenderState, diagnostics: readonly ChemDiagnostic[], subjec
     const word = SEVERITY_WORD[d.severity];
     out.push(html`<a class="iw-flag iw-${d.severity}" href="#iw-problem-${n}" id="iw-flag-${n}" title="${`${word}: ${d.message}`}" aria-label="${`Ionwright ${word} ${n}: ${d.message}`}">${d.severity === 'error' ? '✖' : d.severity === 'warning' ? '⚠' : 'ℹ'}<sup>${n}</sup></a>`);
   }
-  return join(out);
+  return out.length ? join(out) : NO_MARKS;
 }
 
 function worst(diagnostics: readonly ChemDiagnostic[]): ChemDiagnostic['severity'] | undefined {

@@ -62,13 +62,15 @@ export function formulaTitle(a: FormulaAnalysis, s: ServiceSettings): string {
 }
 
 /** A typeset formula's inner HTML and escaped tooltip, memoised per analysis (and settings object). */
-const spans = new WeakMap<FormulaAnalysis, { settings: ServiceSettings; title: string; html: string }>();
+const spans = new WeakMap<FormulaAnalysis, { settings: ServiceSettings; title: string; html: string; byClass: Map<string, Html> }>();
 
 /** A formula typeset in a span with its card's headline in the tooltip; `cls` adds classes (' iw-warning'). */
 export function formulaSpan(a: FormulaAnalysis, s: ServiceSettings, cls = ''): Html {
   let hit = spans.get(a);
-  if (!hit || hit.settings !== s) spans.set(a, (hit = { settings: s, title: escapeHtml(formulaTitle(a, s)), html: typesetDisplay(a.display).value }));
-  return new Html(`<span class="iw-formula${escapeHtml(cls)}" title="${hit.title}">${hit.html}</span>`);
+  if (!hit || hit.settings !== s) spans.set(a, (hit = { settings: s, title: escapeHtml(formulaTitle(a, s)), html: typesetDisplay(a.display).value, byClass: new Map() }));
+  let span = hit.byClass.get(cls);
+  if (!span) hit.byClass.set(cls, (span = new Html(`<span class="iw-formula${escapeHtml(cls)}" title="${hit.title}">${hit.html}</span>`)));
+  return span;
 }
 
 /** One species of an equation, with a coefficient (1 and null are not written). */
@@ -83,6 +85,18 @@ function speciesHtml(s: Species, coefficient: number | string | null): Html {
  * with the coefficients as written when none are given.
  */
 export function typesetEquation(eq: ParsedEquation, coefficients?: readonly number[] | null): Html {
+  // Memoised per equation for the form as written (the preview re-renders every equation on each change).
+  if (!coefficients) {
+    let hit = written.get(eq);
+    if (!hit) written.set(eq, (hit = typesetUncached(eq)));
+    return hit;
+  }
+  return typesetUncached(eq, coefficients);
+}
+
+const written = new WeakMap<ParsedEquation, Html>();
+
+function typesetUncached(eq: ParsedEquation, coefficients?: readonly number[] | null): Html {
   const all = [...eq.reactants, ...eq.products];
   const coef = (s: Species) => (coefficients ? coefficients[all.indexOf(s)] ?? null : s.coefficientText || null);
   const side = (list: Species[]) => join(list.map((s) => speciesHtml(s, coef(s))), ' + ');
