@@ -116,7 +116,7 @@ describe('demo, balance and report --help', () => {
     ['H2 + O2 -> H2O', ['balanced: 2 H2 + O2 -> 2 H2O']],
     ['MnO4^- + Fe^2+ + H^+ -> Mn^2+ + Fe^3+ + H2O', ['balanced: MnO4^- + 5 Fe^2+ + 8 H^+ -> Mn^2+ + 5 Fe^3+ + 4 H2O']],
     ['2 H2 + O2 -> 2 H2O', ['already-balanced: 2 H2 + O2 -> 2 H2O', 'Balanced as written.']],
-    ['4 H2 + 2 O2 -> 4 H2O', ['already-balanced: 4 H2 + 2 O2 -> 4 H2O', 'Balanced as written; in smallest whole numbers: 2 H2 + O2 -> 2 H2O.']],
+    ['4 H2 + 2 O2 -> 4 H2O', ['already-balanced: 4 H2 + 2 O2 -> 4 H2O', 'Balanced as written; in smallest whole numbers: 2 H₂ + O₂ → 2 H₂O.']],
   ])('balance %s prints its result once', (equation, lines) => {
     // Coefficients checked by hand (atoms and charge on each side).
     const r = cli(['balance', equation]);

@@ -122,7 +122,8 @@ describe('statuses', () => {
     expect(r.status).toBe('already-balanced');
     expect(r.reducible).toBe(true);
     expect(r.coefficients).toEqual([2, 1, 2]);
-    expect(r.message).toContain('2 H2 + O2 -> 2 H2O');
+    expect(r.message).toContain('2 H₂ + O₂ → 2 H₂O');
+    expect(r.balancedText).toBe('2 H2 + O2 -> 2 H2O');
   });
 
   it('fractional coefficients as written', () => {
@@ -169,16 +170,17 @@ describe('statuses', () => {
     // Zn + Cu2+ -> Zn2+ + Cu (common textbook example) with Zn2+ written among the reactants.
     const r = balance('Zn + Zn^2+ + Cu^2+ -> Cu');
     expect(r.status).toBe('impossible');
-    expect(r.message).toContain('Zn^2+ would have to be on the other side');
-    expect(r.message).toContain('Zn + Cu^2+ -> Zn^2+ + Cu');
+    // Messages write formulas in Unicode notation (Zn²⁺), whatever notation the equation was typed in.
+    expect(r.message).toContain('Zn²⁺ would have to be on the other side');
+    expect(r.message).toContain('Zn + Cu²⁺ → Zn²⁺ + Cu');
     // Water electrolysis with oxygen on the wrong side.
-    expect(balance('H2O + O2 -> H2').message).toContain('O2 would have to be on the other side: 2 H2O -> O2 + 2 H2');
+    expect(balance('H2O + O2 -> H2').message).toContain('O₂ would have to be on the other side: 2 H₂O → O₂ + 2 H₂');
   });
 
   it('impossible: a species that takes no part', () => {
     const r = balance('H2 + O2 + N2 -> H2O');
     expect(r.status).toBe('impossible');
-    expect(r.message).toContain('N2 left out');
+    expect(r.message).toContain('N₂ left out');
   });
 
   it('impossible: charge cannot balance', () => {
@@ -352,8 +354,8 @@ describe('balanceCheck and messages', () => {
   });
 
   it('the unbalanced message names what differs and gives the balanced form', () => {
-    expect(unbalancedMessage(balance('H2 + O2 -> H2O'))).toBe('Not balanced — left: 2 O; right: 1 O. Balanced: 2 H2 + O2 -> 2 H2O');
-    expect(unbalancedMessage(balance('Fe^3+ + Cu -> Fe^2+ + Cu^2+'))).toBe('Not balanced — charge +3 vs +4. Balanced: 2 Fe^3+ + Cu -> 2 Fe^2+ + Cu^2+');
+    expect(unbalancedMessage(balance('H2 + O2 -> H2O'))).toBe('Not balanced — left: 2 O; right: 1 O. Balanced: 2 H₂ + O₂ → 2 H₂O');
+    expect(unbalancedMessage(balance('Fe^3+ + Cu -> Fe^2+ + Cu^2+'))).toBe('Not balanced — charge +3 vs +4. Balanced: 2 Fe³⁺ + Cu → 2 Fe²⁺ + Cu²⁺');
   });
 });
 
@@ -366,8 +368,9 @@ describe('analyseReaction', () => {
     expect(a.diagnostics).toEqual([
       {
         code: 'unbalanced-equation', severity: 'warning', start: 0, end: t.length,
-        message: 'Not balanced — left: 1 Fe, 2 O; right: 2 Fe, 3 O. Balanced: 4 Fe + 3 O2 -> 2 Fe2O3',
-        data: { balanced: '4 Fe + 3 O2 -> 2 Fe2O3', coefficients: [4, 3, 2], status: 'balanced' },
+        // The message in Unicode notation; the fix (data.balanced) in the notation typed, for the edit.
+        message: 'Not balanced — left: 1 Fe, 2 O; right: 2 Fe, 3 O. Balanced: 4 Fe + 3 O₂ → 2 Fe₂O₃',
+        data: { balanced: '4 Fe + 3 O2 -> 2 Fe2O3', display: '4 Fe + 3 O₂ → 2 Fe₂O₃', coefficients: [4, 3, 2], status: 'balanced' },
       },
     ]);
     expect(analyseReaction(t)).toBe(a);
@@ -380,7 +383,7 @@ describe('analyseReaction', () => {
   it('explains ambiguous and impossible equations', () => {
     const amb = analyseReaction('H2 + O2 -> H2O + H2O2');
     expect(amb.diagnostics.map((d) => [d.code, d.severity])).toEqual([['unbalanced-equation', 'warning'], ['ambiguous-equation', 'information']]);
-    expect(amb.diagnostics[0].data).toEqual({ balanced: null, coefficients: null, status: 'ambiguous' });
+    expect(amb.diagnostics[0].data).toEqual({ balanced: null, display: null, coefficients: null, status: 'ambiguous' });
     const imp = analyseReaction('NaCl -> KBr');
     expect(imp.diagnostics.map((d) => [d.code, d.severity])).toEqual([['unbalanced-equation', 'warning'], ['impossible-equation', 'information']]);
     expect(imp.diagnostics[1].message).toMatch(/only on the left/);

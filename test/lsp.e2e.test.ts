@@ -101,14 +101,14 @@ describe('LSP over stdio', () => {
 
   it('answers a hover with the card', async () => {
     const h = await conn.sendRequest(HoverRequest.type, { textDocument: { uri: URI }, position: { line: 2, character: line2.indexOf('NaCl') + 1 } });
-    expect((h!.contents as { value: string }).value).toMatch(/^\*\*NaCl\*\* · \*\*58\.44 g\/mol\*\*/);
+    expect((h!.contents as { value: string }).value).toMatch(/^\*\*NaCl\*\* · sodium chloride · \*\*58\.44 g\/mol\*\*/);
     expect(h!.range!.start).toEqual({ line: 2, character: line2.indexOf('NaCl') });
   });
 
   it('offers quick fixes whose edits apply', async () => {
     const pos = { line: 2, character: line2.indexOf('CaNO3') + 2 };
     const acts = (await conn.sendRequest(CodeActionRequest.type, { textDocument: { uri: URI }, range: { start: pos, end: pos }, context: { diagnostics: [] } })) as Array<{ title: string; edit: WorkspaceEdit; kind: string }>;
-    const fix = acts.find((a) => a.title === 'Replace with Ca(NO3)2')!;
+    const fix = acts.find((a) => a.title === 'Replace with Ca(NO₃)₂')!;
     expect(fix.kind).toBe('quickfix');
     expect(fix.edit.changes![URI][0]).toEqual({ range: { start: { line: 2, character: line2.indexOf('CaNO3') }, end: { line: 2, character: line2.indexOf('CaNO3') + 5 } }, newText: 'Ca(NO3)2' });
   });

@@ -179,7 +179,7 @@ describe('requests', () => {
       await conn.sendNotification(DidChangeTextDocumentNotification.type, { textDocument: { uri, version: 7 }, contentChanges: [{ range: { start: { line: 0, character: 0 }, end: { line: 0, character: 0 } }, text: 'The ' }] });
       const at = { line: 0, character: 'The Label says `Ca'.length };
       const acts = (await conn.sendRequest(CodeActionRequest.type, { textDocument: { uri }, range: { start: at, end: at }, context: { diagnostics: [] } })) as Array<{ title: string; edit: WorkspaceEdit }>;
-      const fix = acts.find((a) => a.title.includes('Ca(NO3)2'))!;
+      const fix = acts.find((a) => a.title.includes('Ca(NO₃)₂'))!;
       expect(fix.edit.changes).toBeUndefined();
       expect(fix.edit.documentChanges).toEqual([{ textDocument: { uri, version: 7 }, edits: [expect.objectContaining({ newText: 'Ca(NO3)2' })] }]);
       const r = await conn.sendRequest(ExecuteCommandRequest.type, { command: 'ionwright.server.insertTableAt', arguments: [{ uri, position: at }] });

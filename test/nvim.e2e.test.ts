@@ -148,7 +148,8 @@ describe.skipIf(!NVIM)('Neovim built-in LSP client against dist/server.js', () =
     expect(h.position).toEqual({ line: span.start.line, character: span.start.character + 1 });
     expect(h.kind).toBe('markdown');
     // Na 22.98977 + Cl 35.45 = 58.44 g/mol
-    expect(h.markdown).toMatch(/^\*\*NaCl\*\* · \*\*58\.44 g\/mol\*\*/);
+    // Identity first: formula, name, molar mass.
+    expect(h.markdown).toMatch(/^\*\*NaCl\*\* · sodium chloride · \*\*58\.44 g\/mol\*\*/);
     expect(h.range).toEqual(span);
   });
 

@@ -4,6 +4,7 @@
  * must ask for nothing over the network. Screenshots: test-output/report-light.png, report-dark.png.
  */
 import { spawnSync } from 'node:child_process';
+import { writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import type { Browser } from 'playwright-core';
@@ -65,6 +66,73 @@ describe.runIf(HAVE_BROWSER || REQUIRE_BROWSER)('the HTML report in headless Chr
       }
     }, 60_000);
   }
+});
+
+describe.runIf(HAVE_BROWSER || REQUIRE_BROWSER)('the report as a weighing sheet: print media in headless Chromium', () => {
+  let browser: Browser;
+  const file = outputPath('report-enl.html');
+  beforeAll(async () => {
+    // An invented electroless-nickel line, one batch incomplete.
+    const note = outputPath('enl-note.md');
+    writeFileSync(note, '# EN-2 (invented)\n\n```batch\nname: EN-2 make-up\nvolume: 1 L\nNiSO4·6H2O 240 g\nNaH2PO2·H2O 30 g\nNH3 to pH 4.8\n```\n\n```batch\nname: Pickle P-1\nvolume: 10 L\nH2SO4 0.5 M\n```\n');
+    const r = spawnSync(process.execPath, [join(ROOT, 'dist/cli.js'), 'report', note, '--html', file], { cwd: ROOT, encoding: 'utf8' });
+    expect(r.status, r.stderr).toBe(1);
+    browser = await launch();
+  }, 60_000);
+  afterAll(async () => {
+    await browser?.close();
+  });
+
+  it('leads with the batches, the incomplete one in the error colour on screen', async () => {
+    const page = await browser.newPage({ colorScheme: 'light', viewport: { width: 1100, height: 900 } });
+    try {
+      await page.goto(pathToFileURL(file).href);
+      const order = await page.evaluate(() => [...document.querySelectorAll('h2')].map((h) => h.id));
+      expect(order.slice(0, 2)).toEqual(['batches', 'cautions']);
+      expect(order.indexOf('findings')).toBeLessThan(order.indexOf('formulas'));
+      const c = await page.evaluate(() => {
+        const fig = document.querySelector('figure.iw-batch-incomplete') as Element;
+        const word = fig.querySelector('.iw-incomplete') as Element;
+        return { edge: getComputedStyle(fig).borderLeftColor, word: getComputedStyle(word).color, bg: getComputedStyle(document.body).backgroundColor };
+      });
+      expect(c.edge).toBe(c.word);
+      expect(contrast(c.word, c.bg)).toBeGreaterThanOrEqual(4.5);
+      // The "Weighed" column is for paper only.
+      expect(await page.locator('th.iw-weighed').first().isVisible()).toBe(false);
+    } finally {
+      await page.close();
+    }
+  }, 60_000);
+
+  it('prints black on white with bordered tables, a Weighed column, no widgets, and no batch split across pages', async () => {
+    const page = await browser.newPage({ viewport: { width: 800, height: 1100 } });
+    try {
+      await page.goto(pathToFileURL(file).href);
+      await page.emulateMedia({ media: 'print', colorScheme: 'dark' });
+      const p = await page.evaluate(() => {
+        const cs = (sel: string) => getComputedStyle(document.querySelector(sel) as Element);
+        const td = cs('figure.iw-batch table.iw-table td');
+        return {
+          text: cs('body').color, bg: cs('body').backgroundColor, border: `${td.borderTopStyle} ${td.borderTopColor}`,
+          breakInside: cs('figure.iw-batch').breakInside, weighed: cs('th.iw-weighed').display,
+          widgets: [...document.querySelectorAll('details, nav')].filter((e) => getComputedStyle(e).display !== 'none').length,
+          incomplete: cs('.iw-incomplete').color,
+        };
+      });
+      expect(p.text).toBe('rgb(0, 0, 0)');
+      expect(p.bg).toBe('rgb(255, 255, 255)');
+      expect(p.border).toBe('solid rgb(0, 0, 0)');
+      expect(p.breakInside).toBe('avoid');
+      expect(p.weighed).toBe('table-cell');
+      expect(p.widgets).toBe(0);
+      expect(p.incomplete).toBe('rgb(0, 0, 0)');
+      await page.screenshot({ path: outputPath('report-print.png'), fullPage: true });
+      const pdf = await page.pdf({ format: 'A4' });
+      expect(pdf.length).toBeGreaterThan(1000);
+    } finally {
+      await page.close();
+    }
+  }, 60_000);
 });
 
 describe.skipIf(HAVE_BROWSER || REQUIRE_BROWSER)('the HTML report in headless Chromium', () => {

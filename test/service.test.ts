@@ -33,7 +33,8 @@ function applyEdits(text: string, edits: Array<{ range: { start: { line: number;
 describe('hover', () => {
   it('shows the card of a formula in a code span: formula, molar mass, balance, bonding, lattice energy', () => {
     const md = hoverAt('Weighed `Na|Cl` for the rinse.')!;
-    expect(md).toMatch(/^\*\*NaCl\*\* · \*\*58\.44 g\/mol\*\*/);
+    // Identity first: formula, name, molar mass.
+    expect(md).toMatch(/^\*\*NaCl\*\* · sodium chloride · \*\*58\.44 g\/mol\*\*/);
     expect(md).toContain('Na⁺ + Cl⁻');
     expect(md).toContain('Bonding: **ionic**');
     expect(md).toContain('Lattice energy');
@@ -52,7 +53,7 @@ describe('hover', () => {
     const md = hoverAt('Old label: `CaN|O3`.')!;
     expect(md).toContain('Not charge-balanced');
     expect(md).toContain('Ca²⁺ with one NO₃⁻ leaves +1');
-    expect(md).toContain('`Ca(NO3)2`');
+    expect(md).toContain('Try **Ca(NO₃)₂**');
   });
 
   it('finds the formula after multi-byte text (UTF-16 offsets)', () => {
@@ -191,10 +192,11 @@ describe('code actions', () => {
     const doc = analyseDocument(text, 'markdown');
     const s = text.indexOf('Al(OH)2');
     const acts = codeActions(doc, s, s);
-    expect(acts[0]).toMatchObject({ title: 'Replace with Al(OH)3', kind: 'quickfix', isPreferred: true });
+    // The title in Unicode notation; the edit in the notation typed (checked below).
+    expect(acts[0]).toMatchObject({ title: 'Replace with Al(OH)₃', kind: 'quickfix', isPreferred: true });
     expect(applyEdits(text, acts[0].edits)).toBe('Bottle 14: `Al(OH)3` and `FeCl`.\n');
     const f = text.indexOf('FeCl');
-    expect(codeActions(doc, f, f).filter((a) => a.kind === 'quickfix').map((a) => a.title)).toEqual(['Replace with FeCl2', 'Replace with FeCl3']);
+    expect(codeActions(doc, f, f).filter((a) => a.kind === 'quickfix').map((a) => a.title)).toEqual(['Replace with FeCl₂', 'Replace with FeCl₃']);
   });
 
   it('fix an unknown symbol by its case', () => {
@@ -206,7 +208,7 @@ describe('code actions', () => {
   it('balance an equation in place', () => {
     const text = 'Whiteboard: `Fe + O2 -> Fe2O3`\n';
     const acts = codeActions(analyseDocument(text, 'markdown'), 14, 14, ['quickfix']);
-    expect(acts[0].title).toBe('Balance the equation');
+    expect(acts[0].title).toBe('Balance the equation: 4 Fe + 3 O₂ → 2 Fe₂O₃');
     expect(applyEdits(text, acts[0].edits)).toBe('Whiteboard: `4 Fe + 3 O2 -> 2 Fe2O3`\n');
   });
 

@@ -42,7 +42,7 @@ const TOXIC_METALS: Record<string, string> = {
   Hg: 'mercury compound: toxic', Pb: 'lead compound: toxic, harms fertility', Cd: 'cadmium compound: toxic and carcinogenic',
   Tl: 'thallium compound: very toxic', As: 'arsenic compound: toxic and carcinogenic', Be: 'beryllium compound: toxic and carcinogenic',
   Ba: 'soluble barium salt: toxic if swallowed', Ni: 'nickel compound: skin sensitiser, suspected carcinogen',
-  Co: 'cobalt compound: sensitiser, suspected carcinogen', Os: 'osmium compound: OsO4 is volatile and very toxic',
+  Co: 'cobalt compound: sensitiser, suspected carcinogen', Os: 'osmium compound: OsO₄ is volatile and very toxic',
 };
 
 /** Cyanide in the formula: the cyanide ion, or CN written as a group (a ligand, `[Fe(CN)6]`, `[Au(CN)2]`). */

@@ -48,7 +48,7 @@ const balance: Command = (args, io) => {
     const shown = b.status === 'already-balanced' ? input : (b.balancedText ?? input);
     const lines = [`${b.status}: ${shown}`];
     // "Balanced: <equation>" says again what the first line says.
-    if (b.message && !b.message.includes(shown)) lines.push(b.message);
+    if (b.message && !b.message.includes(shown) && !(b.status === 'balanced' && b.balancedDisplay && b.message.includes(b.balancedDisplay))) lines.push(b.message);
     for (const d of r.parsed.diagnostics) lines.push(`  ${d.severity} [${d.code}] col ${d.start + 1}: ${d.message}`);
     io.out(lines.join('\n'));
   }

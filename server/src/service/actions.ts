@@ -8,6 +8,7 @@ import { toLsp, type LspDiagnostic } from './diagnostics';
 import type { AnalysedDocument } from './document';
 import { formulasIn, targetAt } from './lookup';
 import type { Range } from './positions';
+import { formulaText } from './format';
 import { batchTable, formulaTable, sectionsOf, sectionTables } from './tables';
 
 export interface TextEdit {
@@ -50,11 +51,12 @@ export function quickFixes(doc: AnalysedDocument, start: number, end: number): C
     if (d.code === 'charge-imbalance') {
       const target = formulaRangeOf(doc, d);
       if (!target) continue;
-      suggestions.forEach((sug, k) => out.push({ title: `Replace with ${sug}`, kind: 'quickfix', edits: [{ range: doc.lines.range(target.start, target.end), newText: sug }], fixes, isPreferred: k === 0 }));
+      // The title in Unicode notation; the edit in the notation the user wrote (the suggestion as made).
+      suggestions.forEach((sug, k) => out.push({ title: `Replace with ${formulaText(sug)}`, kind: 'quickfix', edits: [{ range: doc.lines.range(target.start, target.end), newText: sug }], fixes, isPreferred: k === 0 }));
     } else if (d.code === 'unknown-element') {
       suggestions.forEach((sug, k) => out.push({ title: `Change to '${sug}'`, kind: 'quickfix', edits: [{ range: doc.lines.range(d.start, d.end), newText: sug }], fixes, isPreferred: k === 0 && suggestions.length === 1 }));
     } else if (d.code === 'unbalanced-equation' && typeof d.data?.balanced === 'string') {
-      out.push({ title: 'Balance the equation', kind: 'quickfix', edits: [{ range: doc.lines.range(d.start, d.end), newText: d.data.balanced as string }], fixes, isPreferred: true });
+      out.push({ title: typeof d.data.display === 'string' ? `Balance the equation: ${d.data.display}` : 'Balance the equation', kind: 'quickfix', edits: [{ range: doc.lines.range(d.start, d.end), newText: d.data.balanced as string }], fixes, isPreferred: true });
     }
   }
   return out;

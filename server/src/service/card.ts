@@ -5,6 +5,7 @@
 import type { FormulaAnalysis } from '../chem/analyse';
 import { toLsp, type LspDiagnostic } from './diagnostics';
 import { LineIndex } from './positions';
+import { energy, fixed, formulaText, oxidationText, percent, signed } from './format';
 import { DEFAULT_SETTINGS, type ServiceSettings } from './settings';
 
 export interface CardJson {
@@ -96,27 +97,6 @@ export function cardJson(a: FormulaAnalysis): CardJson {
   };
 }
 
-export const fmt = (x: number, places: number) => x.toFixed(places);
-export const pct = (x: number, places = 2) => `${(x * 100).toFixed(places)} %`;
-const KCAL = 4.184;
-
-export function energy(kJ: number, settings: ServiceSettings): string {
-  return settings.energyUnit === 'kcal/mol' ? `${Math.round(kJ / KCAL)} kcal/mol` : `${Math.round(kJ)} kJ/mol`;
-}
-
-/** A signed number for people: +1, −2, +2.667 (true minus sign). */
-export function signed(x: number): string {
-  const a = Math.abs(x);
-  const r = Number.isInteger(a) ? String(a) : a.toFixed(3).replace(/0+$/, '');
-  return x > 0 ? `+${r}` : x < 0 ? `−${r}` : '0';
-}
-
-export function oxidationText(states: Record<string, number>): string {
-  return Object.entries(states)
-    .map(([el, v]) => `${el} ${signed(v)}`)
-    .join(', ');
-}
-
 /**
  * The per-site states in words, where they say more than the averages (an element at two or more
  * states, or a named group): "N −3 in NH₄⁺, N +5 in NO₃⁻". Undefined where every element has one state.
@@ -165,8 +145,8 @@ export function cardText(a: FormulaAnalysis, settings: ServiceSettings = DEFAULT
   }
   const mm = a.molarMass;
   out.push(`${a.display}   (Hill: ${a.hill}${a.charge ? `, charge ${signed(a.charge)}` : ''})`);
-  out.push(`  molar mass      ${fmt(mm.value, settings.decimals + 1)}${mm.uncertainty !== null ? ` ± ${mm.uncertainty.toPrecision(1)}` : ' (nominal)'} g/mol`);
-  out.push(`  composition     ${a.composition.map((c) => `${c.element} ${pct(c.massFraction)}`).join(', ')}`);
+  out.push(`  molar mass      ${fixed(mm.value, settings.decimals + 1)}${mm.uncertainty !== null ? ` ± ${mm.uncertainty.toPrecision(1)}` : ' (nominal)'} g/mol`);
+  out.push(`  composition     ${a.composition.map((c) => `${c.element} ${percent(c.massFraction, 2)}`).join(', ')}`);
   const designation = designationText(a);
   if (designation) out.push(`  alloy           ${designation}`);
   if (a.charges) {
@@ -174,7 +154,7 @@ export function cardText(a: FormulaAnalysis, settings: ServiceSettings = DEFAULT
     const bySite = sitesText(a);
     if (bySite) out.push(`  by site         ${bySite}`);
     for (const r of undeterminedText(a)) out.push(`                  ${r}`);
-    out.push(`  charge balance  ${a.charges.balanced ? '' : 'NOT BALANCED: '}${a.charges.message}${a.charges.suggestions.length ? ` Try: ${a.charges.suggestions.join(', ')}` : ''}`);
+    out.push(`  charge balance  ${a.charges.balanced ? '' : 'NOT BALANCED: '}${a.charges.message}${a.charges.suggestions.length ? ` Try: ${a.charges.suggestions.map((x) => `${formulaText(x)}${formulaText(x) === x ? '' : ` (${x})`}`).join(', ')}` : ''}`);
   }
   if (a.bond) {
     const between = a.bond.betweenIons && a.bond.pairWithin ? `ionic between ${a.bond.betweenIons.cation} and ${a.bond.betweenIons.anion}; ` : '';
@@ -182,7 +162,7 @@ export function cardText(a: FormulaAnalysis, settings: ServiceSettings = DEFAULT
   }
   if (a.lattice) {
     const L = a.lattice;
-    out.push(`  lattice energy  ${L.estimate ? '≈ ' : ''}${energy(L.kJPerMol, settings)} — ${L.method}${a.formula && a.formula.parts.length > 1 ? ` (for ${L.salt})` : ''}; ${L.typicalError}`);
+    out.push(`  lattice energy  ${L.estimate ? '≈ ' : ''}${energy(L.kJPerMol, settings)} — ${L.method}${a.formula && a.formula.parts.length > 1 ? ` (for ${formulaText(L.salt)})` : ''}; ${L.typicalError}`);
     for (const alt of L.alternatives) out.push(`                  ${alt.method}: ${energy(alt.kJPerMol, settings)}`);
     if (L.meltingPointC !== undefined) out.push(`  melting point   ${L.meltingPointC} °C (${L.meltingPointSource})`);
   } else if (a.latticeWithheld) out.push(`  lattice energy  none — ${a.latticeWithheld.text.replace(/^No lattice energy(?: \(([^)]*)\))?: /, (_, x) => (x ? `${x}: ` : ''))}`);

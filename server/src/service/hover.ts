@@ -3,15 +3,17 @@
  */
 import type { FormulaAnalysis } from '../chem/analyse';
 import type { BatchAnalysis, Ingredient, SkippedLine } from '../chem/batch';
-import { CAUTION_FOOTNOTE, cautionsFor } from '../chem/cautions';
+import { CAUTION_FOOTNOTE, cautionsFor, type Caution } from '../chem/cautions';
+import { element, isMetal } from '../chem/data/elements';
 import type { ReactionAnalysis } from '../chem/equation';
-import { subscriptDigits } from '../chem/formula/compute';
-import { designationText, energy, oxidationText, signed, sitesText, undeterminedText } from './card';
+import { designationText, sitesText, undeterminedText } from './card';
+import { COMPACT_BATCH, batchColumns, countedRows, markdownTable, pick } from './columns';
 import type { AnalysedDocument } from './document';
+import { chargeWords, energy, formulaText, massText, molarMassText, oxidationText, percent, perLitreText, sig, signed, volumeText } from './format';
 import { targetAt } from './lookup';
 import type { Range } from './positions';
 import type { ServiceSettings } from './settings';
-import { amountText, batchWarnings, codeSpan, countsText, escapeMarkdown, fractionText, notCountedText, shareCells, shareHeads, sig, weighedMass } from './tables';
+import { amountText, batchWarnings, codeSpan, countsText, escapeMarkdown, fractionText, notCountedText, weighedMass } from './tables';
 
 export interface HoverResult {
   markdown: string;
@@ -21,10 +23,60 @@ export interface HoverResult {
 /** Markdown escaping of text that may quote the notes (the tables' escaper). */
 const esc = escapeMarkdown;
 
+/**
+ * The cautions of a hover, once, with the one disclaimer at the end (a hover never repeats it per substance).
+ */
+function cautionBlock(cautions: readonly Caution[]): string[] {
+  const texts = [...new Set(cautions.map((c) => c.text))];
+  if (texts.length === 0) return [];
+  return [texts.length === 1 ? `⚠ ${esc(texts[0])}.` : texts.map((t) => `⚠ ${esc(t)}`).join('  \n'), '', `_${CAUTION_FOOTNOTE}_`, ''];
+}
+
+const HYDRATE = ['', 'monohydrate', 'dihydrate', 'trihydrate', 'tetrahydrate', 'pentahydrate', 'hexahydrate', 'heptahydrate', 'octahydrate', 'nonahydrate', 'decahydrate', 'undecahydrate', 'dodecahydrate'];
+const MONATOMIC: Record<string, string> = { F: 'fluoride', Cl: 'chloride', Br: 'bromide', I: 'iodide', O: 'oxide', S: 'sulfide', Se: 'selenide', Te: 'telluride', N: 'nitride', P: 'phosphide', H: 'hydride' };
+/** Metals named without an oxidation number: they have one state in their salts (IUPAC 2005, IR-5.4.2.2). */
+const ONE_STATE = new Set(['Li', 'Na', 'K', 'Rb', 'Cs', 'Be', 'Mg', 'Ca', 'Sr', 'Ba', 'Al', 'Zn', 'Cd', 'Ag', 'Ga', 'Sc', 'Y', 'La']);
+const ROMAN = ['', 'I', 'II', 'III', 'IV', 'V', 'VI', 'VII', 'VIII'];
+
+/**
+ * The name of the substance where the reading makes it plain: an element, a single named ion, or a salt of
+ * one cation and one anion (with its water of crystallisation): `nickel(II) sulfate hexahydrate`. Names
+ * follow the IUPAC 2005 recommendations (stoichiometric names with the Stock number); undefined otherwise.
+ */
+export function knownName(a: FormulaAnalysis): string | undefined {
+  const c = a.charges;
+  if (!a.ok || !a.formula || !c) return undefined;
+  if (c.basis === 'element' && a.formula.parts.length === 1) {
+    const el = Object.keys(a.atoms)[0];
+    return el ? element(el)?.name : undefined;
+  }
+  const ions = c.ions;
+  if (!ions || c.basis !== 'ionic' || !c.balanced) return undefined;
+  if (ions.length === 1 && a.charge !== 0) return ions[0].ionName;
+  // Water only in the other parts: a hydrate.
+  let water = 0;
+  for (const p of a.formula.parts.slice(1)) {
+    const t = p.items.map((it) => (it.kind === 'element' ? it.symbol + (it.count === 1 ? '' : it.count) : '?')).join('');
+    if (t !== 'H2O' || !Number.isInteger(p.multiplier)) return undefined;
+    water += p.multiplier;
+  }
+  if (a.charge !== 0 || ions.length !== 2 || water >= HYDRATE.length) return undefined;
+  const [cat, an] = ions;
+  if (cat.role !== 'cation' || an.role !== 'anion' || !Number.isInteger(cat.charge) || new Set(cat.states).size > 1) return undefined;
+  let cation: string | undefined;
+  if (cat.kind === 'metal' && cat.element) {
+    const name = element(cat.element)?.name;
+    cation = name && (ONE_STATE.has(cat.element) ? name : `${name}(${ROMAN[cat.charge] ?? cat.charge})`);
+  } else if (cat.kind === 'polyatomic') cation = cat.ionName;
+  const anion = an.kind === 'monatomic-anion' && an.element ? MONATOMIC[an.element] : an.kind === 'polyatomic' ? an.ionName : undefined;
+  if (!cation || !anion) return undefined;
+  return `${cation} ${anion}${water ? ` ${HYDRATE[water]}` : ''}`;
+}
+
 function latticeLine(a: FormulaAnalysis, s: ServiceSettings): string | undefined {
   const L = a.lattice;
   if (!L) return undefined;
-  const forSalt = a.formula && a.formula.parts.length > 1 ? ` for ${subscriptDigits(L.salt)}` : '';
+  const forSalt = a.formula && a.formula.parts.length > 1 ? ` for ${formulaText(L.salt)}` : '';
   return `Lattice energy ${L.estimate ? '≈ ' : ''}**${energy(L.kJPerMol, s)}**${forSalt} — ${L.method}${L.estimate ? ' (estimate)' : ''}${L.meltingPointC !== undefined ? ` · mp ${L.meltingPointC} °C` : ''}`;
 }
 
@@ -33,13 +85,13 @@ function latticeInputs(a: FormulaAnalysis, s: ServiceSettings): string[] {
   if (!L) return [];
   const i = L.inputs as Record<string, any>;
   const bits: string[] = [];
-  if (i.charges) bits.push(`z₊ ${i.charges.cation > 0 ? '+' : ''}${i.charges.cation}, z₋ ${String(i.charges.anion).replace('-', '−')}`);
+  if (i.charges) bits.push(`z₊ ${signed(i.charges.cation)}, z₋ ${signed(i.charges.anion)}`);
   if (i.radii) bits.push(`r₊ ${i.radii.cation} Å, r₋ ${i.radii.anion} Å`);
   if (i.r0) bits.push(`r₀ ${i.r0} Å`);
   if (i.nu) bits.push(`ν ${i.nu}`);
   if (i.madelung) bits.push(`M ${i.madelung} (${i.structure})`);
   if (i.bornExponent) bits.push(`n ${i.bornExponent}`);
-  if (i.formationEnthalpy !== undefined) bits.push(`ΔfH° ${String(i.formationEnthalpy).replace('-', '−')} kJ/mol, IE ${i.ionisationEnergies.join(' + ')}, EA ${i.electronAffinity}`);
+  if (i.formationEnthalpy !== undefined) bits.push(`ΔfH° ${signed(i.formationEnthalpy)} kJ/mol, IE ${i.ionisationEnergies.join(' + ')}, EA ${i.electronAffinity}`);
   const out = [`Inputs: ${bits.join(' · ')}`];
   if (i.radiusSources) out.push(`Radii: ${i.radiusSources.cation}; ${i.radiusSources.anion}`);
   if (i.source) out.push(`Data: ${i.source}`);
@@ -49,7 +101,14 @@ function latticeInputs(a: FormulaAnalysis, s: ServiceSettings): string[] {
   return out;
 }
 
-/** The card of a formula as Markdown (hover and "copy card"). */
+/** Suggestions for a formula that does not balance, in Unicode: `Ca(NO₃)₂`. */
+const tryText = (suggestions: readonly string[]) => (suggestions.length ? ` Try ${suggestions.map((x) => `**${esc(formulaText(x))}**`).join(', ')}.` : '');
+
+/**
+ * The card of a formula as Markdown (hover and "copy card"): who it is (formula, name where known, molar
+ * mass) and whether its charges balance first, then its composition, bonding and lattice energy in one
+ * line each, the cautions; the details (oxidation states by site, uncertainty, inputs) below the rule.
+ */
 export function formulaCardMarkdown(a: FormulaAnalysis, s: ServiceSettings): string {
   if (a.ok && !a.molarMass) {
     const lines = [`**${esc(a.display)}** · molar mass not computed: a count is not a number`, ''];
@@ -66,17 +125,16 @@ export function formulaCardMarkdown(a: FormulaAnalysis, s: ServiceSettings): str
     return [`**${esc(a.input)}** · alloy designation`, '', `Nominal composition: **${esc(designation)}**`, '', '---', '', esc('The numbers of a designation are mass percent, the base metal the balance; it is not a chemical formula, so no charge balance applies.')].join('\n');
   }
   const mm = a.molarMass;
-  const head = `**${esc(a.display)}** · **${mm.value.toFixed(s.decimals)} g/mol**${a.charge ? ` · charge ${a.charge > 0 ? '+' : '−'}${Math.abs(a.charge)}` : ''}`;
+  const name = knownName(a);
+  const head = `**${esc(a.display)}**${name ? ` · ${esc(name)}` : ''} · **${molarMassText(mm.value, s)} g/mol**${a.charge ? ` · ${chargeWords(a.charge)}` : ''}`;
   const lines = [head, ''];
   const c = a.charges;
   if (c) {
-    if (!c.balanced) lines.push(`⚠ **Not charge-balanced:** ${esc(c.message)}${c.suggestions.length ? ` Try ${c.suggestions.map((x) => `\`${x}\``).join(', ')}.` : ''}`, '');
-    else if (c.basis === 'ionic') lines.push(`${esc(c.message)}`, '');
-    if (c.oxidationStates) lines.push(`Oxidation states: ${oxidationText(c.oxidationStates)}${c.mixedValence.length ? ' (averages: mixed valence)' : ''}`, '');
-    const bySite = sitesText(a);
-    if (bySite) lines.push(`By site: ${esc(bySite)}`, '');
-    for (const r of undeterminedText(a)) lines.push(`No state given for ${esc(r)}`, '');
+    if (!c.balanced) lines.push(`⚠ **Not charge-balanced:** ${esc(c.message)}${tryText(c.suggestions)}`, '');
+    else if (c.message) lines.push(`${c.basis === 'ionic' ? '✓ ' : ''}${esc(c.message)}`, '');
+    if (c.oxidationStates && Object.keys(c.oxidationStates).length) lines.push(`Oxidation states: ${oxidationText(c.oxidationStates)}${c.mixedValence.length ? ' (averages: mixed valence)' : ''}`, '');
   }
+  lines.push(`Composition: ${a.composition.map((x) => `${x.element} ${percent(x.massFraction, 2)}`).join(', ')}`, '');
   if (a.bond) {
     const between = a.bond.betweenIons && a.bond.pairWithin ? `**ionic** between ${esc(a.bond.betweenIons.cation)} and ${esc(a.bond.betweenIons.anion)}; ` : '';
     lines.push(`Bonding: ${between}**${a.bond.type}** — ΔEN ${a.bond.pair.join('–')} ${a.bond.deltaEN.toFixed(2)}, ${a.bond.percentIonic.toFixed(0)} % ionic`, '');
@@ -84,60 +142,83 @@ export function formulaCardMarkdown(a: FormulaAnalysis, s: ServiceSettings): str
   const lat = latticeLine(a, s);
   if (lat) lines.push(lat, '');
   else if (a.latticeWithheld) lines.push(esc(a.latticeWithheld.text), '');
-  const cautions = cautionsFor(a);
-  if (cautions.length) lines.push(`⚠ ${cautions.map((x) => esc(x.text)).join('; ')}. _${CAUTION_FOOTNOTE}_`, '');
+  lines.push(...cautionBlock(cautionsFor(a)));
   lines.push('---', '');
   const detail: string[] = [];
+  const bySite = sitesText(a);
+  if (bySite) detail.push(`By site: ${bySite}`);
+  for (const r of undeterminedText(a)) detail.push(`No state given for ${r}`);
   detail.push(`Hill ${a.hill} · ± ${mm.uncertainty === null ? '— (no standard atomic weight for ' + mm.nominal.join(', ') + ')' : mm.uncertainty.toPrecision(1)} g/mol (CIAAW 2021 weights)`);
-  detail.push(`Composition: ${a.composition.map((x) => `${x.element} ${(x.massFraction * 100).toFixed(2)} %`).join(', ')}`);
   if (a.bond?.note) detail.push(a.bond.note);
   detail.push(...latticeInputs(a, s));
   lines.push(detail.map((d) => esc(d)).join('  \n'));
   return lines.join('\n');
 }
 
+/**
+ * Grams per litre of the substance and of each metal in it, where the batch has a final volume: what a
+ * plating or etching line is specified in. From the moles (assay taken out), so the figures are of the
+ * pure substance. Undefined without a volume.
+ */
+export function perLitre(i: Ingredient, volumeL: number | null): { salt: number; metals: Array<{ element: string; gPerL: number }> } | undefined {
+  if (volumeL === null || !(volumeL > 0) || i.moles === null) return undefined;
+  const metals = Object.entries(i.analysis.atoms)
+    .filter(([el, n]) => isMetal(el) && Number.isFinite(n) && n > 0)
+    .map(([el, n]) => ({ element: el, gPerL: (i.moles as number) * n * (element(el)?.mass ?? 0) / volumeL }))
+    // In the order the formula names them (KAl(SO4)2: K, then Al).
+    .map((m) => ({ m, at: i.analysis.ascii.search(new RegExp(`${m.element}(?![a-z])`)) }))
+    .sort((x, y) => x.at - y.at)
+    .map((x) => x.m);
+  return { salt: (i.moles * i.molarMass) / volumeL, metals };
+}
+
 function ingredientMarkdown(i: Ingredient, b: BatchAnalysis, s: ServiceSettings): string {
-  const lines = [`**${esc(i.formula)}** · ${esc(amountText(i))}`, ''];
-  const bits = [`weigh **${sig(i.massG)} g**`, `${sig(i.moles)} mol`];
-  if (i.concentrationM !== null) bits.push(`**${sig(i.concentrationM)} M** in ${sig((b.volumeL as number) * 1000)} mL`);
+  const name = knownName(i.analysis);
+  const lines = [`**${esc(i.formula)}**${name ? ` · ${esc(name)}` : ''} · ${esc(amountText(i))}`, ''];
+  const bits = [`weigh **${massText(i.massG)}**`, `${sig(i.moles)} mol`];
+  if (i.concentrationM !== null) bits.push(`**${sig(i.concentrationM)} M** in ${volumeText(b.volumeL as number)}`);
   if (i.massFraction !== null) bits.push(`${fractionText(i.massFraction)} of the weighed mass`);
   if (i.fractionOfTotal !== null && b.totalMassG !== null) bits.push(`${fractionText(i.fractionOfTotal)} of the total ${sig(b.totalMassG)} g`);
   lines.push(bits.join(' · '), '');
+  const pl = perLitre(i, b.volumeL);
+  if (pl) {
+    // The metal only where it says something the salt does not (not for a metal weighed as the element).
+    const metals = pl.metals.filter((m) => Object.keys(i.analysis.atoms).length > 1 && m.gPerL > 0);
+    lines.push(`**${perLitreText(pl.salt)}** ${esc(i.formula)}${metals.map((m) => ` · **${perLitreText(m.gPerL)}** ${m.element}`).join('')}`, '');
+  }
   lines.push(i.ions.length ? `Dissociates to ${i.ions.map((x) => `${x.count === 1 ? '' : x.count + ' '}${x.ion}`).join(' + ')}` : `Not split into ions (${i.undissociated ?? 'undissociated'})`, '');
-  lines.push(`Molar mass ${i.molarMass.toFixed(s.decimals)} g/mol${i.analysis.formula && i.analysis.formula.parts.length > 1 ? ' (hydrate water included)' : ''}`);
+  lines.push(`Molar mass ${molarMassText(i.molarMass, s)} g/mol${i.analysis.formula && i.analysis.formula.parts.length > 1 ? ' (hydrate water included)' : ''}`);
   const sol = i.solubility;
   if (sol) {
     const here = sol.per100gWater === null ? 'no water left by the estimate' : `about ${sig(sol.per100gWater, 3)} g per 100 g water here (estimate)`;
     lines.push('', `${sol.exceeds ? '⚠ ' : ''}Solubility of ${esc(sol.salt)} in water: ${sig(sol.row.gPer100gWater, 3)} g per 100 g water at ${sol.row.temperatureC} °C — ${esc(sol.row.source)}; ${here}.`);
   }
-  if (i.cautions.length) lines.push('', `⚠ ${i.cautions.map((c) => esc(c.text)).join('; ')}. _${CAUTION_FOOTNOTE}_`);
   if (b.skipped.length) lines.push('', `_The batch is incomplete: ${notCountedText(b)} (hover the batch's opening line for the list); shares and totals are of the counted lines._`);
-  return lines.join('\n');
+  if (i.cautions.length) lines.push('', ...cautionBlock(i.cautions));
+  return lines.join('\n').trimEnd();
 }
 
 /** A line of a batch that is not counted: what it says, why, and the cautions of its formula. */
 function skippedMarkdown(l: SkippedLine, s: ServiceSettings): string {
   const a = l.analysis;
   const lines = [`${codeSpan(l.text)} — **not counted**`, '', esc(l.reason), ''];
-  if (a?.molarMass) lines.push(`${esc(a.display)}: molar mass ${a.molarMass.value.toFixed(s.decimals)} g/mol`, '');
-  if (l.cautions.length) lines.push(`⚠ ${l.cautions.map((c) => esc(c.text)).join('; ')}. _${CAUTION_FOOTNOTE}_`, '');
-  lines.push('_Nothing on this line is in the batch\'s figures until it is fixed._');
-  return lines.join('\n');
+  if (a?.molarMass) lines.push(`${esc(a.display)}: molar mass ${molarMassText(a.molarMass.value, s)} g/mol`, '');
+  lines.push('_Nothing on this line is in the batch\'s figures until it is fixed._', '');
+  lines.push(...cautionBlock(l.cautions));
+  return lines.join('\n').trimEnd();
 }
 
-export function batchSummaryMarkdown(b: BatchAnalysis, _s: ServiceSettings): string {
-  const lines = [`**${esc(b.name ?? 'Batch')}** · ${esc(countsText(b))} · ${sig(weighedMass(b))} g to weigh${b.volumeL !== null ? ` · ${sig(b.volumeL * 1000)} mL` : ''}${b.totalMassG !== null ? ` · total ${sig(b.totalMassG)} g` : ''}`, ''];
+export function batchSummaryMarkdown(b: BatchAnalysis, s: ServiceSettings): string {
+  const lines = [`**${esc(b.name ?? 'Batch')}** · ${esc(countsText(b))} · ${sig(weighedMass(b))} g to weigh${b.volumeL !== null ? ` · ${volumeText(b.volumeL)}` : ''}${b.totalMassG !== null ? ` · total ${sig(b.totalMassG)} g` : ''}`, ''];
   if (b.ionicStrengthM !== null) lines.push(`Ionic strength **${sig(b.ionicStrengthM)} M** · net charge ${sig(b.netChargeEqPerL ?? 0, 2)} eq/L`, '');
   if (b.ions.length) lines.push(b.ions.map((x) => `${x.ion} ${sig(x.concentrationM)} M`).join(' · '), '');
-  const heads = shareHeads(b);
-  lines.push(`| Ingredient | To weigh (g) | mol | M | ${heads.join(' | ')} |`, `|---|---:|---:|---:|${heads.map(() => '---:|').join('')}`);
-  for (const i of b.ingredients) lines.push(`| ${esc(i.formula)} | ${sig(i.massG)} | ${sig(i.moles)} | ${sig(i.concentrationM)} | ${shareCells(b, i).join(' | ')} |`);
+  lines.push(markdownTable(pick(batchColumns(b, s), COMPACT_BATCH), countedRows(b), { short: true }));
   if (b.skipped.length) lines.push('', `**Not counted** (left out of the figures above):`, '', ...b.skipped.map((l) => `- ${codeSpan(l.text)} — ${esc(l.reason)}`));
   const warnings = batchWarnings(b);
   if (warnings.length) lines.push('', ...warnings.map((d) => `⚠ ${esc(d.message)}`));
   lines.push('', ...b.notes.map((n) => `_${n}_`));
-  if (b.cautions.length) lines.push('', ...b.cautions.map((c) => `⚠ ${esc(c.text)}`), '', `_${CAUTION_FOOTNOTE}_`);
-  return lines.join('\n');
+  if (b.cautions.length) lines.push('', ...cautionBlock(b.cautions));
+  return lines.join('\n').trimEnd();
 }
 
 const STATUS_WORDS: Record<string, string> = {
@@ -161,7 +242,10 @@ export function reactionMarkdown(r: ReactionAnalysis): string {
     const diff = b.differences.filter((d) => d.left !== d.right).map((d) => `${d.element} ${d.left} → ${d.right}`);
     if (diff.length) lines.push(`As written (left → right): ${diff.join(', ')}`, '');
     if (b.charge.left !== b.charge.right) lines.push(`Charge ${signed(b.charge.left)} → ${signed(b.charge.right)}`, '');
-    if (b.balancedText) lines.push('Balanced:', '', '```', b.balancedText, '```');
+    if (b.balancedDisplay) {
+      lines.push(`Balanced: **${esc(b.balancedDisplay)}**`);
+      if (b.balancedText && b.balancedText !== b.balancedDisplay) lines.push('', `In the note's notation: ${codeSpan(b.balancedText)}`);
+    }
     else lines.push(esc(b.message));
     if (b.note) lines.push('', esc(b.note));
   }

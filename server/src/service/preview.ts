@@ -15,22 +15,29 @@
  */
 import type { MarkdownIt, Token } from 'markdown-it';
 import { analyseFormula, type FormulaAnalysis } from '../chem/analyse';
-import type { BatchAnalysis, Ingredient, SkippedLine } from '../chem/batch';
-import { CAUTION_FOOTNOTE, cautionsFor } from '../chem/cautions';
+import type { BatchAnalysis, Ingredient } from '../chem/batch';
+import { CAUTION_FOOTNOTE } from '../chem/cautions';
 import type { ChemDiagnostic } from '../chem/diagnostic';
-import { analyseReaction, findArrow, formatSignedCharge, type ReactionAnalysis } from '../chem/equation';
+import { analyseReaction, findArrow, type ReactionAnalysis } from '../chem/equation';
 import type { FormulaRef } from '../notes/types';
 import { scanProse } from '../notes/prose';
+import { batchColumns, batchRows, htmlTable, ION_COLUMNS, type BatchRow } from './columns';
 import { analyseDocument, type BlockResult } from './document';
+import { plural, sig, volumeText } from './format';
+import { Html, html, join, toHtml, trusted } from './html';
 import { DEFAULT_SETTINGS, type ServiceSettings } from './settings';
-import { amountText, notCountedText, shareCells, shareHeads, sig, undissociatedOf } from './tables';
-import { escapeHtml, typesetDisplay, typesetEquation } from './typeset';
+import { notCountedText, undissociatedOf } from './tables';
+import { formulaSpan, formulaTitle, typesetDisplay, typesetEquation } from './typeset';
 import { CachesBySettings, detach } from '../chem/cache';
+
+export { formulaSpan, formulaTitle };
 
 export interface PreviewOptions {
   /** Typeset formulas and equations in inline code; when false they stay code (problems are still marked). */
   typesetFormulas: boolean;
   settings: ServiceSettings;
+  /** A last, empty "Weighed" column in batch tables, for a printed weighing sheet (the report). */
+  weighedColumn?: boolean;
 }
 
 export const DEFAULT_PREVIEW_OPTIONS: PreviewOptions = Object.freeze({ typesetFormulas: true, settings: DEFAULT_SETTINGS });
@@ -69,17 +76,20 @@ function stateOf(env: Record<string, unknown> | undefined): RenderState {
 }
 
 /** Record problems and return their markers (one marker per problem, linked to the list at the end). */
-function mark(state: RenderState, diagnostics: readonly ChemDiagnostic[], subject: string, lineOf?: (d: ChemDiagnostic) => number | undefined): string {
-  let out = '';
-  if (state.silent) return out;
+const NO_MARKS = new Html('');
+
+function mark(state: RenderState, diagnostics: readonly ChemDiagnostic[], subject: string, lineOf?: (d: ChemDiagnostic) => number | undefined): Html {
+  if (state.silent || diagnostics.length === 0) return NO_MARKS;
+  const out: Html[] = [];
   for (const d of diagnostics) {
     if (d.severity === 'hint') continue;
     const n = state.problems.length + 1;
     const line = lineOf?.(d);
     state.problems.push({ n, severity: d.severity, code: d.code, message: d.message, subject, ...(line !== undefined ? { line } : {}) });
-    out += `<a class="iw-flag iw-${d.severity}" href="#iw-problem-${n}" id="iw-flag-${n}" title="${escapeHtml(`${SEVERITY_WORD[d.severity]}: ${d.message}`)}" aria-label="${escapeHtml(`Ionwright ${SEVERITY_WORD[d.severity]} ${n}: ${d.message}`)}">${d.severity === 'error' ? '✖' : d.severity === 'warning' ? '⚠' : 'ℹ'}<sup>${n}</sup></a>`;
+    const word = SEVERITY_WORD[d.severity];
+    out.push(html`<a class="iw-flag iw-${d.severity}" href="#iw-problem-${n}" id="iw-flag-${n}" title="${`${word}: ${d.message}`}" aria-label="${`Ionwright ${word} ${n}: ${d.message}`}">${d.severity === 'error' ? '✖' : d.severity === 'warning' ? '⚠' : 'ℹ'}<sup>${n}</sup></a>`);
   }
-  return out;
+  return out.length ? join(out) : NO_MARKS;
 }
 
 function worst(diagnostics: readonly ChemDiagnostic[]): ChemDiagnostic['severity'] | undefined {
@@ -88,52 +98,32 @@ function worst(diagnostics: readonly ChemDiagnostic[]): ChemDiagnostic['severity
   return w;
 }
 
-/** A typeset formula's inner HTML and escaped tooltip, memoised per analysis (and settings object). */
-const spans = new WeakMap<FormulaAnalysis, { settings: ServiceSettings; title: string; html: string }>();
-
-export function formulaSpan(a: FormulaAnalysis, s: ServiceSettings, cls: string): string {
-  let hit = spans.get(a);
-  if (!hit || hit.settings !== s) spans.set(a, (hit = { settings: s, title: escapeHtml(formulaTitle(a, s)), html: typesetDisplay(a.display) }));
-  return `<span class="iw-formula${cls}" title="${hit.title}">${hit.html}</span>`;
-}
-
-/** The tooltip of a typeset formula: the headline numbers of its card. */
-export function formulaTitle(a: FormulaAnalysis, s: ServiceSettings): string {
-  const bits = [`${a.display}: ${a.molarMass ? `${a.molarMass.value.toFixed(s.decimals)} g/mol` : 'no molar mass'}`];
-  if (a.charges && !a.charges.balanced) bits.push(`not charge-balanced: ${a.charges.message}`);
-  if (a.bond) bits.push(`${a.bond.type}, ΔEN ${a.bond.deltaEN.toFixed(2)} (${a.bond.pair.join('–')})`);
-  if (a.lattice) bits.push(`lattice energy ${a.lattice.estimate ? '≈ ' : ''}${Math.round(a.lattice.kJPerMol)} kJ/mol (${a.lattice.method}${a.lattice.estimate ? ', estimate' : ''})`);
-  const c = cautionsFor(a);
-  if (c.length) bits.push(`caution: ${c.map((x) => x.text).join('; ')}; follow the SDS`);
-  return bits.join(' · ');
-}
-
-export function reactionMark(r: ReactionAnalysis): string {
+export function reactionMark(r: ReactionAnalysis): Html {
   const st = r.balance.status;
-  if (!r.ok) return '';
-  if (st === 'already-balanced') return '<span class="iw-mark iw-balanced" title="Atoms and charge balance as written">✓ balanced</span>';
-  return `<span class="iw-mark iw-unbalanced" title="${escapeHtml(r.balance.message)}">✗ not balanced</span>`;
+  if (!r.ok) return html``;
+  if (st === 'already-balanced') return html`<span class="iw-mark iw-balanced" title="Atoms and charge balance as written">✓ balanced</span>`;
+  return html`<span class="iw-mark iw-unbalanced" title="${r.balance.message}">✗ not balanced</span>`;
 }
 
 /** The typeset balanced form of an equation that was balanced, or undefined. */
-function balancedForm(r: ReactionAnalysis): string | undefined {
+function balancedForm(r: ReactionAnalysis): Html | undefined {
   return r.balance.status === 'balanced' && r.balance.coefficients ? typesetEquation(r.parsed, r.balance.coefficients) : undefined;
 }
 
 function inlineReaction(r: ReactionAnalysis, o: PreviewOptions, state: RenderState, fallback: string): string {
   const flags = mark(state, r.diagnostics, r.text);
-  if (!o.typesetFormulas || !r.ok) return `<span class="iw-code-flagged">${fallback}</span>${flags}`;
+  if (!o.typesetFormulas || !r.ok) return html`<span class="iw-code-flagged">${trusted(fallback)}</span>${flags}`.value;
   const form = balancedForm(r);
-  const balanced = form ? ` <span class="iw-balanced-form">(balanced: ${form})</span>` : '';
-  return `<span class="iw-equation" title="${escapeHtml(r.balance.message)}">${typesetEquation(r.parsed)}</span> ${reactionMark(r)}${balanced}${flags}`;
+  const balanced = form ? html` <span class="iw-balanced-form">(balanced: ${form})</span>` : '';
+  return html`<span class="iw-equation" title="${r.balance.message}">${typesetEquation(r.parsed)}</span> ${reactionMark(r)}${balanced}${flags}`.value;
 }
 
 function inlineFormula(a: FormulaAnalysis, o: PreviewOptions, state: RenderState, fallback: string): string {
   const flags = mark(state, a.diagnostics, a.input);
   const w = worst(a.diagnostics);
-  if (!o.typesetFormulas || !a.ok || !a.molarMass) return w ? `<span class="iw-code-flagged iw-${w}">${fallback}</span>${flags}` : fallback;
+  if (!o.typesetFormulas || !a.ok || !a.molarMass) return w ? html`<span class="iw-code-flagged iw-${w}">${trusted(fallback)}</span>${flags}`.value : fallback;
   const cls = w ? ` iw-${w}` : '';
-  return formulaSpan(a, o.settings, cls) + flags;
+  return formulaSpan(a, o.settings, cls).value + flags.value;
 }
 
 /**
@@ -143,17 +133,17 @@ function inlineFormula(a: FormulaAnalysis, o: PreviewOptions, state: RenderState
  */
 const proseCaches = [new CachesBySettings<string | null>(25_000, 16 * 1024 * 1024), new CachesBySettings<string | null>(25_000, 16 * 1024 * 1024)];
 
-function proseHtml(text: string, o: PreviewOptions, state: RenderState, escape: (t: string) => string): string | undefined {
+function proseHtml(text: string, o: PreviewOptions, state: RenderState): string | undefined {
   const cache = proseCaches[o.typesetFormulas ? 1 : 0].for(o.settings);
   const hit = cache.get(text);
   if (hit !== undefined) return hit ?? undefined;
   const before = state.problems.length;
-  const html = proseHtmlUncached(text, o, state, escape);
+  const rendered = proseHtmlUncached(text, o, state);
   if (state.problems.length === before && !state.silent) {
-    const value = html === undefined ? null : detach(html);
+    const value = rendered === undefined ? null : detach(rendered);
     cache.set(detach(text), value, value === null ? 0 : 2 * value.length);
   }
-  return html;
+  return rendered;
 }
 
 /** Forget the memoised prose (benchmarks of a cold render). */
@@ -166,24 +156,24 @@ export function clearPreviewCache() {
  * Bare formulas in prose, read by the editor's own prose rule (setting `prose`): typeset, and their problems
  * marked (information findings are not shown for prose, as in the editor).
  */
-function proseHtmlUncached(text: string, o: PreviewOptions, state: RenderState, escape: (t: string) => string): string | undefined {
+function proseHtmlUncached(text: string, o: PreviewOptions, state: RenderState): string | undefined {
   const found: FormulaRef[] = [];
   scanProse(text, 0, text.length, o.settings.prose, found);
   if (found.length === 0) return undefined;
-  let out = '';
+  const out: Html[] = [];
   let at = 0;
   for (const f of found) {
     const a = analyseFormula(f.text, o.settings.chem);
     const shown = a.diagnostics.filter((d) => d.severity !== 'information');
-    out += escape(text.slice(at, f.start));
     const flags = mark(state, shown, f.text);
     const w = worst(shown);
-    if (o.typesetFormulas && a.ok && a.molarMass) out += formulaSpan(a, o.settings, ` iw-prose${w ? ` iw-${w}` : ''}`);
-    else out += w ? `<span class="iw-code-flagged iw-${w}">${escape(f.text)}</span>` : escape(f.text);
-    out += flags;
+    const body = o.typesetFormulas && a.ok && a.molarMass
+      ? formulaSpan(a, o.settings, ` iw-prose${w ? ` iw-${w}` : ''}`)
+      : w ? html`<span class="iw-code-flagged iw-${w}">${f.text}</span>` : f.text;
+    out.push(html`${text.slice(at, f.start)}${body}${flags}`);
     at = f.end;
   }
-  return out + escape(text.slice(at));
+  return html`${out}${text.slice(at)}`.value;
 }
 
 // ── fenced blocks ─────────────────────────────────────────────────────────
@@ -203,88 +193,72 @@ function analyseFence(info: 'batch' | 'reaction', content: string, settings: Ser
 }
 
 /** A batch without findings renders the same every time: memoised per analysis and settings object. */
-const batches = new WeakMap<BatchAnalysis, { settings: ServiceSettings; html: string }>();
+const batches = new WeakMap<BatchAnalysis, { settings: ServiceSettings; weighed: boolean; html: Html }>();
 
-export function batchHtml(b: BatchAnalysis, o: PreviewOptions, state: RenderState, lineOf: (d: ChemDiagnostic) => number | undefined, subjectOf: (d: ChemDiagnostic) => string): string {
+export function batchHtml(b: BatchAnalysis, o: PreviewOptions, state: RenderState, lineOf: (d: ChemDiagnostic) => number | undefined, subjectOf: (d: ChemDiagnostic) => string): Html {
   if (b.diagnostics.length) return batchHtmlUncached(b, o, state, lineOf, subjectOf);
   const hit = batches.get(b);
-  if (hit && hit.settings === o.settings) return hit.html;
-  const html = batchHtmlUncached(b, o, state, lineOf, subjectOf);
-  batches.set(b, { settings: o.settings, html });
-  return html;
+  if (hit && hit.settings === o.settings && hit.weighed === !!o.weighedColumn) return hit.html;
+  const out = batchHtmlUncached(b, o, state, lineOf, subjectOf);
+  batches.set(b, { settings: o.settings, weighed: !!o.weighedColumn, html: out });
+  return out;
 }
 
-function batchHtmlUncached(b: BatchAnalysis, o: PreviewOptions, state: RenderState, lineOf: (d: ChemDiagnostic) => number | undefined, subjectOf: (d: ChemDiagnostic) => string): string {
+function batchHtmlUncached(b: BatchAnalysis, o: PreviewOptions, state: RenderState, lineOf: (d: ChemDiagnostic) => number | undefined, subjectOf: (d: ChemDiagnostic) => string): Html {
   const s = o.settings;
-  const head = [
-    `<strong>${escapeHtml(b.name ?? 'Batch')}</strong>`,
-    b.volumeL !== null ? `final volume ${sig(b.volumeL * 1000)} mL` : 'no final volume given',
-    b.totalMassG !== null ? `total ${sig(b.totalMassG)} g` : null,
-  ].filter(Boolean);
   const inRow = new Set<ChemDiagnostic>();
-  const flagsOf = (start: number, end: number) => {
+  const flagsOf = (start: number, end: number): Html | '' => {
     const own = b.diagnostics.filter((d) => d.severity !== 'hint' && !inRow.has(d) && d.start >= start && d.start <= end);
     for (const d of own) inRow.add(d);
     return own.length ? mark(state, own, subjectOf(own[0]), lineOf) : '';
   };
-  const heads = shareHeads(b);
   // Every line in the order written: counted ingredients with their figures, the others with why they are not counted.
-  const entries: Array<{ at: number; i?: Ingredient; l?: SkippedLine }> = [
-    ...b.ingredients.map((i) => ({ at: i.lineStart, i })),
-    ...b.skipped.map((l) => ({ at: l.lineStart, l })),
-  ].sort((x, y) => x.at - y.at);
-  const rows = entries.map(({ i, l }) => {
-    if (l) {
-      return `<tr class="iw-skipped"><td class="iw-ing"><code>${escapeHtml(l.text)}</code>${flagsOf(l.lineStart, l.lineEnd)}</td>` +
-        `<td class="iw-reason" colspan="${5 + heads.length}"><strong>not counted</strong>: ${escapeHtml(l.reason)}</td></tr>`;
-    }
-    const g = i as Ingredient;
-    return `<tr><td class="iw-ing">${g.analysis.ok ? formulaSpan(g.analysis, s, '') : escapeHtml(g.formulaText)}${flagsOf(g.lineStart, g.lineEnd)}</td>` +
-      `<td>${escapeHtml(amountText(g))}</td>` +
-      `<td class="iw-n">${g.molarMass.toFixed(s.decimals)}</td>` +
-      `<td class="iw-n">${sig(g.massG)}</td>` +
-      `<td class="iw-n">${sig(g.moles)}</td>` +
-      `<td class="iw-n">${sig(g.concentrationM)}</td>` +
-      shareCells(b, g).map((c) => `<td class="iw-n">${c}</td>`).join('') + '</tr>';
+  const cols = batchColumns(b, s, (i: Ingredient) => flagsOf(i.lineStart, i.lineEnd));
+  if (o.weighedColumn) cols.push({ key: 'weighed', head: 'Weighed', align: 'left', cls: 'iw-weighed', text: () => '', html: () => html`<span class="iw-tick" aria-hidden="true"></span>` });
+  const table = htmlTable(cols, batchRows(b), {
+    rowClass: (r: BatchRow) => (r.skipped ? 'iw-skipped' : undefined),
+    wide: (r: BatchRow) => r.skipped
+      ? { first: html`<code>${r.skipped.text}</code>${flagsOf(r.skipped.lineStart, r.skipped.lineEnd)}`, rest: html`<strong>not counted</strong>: ${r.skipped.reason}`, restClass: 'iw-reason' }
+      : undefined,
   });
-  const incomplete = b.skipped.length ? ` · <strong class="iw-incomplete">incomplete: ${notCountedText(b)}</strong>` : '';
-  const parts = [
-    `<figcaption>${head.join(' · ')}${incomplete} <span class="iw-by">computed by Ionwright</span></figcaption>`,
-    `<table class="iw-table"><thead><tr><th>Ingredient</th><th>Amount</th><th>Molar mass (g/mol)</th><th>To weigh (g)</th><th>Moles (mol)</th><th>Concentration (M)</th>${heads.map((h) => `<th>${h}</th>`).join('')}</tr></thead>`,
-    `<tbody>${rows.join('')}</tbody></table>`,
+  const head = [
+    html`<strong class="iw-batch-name">${b.name ?? 'Batch'}</strong>`,
+    b.volumeL !== null ? `final volume ${volumeText(b.volumeL)}` : 'no final volume given',
+    b.totalMassG !== null ? `total ${sig(b.totalMassG)} g` : null,
+  ].filter((x): x is Html | string => x !== null);
+  const incomplete = b.skipped.length ? html` · <strong class="iw-incomplete">incomplete: ${notCountedText(b)}</strong>` : '';
+  const parts: Html[] = [
+    html`<figcaption>${join(head, ' · ')}${incomplete} <span class="iw-by">computed by Ionwright</span></figcaption>`,
+    table,
   ];
-  if (b.ions.length) {
-    parts.push('<table class="iw-table iw-ions"><thead><tr><th>Ion</th><th>Charge</th><th>Concentration (M)</th></tr></thead><tbody>' +
-      b.ions.map((x) => `<tr><td>${typesetDisplay(x.ion)}</td><td class="iw-n">${formatSignedCharge(x.charge)}</td><td class="iw-n">${sig(x.concentrationM)}</td></tr>`).join('') +
-      '</tbody></table>');
-  }
+  if (b.ions.length) parts.push(htmlTable(ION_COLUMNS, b.ions, { cls: 'iw-ions' }));
   if (b.ionicStrengthM !== null) {
-    parts.push(`<p class="iw-summary">Ionic strength <var>I</var> = ½ Σ <var>c</var><sub><var>i</var></sub><var>z</var><sub><var>i</var></sub><sup>2</sup> = <strong>${sig(b.ionicStrengthM)} M</strong>; net charge ${sig(b.netChargeEqPerL ?? 0, 2)} eq/L.</p>`);
+    parts.push(html`<p class="iw-summary">Ionic strength <var>I</var> = ½ Σ <var>c</var><sub><var>i</var></sub><var>z</var><sub><var>i</var></sub><sup>2</sup> = <strong>${sig(b.ionicStrengthM)} M</strong>; net charge ${sig(b.netChargeEqPerL ?? 0, 2)} eq/L.</p>`);
   }
   const undissociated = undissociatedOf(b).map((i) => typesetDisplay(i.formula));
-  if (undissociated.length) parts.push(`<p class="iw-note">Not split into ions: ${undissociated.join(', ')}.</p>`);
-  for (const n of b.notes) parts.push(`<p class="iw-note">${escapeHtml(n)}</p>`);
+  if (undissociated.length) parts.push(html`<p class="iw-note">Not split into ions: ${join(undissociated, ', ')}.</p>`);
+  for (const n of b.notes) parts.push(html`<p class="iw-note">${n}</p>`);
   if (b.cautions.length) {
-    parts.push(`<div class="iw-cautions" role="note"><strong>Cautions</strong><ul>${b.cautions.map((c) => `<li>${escapeHtml(c.text)}</li>`).join('')}</ul><p>${escapeHtml(CAUTION_FOOTNOTE)}</p></div>`);
+    parts.push(html`<div class="iw-cautions" role="note"><strong>Cautions</strong><ul>${b.cautions.map((c) => html`<li>${c.text}</li>`)}</ul><p>${CAUTION_FOOTNOTE}</p></div>`);
   }
   if (b.diagnostics.length) {
     const items = b.diagnostics.filter((d) => d.severity !== 'hint' && !inRow.has(d)).map((d) => {
       const line = lineOf(d);
-      return `<li class="iw-${d.severity}">${mark(state, [d], subjectOf(d), lineOf)} ${line !== undefined ? `line ${line}: ` : ''}${escapeHtml(d.message)}</li>`;
+      return html`<li class="iw-${d.severity}">${mark(state, [d], subjectOf(d), lineOf)} ${line !== undefined ? `line ${line}: ` : ''}${d.message}</li>`;
     });
-    if (items.length) parts.push(`<ul class="iw-findings">${items.join('')}</ul>`);
+    if (items.length) parts.push(html`<ul class="iw-findings">${items}</ul>`);
   }
-  return parts.join('\n');
+  return join(parts, '\n');
 }
 
-export function reactionBlockHtml(r: ReactionAnalysis, state: RenderState, line: number | undefined): string {
+export function reactionBlockHtml(r: ReactionAnalysis, state: RenderState, line: number | undefined): Html {
   const flags = mark(state, r.diagnostics, r.text, () => line);
-  if (!r.ok) return `<div class="iw-reaction iw-unreadable"><code>${escapeHtml(r.text)}</code>${flags}</div>`;
+  if (!r.ok) return html`<div class="iw-reaction iw-unreadable"><code>${r.text}</code>${flags}</div>`;
   const form = balancedForm(r);
   const balanced = form
-    ? `<div class="iw-balanced-form">Balanced: ${form}</div>`
-    : r.balance.status !== 'already-balanced' ? `<div class="iw-balanced-form">${escapeHtml(r.balance.message)}</div>` : '';
-  return `<div class="iw-reaction"><span class="iw-equation">${typesetEquation(r.parsed)}</span> ${reactionMark(r)}${flags}${balanced}</div>`;
+    ? html`<div class="iw-balanced-form">Balanced: ${form}</div>`
+    : r.balance.status !== 'already-balanced' ? html`<div class="iw-balanced-form">${r.balance.message}</div>` : '';
+  return html`<div class="iw-reaction"><span class="iw-equation">${typesetEquation(r.parsed)}</span> ${reactionMark(r)}${flags}${balanced}</div>`;
 }
 
 // ── the plugin ────────────────────────────────────────────────────────────
@@ -305,8 +279,8 @@ export function ionwrightPreview(md: MarkdownIt, options?: OptionsSource): void 
     return s ? (s.options ??= read()) : read();
   };
   const rules = md.renderer.rules;
-  const baseCode = rules.code_inline ?? ((tokens: Token[], idx: number) => `<code>${escapeHtml(tokens[idx].content)}</code>`);
-  const baseFence = rules.fence ?? ((tokens: Token[], idx: number) => `<pre><code>${escapeHtml(tokens[idx].content)}</code></pre>\n`);
+  const baseCode = rules.code_inline ?? ((tokens: Token[], idx: number) => html`<code>${tokens[idx].content}</code>`.value);
+  const baseFence = rules.fence ?? ((tokens: Token[], idx: number) => html`<pre><code>${tokens[idx].content}</code></pre>\n`.value);
 
   // A fresh list of problems per parse, and a place at the end of the page to list them.
   md.core.ruler.push('ionwright_problems', (state) => {
@@ -329,12 +303,12 @@ export function ionwrightPreview(md: MarkdownIt, options?: OptionsSource): void 
     }
   };
 
-  const baseText = rules.text ?? ((tokens: Token[], idx: number) => escapeHtml(tokens[idx].content));
+  const baseText = rules.text ?? ((tokens: Token[], idx: number) => toHtml(tokens[idx].content));
   rules.text = (tokens, idx, opts, env, self) => {
     const o = current(env);
     if (o.settings.prose === 'off') return baseText(tokens, idx, opts, env, self);
     try {
-      return proseHtml(tokens[idx].content, o, stateOf(env), md.utils.escapeHtml) ?? baseText(tokens, idx, opts, env, self);
+      return proseHtml(tokens[idx].content, o, stateOf(env)) ?? baseText(tokens, idx, opts, env, self);
     } catch {
       return baseText(tokens, idx, opts, env, self);
     }
@@ -352,15 +326,17 @@ export function ionwrightPreview(md: MarkdownIt, options?: OptionsSource): void 
       const sourceLine = (offset: number) => (t.map ? t.map[0] + 1 + contentLine(offset) + 1 : undefined);
       const contentLines = t.content.split('\n');
       const lineText = (offset: number) => contentLines[contentLine(offset)]?.trim() ?? '';
-      const attrs = self.renderAttrs(t);
-      const source = `<details class="iw-source"><summary>As written</summary><pre><code>${escapeHtml(t.content)}</code></pre></details>`;
+      // The host's own attributes (source lines for scroll sync), rendered by the host.
+      const attrs = trusted(self.renderAttrs(t));
+      const source = html`<details class="iw-source"><summary>As written</summary><pre><code>${t.content}</code></pre></details>`;
       if (info === 'batch') {
         const bodies = doc.batches.map((b) => batchHtml(b.analysis, o, state, (d) => sourceLine(d.start), (d) => lineText(d.start)));
         const unclosed = doc.diagnostics.filter((d) => d.code === 'batch-unclosed');
-        return `<figure class="iw-batch"${attrs}>\n${bodies.join('\n') || '<p>An empty batch block.</p>'}${unclosed.length ? mark(state, unclosed, 'batch') : ''}\n${source}</figure>\n`;
+        const incomplete = doc.batches.some((b) => b.analysis.skipped.length > 0);
+        return html`<figure class="iw-batch${incomplete ? ' iw-batch-incomplete' : ''}"${attrs}>\n${bodies.length ? join(bodies, '\n') : html`<p>An empty batch block.</p>`}${unclosed.length ? mark(state, unclosed, 'batch') : ''}\n${source}</figure>\n`.value;
       }
       const lines = doc.reactions.map((r) => reactionBlockHtml(r.analysis, state, sourceLine(r.ref.start)));
-      return `<figure class="iw-reactions"${attrs}>\n${lines.join('\n') || '<p>No equations in this block.</p>'}\n${source}</figure>\n`;
+      return html`<figure class="iw-reactions"${attrs}>\n${lines.length ? join(lines, '\n') : html`<p>No equations in this block.</p>`}\n${source}</figure>\n`.value;
     } catch {
       return baseFence(tokens, idx, opts, env, self);
     }
@@ -370,10 +346,9 @@ export function ionwrightPreview(md: MarkdownIt, options?: OptionsSource): void 
     const problems = stateOf(env).problems;
     if (problems.length === 0) return '';
     const items = problems.map((p) =>
-      `<li id="iw-problem-${p.n}" class="iw-${p.severity}"><a href="#iw-flag-${p.n}" title="Back to the text">${p.n}</a> ` +
-      `<span class="iw-sev">${SEVERITY_WORD[p.severity]}</span> <code>${escapeHtml(p.subject)}</code>${p.line !== undefined ? ` (line ${p.line})` : ''}: ${escapeHtml(p.message)} <span class="iw-code">${escapeHtml(p.code)}</span></li>`,
+      html`<li id="iw-problem-${p.n}" class="iw-${p.severity}"><a href="#iw-flag-${p.n}" title="Back to the text">${p.n}</a> <span class="iw-sev">${SEVERITY_WORD[p.severity]}</span> <code>${p.subject}</code>${p.line !== undefined ? ` (line ${p.line})` : ''}: ${p.message} <span class="iw-code">${p.code}</span></li>`,
     );
     const n = problems.length;
-    return `<section class="iw-problems" aria-label="Ionwright findings"><p><strong>Ionwright: ${n} finding${n === 1 ? '' : 's'} in these notes</strong></p><ol>${items.join('')}</ol></section>\n`;
+    return html`<section class="iw-problems" aria-label="Ionwright findings"><p><strong>Ionwright: ${plural(n, 'finding')} in these notes</strong></p><ol>${items}</ol></section>\n`.value;
   };
 }

@@ -9,15 +9,14 @@
 import type { MarkdownIt } from 'markdown-it';
 import type { FormulaAnalysis } from '../chem/analyse';
 import { CAUTION_FOOTNOTE, cautionsFor } from '../chem/cautions';
-import { subscriptDigits } from '../chem/formula/compute';
 import { TYPICAL_ERROR } from '../chem/lattice/lattice';
-import { oxidationText } from './card';
 import { latticeChart, type LatticePoint } from './chart';
+import { FINDING_COLUMNS, formulaColumns, htmlTable, SEVERITY_WORD } from './columns';
 import { documentDiagnostics } from './diagnostics';
 import type { AnalysedDocument } from './document';
-import { batchHtml, formulaSpan, ionwrightPreview, reactionBlockHtml, silentState, type PreviewOptions } from './preview';
-import { shortMethod } from './tables';
-import { escapeHtml } from './typeset';
+import { formulaText } from './format';
+import { Html, html, join, trusted } from './html';
+import { batchHtml, ionwrightPreview, reactionBlockHtml, silentState, type PreviewOptions } from './preview';
 
 export interface ReportOptions {
   /** Shown as the page title, usually the file's path. */
@@ -29,8 +28,6 @@ export interface ReportOptions {
   /** E.g. "Ionwright 0.1.0, 2026-12-02"; left out when absent, so that tests can compare pages. */
   generator?: string;
 }
-
-const SEVERITY = { 1: 'error', 2: 'warning', 3: 'information', 4: 'hint' } as const;
 
 /** The page's own layout; colours come from the same variables as the preview. */
 const PAGE_CSS = `
@@ -52,6 +49,20 @@ table.iw-findings-table td:first-child { white-space: nowrap; font-variant-numer
 .iw-rendered { border: 1px solid var(--iw-border); border-radius: 3px; padding: 0 1em; }
 footer { margin-top: 2.5em; color: var(--iw-muted); font-size: 0.88em; }
 code { font-family: ui-monospace, "SFMono-Regular", Menlo, Consolas, monospace; font-size: 0.92em; }
+.iw-toc { margin: 0.4em 0 0; font-size: 0.92em; }
+.iw-toc a { color: var(--iw-info); }
+section.iw-bench h2:first-child { margin-top: 1.2em; }
+.iw-bench-note { font-size: 0.92em; }
+/* Printed, the batches are the weighing sheet: they start the first page, each whole on a page; the rest follows on new pages. */
+@media print {
+  body { max-width: none; padding: 0; color: #000; background: #fff; font-size: 11pt; }
+  .iw-counts, .iw-toc, .iw-rendered, #notes { display: none; }
+  .iw-caveat { border-left: 2px solid #000; background: none; }
+  h2 { break-after: avoid; }
+  #findings { break-before: page; }
+  figure.iw-chart { break-inside: avoid; }
+  footer { color: #000; }
+}
 `;
 
 /** Distinct readable formulas, in order of appearance. */
@@ -81,7 +92,7 @@ export function latticePoints(formulas: readonly FormulaAnalysis[]): LatticePoin
     if (!L || seen.has(L.salt)) continue;
     seen.add(L.salt);
     points.push({
-      label: subscriptDigits(L.salt),
+      label: formulaText(L.salt),
       kJPerMol: L.kJPerMol,
       method: L.method,
       estimate: L.estimate,
@@ -93,27 +104,9 @@ export function latticePoints(formulas: readonly FormulaAnalysis[]): LatticePoin
   return points;
 }
 
-function formulaRows(list: readonly FormulaAnalysis[], o: PreviewOptions): string {
-  const s = o.settings;
-  return list.map((a) => {
-    const L = a.lattice;
-    const lattice = L ? `${L.estimate ? '≈ ' : ''}${Math.round(L.kJPerMol)} <span class="iw-by">${escapeHtml(shortMethod(L.method))}${L.estimate ? ', estimate' : ''}</span>` : '—';
-    const balance = a.charges ? (a.charges.balanced ? 'balanced' : `<span class="iw-formula iw-warning">not balanced</span>: ${escapeHtml(a.charges.message)}`) : '—';
-    const cautions = cautionsFor(a);
-    return `<tr><td>${formulaSpan(a, s, '')}${cautions.length ? ` <span title="${escapeHtml(cautions.map((c) => c.text).join('; '))}">⚠</span>` : ''}</td>` +
-      `<td class="iw-n">${(a.molarMass as { value: number }).value.toFixed(s.decimals)}</td>` +
-      `<td>${a.bond ? escapeHtml(a.bond.type) : '—'}</td>` +
-      `<td>${a.bond ? `${a.bond.deltaEN.toFixed(2)} (${escapeHtml(a.bond.pair.join('–'))})` : '—'}</td>` +
-      `<td class="iw-n">${a.bond ? `${a.bond.percentIonic.toFixed(0)} %` : '—'}</td>` +
-      `<td>${lattice}</td>` +
-      `<td>${a.charges?.oxidationStates ? escapeHtml(oxidationText(a.charges.oxidationStates)) : '—'}</td>` +
-      `<td>${balance}</td></tr>`;
-  }).join('\n');
-}
-
-/** The whole page. */
+/** The whole page: what goes to the bench first (batches and their cautions), then the findings, the reactions, the formulas with bonding and lattice energy, the chart, and the notes. */
 export function reportHtml(doc: AnalysedDocument, options: ReportOptions): string {
-  const o: PreviewOptions = { typesetFormulas: true, settings: doc.settings };
+  const o: PreviewOptions = { typesetFormulas: true, settings: doc.settings, weighedColumn: true };
   const formulas = distinctFormulas(doc);
   const diagnostics = documentDiagnostics(doc);
   const points = latticePoints(formulas);
@@ -123,66 +116,65 @@ export function reportHtml(doc: AnalysedDocument, options: ReportOptions): strin
     return doc.text.slice(doc.lines.offsetAt({ line: p.line, character: 0 }), doc.lines.offsetAt({ line: p.line + 1, character: 0 })).trim();
   };
   const count = (sev: number) => diagnostics.filter((d) => d.severity === sev).length;
-  const plural = (n: number, word: string) => `<strong>${n}</strong> ${n === 1 ? word : /(ch|sh|s|x)$/.test(word) ? `${word}es` : `${word}s`}`;
-  const cautions = [...new Set(formulas.flatMap((a) => cautionsFor(a).map((c) => c.text)))];
+  const plural = (n: number, word: string) => html`<strong>${n}</strong> ${n === 1 ? word : /(ch|sh|s|x)$/.test(word) ? `${word}es` : `${word}s`}`;
+  // One line per caution, naming every substance it applies to (as the batches do).
+  const byText = new Map<string, string[]>();
+  for (const a of formulas) for (const c of cautionsFor(a)) (byText.get(c.text) ?? byText.set(c.text, []).get(c.text)!).push(a.display);
+  const cautions = [...byText].map(([text, who]) => `${who.join(', ')}: ${text}`);
+  const incomplete = doc.batches.filter((b) => b.analysis.skipped.length > 0).length;
 
-  const parts: string[] = [];
-  parts.push(`<header><h1>${escapeHtml(options.title)}</h1><p class="iw-sub">Ionwright report${options.generator ? ` · ${escapeHtml(options.generator)}` : ''}</p>`);
-  parts.push(`<ul class="iw-counts"><li>${plural(formulas.length, 'formula')}</li><li>${plural(doc.batches.length, 'batch')}</li><li>${plural(doc.reactions.length, 'reaction')}</li>` +
-    `<li>${plural(count(1), 'error')}</li><li>${plural(count(2), 'warning')}</li><li>${plural(points.length, 'salt')} charted</li></ul></header>`);
-  parts.push('<p class="iw-caveat" role="note">Lattice energies marked ≈ are model estimates, not measurements; molar masses use the CIAAW 2021 standard atomic weights. ' +
-    'Batch figures assume full dissociation of strong electrolytes; weak acids and bases stay undissociated, and activities and non-ideal mixing are not modelled.</p>');
+  const parts: Html[] = [];
+  parts.push(html`<header><h1>${options.title}</h1><p class="iw-sub">Ionwright report${options.generator ? ` · ${options.generator}` : ''}</p><ul class="iw-counts"><li>${plural(doc.batches.length, 'batch')}${incomplete ? html` <span class="iw-incomplete">(${incomplete} incomplete)</span>` : ''}</li><li>${plural(count(1), 'error')}</li><li>${plural(count(2), 'warning')}</li><li>${plural(doc.reactions.length, 'reaction')}</li><li>${plural(formulas.length, 'formula')}</li><li>${plural(points.length, 'salt')} charted</li></ul><nav class="iw-toc" aria-label="Sections"><a href="#batches">Batches</a> · <a href="#findings">Findings</a> · <a href="#reactions">Reactions</a> · <a href="#formulas">Formulas</a> · <a href="#lattice">Lattice energies</a>${doc.language === 'markdown' ? html` · <a href="#notes">Notes</a>` : ''}</nav></header>`);
 
-  parts.push('<h2 id="formulas">Formulas</h2>');
-  if (formulas.length) {
-    parts.push('<table class="iw-table"><thead><tr><th>Formula</th><th>Molar mass (g/mol)</th><th>Bond type</th><th>ΔEN (pair)</th><th>Ionic character</th><th>Lattice energy (kJ/mol)</th><th>Oxidation states</th><th>Charge balance</th></tr></thead><tbody>');
-    parts.push(formulaRows(formulas, o), '</tbody></table>');
-  } else parts.push('<p>No formulas in these notes.</p>');
-
-  parts.push('<h2 id="lattice">Lattice energies</h2>');
-  parts.push(`<figure class="iw-chart">${latticeChart(points, { title: 'Lattice energy against 1/(r₊ + r₋)' })}` +
-    `<figcaption>Lattice energy against 1/(r₊ + r₋) with six-coordinate Shannon radii (thermochemical radii for polyatomic ions); Coulomb's law makes it grow with z₊z₋/r₀. ` +
-    `Typical errors: Kapustinskii ${escapeHtml(TYPICAL_ERROR['Kapustinskii equation'] ?? '')}; Born–Mayer ${escapeHtml(TYPICAL_ERROR['Born–Mayer equation'] ?? '')}.</figcaption></figure>`);
-  if (points.some((p) => p.inverseR0 === null)) {
-    parts.push(`<figure class="iw-chart">${latticeChart(points, { x: 'charge-product', title: 'Lattice energy against the charge product' })}<figcaption>Against |z₊z₋|, for the salts whose radii are not all known.</figcaption></figure>`);
-  }
-
-  parts.push('<h2 id="batches">Batches</h2>');
+  // What goes to the bench: each batch's weighing and pouring, an incomplete one marked.
+  parts.push(html`<section class="iw-bench" aria-labelledby="batches"><h2 id="batches">Batches: what to weigh and pour</h2>`);
   if (doc.batches.length) {
+    parts.push(html`<p class="iw-caveat iw-bench-note" role="note">Figures assume full dissociation of strong electrolytes; weak acids and bases stay undissociated, and activities and non-ideal mixing are not modelled. Check each mass against the notes before weighing.</p>`);
     for (const b of doc.batches) {
-      parts.push(`<figure class="iw-batch">${batchHtml(b.analysis, o, silentState(), (d) => lineOf(d.start), (d) => lineText(d.start))}<p class="iw-by">Block at line ${lineOf(b.ref.start)}.</p></figure>`);
+      const cls = b.analysis.skipped.length ? 'iw-batch iw-batch-incomplete' : 'iw-batch';
+      parts.push(html`<figure class="${cls}">${batchHtml(b.analysis, o, silentState(), (d) => lineOf(d.start), (d) => lineText(d.start))}<p class="iw-by">Block at line ${lineOf(b.ref.start)}.</p></figure>`);
     }
-  } else parts.push('<p>No batch blocks in these notes.</p>');
-
-  parts.push('<h2 id="reactions">Reactions</h2>');
-  if (doc.reactions.length) parts.push(`<figure class="iw-reactions">${doc.reactions.map((r) => reactionBlockHtml(r.analysis, silentState(), lineOf(r.ref.start))).join('\n')}</figure>`);
-  else parts.push('<p>No reactions in these notes.</p>');
-
-  parts.push('<h2 id="findings">Findings</h2>');
-  if (diagnostics.length) {
-    parts.push('<table class="iw-table iw-findings-table"><thead><tr><th>Line:col</th><th>Severity</th><th>Code</th><th>Message</th></tr></thead><tbody>' +
-      diagnostics.map((d) => `<tr class="iw-${SEVERITY[d.severity]}"><td>${d.range.start.line + 1}:${d.range.start.character + 1}</td><td>${SEVERITY[d.severity]}</td><td><code>${escapeHtml(d.code)}</code></td><td>${escapeHtml(d.message)}</td></tr>`).join('') +
-      '</tbody></table>');
-  } else parts.push('<p>No findings.</p>');
-
+  } else parts.push(html`<p>No batch blocks in these notes.</p>`);
   if (cautions.length) {
-    parts.push('<h2 id="cautions">Cautions</h2>', `<div class="iw-cautions" role="note"><ul>${cautions.map((c) => `<li>${escapeHtml(c)}</li>`).join('')}</ul><p>${escapeHtml(CAUTION_FOOTNOTE)}</p></div>`);
+    parts.push(html`<h2 id="cautions">Cautions</h2>`, html`<div class="iw-cautions" role="note"><ul>${cautions.map((c) => html`<li>${c}</li>`)}</ul><p>${CAUTION_FOOTNOTE}</p></div>`);
+  }
+  parts.push(html`</section>`);
+
+  parts.push(html`<h2 id="findings">Findings</h2>`);
+  if (diagnostics.length) {
+    parts.push(htmlTable(FINDING_COLUMNS, diagnostics, { cls: 'iw-findings-table', rowClass: (d) => `iw-${SEVERITY_WORD[d.severity]}` }));
+  } else parts.push(html`<p>No findings.</p>`);
+
+  parts.push(html`<h2 id="reactions">Reactions</h2>`);
+  if (doc.reactions.length) parts.push(html`<figure class="iw-reactions">${join(doc.reactions.map((r) => reactionBlockHtml(r.analysis, silentState(), lineOf(r.ref.start))), '\n')}</figure>`);
+  else parts.push(html`<p>No reactions in these notes.</p>`);
+
+  parts.push(html`<h2 id="formulas">Formulas</h2>`);
+  if (formulas.length) parts.push(htmlTable(formulaColumns(o.settings), formulas));
+  else parts.push(html`<p>No formulas in these notes.</p>`);
+  parts.push(html`<p class="iw-caveat" role="note">Lattice energies marked ≈ are model estimates, not measurements; molar masses use the CIAAW 2021 standard atomic weights.</p>`);
+
+  parts.push(html`<h2 id="lattice">Lattice energies</h2>`);
+  // The chart's SVG is built by chart.ts, which escapes its own text.
+  parts.push(html`<figure class="iw-chart">${trusted(latticeChart(points, { title: 'Lattice energy against 1/(r₊ + r₋)' }))}<figcaption>Lattice energy against 1/(r₊ + r₋) with six-coordinate Shannon radii (thermochemical radii for polyatomic ions); Coulomb's law makes it grow with z₊z₋/r₀. Typical errors: Kapustinskii ${TYPICAL_ERROR['Kapustinskii equation'] ?? ''}; Born–Mayer ${TYPICAL_ERROR['Born–Mayer equation'] ?? ''}.</figcaption></figure>`);
+  if (points.some((p) => p.inverseR0 === null)) {
+    parts.push(html`<figure class="iw-chart">${trusted(latticeChart(points, { x: 'charge-product', title: 'Lattice energy against the charge product' }))}<figcaption>Against |z₊z₋|, for the salts whose radii are not all known.</figcaption></figure>`);
   }
 
   if (doc.language === 'markdown') {
-    const md = options.markdownIt().use(ionwrightPreview, o);
-    parts.push('<h2 id="notes">The notes</h2>', `<details class="iw-rendered"><summary>As the preview shows them</summary>${md.render(doc.text)}</details>`);
+    const md = options.markdownIt().use(ionwrightPreview, { ...o, weighedColumn: false });
+    // markdown-it renders the notes with its own escaping and the plugin's (html.ts); raw HTML in the notes is as markdown-it's options allow.
+    parts.push(html`<h2 id="notes">The notes</h2>`, html`<details class="iw-rendered"><summary>As the preview shows them</summary>${trusted(md.render(doc.text))}</details>`);
   }
 
-  parts.push('<footer>Molar masses: IUPAC/CIAAW 2021 abridged standard atomic weights. Electronegativities: Pauling scale. Radii: Shannon (1976), six-coordinate unless a structure says otherwise; thermochemical radii of polyatomic ions after Jenkins and co-workers. ' +
-    `Bond types by ΔEN thresholds ${o.settings.chem.nonpolarBelow} and ${o.settings.chem.ionicAbove} (common practice). ${escapeHtml(CAUTION_FOOTNOTE)}</footer>`);
+  parts.push(html`<footer>Molar masses: IUPAC/CIAAW 2021 abridged standard atomic weights. Electronegativities: Pauling scale. Radii: Shannon (1976), six-coordinate unless a structure says otherwise; thermochemical radii of polyatomic ions after Jenkins and co-workers. Bond types by ΔEN thresholds ${o.settings.chem.nonpolarBelow} and ${o.settings.chem.ionicAbove} (common practice). ${CAUTION_FOOTNOTE}</footer>`);
 
-  return `<!doctype html>
+  return html`<!doctype html>
 <html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1">
-<title>${escapeHtml(options.title)} — Ionwright report</title>
-<style>${options.css}</style><style>${PAGE_CSS}</style></head>
+<title>${options.title} — Ionwright report</title>
+<style>${trusted(options.css)}</style><style>${trusted(PAGE_CSS)}</style></head>
 <body>
-${parts.join('\n')}
+${join(parts, '\n')}
 </body></html>
-`;
+`.value;
 }

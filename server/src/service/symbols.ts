@@ -1,7 +1,8 @@
 /** Outline (document symbols) and code lenses: sections, batches and reactions. */
 import type { AnalysedDocument } from './document';
 import type { Range } from './positions';
-import { batchWarnings, countsText, notCountedText, sig, weighedMass } from './tables';
+import { plural, sig, volumeText } from './format';
+import { batchWarnings, countsText, notCountedText, weighedMass } from './tables';
 
 /** LSP SymbolKind values used here. */
 export const SymbolKind = { Namespace: 3, Struct: 23, Event: 24 } as const;
@@ -33,7 +34,7 @@ export function documentSymbols(doc: AnalysedDocument): DocumentSymbol[] {
       offset: b.ref.start,
       sym: {
         name: a.name ?? 'batch',
-        detail: `${countsText(a)}${a.volumeL !== null ? `, ${sig(a.volumeL * 1000)} mL` : ''}`,
+        detail: `${countsText(a)}${a.volumeL !== null ? `, ${volumeText(a.volumeL)}` : ''}`,
         kind: SymbolKind.Struct,
         range: doc.lines.range(b.ref.start, b.ref.end),
         selectionRange: doc.lines.range(b.ref.open.start, b.ref.open.end),
@@ -70,12 +71,12 @@ export interface CodeLens {
 export function codeLenses(doc: AnalysedDocument): CodeLens[] {
   return doc.batches.map((b) => {
     const a = b.analysis;
-    const bits = [`${a.ingredients.length} ingredient${a.ingredients.length === 1 ? '' : 's'}`];
+    const bits = [plural(a.ingredients.length, 'ingredient')];
     if (a.skipped.length) bits.push(`⚠ ${notCountedText(a)} (incomplete)`);
     bits.push(`${sig(weighedMass(a))} g to weigh`);
     if (a.ionicStrengthM !== null) bits.push(`I = ${sig(a.ionicStrengthM, 3)} M`);
     const warnings = batchWarnings(a).length;
-    if (warnings) bits.push(`⚠ ${warnings} warning${warnings === 1 ? '' : 's'}`);
+    if (warnings) bits.push(`⚠ ${plural(warnings, 'warning')}`);
     if (a.cautions.length) bits.push('⚠ cautions');
     return { range: doc.lines.range(b.ref.open.start, b.ref.open.end), title: `${bits.join(' · ')} — insert table`, offset: b.ref.open.start };
   });

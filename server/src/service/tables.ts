@@ -1,41 +1,24 @@
 /**
  * The computed tables Ionwright inserts into a report, as Markdown: one for the formulas of a section and
  * one per batch (ingredients, then ions and ionic strength, with the model's notes and the cautions).
+ * The columns are defined once in columns.ts; the same definitions give the preview's and the report's
+ * HTML and the plain text (`batchText`).
  */
-import type { BatchAnalysis, Ingredient } from '../chem/batch';
+import type { BatchAnalysis } from '../chem/batch';
 import { CAUTION_FOOTNOTE } from '../chem/cautions';
 import type { FormulaAnalysis } from '../chem/analyse';
-import { subscriptDigits } from '../chem/formula/compute';
-import { oxidationText, energy } from './card';
+import { amountText, batchColumns, batchRows, countedRows, formulaColumns, ION_COLUMNS, markdownRow, markdownTable, textTable } from './columns';
 import type { AnalysedDocument, BatchOccurrence, FormulaOccurrence } from './document';
+import { percent, plural, sig, volumeText } from './format';
 import { DEFAULT_SETTINGS, type ServiceSettings } from './settings';
 
-/** Escape a table cell. */
-const cell = (t: string) => t.replace(/\|/g, '\\|').replace(/\n/g, ' ');
-const row = (cells: string[]) => `| ${cells.map(cell).join(' | ')} |`;
-
-/** Significant figures without exponent noise for the quantities a chemist weighs. */
-export function sig(x: number | null | undefined, digits = 4): string {
-  if (x === null || x === undefined || !Number.isFinite(x)) return '—';
-  if (x === 0) return '0';
-  const abs = Math.abs(x);
-  if (abs >= 1e6 || abs < 1e-4) return x.toExponential(digits - 1).replace('e', '×10^').replace('^+', '^');
-  return Number(x.toPrecision(digits)).toString();
-}
-
-/** A lattice-energy method without its kind: 'Kapustinskii', 'Born–Haber'. */
-export const shortMethod = (method: string) => method.replace(' equation', '').replace(' cycle', '');
-
-/** An ingredient's amount as written, with its assay (`2.5 g @ 98 %`). */
-export const amountText = (i: Ingredient) => i.amount.text + (i.assay < 1 ? ` @ ${sig(i.assay * 100)} %` : '');
+export { amountText, sig };
 
 /** A mass fraction as a percentage with one decimal, or a dash. */
-export const fractionText = (x: number | null) => (x === null ? '—' : `${(x * 100).toFixed(1)} %`);
+export const fractionText = (x: number | null) => percent(x);
 
 /** The ingredients the batch does not split into ions. */
 export const undissociatedOf = (b: BatchAnalysis) => b.ingredients.filter((i) => i.undissociated && i.ions.length === 0);
-
-const plural = (n: number, word: string) => `${n} ${word}${n === 1 ? '' : 's'}`;
 
 /** The mass to weigh of the counted ingredients, g. */
 export const weighedMass = (b: BatchAnalysis) => b.ingredients.reduce((s, i) => s + (i.massG ?? 0), 0);
@@ -49,15 +32,11 @@ export function countsText(b: BatchAnalysis): string {
   return b.skipped.length ? `${n}, ${notCountedText(b)} — incomplete` : n;
 }
 
-/** The two share columns: of the weighed mass always, of the total where the batch gives one. */
-export const shareHeads = (b: BatchAnalysis) => (b.totalMassG !== null ? ['Share of weighed mass', 'Share of total'] : ['Share of weighed mass']);
-export const shareCells = (b: BatchAnalysis, i: Ingredient) => (b.totalMassG !== null ? [fractionText(i.massFraction), fractionText(i.fractionOfTotal)] : [fractionText(i.massFraction)]);
-
 /** The batch's warnings on counted lines or on the batch (solubility, charge, formulas counted as written); a line not counted shows its reason instead. */
 export const batchWarnings = (b: BatchAnalysis) =>
   b.diagnostics.filter((d) => d.severity === 'warning' && !b.skipped.some((s) => d.start >= s.lineStart && d.start <= s.lineEnd));
 
-/** Escape text for Markdown prose (messages may quote what the user wrote). */
+/** Escape text for Markdown prose (messages may quote what the user wrote): the one Markdown escaper. */
 export const escapeMarkdown = (t: string) => t.replace(/([\\`*_[\]<>|])/g, '\\$1');
 
 /** Inline code for Markdown that survives any backticks in the text. */
@@ -68,33 +47,19 @@ export function codeSpan(t: string): string {
   return `${fence}${pad}${t}${pad}${fence}`;
 }
 
-function latticeCell(a: FormulaAnalysis, s: ServiceSettings): string {
-  const L = a.lattice;
-  if (!L) return '—';
-  const short = shortMethod(L.method);
-  const salt = a.formula && a.formula.parts.length > 1 ? `${subscriptDigits(L.salt)}, ` : '';
-  return `${L.estimate ? '≈ ' : ''}${energy(L.kJPerMol, s)} (${salt}${short}${L.estimate ? ', est.' : ''})`;
+/** Distinct readable formulas (by their ASCII form), in order. */
+export function distinct(formulas: readonly FormulaAnalysis[]): FormulaAnalysis[] {
+  const seen = new Set<string>();
+  return formulas.filter((a) => a.ok && a.molarMass && !seen.has(a.ascii) && seen.add(a.ascii));
 }
 
 /** Markdown table of formulas (unique, in order of appearance, readable ones only). */
 export function formulaTable(formulas: readonly FormulaAnalysis[], settings: ServiceSettings = DEFAULT_SETTINGS, title?: string): string {
-  const seen = new Set<string>();
-  const list = formulas.filter((a) => a.ok && a.molarMass && !seen.has(a.ascii) && seen.add(a.ascii));
+  const list = distinct(formulas);
   if (list.length === 0) return '';
   const lines: string[] = [];
-  if (title) lines.push(`**${title}** (computed by Ionwright)`, '');
-  lines.push(row(['Formula', 'Molar mass (g/mol)', 'Bond type', 'ΔEN (pair)', 'Lattice energy', 'Oxidation states']));
-  lines.push('|---|---:|---|---|---|---|');
-  for (const a of list) {
-    lines.push(row([
-      a.display,
-      (a.molarMass as { value: number }).value.toFixed(settings.decimals),
-      a.bond?.type ?? '—',
-      a.bond ? `${a.bond.deltaEN.toFixed(2)} (${a.bond.pair.join('–')})` : '—',
-      latticeCell(a, settings),
-      a.charges?.oxidationStates ? oxidationText(a.charges.oxidationStates) : '—',
-    ]));
-  }
+  if (title) lines.push(`**${escapeMarkdown(title)}** (computed by Ionwright)`, '');
+  lines.push(markdownTable(formulaColumns(settings), list));
   const notes: string[] = [];
   if (list.some((a) => a.lattice?.estimate)) notes.push('Lattice energies marked ≈ are model estimates (typically 5–10 % low; more for salts with covalent character).');
   if (list.some((a) => a.charges && !a.charges.balanced)) notes.push('Some formulas are not charge-balanced; see the warnings in the notes.');
@@ -102,35 +67,29 @@ export function formulaTable(formulas: readonly FormulaAnalysis[], settings: Ser
   return lines.join('\n');
 }
 
+/** The head of a batch's table: name, final volume, total. */
+export function batchHead(b: BatchAnalysis): string {
+  return [b.name ?? 'Batch', b.volumeL !== null ? `final volume ${volumeText(b.volumeL)}` : null, b.totalMassG !== null ? `total ${sig(b.totalMassG)} g` : null].filter(Boolean).join(', ');
+}
+
+/** The ionic-strength line of a batch, or undefined without a volume. */
+export const ionicStrengthText = (b: BatchAnalysis) =>
+  b.ionicStrengthM !== null ? `Ionic strength I = ½ Σ cᵢzᵢ² = ${sig(b.ionicStrengthM)} M; net charge ${sig(b.netChargeEqPerL ?? 0, 2)} eq/L.` : undefined;
+
 /** Markdown tables of a batch: every line shows, counted in the table or listed as not counted with the reason. */
 export function batchTable(b: BatchAnalysis, settings: ServiceSettings = DEFAULT_SETTINGS): string {
   const lines: string[] = [];
-  const head = [b.name ?? 'Batch', b.volumeL !== null ? `final volume ${sig(b.volumeL * 1000)} mL` : null, b.totalMassG !== null ? `total ${sig(b.totalMassG)} g` : null].filter(Boolean).join(', ');
-  lines.push(`**${head}**${b.skipped.length ? ` — **incomplete: ${notCountedText(b)}**` : ''} (computed by Ionwright)`, '');
-  const heads = shareHeads(b);
-  lines.push(row(['Ingredient', 'Amount', 'Molar mass (g/mol)', 'To weigh (g)', 'Moles (mol)', 'Concentration (M)', ...heads]));
-  lines.push(`|---|---|---:|---:|---:|---:|${heads.map(() => '---:|').join('')}`);
-  for (const i of b.ingredients) {
-    lines.push(row([
-      i.formula,
-      amountText(i),
-      i.molarMass.toFixed(settings.decimals),
-      sig(i.massG),
-      sig(i.moles),
-      sig(i.concentrationM),
-      ...shareCells(b, i),
-    ]));
-  }
-  if (b.ingredients.length === 0) lines.push(row(['(none counted)', '', '', '', '', '', ...heads.map(() => '')]));
+  lines.push(`**${escapeMarkdown(batchHead(b))}**${b.skipped.length ? ` — **incomplete: ${notCountedText(b)}**` : ''} (computed by Ionwright)`, '');
+  const cols = batchColumns(b, settings);
+  lines.push(markdownTable(cols, countedRows(b)));
+  if (b.ingredients.length === 0) lines.push(markdownRow(['(none counted)', ...cols.slice(1).map(() => '')]));
   if (b.skipped.length) {
     lines.push('', `**Not counted** (left out of every figure here; fix the line to count it):`, ...b.skipped.map((s) => `- ${codeSpan(s.text)} — ${escapeMarkdown(s.reason)}`));
   }
-  if (b.ions.length) {
-    lines.push('', row(['Ion', 'Charge', 'Concentration (M)']), '|---|---:|---:|');
-    for (const ion of b.ions) lines.push(row([ion.ion, ion.charge > 0 ? `+${ion.charge}` : String(ion.charge), sig(ion.concentrationM)]));
-  }
+  if (b.ions.length) lines.push('', markdownTable(ION_COLUMNS, b.ions));
   lines.push('');
-  if (b.ionicStrengthM !== null) lines.push(`Ionic strength I = ½ Σ cᵢzᵢ² = ${sig(b.ionicStrengthM)} M; net charge ${sig(b.netChargeEqPerL ?? 0, 2)} eq/L.`);
+  const strength = ionicStrengthText(b);
+  if (strength) lines.push(strength);
   const undissociated = undissociatedOf(b).map((i) => i.formula);
   if (undissociated.length) lines.push(`Not split into ions: ${undissociated.join(', ')}.`);
   for (const n of b.notes) lines.push(`_${n}_`);
@@ -141,6 +100,33 @@ export function batchTable(b: BatchAnalysis, settings: ServiceSettings = DEFAULT
   }
   return lines.join('\n');
 }
+
+/**
+ * A batch as plain text for a terminal: the same columns, aligned, every line in the order written (a line
+ * not counted with its reason), then the ions, the ionic strength, warnings and cautions.
+ */
+export function batchText(b: BatchAnalysis, settings: ServiceSettings = DEFAULT_SETTINGS): string {
+  const lines = [`${batchHead(b)}${b.skipped.length ? ` — INCOMPLETE: ${notCountedText(b)}` : ''}`, ''];
+  const cols = batchColumns(b, settings);
+  lines.push(textTable(cols, countedRows(b)));
+  for (const s of b.skipped) lines.push(`  not counted: ${s.text} — ${s.reason}`);
+  if (b.ions.length) lines.push('', textTable(ION_COLUMNS, b.ions));
+  const strength = ionicStrengthText(b);
+  if (strength) lines.push('', strength);
+  for (const n of b.notes) lines.push(n);
+  for (const d of batchWarnings(b)) lines.push(`warning: ${d.message}`);
+  if (b.cautions.length) lines.push('', 'Cautions:', ...b.cautions.map((c) => `  ${c.text}`), CAUTION_FOOTNOTE);
+  return lines.join('\n');
+}
+
+/** The formula table as plain text. */
+export function formulaTableText(formulas: readonly FormulaAnalysis[], settings: ServiceSettings = DEFAULT_SETTINGS): string {
+  const list = distinct(formulas);
+  return list.length ? textTable(formulaColumns(settings), list) : '';
+}
+
+/** Every line of a batch, in the order written (for renderers that show the lines not counted in place). */
+export { batchRows };
 
 export interface SectionTables {
   title: string;

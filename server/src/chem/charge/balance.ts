@@ -12,7 +12,7 @@ import { BoundedCache, detach } from '../cache';
 import type { ChemDiagnostic } from '../diagnostic';
 import { element, isMetal } from '../data/elements';
 import type { Formula, FormulaItem, FormulaPart } from '../formula/ast';
-import { cleanCount, formatCharge, formatCount, formulaAtoms, itemAtoms, partAtoms, subscriptDigits, type AtomCounts } from '../formula/compute';
+import { cleanCount, formatCharge, formatCount, formulaAtoms, inNotationOf, itemAtoms, partAtoms, signed, subscriptDigits, type AtomCounts } from '../formula/compute';
 import { parseFormula } from '../formula/parse';
 import { readAlloyDesignation, type AlloyDesignation } from '../formula/alloy';
 import { assignStates } from './oxidation';
@@ -64,11 +64,6 @@ export interface ChargeAssessment {
 
 const WORDS = ['zero', 'one', 'two', 'three', 'four', 'five', 'six', 'seven', 'eight', 'nine', 'ten', 'eleven', 'twelve'];
 const countWord = (n: number) => (Number.isInteger(n) && n < WORDS.length ? WORDS[n] : formatCount(n));
-/** A signed number for people: +1, −2 (true minus sign). */
-const signed = (q: number) => {
-  const r = formatCount(Math.abs(cleanCount(q)));
-  return q > 0 ? `+${r}` : q < 0 ? `−${r}` : '0';
-};
 const chargeWord = (q: number) => (q === 0 ? '0' : `${Math.abs(q)}${q > 0 ? '+' : '−'}`);
 const capital = (t: string) => t.charAt(0).toUpperCase() + t.slice(1);
 
@@ -533,7 +528,10 @@ export function assessCharge(formula: Formula): ChargeAssessment {
     if (!r || r.balanced) return;
     const from = p.start + p.multiplierText.length;
     const partSugs = r.suggestions.filter((s) => s !== formula.text.slice(from, p.end));
-    const whole = r.wholeSuggestions ? r.suggestions : partSugs.map((s) => formula.text.slice(0, from) + s + formula.text.slice(p.end));
+    // Written back in the user's notation: ASCII digits for `CaNO3`, subscripts for `CaNO₃`.
+    const whole = (r.wholeSuggestions ? r.suggestions : partSugs.map((s) => formula.text.slice(0, from) + s + formula.text.slice(p.end)))
+      .map((s) => inNotationOf(formula.text, s))
+      .filter((s) => s !== formula.text);
     suggestions.push(...whole);
     const span = r.span ?? { start: from, end: p.end };
     diagnostics.push({

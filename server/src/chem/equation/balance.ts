@@ -6,7 +6,8 @@
  * that other combinations also conserve atoms and charge); otherwise it is ambiguous.
  */
 import type { ChemDiagnostic } from '../diagnostic';
-import { formatCount } from '../formula/compute';
+import { displayFormula, formatCount, signed } from '../formula/compute';
+import { isReversible } from './arrows';
 import { allSpecies, parseEquation, type ParsedEquation, type Species } from './parse';
 import { BoundedCache, detach } from '../cache';
 import { balanceByHalfReactions } from './redox';
@@ -28,6 +29,8 @@ export interface BalanceResult {
   coefficients: number[] | null;
   /** The equation written with `coefficients` (1 omitted, the user's formulas and arrow); null when there are none. */
   balancedText: string | null;
+  /** The same in Unicode notation (`2 H₂ + O₂ → 2 H₂O`), for messages and titles; null when there are none. */
+  balancedDisplay: string | null;
   message: string;
   /** Elements whose totals differ between the sides AS WRITTEN (written coefficients, unwritten = 1). */
   differences: Array<{ element: string; left: number; right: number }>;
@@ -209,10 +212,22 @@ export function writeEquation(eq: ParsedEquation, coefficients: readonly (bigint
   return `${order.reactants.map(term).join(' + ')} ${eq.arrow?.arrow ?? '->'} ${order.products.map(term).join(' + ')}`;
 }
 
-const MINUS = '−';
-/** +2, 0, −1 */
-export function formatSignedCharge(q: number): string {
-  return q > 0 ? `+${formatCount(q)}` : q < 0 ? `${MINUS}${formatCount(-q)}` : '0';
+/** +2, 0, −1 (true minus sign). */
+export const formatSignedCharge = (q: number): string => signed(q);
+
+/**
+ * The equation in Unicode and IUPAC notation, for people: formulas in their display form (`SO₄²⁻`,
+ * `CuSO₄·5H₂O`), `e⁻` for the electron, `→` or `⇌` for the arrow, coefficients as given (1 omitted).
+ */
+export function displayEquation(eq: ParsedEquation, coefficients?: readonly (bigint | number)[] | null, order: { reactants: Species[]; products: Species[] } = eq): string {
+  const index = new Map(allSpecies(eq).map((s, k) => [s, k] as const));
+  const term = (s: Species) => {
+    const c = coefficients ? coefficients[index.get(s) ?? -1] : s.coefficientText || undefined;
+    const text = c === undefined || c === 1 || c === 1n || c === '' ? '' : `${c} `;
+    return text + (s.isElectron ? 'e⁻' : s.formula ? displayFormula(s.formula) : s.formulaText);
+  };
+  const arrow = eq.arrow && isReversible(eq.arrow.arrow) ? '⇌' : '→';
+  return `${order.reactants.map(term).join(' + ')} ${arrow} ${order.products.map(term).join(' + ')}`;
 }
 
 function listNames(names: string[]): string {
@@ -223,7 +238,7 @@ function listNames(names: string[]): string {
 }
 
 /** The name of a species in messages: its formula as written ("the electron" for e⁻). */
-const nameOf = (s: Species) => (s.isElectron ? 'e⁻' : s.formulaText);
+const nameOf = (s: Species) => (s.isElectron ? 'e⁻' : s.formula ? displayFormula(s.formula) : s.formulaText);
 
 // ---------------------------------------------------------------------------------------------------------
 // Balancing
@@ -232,7 +247,7 @@ const SAFE = BigInt(Number.MAX_SAFE_INTEGER);
 
 function result(status: BalanceStatus, message: string, rest: Partial<BalanceResult> = {}): BalanceResult {
   return {
-    status, message, coefficients: null, balancedText: null, differences: [], charge: { left: 0, right: 0 }, nullity: null, reducible: false,
+    status, message, coefficients: null, balancedText: null, balancedDisplay: null, differences: [], charge: { left: 0, right: 0 }, nullity: null, reducible: false,
     ...rest,
   };
 }
@@ -260,10 +275,11 @@ export function balanceEquation(parsed: ParsedEquation): BalanceResult {
     const reducible = written.some((w, k) => w.d !== 1n || w.n !== ints[k]);
     const coefficients = fits ? ints.map(Number) : null;
     const balancedText = coefficients ? writeEquation(parsed, coefficients) : null;
-    const message = reducible && balancedText
-      ? `Balanced as written; in smallest whole numbers: ${balancedText}.`
+    const balancedDisplay = coefficients ? displayEquation(parsed, coefficients) : null;
+    const message = reducible && balancedDisplay
+      ? `Balanced as written; in smallest whole numbers: ${balancedDisplay}.`
       : 'Balanced as written.';
-    return result('already-balanced', message, { ...asWritten, coefficients, balancedText, reducible });
+    return result('already-balanced', message, { ...asWritten, coefficients, balancedText, balancedDisplay, reducible });
   }
 
   if (species.length > MAX_SPECIES) {
@@ -292,9 +308,10 @@ export function balanceEquation(parsed: ParsedEquation): BalanceResult {
     if (hr && hr.coefficients.every((x) => x <= SAFE) && balanceCheck(parsed, hr.coefficients.map(Number)).balanced) {
       const coefficients = hr.coefficients.map(Number);
       const balancedText = writeEquation(parsed, coefficients);
+      const balancedDisplay = displayEquation(parsed, coefficients);
       const couples = hr.couples.map((c) => `${c.element} ${formatSignedCharge(c.from)} → ${formatSignedCharge(c.to)}`).join(', ');
       const note = `Balanced by half-reactions (electrons lost = electrons gained; ${couples}; every other atom keeps its oxidation state). Other combinations of these species also conserve atoms and charge (${nullity} independent ones), such as a side reaction of one of them; these coefficients are the redox reaction as a titration writes it.`;
-      return result('balanced', `Balanced: ${balancedText}. ${note}`, { ...asWritten, coefficients, balancedText, nullity, method: 'half-reactions', note });
+      return result('balanced', `Balanced: ${balancedDisplay}. ${note}`, { ...asWritten, coefficients, balancedText, balancedDisplay, nullity, method: 'half-reactions', note });
     }
     return result(
       'ambiguous',
@@ -326,7 +343,7 @@ export function balanceEquation(parsed: ParsedEquation): BalanceResult {
       reactants: species.filter((s, k) => (s.side === 'reactant') === w[k] > 0n),
       products: species.filter((s, k) => (s.side === 'product') === w[k] > 0n),
     };
-    const hint = fits ? `: ${writeEquation(parsed, abs.map(Number), order)}` : '';
+    const hint = fits ? `: ${displayEquation(parsed, abs.map(Number), order)}` : '';
     return result(
       'impossible',
       `It cannot be balanced with the species on the sides given: ${names} would have to be on the other side${hint}.`,
@@ -338,7 +355,8 @@ export function balanceEquation(parsed: ParsedEquation): BalanceResult {
   }
   const coefficients = w.map(Number);
   const balancedText = writeEquation(parsed, coefficients);
-  return result('balanced', `Balanced: ${balancedText}`, { ...asWritten, coefficients, balancedText, nullity, method: 'unique' });
+  const balancedDisplay = displayEquation(parsed, coefficients);
+  return result('balanced', `Balanced: ${balancedDisplay}`, { ...asWritten, coefficients, balancedText, balancedDisplay, nullity, method: 'unique' });
 }
 
 /** Why no coefficients balance the equation: elements or charge on one side only, when that is the case. */
@@ -354,7 +372,7 @@ function impossibleReason(parsed: ParsedEquation, t: ExactTotals): string {
 
 /**
  * The text of the `unbalanced-equation` warning: what differs, in a chemist's words, then the balanced
- * form when there is one, e.g. "Not balanced — left: 2 O; right: 1 O. Balanced: 2 H2 + O2 -> 2 H2O".
+ * form when there is one, in Unicode notation, e.g. "Not balanced — left: 2 O; right: 1 O. Balanced: 2 H₂ + O₂ → 2 H₂O".
  */
 export function unbalancedMessage(r: BalanceResult): string {
   const parts: string[] = [];
@@ -364,7 +382,7 @@ export function unbalancedMessage(r: BalanceResult): string {
   }
   if (r.charge.left !== r.charge.right) parts.push(`charge ${formatSignedCharge(r.charge.left)} vs ${formatSignedCharge(r.charge.right)}`);
   let text = parts.length ? `Not balanced — ${parts.join('; ')}.` : 'Balanced as written.';
-  if (r.status === 'balanced' && r.balancedText) text += ` Balanced: ${r.balancedText}${r.method === 'half-reactions' ? ' (by half-reactions; other combinations also conserve atoms and charge)' : ''}`;
+  if (r.status === 'balanced' && r.balancedDisplay) text += ` Balanced: ${r.balancedDisplay}${r.method === 'half-reactions' ? ' (by half-reactions; other combinations also conserve atoms and charge)' : ''}`;
   else if (r.status === 'impossible') text += ' No coefficients balance these species as placed.';
   else if (r.status === 'ambiguous') text += ' These species have more than one independent balanced form; write the coefficients.';
   else if (r.status === 'too-large') text += ` ${r.message}`;
@@ -402,7 +420,7 @@ export function analyseReaction(text: string): ReactionAnalysis {
   if (parsed.ok && balance.status !== 'already-balanced' && balance.status !== 'invalid') {
     diagnostics.push({
       code: 'unbalanced-equation', severity: 'warning', start: 0, end: text.length, message: unbalancedMessage(balance),
-      data: { balanced: balance.balancedText, coefficients: balance.coefficients, status: balance.status },
+      data: { balanced: balance.balancedText, display: balance.balancedDisplay, coefficients: balance.coefficients, status: balance.status },
     });
   }
   if (balance.status === 'ambiguous' || balance.status === 'impossible' || balance.status === 'too-large') {

@@ -159,3 +159,26 @@ export function displayFormula(f: Formula, unicode = true, includeState = true):
 export function subscriptDigits(formula: string): string {
   return formula.replace(/(?<=[A-Za-z)\]}])[0-9]+(\.[0-9]+)?/g, (m) => toSub(m));
 }
+
+/** The minus sign of every written-out number and charge: U+2212, never the hyphen. */
+export const MINUS = '\u2212';
+
+/** A signed number for people: +1, −2, +2.667, 0 (true minus sign; at most three decimals). */
+export function signed(x: number): string {
+  const a = Math.abs(cleanCount(x));
+  const r = Number.isInteger(a) ? String(a) : String(Number(a.toFixed(3)));
+  return x > 0 && r !== '0' ? `+${r}` : x < 0 && r !== '0' ? `${MINUS}${r}` : '0';
+}
+
+/** Whether a formula as written uses Unicode notation (subscript or superscript digits, ⁺ ⁻, the middle dot). */
+export const writtenInUnicode = (text: string) => /[₀-₉⁰-⁹⁺⁻·]/.test(text);
+
+/**
+ * A formula text (a suggestion, a corrected part) in the notation of what the user wrote: Unicode
+ * subscripts where they wrote Unicode, plain digits where they wrote ASCII. Charges and hydrate dots are
+ * left as they come (suggestions carry the user's own).
+ */
+export function inNotationOf(written: string, text: string): string {
+  const ascii = text.replace(/[₀-₉]/g, (d) => String(SUBSCRIPT_DIGITS.indexOf(d)));
+  return /[₀-₉⁰-⁹⁺⁻]/.test(written) ? subscriptDigits(ascii) : ascii;
+}

@@ -460,11 +460,11 @@ class FormulaParser {
         else this.error(this.i, this.i, "Expected '}' to close the charge.");
       }
       if (signs === '') {
-        this.error(start, this.i, "A charge after '^' needs a sign, e.g. ^2- or ^+.");
+        this.error(start, this.i, "A charge after '^' needs a sign: ²⁻ or ⁺ (typed ^2- or ^+).");
         return;
       }
       if (new Set(signs.replace(/−/g, '-')).size > 1 || (digits !== '' && signs.length > 1)) {
-        this.error(start, this.i, `Charge '${s.slice(start, this.i)}' is not readable; write it as ^2- or ^+.`);
+        this.error(start, this.i, `Charge '${s.slice(start, this.i)}' is not readable; write it as ²⁻ or ⁺ (typed ^2- or ^+).`);
         return;
       }
       sign = signOf(signs[0]);
@@ -492,7 +492,7 @@ class FormulaParser {
       let digits = '';
       while (isDigit(s[this.i])) digits += s[this.i++];
       if (new Set(signs.replace(/−/g, '-')).size > 1 || (digits !== '' && signs.length > 1)) {
-        this.error(start, this.i, `Charge '${s.slice(start, this.i)}' is not readable; write it as ^2- or ^+.`);
+        this.error(start, this.i, `Charge '${s.slice(start, this.i)}' is not readable; write it as ²⁻ or ⁺ (typed ^2- or ^+).`);
         return;
       }
       sign = signOf(signs[0]);
