@@ -35,9 +35,9 @@ describe('createLanguageService', () => {
   it('code actions for a range, in either direction', () => {
     const { doc, position } = at('Label says `Ca|NO3`.\n');
     const forward = ls.codeActions(doc, { start: position, end: position }, ['quickfix']);
-    expect(forward.map((a) => a.title)).toContain('Replace with Ca(NO3)2');
+    expect(forward.map((a) => a.title)).toContain('Replace with Ca(NO₃)₂');
     const backward = ls.codeActions(doc, { start: { line: 0, character: 18 }, end: { line: 0, character: 12 } }, ['quickfix']);
-    expect(backward.map((a) => a.title)).toContain('Replace with Ca(NO3)2');
+    expect(backward.map((a) => a.title)).toContain('Replace with Ca(NO₃)₂');
   });
 
   it('analyse with the previous version re-reads only around the edit, and equals a fresh analysis', () => {
