@@ -97,7 +97,7 @@ describe('the columns, rendered three ways from one definition', () => {
   it('the plain-text batch shows every line, the ions and the ionic strength', () => {
     const incomplete = analyseDocument('```batch\nvolume: 1 L\nNaCl 1 g\nKCl 3 furlongs\n```\n', 'markdown').batches[0].analysis;
     const t = batchText(incomplete);
-    expect(t.split('\n')[0]).toBe('Batch, final volume 1000 mL — INCOMPLETE: 1 line not counted');
+    expect(t.split('\n')[0]).toBe('Batch, final volume 1 L — INCOMPLETE: 1 line not counted');
     expect(t).toContain('not counted: KCl 3 furlongs');
     expect(t).toMatch(/Na⁺\s+\+1/);
   });

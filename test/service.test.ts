@@ -112,7 +112,7 @@ describe('a batch with lines in error (an invented desmut bath whose acids are w
 
   it('the summary hover counts what is counted, lists what is not with the reason, and keeps the acid caution', () => {
     const md = hoverAt(DESMUT.replace('```batch', '```ba|tch'))!;
-    expect(md).toMatch(/^\*\*Desmut D-4\*\* · 2 ingredients, 2 lines not counted — incomplete · 63 g to weigh · 2000 mL/);
+    expect(md).toMatch(/^\*\*Desmut D-4\*\* · 2 ingredients, 2 lines not counted — incomplete · 63 g to weigh · 2 L/);
     expect(md).toContain("- `HNO3 120 mL @ 68%` — Unknown unit 'mL'");
     expect(md).toContain("- `H2SO4 80 mL` — Unknown unit 'mL'");
     expect(md).toContain('⚠ HNO₃ (line not counted), H₂SO₄ (line not counted): strong acid');
@@ -138,13 +138,13 @@ describe('a batch with lines in error (an invented desmut bath whose acids are w
     const [lens] = codeLenses(doc);
     expect(lens.title).toMatch(/^2 ingredients · ⚠ 2 lines not counted \(incomplete\) · 63 g to weigh · I = /);
     expect(lens.title).toContain('⚠ cautions');
-    expect(documentSymbols(doc)[0].children[0].detail).toBe('2 ingredients, 2 lines not counted — incomplete, 2000 mL');
+    expect(documentSymbols(doc)[0].children[0].detail).toBe('2 ingredients, 2 lines not counted — incomplete, 2 L');
   });
 
   it('the inserted table marks the batch incomplete and lists the lines not counted, with the acid caution', () => {
     const act = codeActions(doc, DESMUT.indexOf('(NH4)'), DESMUT.indexOf('(NH4)'), ['refactor']).find((a) => a.kind === 'refactor.rewrite')!;
     const out = applyEdits(DESMUT, act.edits);
-    expect(out).toContain('**Desmut D-4, final volume 2000 mL** — **incomplete: 2 lines not counted** (computed by Ionwright)');
+    expect(out).toContain('**Desmut D-4, final volume 2 L** — **incomplete: 2 lines not counted** (computed by Ionwright)');
     expect(out).toContain("- `HNO3 120 mL @ 68%` — Unknown unit 'mL'");
     expect(out).toContain('- HNO₃ (line not counted), H₂SO₄ (line not counted): strong acid');
   });
@@ -233,7 +233,7 @@ describe('code actions', () => {
     const doc = analyseDocument(text, 'markdown');
     const act = codeActions(doc, text.indexOf('NaCl'), text.indexOf('NaCl'), ['refactor']).find((a) => a.kind === 'refactor.rewrite')!;
     const out = applyEdits(text, act.edits);
-    expect(out.indexOf('**A, final volume 1000 mL**')).toBeGreaterThan(out.indexOf('```\n'));
+    expect(out.indexOf('**A, final volume 1 L**')).toBeGreaterThan(out.indexOf('```\n'));
     expect(out.indexOf('**A, final volume')).toBeLessThan(out.indexOf('After.'));
     expect(out.startsWith(text.slice(0, text.indexOf('After.')))).toBe(true);
 

@@ -64,7 +64,7 @@ const batch: Command = async (args, io) => {
     await writeJsonArray(w, items);
   } else {
     for (const [i, f] of files.entries()) {
-      const body = service.batchTables(f.doc).join('\n\n') || 'No batch blocks in this file.';
+      const body = service.batchTexts(f.doc).join('\n\n') || 'No batch blocks in this file.';
       const p = w.line(many ? `${i ? '\n' : ''}${heading(display, f)}\n\n${body}` : body);
       if (p) await p;
     }

@@ -82,7 +82,8 @@ export function perLitreText(gPerL: number, digits = 3): string {
 }
 
 /** A volume in litres, written in mL (the unit batch notes use): `500 mL`, `2000 mL`. */
-export const volumeText = (litres: number) => `${sig(litres * 1000)} mL`;
+/** A volume as a chemist writes it: litres from 1 L up, millilitres below (`2 L`, `500 mL`, `2.5 mL`). */
+export const volumeText = (litres: number) => (litres >= 1 ? `${sig(litres)} L` : `${sig(litres * 1000)} mL`);
 
 const KCAL = 4.184;
 

@@ -20,7 +20,7 @@ import { targetAt } from './lookup';
 import type { Position, Range } from './positions';
 import { DEFAULT_SETTINGS, type ServiceSettings } from './settings';
 import { codeLenses, documentSymbols, type CodeLens, type DocumentSymbol } from './symbols';
-import { batchTable, documentTables } from './tables';
+import { batchTable, batchText, documentTables } from './tables';
 
 export type { AnalysedDocument, ChangeHint, CodeAction, CodeLens, DocumentSymbol, EditOutcome, HoverResult, LspDiagnostic, Position, Range, TextEdit };
 
@@ -47,6 +47,8 @@ export interface LanguageService {
   tables(doc: AnalysedDocument): string;
   /** The batch tables of the note, as Markdown. */
   batchTables(doc: AnalysedDocument): string[];
+  /** The batches of the note as aligned plain text (a terminal, a printed weighing list). */
+  batchTexts(doc: AnalysedDocument): string[];
   /** The batches of the note as the contract's JSON. */
   batchesJson(doc: AnalysedDocument): ReturnType<typeof batchJson>[];
   /** One formula on its own. */
@@ -98,6 +100,7 @@ export function createLanguageService(settings: ServiceSettings = DEFAULT_SETTIN
     },
     tables: (doc) => documentTables(doc, settings),
     batchTables: (doc) => doc.batches.map((b) => batchTable(b.analysis, settings)),
+    batchTexts: (doc) => doc.batches.map((b) => batchText(b.analysis, settings)),
     batchesJson: (doc) => doc.batches.map((b) => batchJson(doc, b)),
     formula: (text) => analyseFormula(text.trim(), settings.chem),
     cardJson: (text) => cardJson(analyseFormula(text.trim(), settings.chem)),
