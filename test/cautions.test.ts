@@ -61,3 +61,14 @@ describe('oxidisers and solvents', () => {
     expect(CAUTION_FOOTNOTE).toMatch(/safety data sheet \(SDS\), local codes and licensed practice/);
   });
 });
+
+describe('bifluorides', () => {
+  it('ammonium and potassium hydrogen difluoride carry the hydrofluoric acid caution (from memory: their SDS give HF first aid)', () => {
+    for (const f of ['NH4HF2', '(NH4)HF2', 'KHF2']) {
+      const c = cautionsFor(analyseFormula(f));
+      expect(c.map((x) => x.text).join(' '), f).toMatch(/hydrofluoric acid.*calcium gluconate/);
+    }
+    // A plain fluoride keeps its own caution.
+    expect(cautionsFor(analyseFormula('NaF')).map((x) => x.text).join(' ')).toContain('soluble fluoride');
+  });
+});

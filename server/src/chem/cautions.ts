@@ -95,7 +95,11 @@ function compute(a: FormulaAnalysis): Caution[] {
   else if (cyanideIn(a.formula)) out.push({ cls: 'toxic', text: 'cyanide complex: acids (and for some, heat or light) release HCN gas; treat as a cyanide, very toxic, unless the SDS says otherwise' });
   if (names.has('azide')) out.push({ cls: 'toxic', text: 'azide: very toxic; forms explosive heavy-metal azides' });
   if (a.atoms.Cr && (a.charges?.oxidationStates?.Cr ?? 0) >= 6) out.push({ cls: 'carcinogen', text: 'chromium(VI): carcinogenic and sensitising' });
-  if (ascii !== 'HF' && a.atoms.F && ions.some((i) => i.element === 'F')) out.push({ cls: 'toxic', text: 'soluble fluoride: toxic if swallowed' });
+  if (names.has('hydrogen difluoride')) {
+    // Bifluorides (NH4HF2, KHF2) are HF in solid form: acidic in water, with HF's burns (from memory:
+    // the usual SDS of ammonium bifluoride lists the same first aid as for hydrofluoric acid).
+    out.push({ cls: 'corrosive', text: 'hydrogen difluoride (bifluoride): releases hydrofluoric acid in water or with acids; penetrating burns and fluoride poisoning as with HF. Have calcium gluconate gel at hand; follow the SDS' });
+  } else if (ascii !== 'HF' && a.atoms.F && ions.some((i) => i.element === 'F')) out.push({ cls: 'toxic', text: 'soluble fluoride: toxic if swallowed' });
   const solvent = a.formula.parts.length === 1 && a.charge === 0 ? FLAMMABLE_BY_HILL[a.hill] : undefined;
   if (solvent) out.push({ cls: 'flammable', text: `highly flammable (${solvent}): keep from flames, sparks and hot surfaces; the vapour forms explosive mixtures with air` });
   if (a.hill === 'CH4O' && a.formula.parts.length === 1) out.push({ cls: 'toxic', text: 'methanol: toxic if swallowed, inhaled or absorbed through the skin (blindness)' });

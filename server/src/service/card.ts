@@ -5,7 +5,7 @@
 import type { FormulaAnalysis } from '../chem/analyse';
 import { toLsp, type LspDiagnostic } from './diagnostics';
 import { LineIndex } from './positions';
-import { energy, fixed, formulaText, oxidationText, percent, signed } from './format';
+import { energy, fixed, formulaText, percent, signed } from './format';
 import { DEFAULT_SETTINGS, type ServiceSettings } from './settings';
 
 export interface CardJson {
@@ -143,15 +143,24 @@ export function cardText(a: FormulaAnalysis, settings: ServiceSettings = DEFAULT
     for (const d of a.diagnostics) out.push(`  ${d.severity} [${d.code}] col ${d.start + 1}-${d.end}: ${d.message}`);
     return out.join('\n');
   }
+  const designation = designationText(a);
+  if (designation) {
+    // A designation names a composition in mass percent, not a formula: no molar mass, Hill formula or states.
+    out.push(`${a.input}   (alloy designation)`);
+    out.push(`  alloy           ${designation}`);
+    if (a.charges) out.push(`  charge balance  ${a.charges.message}`);
+    return out.join('\n');
+  }
   const mm = a.molarMass;
   out.push(`${a.display}   (Hill: ${a.hill}${a.charge ? `, charge ${signed(a.charge)}` : ''})`);
   out.push(`  molar mass      ${fixed(mm.value, settings.decimals + 1)}${mm.uncertainty !== null ? ` ± ${mm.uncertainty.toPrecision(1)}` : ' (nominal)'} g/mol`);
   out.push(`  composition     ${a.composition.map((c) => `${c.element} ${percent(c.massFraction, 2)}`).join(', ')}`);
-  const designation = designationText(a);
-  if (designation) out.push(`  alloy           ${designation}`);
   if (a.charges) {
-    out.push(`  oxidation       ${a.charges.oxidationStates ? oxidationText(a.charges.oxidationStates) : 'not assigned'}`);
     const bySite = sitesText(a);
+    const split = new Set((a.charges.sites ?? []).filter((x, _, all) => all.some((y) => y.element === x.element && Math.abs(y.state - x.state) > 1e-9)).map((x) => x.element));
+    const states = a.charges.oxidationStates;
+    const line = states ? Object.entries(states).map(([el, v]) => `${el} ${signed(v)}${split.has(el) ? ' (average of its sites)' : ''}`).join(', ') : 'not assigned';
+    out.push(`  oxidation       ${line}`);
     if (bySite) out.push(`  by site         ${bySite}`);
     for (const r of undeterminedText(a)) out.push(`                  ${r}`);
     out.push(`  charge balance  ${a.charges.balanced ? '' : 'NOT BALANCED: '}${a.charges.message}${a.charges.suggestions.length ? ` Try: ${a.charges.suggestions.map((x) => `${formulaText(x)}${formulaText(x) === x ? '' : ` (${x})`}`).join(', ')}` : ''}`);
