@@ -10,7 +10,8 @@ import { describe, expect, it } from 'vitest';
 import { analyseFormula } from '../server/src/chem/analyse';
 import { CAUTION_FOOTNOTE } from '../server/src/chem/cautions';
 import { analyseDocument } from '../server/src/service/document';
-import { formulaCardMarkdown, hover, knownName } from '../server/src/service/hover';
+import { formulaCardMarkdown, hover } from '../server/src/service/hover';
+import { nameOf as knownName } from '../server/src/chem/names';
 import { DEFAULT_SETTINGS } from '../server/src/service/settings';
 
 const hoverAt = (src: string) => {

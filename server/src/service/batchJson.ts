@@ -15,12 +15,16 @@ export function batchJson(doc: AnalysedDocument, b: BatchOccurrence) {
     totalMassG: r(a.totalMassG),
     ingredients: a.ingredients.map((i) => ({
       formula: i.formulaText,
+      /** Hill formula of what is weighed (hydrate water included). */
+      hill: i.analysis.hill,
       display: i.formula,
       amount: i.amount.text,
       assay: i.assay,
       molarMass: r(i.molarMass, 6),
       moles: r(i.moles),
       massG: r(i.massG),
+      /** Volume of the reagent as supplied, for liquids measured by volume; every ingredient is weighed so far. */
+      volumeML: null,
       concentrationM: r(i.concentrationM),
       /** Share of the weighed mass (the counted ingredients), with or without `total:`. */
       massFraction: r(i.massFraction),

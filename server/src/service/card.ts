@@ -3,6 +3,7 @@
  * "copy card").
  */
 import type { FormulaAnalysis } from '../chem/analyse';
+import { nameOf } from '../chem/names';
 import { toLsp, type LspDiagnostic } from './diagnostics';
 import { LineIndex } from './positions';
 import { energy, fixed, formulaText, percent, signed } from './format';
@@ -10,6 +11,8 @@ import { DEFAULT_SETTINGS, type ServiceSettings } from './settings';
 
 export interface CardJson {
   input: string;
+  /** The IUPAC 2005 name where the reading makes it plain (`copper(II) sulfate pentahydrate`); null otherwise. */
+  name: string | null;
   formula: string;
   formulaAscii: string;
   hill: string;
@@ -58,6 +61,7 @@ export function cardJson(a: FormulaAnalysis): CardJson {
     molarMass: a.molarMass ? round(a.molarMass.value) : null,
     molarMassUncertainty: a.molarMass?.uncertainty == null ? null : round(a.molarMass.uncertainty, 6),
     composition: a.composition.map((c) => ({ element: c.element, count: c.count, massFraction: round(c.massFraction, 6) })),
+    name: nameOf(a) ?? null,
     oxidationStates: a.charges?.oxidationStates ?? null,
     oxidationStatesBySite: (a.charges?.sites ?? []).map((x) => ({ element: x.element, state: round(x.state, 4), count: x.count, site: x.site })),
     oxidationStatesUndetermined: a.charges?.undetermined ?? [],
