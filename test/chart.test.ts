@@ -525,6 +525,13 @@ describe('latticeChart: bad input', () => {
     expect(parse(none).text).toMatch(/No salts with lattice energies to chart/);
   });
 
+  it('survives values far too small for tick labels (a melting point of 1e-200 °C)', () => {
+    const tiny = [{ ...SALTS[0], meltingPointC: 1.1e-200 }, { ...SALTS[1], kJPerMol: 1e-200, meltingPointC: 2e-200 }];
+    const svg = parse(latticeChart(tiny));
+    expect(pointsOf(svg)).toHaveLength(2);
+    expect(ticksOf(svg, 'iw-lc-mticks', 'y').every((t) => Number.isFinite(t.value))).toBe(true);
+  });
+
   it('survives garbage that slips past the types', () => {
     const garbage = [null, 42, 'NaCl', { label: undefined, kJPerMol: 800, inverseR0: 0.35, chargeProduct: 1 }, {}] as unknown as LatticePoint[];
     const svg = parse(latticeChart(garbage, { x: 'sideways' as never, title: 7 as never }));

@@ -28,7 +28,8 @@ export function niceTicks(lo: number, hi: number, target = 5, integer = false): 
   const ticks: number[] = [];
   for (let k = first; k <= last && ticks.length < 200; k++) ticks.push(clean(k * step));
   const stepExponent = Math.floor(Math.log10(step) + 1e-9);
-  const decimals = Math.max(0, -stepExponent + (multiple === 2.5 ? 1 : 0));
+  // toFixed takes at most 100 digits; 20 already writes steps far below any value a chart is given.
+  const decimals = Math.min(20, Math.max(0, -stepExponent + (multiple === 2.5 ? 1 : 0)));
   return { min: ticks[0], max: ticks[ticks.length - 1], step, ticks, decimals };
 }
 
