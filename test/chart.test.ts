@@ -1,10 +1,10 @@
 /**
  * The lattice-energy chart: parsed back with a strict XML parser (sax, present in node_modules through
- * @vscode/vsce) and checked for geometry, scaling, ticks, escaping, legend, melting points and robustness.
+ * @vscode/vsce; test/chart-svg.ts) and checked for geometry, scaling, ticks, escaping, legend, melting points
+ * and robustness. Label placement: test/chart.labels.test.ts.
  * Salts: rough six-coordinate Shannon radii and lattice energies from memory (common textbook values); the
  * chart only draws what it is given, so the checks do not depend on their accuracy.
  */
-import { createRequire } from 'node:module';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import {
@@ -12,124 +12,23 @@ import {
   latticeChart,
   leastSquares,
   niceTicks,
-  textWidth,
   type LatticePoint,
 } from '../server/src/service/chart';
-
-// ---------------------------------------------------------------------------------------------------------
-// A tiny DOM from sax's strict parser: it throws on anything that is not well-formed XML.
-
-interface SaxParser {
-  onopentag: (node: { name: string; attributes: Record<string, string> }) => void;
-  onclosetag: (name: string) => void;
-  ontext: (t: string) => void;
-  onerror: (e: Error) => void;
-  write(s: string): SaxParser;
-  close(): SaxParser;
-}
-const sax = createRequire(import.meta.url)('sax') as { parser(strict: boolean): SaxParser };
-
-interface El {
-  name: string;
-  attrs: Record<string, string>;
-  children: El[];
-  text: string; // all text inside, concatenated
-  parent: El | null;
-}
-
-function parse(svg: string): El {
-  const p = sax.parser(true);
-  const root: El = { name: '#root', attrs: {}, children: [], text: '', parent: null };
-  let cur = root;
-  p.onerror = (e) => {
-    throw e;
-  };
-  p.onopentag = (node) => {
-    const el: El = { name: node.name, attrs: { ...node.attributes }, children: [], text: '', parent: cur };
-    cur.children.push(el);
-    cur = el;
-  };
-  p.onclosetag = () => {
-    cur = cur.parent as El;
-  };
-  p.ontext = (t) => {
-    for (let e: El | null = cur; e; e = e.parent) e.text += t;
-  };
-  p.write(svg).close();
-  expect(root.children).toHaveLength(1);
-  return root.children[0];
-}
-
-const all = (el: El, pred: (e: El) => boolean): El[] => {
-  const out: El[] = [];
-  const walk = (e: El) => {
-    if (pred(e)) out.push(e);
-    e.children.forEach(walk);
-  };
-  walk(el);
-  return out;
-};
-const hasClass = (c: string) => (e: El) => (e.attrs.class ?? '').split(/\s+/).includes(c);
-const one = (el: El, pred: (e: El) => boolean): El => {
-  const found = all(el, pred);
-  expect(found).toHaveLength(1);
-  return found[0];
-};
-const num = (s: string | undefined) => Number(s);
-const tickValue = (t: string) => Number(t.replace('−', '-'));
-
-interface PointView {
-  title: string;
-  kind: string;
-  cx: number;
-  cy: number;
-  shape: string;
-}
-function pointsOf(svg: El): PointView[] {
-  return all(svg, hasClass('iw-lc-pt')).map((g) => {
-    const title = g.children.find((c) => c.name === 'title')?.text ?? '';
-    const m = g.children.find((c) => c.name === 'circle' || c.name === 'rect') as El;
-    const cx = m.name === 'circle' ? num(m.attrs.cx) : num(m.attrs.x) + num(m.attrs.width) / 2;
-    const cy = m.name === 'circle' ? num(m.attrs.cy) : num(m.attrs.y) + num(m.attrs.height) / 2;
-    return { title, kind: g.attrs['data-kind'], cx, cy, shape: m.name };
-  });
-}
-function plotArea(svg: El) {
-  const r = one(svg, hasClass('iw-lc-plot'));
-  const x = num(r.attrs.x);
-  const y = num(r.attrs.y);
-  return { x0: x, y0: y, x1: x + num(r.attrs.width), y1: y + num(r.attrs.height) };
-}
-/** Tick values with their pixel positions, from one of the tick label groups. */
-function ticksOf(svg: El, cls: string, coord: 'x' | 'y') {
-  const g = all(svg, hasClass(cls));
-  if (g.length === 0) return [];
-  return g[0].children.filter((c) => c.name === 'text').map((t) => ({ value: tickValue(t.text), pos: num(t.attrs[coord]) }));
-}
-/** A linear map from pixel to data value, fitted through the tick labels' positions. */
-function inverseScale(ticks: Array<{ value: number; pos: number }>, offset = 0) {
-  const a = ticks[0];
-  const b = ticks[ticks.length - 1];
-  return (px: number) => a.value + ((px - (a.pos - offset)) / (b.pos - a.pos)) * (b.value - a.value);
-}
-
-/** A label's box, with the chart's own width estimate (the font is the host's, so no exact metrics). */
-const labelBox = (l: El) => {
-  const x = num(l.attrs.x);
-  const y = num(l.attrs.y);
-  return { x0: x, x1: x + textWidth(l.text, 11.5), y0: y - 9, y1: y + 2 };
-};
-function overlappingPairs(labels: El[]): string[] {
-  const boxes = labels.map(labelBox);
-  const out: string[] = [];
-  for (let i = 0; i < boxes.length; i++)
-    for (let j = i + 1; j < boxes.length; j++) {
-      const a = boxes[i];
-      const b = boxes[j];
-      if (!(a.x1 <= b.x0 || b.x1 <= a.x0 || a.y1 <= b.y0 || b.y1 <= a.y0)) out.push(`${labels[i].text} / ${labels[j].text}`);
-    }
-  return out;
-}
+import {
+  all,
+  hasClass,
+  inverseScale,
+  labelBox,
+  num,
+  one,
+  overlappingPairs,
+  parse,
+  plotArea,
+  pointsOf,
+  ticksOf,
+  type El,
+  type PointView,
+} from './chart-svg';
 
 const isNiceStep = (step: number) => {
   const mag = Math.pow(10, Math.floor(Math.log10(step) + 1e-9));

@@ -4,7 +4,7 @@ import type { ChartInput, Plotted } from './input';
 import type { LabelPlacement } from './labels';
 import { FONT, PAD, TITLE_Y, type Axis, type ChartLayout, type GuideLine, type LegendItem } from './layout';
 import { COLOURS, STYLE } from './style';
-import { coord, energyText, escapeXml, shorten } from './text';
+import { coord, count, energyText, escapeXml, shorten, textWidth } from './text';
 
 const EMPTY_HEIGHT = 64;
 
@@ -14,8 +14,7 @@ export function drawChart(input: ChartInput, layout: ChartLayout, placement: Lab
     `<title id="${input.id}-title">${escapeXml(input.title)}</title>`,
     `<desc id="${input.id}-desc">${escapeXml(description)}</desc>`,
     `<style>${STYLE}</style>`,
-    `<text class="iw-lc-text iw-lc-title" fill="currentColor" x="${coord(PAD)}" y="${coord(TITLE_Y)}" font-size="${FONT.title}" font-weight="600">` +
-      `${escapeXml(shorten(input.title, Math.floor((input.width - 2 * PAD) / 8)))}</text>`,
+    titleRow(input, placement.omitted),
     legend(layout.legend),
     grid(layout),
     plotRect(layout),
@@ -28,6 +27,18 @@ export function drawChart(input: ChartInput, layout: ChartLayout, placement: Lab
     labels(placement, layout.guides),
     `</svg>`,
   ].join('');
+}
+
+/**
+ * The title, and at the right of its row a note when labels were left out, so that no salt loses its label
+ * without a word (the <desc> says the same).
+ */
+function titleRow(input: ChartInput, omitted: number): string {
+  const note = omitted ? `${count(omitted, 'label')} left out for room; every point has a tooltip` : '';
+  const noteWidth = note ? textWidth(note, FONT.note) + 16 : 0;
+  const title = shorten(input.title, Math.max(8, Math.floor((input.width - 2 * PAD - noteWidth) / 8)));
+  return `<text class="iw-lc-text iw-lc-title" fill="currentColor" x="${coord(PAD)}" y="${coord(TITLE_Y)}" font-size="${FONT.title}" font-weight="600">${escapeXml(title)}</text>` +
+    (note ? `<text class="iw-lc-text iw-lc-note" fill="currentColor" x="${coord(input.width - PAD)}" y="${coord(TITLE_Y)}" font-size="${FONT.note}" text-anchor="end" opacity="0.8">${escapeXml(note)}</text>` : '');
 }
 
 function svgOpen(width: number, height: number, id: string, extra = ''): string {
@@ -179,7 +190,7 @@ function labels(placement: LabelPlacement, guides: readonly GuideLine[]): string
   const text = placement.labels.map((l) => `<text x="${coord(l.x)}" y="${coord(l.y)}">${escapeXml(l.text)}</text>`);
   const captions = group(
     `<g class="iw-lc-guide-text" fill="currentColor" fill-opacity="0.8" font-size="${FONT.guide}" font-style="italic" aria-hidden="true">`,
-    placement.captions.map((c, i) => `<text x="${coord(c.x)}" y="${coord(c.y)}" text-anchor="middle">${escapeXml(guides[i].caption)}</text>`),
+    placement.captions.flatMap((c, i) => (c ? [`<text x="${coord(c.x)}" y="${coord(c.y)}" text-anchor="middle">${escapeXml(guides[i].caption)}</text>`] : [])),
   );
   return leaders +
     `<g class="iw-lc-text iw-lc-label iw-lc-labels" fill="currentColor" font-size="${FONT.label}" aria-hidden="true">${text.join('')}</g>` +

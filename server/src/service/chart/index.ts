@@ -26,7 +26,7 @@
 import { describeChart } from './describe';
 import { drawChart, drawEmptyChart } from './draw';
 import { readChartInput, type LatticeChartOptions, type LatticePoint } from './input';
-import { placeLabels } from './labels';
+import { labelChart } from './labels';
 import { layOutChart } from './layout';
 
 export type { LatticeChartOptions, LatticePoint } from './input';
@@ -38,6 +38,6 @@ export function latticeChart(points: LatticePoint[], options?: LatticeChartOptio
   const input = readChartInput(points, options);
   if (input.plotted.length === 0) return drawEmptyChart(input);
   const layout = layOutChart(input);
-  const placement = placeLabels(input.plotted, layout);
+  const placement = labelChart(input.plotted, layout);
   return drawChart(input, layout, placement, describeChart(input, layout, placement));
 }

@@ -89,6 +89,7 @@ export function readChartInput(points: unknown, options: unknown): ChartInput {
     else plotted.push(read);
   }
   plotted.sort(drawingOrder);
+  noRadius.sort(compareText);
   const id = `iw-lc-${fnv1a(JSON.stringify([mode, width, height, title, plotted, noRadius, invalid]))}`;
   return { mode, width, height, title, plotted, leftOut: leftOutSentences(noRadius, invalid), id };
 }

@@ -7,7 +7,7 @@ import type { ChartInput, Plotted, XMode } from './input';
 import { textWidth, tickText } from './text';
 import { leastSquares, niceTicks, paddedRange, type LineFit, type Ticks } from './ticks';
 
-export const FONT = { title: 14, tick: 11, label: 11.5, legend: 11.5, axisTitle: 12, guide: 10 } as const;
+export const FONT = { title: 14, tick: 11, label: 11.5, legend: 11.5, axisTitle: 12, guide: 10, note: 10.5 } as const;
 /** Space between the svg's edge and anything drawn. */
 export const PAD = 12;
 /** Baseline of the title. */
@@ -106,6 +106,7 @@ export function layOutChart(input: ChartInput): ChartLayout {
 }
 
 const clamp = (v: number, lo: number, hi: number) => Math.max(lo, Math.min(hi, v));
+
 
 export const meltingPointsOf = (plotted: readonly Plotted[]): number[] =>
   plotted.flatMap((p) => (p.meltingPoint !== null ? [p.meltingPoint] : []));
