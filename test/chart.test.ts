@@ -14,6 +14,7 @@ import {
   niceTicks,
   type LatticePoint,
 } from '../server/src/service/chart';
+import { ticksWithin } from '../server/src/service/chart/ticks';
 import {
   all,
   hasClass,
@@ -167,9 +168,8 @@ describe('latticeChart: geometry and scales', () => {
     expect(horizontal.map((y) => Math.round(y + 11 * 0.35))).toEqual(yTicks.map((t) => Math.round(t.pos)));
   });
 
-  it('uses nice ticks (1, 2, 2.5, 5 × 10ⁿ) that cover the data', () => {
+  it('uses nice ticks (1, 2, 2.5, 5 × 10ⁿ) that cover the data on the energy and melting-point axes', () => {
     for (const [cls, coord, values] of [
-      ['iw-lc-xticks', 'x', SALTS.map((s) => s.inverseR0 as number)],
       ['iw-lc-yticks', 'y', SALTS.map((s) => s.kJPerMol)],
       ['iw-lc-mticks', 'y', SALTS.filter((s) => s.meltingPointC !== undefined).map((s) => s.meltingPointC as number)],
     ] as const) {
@@ -183,6 +183,37 @@ describe('latticeChart: geometry and scales', () => {
       // not absurdly wide: the data span at least a third of the axis
       expect(Math.max(...values) - Math.min(...values)).toBeGreaterThan((t[t.length - 1] - t[0]) / 3);
     }
+  });
+
+  it('runs the x axis edge to edge: nice ticks inside it, the outermost salts 3 % of the width from its ends', () => {
+    // The first and last salt sit max(12 px, 3 % of the plot's width) inside the plot area, whatever the
+    // spread of their radii: the rinse-trial salts span 0.333–0.353 Å⁻¹ and used to fill a fifth of the width.
+    const narrow: LatticePoint[] = [0.333, 0.342, 0.344, 0.345, 0.353].map((x, i) => ({ ...SALTS[i], inverseR0: x }));
+    for (const [salts, width] of [[SALTS, 640], [narrow, 640], [SALTS, 320], [narrow, 1200]] as const) {
+      const svg = parse(latticeChart([...salts], { width }));
+      const plot = plotArea(svg);
+      const edge = Math.max(12, 0.03 * (plot.x1 - plot.x0));
+      const cxs = pointsOf(svg).map((p) => p.cx);
+      expect(Math.min(...cxs) - plot.x0).toBeCloseTo(edge, 1);
+      expect(plot.x1 - Math.max(...cxs)).toBeCloseTo(edge, 1);
+      const ticks = ticksOf(svg, 'iw-lc-xticks', 'x');
+      expect(ticks.length).toBeGreaterThanOrEqual(2);
+      const step = ticks[1].value - ticks[0].value;
+      expect(isNiceStep(step), `step ${step}`).toBe(true);
+      for (const t of ticks) {
+        expect(t.pos).toBeGreaterThanOrEqual(plot.x0 - 0.01);
+        expect(t.pos).toBeLessThanOrEqual(plot.x1 + 0.01);
+      }
+    }
+  });
+
+  it('in charge-product mode, keeps half a unit beside the outermost charge products (room for dodged stacks)', () => {
+    const svg = parse(latticeChart([...SALTS, NH4NO3], { x: 'charge-product' }));
+    const plot = plotArea(svg);
+    const fromX = inverseScale(ticksOf(svg, 'iw-lc-xticks', 'x'));
+    expect(fromX(plot.x0)).toBeCloseTo(0.5, 2); // |z₊z₋| from 1 (NaCl) …
+    expect(fromX(plot.x1)).toBeCloseTo(4.5, 2); // … to 4 (MgO)
+    expect(ticksOf(svg, 'iw-lc-xticks', 'x').map((t) => t.value)).toEqual([1, 2, 3, 4]);
   });
 
   it('titles the axes with their units', () => {
@@ -531,6 +562,23 @@ describe('niceTicks', () => {
         },
       ),
     );
+  });
+
+  it('ticksWithin: nice ticks inside a range, at least two', () => {
+    fc.assert(
+      fc.property(fc.double({ min: -1e4, max: 1e4, noNaN: true }), fc.double({ min: 1e-3, max: 1e4, noNaN: true }), fc.integer({ min: 2, max: 12 }), (lo, span, target) => {
+        const hi = lo + span;
+        const t = ticksWithin(lo, hi, target);
+        expect(t.ticks.length).toBeGreaterThanOrEqual(2);
+        expect(isNiceStep(t.step)).toBe(true);
+        for (const v of t.ticks) {
+          expect(v).toBeGreaterThanOrEqual(lo - span * 1e-9);
+          expect(v).toBeLessThanOrEqual(hi + span * 1e-9);
+        }
+      }),
+    );
+    expect(ticksWithin(0.5, 4.5, 6, true).ticks).toEqual([1, 2, 3, 4]);
+    expect(ticksWithin(NaN, 1, NaN).ticks.every(Number.isFinite)).toBe(true); // no endless search for more ticks
   });
 
   it('widens a zero or non-finite range instead of failing', () => {

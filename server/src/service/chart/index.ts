@@ -4,7 +4,8 @@
  *
  * What it shows:
  * - x: 1/(r₊ + r₋) in Å⁻¹ (default; salts without known radii are left out and counted in the <desc>) or
- *   the charge product |z₊z₋|; y (left): lattice energy in kJ/mol. "Nice" ticks (1, 2, 2.5, 5 × 10ⁿ).
+ *   the charge product |z₊z₋|; y (left): lattice energy in kJ/mol. "Nice" ticks (1, 2, 2.5, 5 × 10ⁿ), which
+ *   cover the energies; the x axis runs edge to edge (its outermost salts 3 % of the width from its ends).
  * - Model estimates as hollow circles, Born–Haber values (from tabulated enthalpies, recalled) as filled squares,
  *   with a legend, so the two never differ by colour alone.
  * - Melting points, where known, on a second y axis on the right (°C) as crosses (×) at the salt's x,

@@ -5,7 +5,7 @@
 import type { Rect, Segment } from './geometry';
 import type { ChartInput, Plotted, XMode } from './input';
 import { textWidth, tickText } from './text';
-import { leastSquares, niceTicks, paddedRange, type LineFit, type Ticks } from './ticks';
+import { edgeToEdge, leastSquares, niceTicks, paddedRange, ticksWithin, type LineFit, type Ticks } from './ticks';
 
 export const FONT = { title: 14, tick: 11, label: 11.5, legend: 11.5, axisTitle: 12, guide: 10, note: 10.5 } as const;
 /** Space between the svg's edge and anything drawn. */
@@ -95,18 +95,31 @@ export function layOutChart(input: ChartInput): ChartLayout {
   const plotLeft = sideMargin(y);
   const plotRight = Math.max(plotLeft + 40, width - (melt ? sideMargin(melt) : PAD + 8));
   const plotWidth = plotRight - plotLeft;
-  const xTicks = niceTicks(...paddedRange(plotted.map((p) => p.x), 0.06), clamp(Math.round(plotWidth / 80), 2, 12), mode === 'charge-product');
-  const x = axis(xTicks, (v) => plotLeft + ((v - xTicks.min) / (xTicks.max - xTicks.min)) * plotWidth);
+  const [xMin, xMax] = xDomain(plotted.map((p) => p.x), mode, plotWidth);
+  const xTicks = ticksWithin(xMin, xMax, clamp(Math.round(plotWidth / 80), 2, 12), mode === 'charge-product');
+  const x = axis(xTicks, (v) => plotLeft + ((v - xMin) / (xMax - xMin)) * plotWidth);
 
   const marker = markerSize(plotted.length);
   const marks = plotted.map((p) => ({ cx: x.at(p.x), cy: y.at(p.kJ), meltY: melt && p.meltingPoint !== null ? melt.at(p.meltingPoint) : null }));
-  if (mode === 'charge-product') dodge(marks, plotted.map((p) => p.x), marker.radius, plotWidth / (xTicks.max - xTicks.min));
+  if (mode === 'charge-product') dodge(marks, plotted.map((p) => p.x), marker.radius, plotWidth / (xMax - xMin));
   const guides = fitted.flatMap((g) => guideLine(g, x, y));
   return { legend, plot: { x0: plotLeft, y0: plotTop, x1: plotRight, y1: plotBottom }, x, y, melt, marker, marks, guides, fittedGuides: fitted.length };
 }
 
 const clamp = (v: number, lo: number, hi: number) => Math.max(lo, Math.min(hi, v));
 
+/**
+ * The x axis runs edge to edge: 1/(r₊ + r₋) from the first salt to the last with 3 % of the plot's width
+ * (at least 12 px) beside them; the charge product with half a unit beside the outer values (room for the
+ * dodged stacks), or one unit for a single value.
+ */
+function xDomain(xs: readonly number[], mode: XMode, plotWidth: number): [number, number] {
+  if (mode === 'inverse-radius') return edgeToEdge(xs, plotWidth, Math.max(12, plotWidth * 0.03));
+  const lo = Math.min(...xs);
+  const hi = Math.max(...xs);
+  const margin = hi > lo ? 0.5 : 1;
+  return [lo - margin, hi + margin];
+}
 
 export const meltingPointsOf = (plotted: readonly Plotted[]): number[] =>
   plotted.flatMap((p) => (p.meltingPoint !== null ? [p.meltingPoint] : []));

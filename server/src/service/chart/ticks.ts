@@ -94,6 +94,36 @@ export function paddedRange(values: readonly number[], fraction: number): [numbe
   return [least >= 0 && start < 0 ? 0 : start, hi + span * fraction];
 }
 
+/**
+ * The range of an axis that runs edge to edge: the values' extent, widened so that the outermost values sit
+ * `edge` px inside an axis `length` px long. A single value (or values within 1e-9 of each other) gets ±5 %
+ * around it.
+ */
+export function edgeToEdge(values: readonly number[], length: number, edge: number): [number, number] {
+  const lo = Math.min(...values);
+  const hi = Math.max(...values);
+  const span = hi - lo;
+  if (!(span > 1e-9 * Math.max(Math.abs(lo), Math.abs(hi)))) {
+    const half = Math.abs(lo) * 0.05 || 0.05;
+    return [lo - half, hi + half];
+  }
+  const extra = (span * edge) / Math.max(1, length - 2 * edge);
+  return [lo - extra, hi + extra];
+}
+
+/**
+ * Nice ticks (as `niceTicks`) that lie inside [lo, hi] rather than covering it, so the axis can run edge to
+ * edge. Asks for more ticks until at least two fit, where the range allows.
+ */
+export function ticksWithin(lo: number, hi: number, target: number, integer = false): Ticks {
+  const tolerance = (hi - lo) * 1e-9;
+  for (let more = Number.isFinite(target) ? Math.max(1, target) : 5; ; more *= 2) {
+    const ticks = niceTicks(lo, hi, more, integer);
+    const inside = ticks.ticks.filter((t) => t >= lo - tolerance && t <= hi + tolerance);
+    if (inside.length >= 2 || more >= 20) return { ...ticks, ticks: inside, min: inside[0] ?? lo, max: inside[inside.length - 1] ?? hi };
+  }
+}
+
 export interface LineFit {
   slope: number;
   intercept: number;
