@@ -1,10 +1,10 @@
 /**
  * The lattice-energy chart: parsed back with a strict XML parser (sax, present in node_modules through
- * @vscode/vsce) and checked for geometry, scaling, ticks, escaping, legend, melting points and robustness.
+ * @vscode/vsce; test/chart-svg.ts) and checked for geometry, scaling, ticks, escaping, legend, melting points
+ * and robustness. Label placement: test/chart.labels.test.ts.
  * Salts: rough six-coordinate Shannon radii and lattice energies from memory (common textbook values); the
  * chart only draws what it is given, so the checks do not depend on their accuracy.
  */
-import { createRequire } from 'node:module';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import {
@@ -12,124 +12,24 @@ import {
   latticeChart,
   leastSquares,
   niceTicks,
-  textWidth,
   type LatticePoint,
 } from '../server/src/service/chart';
-
-// ---------------------------------------------------------------------------------------------------------
-// A tiny DOM from sax's strict parser: it throws on anything that is not well-formed XML.
-
-interface SaxParser {
-  onopentag: (node: { name: string; attributes: Record<string, string> }) => void;
-  onclosetag: (name: string) => void;
-  ontext: (t: string) => void;
-  onerror: (e: Error) => void;
-  write(s: string): SaxParser;
-  close(): SaxParser;
-}
-const sax = createRequire(import.meta.url)('sax') as { parser(strict: boolean): SaxParser };
-
-interface El {
-  name: string;
-  attrs: Record<string, string>;
-  children: El[];
-  text: string; // all text inside, concatenated
-  parent: El | null;
-}
-
-function parse(svg: string): El {
-  const p = sax.parser(true);
-  const root: El = { name: '#root', attrs: {}, children: [], text: '', parent: null };
-  let cur = root;
-  p.onerror = (e) => {
-    throw e;
-  };
-  p.onopentag = (node) => {
-    const el: El = { name: node.name, attrs: { ...node.attributes }, children: [], text: '', parent: cur };
-    cur.children.push(el);
-    cur = el;
-  };
-  p.onclosetag = () => {
-    cur = cur.parent as El;
-  };
-  p.ontext = (t) => {
-    for (let e: El | null = cur; e; e = e.parent) e.text += t;
-  };
-  p.write(svg).close();
-  expect(root.children).toHaveLength(1);
-  return root.children[0];
-}
-
-const all = (el: El, pred: (e: El) => boolean): El[] => {
-  const out: El[] = [];
-  const walk = (e: El) => {
-    if (pred(e)) out.push(e);
-    e.children.forEach(walk);
-  };
-  walk(el);
-  return out;
-};
-const hasClass = (c: string) => (e: El) => (e.attrs.class ?? '').split(/\s+/).includes(c);
-const one = (el: El, pred: (e: El) => boolean): El => {
-  const found = all(el, pred);
-  expect(found).toHaveLength(1);
-  return found[0];
-};
-const num = (s: string | undefined) => Number(s);
-const tickValue = (t: string) => Number(t.replace('−', '-'));
-
-interface PointView {
-  title: string;
-  kind: string;
-  cx: number;
-  cy: number;
-  shape: string;
-}
-function pointsOf(svg: El): PointView[] {
-  return all(svg, hasClass('iw-lc-pt')).map((g) => {
-    const title = g.children.find((c) => c.name === 'title')?.text ?? '';
-    const m = g.children.find((c) => c.name === 'circle' || c.name === 'rect') as El;
-    const cx = m.name === 'circle' ? num(m.attrs.cx) : num(m.attrs.x) + num(m.attrs.width) / 2;
-    const cy = m.name === 'circle' ? num(m.attrs.cy) : num(m.attrs.y) + num(m.attrs.height) / 2;
-    return { title, kind: g.attrs['data-kind'], cx, cy, shape: m.name };
-  });
-}
-function plotArea(svg: El) {
-  const r = one(svg, hasClass('iw-lc-plot'));
-  const x = num(r.attrs.x);
-  const y = num(r.attrs.y);
-  return { x0: x, y0: y, x1: x + num(r.attrs.width), y1: y + num(r.attrs.height) };
-}
-/** Tick values with their pixel positions, from one of the tick label groups. */
-function ticksOf(svg: El, cls: string, coord: 'x' | 'y') {
-  const g = all(svg, hasClass(cls));
-  if (g.length === 0) return [];
-  return g[0].children.filter((c) => c.name === 'text').map((t) => ({ value: tickValue(t.text), pos: num(t.attrs[coord]) }));
-}
-/** A linear map from pixel to data value, fitted through the tick labels' positions. */
-function inverseScale(ticks: Array<{ value: number; pos: number }>, offset = 0) {
-  const a = ticks[0];
-  const b = ticks[ticks.length - 1];
-  return (px: number) => a.value + ((px - (a.pos - offset)) / (b.pos - a.pos)) * (b.value - a.value);
-}
-
-/** A label's box, with the chart's own width estimate (the font is the host's, so no exact metrics). */
-const labelBox = (l: El) => {
-  const x = num(l.attrs.x);
-  const y = num(l.attrs.y);
-  return { x0: x, x1: x + textWidth(l.text, 11.5), y0: y - 9, y1: y + 2 };
-};
-function overlappingPairs(labels: El[]): string[] {
-  const boxes = labels.map(labelBox);
-  const out: string[] = [];
-  for (let i = 0; i < boxes.length; i++)
-    for (let j = i + 1; j < boxes.length; j++) {
-      const a = boxes[i];
-      const b = boxes[j];
-      if (!(a.x1 <= b.x0 || b.x1 <= a.x0 || a.y1 <= b.y0 || b.y1 <= a.y0)) out.push(`${labels[i].text} / ${labels[j].text}`);
-    }
-  return out;
-}
+import { ticksWithin } from '../server/src/service/chart/ticks';
+import {
+  all,
+  hasClass,
+  inverseScale,
+  labelBox,
+  num,
+  one,
+  overlappingPairs,
+  parse,
+  plotArea,
+  pointsOf,
+  ticksOf,
+  type El,
+  type PointView,
+} from './chart-svg';
 
 const isNiceStep = (step: number) => {
   const mag = Math.pow(10, Math.floor(Math.log10(step) + 1e-9));
@@ -268,9 +168,8 @@ describe('latticeChart: geometry and scales', () => {
     expect(horizontal.map((y) => Math.round(y + 11 * 0.35))).toEqual(yTicks.map((t) => Math.round(t.pos)));
   });
 
-  it('uses nice ticks (1, 2, 2.5, 5 × 10ⁿ) that cover the data', () => {
+  it('uses nice ticks (1, 2, 2.5, 5 × 10ⁿ) that cover the data on the energy and melting-point axes', () => {
     for (const [cls, coord, values] of [
-      ['iw-lc-xticks', 'x', SALTS.map((s) => s.inverseR0 as number)],
       ['iw-lc-yticks', 'y', SALTS.map((s) => s.kJPerMol)],
       ['iw-lc-mticks', 'y', SALTS.filter((s) => s.meltingPointC !== undefined).map((s) => s.meltingPointC as number)],
     ] as const) {
@@ -284,6 +183,37 @@ describe('latticeChart: geometry and scales', () => {
       // not absurdly wide: the data span at least a third of the axis
       expect(Math.max(...values) - Math.min(...values)).toBeGreaterThan((t[t.length - 1] - t[0]) / 3);
     }
+  });
+
+  it('runs the x axis edge to edge: nice ticks inside it, the outermost salts 3 % of the width from its ends', () => {
+    // The first and last salt sit max(12 px, 3 % of the plot's width) inside the plot area, whatever the
+    // spread of their radii: the rinse-trial salts span 0.333–0.353 Å⁻¹ and used to fill a fifth of the width.
+    const narrow: LatticePoint[] = [0.333, 0.342, 0.344, 0.345, 0.353].map((x, i) => ({ ...SALTS[i], inverseR0: x }));
+    for (const [salts, width] of [[SALTS, 640], [narrow, 640], [SALTS, 320], [narrow, 1200]] as const) {
+      const svg = parse(latticeChart([...salts], { width }));
+      const plot = plotArea(svg);
+      const edge = Math.max(12, 0.03 * (plot.x1 - plot.x0));
+      const cxs = pointsOf(svg).map((p) => p.cx);
+      expect(Math.min(...cxs) - plot.x0).toBeCloseTo(edge, 1);
+      expect(plot.x1 - Math.max(...cxs)).toBeCloseTo(edge, 1);
+      const ticks = ticksOf(svg, 'iw-lc-xticks', 'x');
+      expect(ticks.length).toBeGreaterThanOrEqual(2);
+      const step = ticks[1].value - ticks[0].value;
+      expect(isNiceStep(step), `step ${step}`).toBe(true);
+      for (const t of ticks) {
+        expect(t.pos).toBeGreaterThanOrEqual(plot.x0 - 0.01);
+        expect(t.pos).toBeLessThanOrEqual(plot.x1 + 0.01);
+      }
+    }
+  });
+
+  it('in charge-product mode, keeps half a unit beside the outermost charge products (room for dodged stacks)', () => {
+    const svg = parse(latticeChart([...SALTS, NH4NO3], { x: 'charge-product' }));
+    const plot = plotArea(svg);
+    const fromX = inverseScale(ticksOf(svg, 'iw-lc-xticks', 'x'));
+    expect(fromX(plot.x0)).toBeCloseTo(0.5, 2); // |z₊z₋| from 1 (NaCl) …
+    expect(fromX(plot.x1)).toBeCloseTo(4.5, 2); // … to 4 (MgO)
+    expect(ticksOf(svg, 'iw-lc-xticks', 'x').map((t) => t.value)).toEqual([1, 2, 3, 4]);
   });
 
   it('titles the axes with their units', () => {
@@ -525,6 +455,13 @@ describe('latticeChart: bad input', () => {
     expect(parse(none).text).toMatch(/No salts with lattice energies to chart/);
   });
 
+  it('survives values far too small for tick labels (a melting point of 1e-200 °C)', () => {
+    const tiny = [{ ...SALTS[0], meltingPointC: 1.1e-200 }, { ...SALTS[1], kJPerMol: 1e-200, meltingPointC: 2e-200 }];
+    const svg = parse(latticeChart(tiny));
+    expect(pointsOf(svg)).toHaveLength(2);
+    expect(ticksOf(svg, 'iw-lc-mticks', 'y').every((t) => Number.isFinite(t.value))).toBe(true);
+  });
+
   it('survives garbage that slips past the types', () => {
     const garbage = [null, 42, 'NaCl', { label: undefined, kJPerMol: 800, inverseR0: 0.35, chargeProduct: 1 }, {}] as unknown as LatticePoint[];
     const svg = parse(latticeChart(garbage, { x: 'sideways' as never, title: 7 as never }));
@@ -625,6 +562,23 @@ describe('niceTicks', () => {
         },
       ),
     );
+  });
+
+  it('ticksWithin: nice ticks inside a range, at least two', () => {
+    fc.assert(
+      fc.property(fc.double({ min: -1e4, max: 1e4, noNaN: true }), fc.double({ min: 1e-3, max: 1e4, noNaN: true }), fc.integer({ min: 2, max: 12 }), (lo, span, target) => {
+        const hi = lo + span;
+        const t = ticksWithin(lo, hi, target);
+        expect(t.ticks.length).toBeGreaterThanOrEqual(2);
+        expect(isNiceStep(t.step)).toBe(true);
+        for (const v of t.ticks) {
+          expect(v).toBeGreaterThanOrEqual(lo - span * 1e-9);
+          expect(v).toBeLessThanOrEqual(hi + span * 1e-9);
+        }
+      }),
+    );
+    expect(ticksWithin(0.5, 4.5, 6, true).ticks).toEqual([1, 2, 3, 4]);
+    expect(ticksWithin(NaN, 1, NaN).ticks.every(Number.isFinite)).toBe(true); // no endless search for more ticks
   });
 
   it('widens a zero or non-finite range instead of failing', () => {
