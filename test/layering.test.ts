@@ -6,7 +6,7 @@
  *   notes    scanning: chem and notes only (no LSP types, no Node)
  *   service  the language service: chem, notes, service, shared; no transport (vscode-languageserver,
  *            vscode-jsonrpc), no editor, no Node module (the caller hands it text); type-only imports of
- *            markdown-it (the host hands its instance over)
+ *            markdown-it (the host hands its instance over); pure libraries named in the rule (rbush)
  *   shared   constants both ends use: imports nothing but shared and package.json
  *   server   LSP wiring: anything but cli and client
  *   cli      the command line: anything but server and client
@@ -58,7 +58,8 @@ function importsOf(text: string): Import[] {
 const ALLOWED: Record<string, { layers: string[]; packages: RegExp | null; typePackages?: RegExp }> = {
   chem: { layers: ['chem'], packages: null },
   notes: { layers: ['chem', 'notes'], packages: null },
-  service: { layers: ['chem', 'notes', 'service', 'shared'], packages: null, typePackages: /^markdown-it$/ },
+  // Pure libraries that run anywhere are fine in the service (rbush: the chart's collision index).
+  service: { layers: ['chem', 'notes', 'service', 'shared'], packages: /^rbush$/, typePackages: /^markdown-it$/ },
   shared: { layers: ['shared', 'package.json'], packages: null },
   server: { layers: ['chem', 'notes', 'service', 'shared', 'server'], packages: /^(vscode-languageserver(\/.*)?|vscode-languageserver-textdocument|vscode-jsonrpc(\/.*)?|node:.*)$/ },
   cli: { layers: ['chem', 'notes', 'service', 'shared', 'cli', 'package.json', 'media'], packages: /^(node:.*|markdown-it)$/ },
