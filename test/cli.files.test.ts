@@ -268,3 +268,12 @@ describe('decoding a notes file', () => {
     expect(decodeNote(Buffer.from('\ufeffFe₂O₃ 🧪', 'utf8'))).toBe('\ufeffFe₂O₃ 🧪');
   });
 });
+
+describe('a UTF-8 byte-order mark', () => {
+  it('is not part of the note: columns on the first line are those an editor shows', () => {
+    const bytes = new Uint8Array([0xef, 0xbb, 0xbf, ...new TextEncoder().encode('Use `NaXx`.\n')]);
+    const text = decodeNote(bytes);
+    expect(text.startsWith('Use')).toBe(true);
+    expect(text.indexOf('Xx')).toBe(7);
+  });
+});

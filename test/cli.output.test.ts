@@ -229,6 +229,8 @@ describe('control characters never reach the terminal', () => {
     expect(visibleText('a\u001b[1mb\u0007\u0008\r\u007f\u009b\tc\nd')).toBe('a␛[1mb␇␈␍␡\\x9b\tc\nd');
     expect(visibleLine('a\nb\tc\u0000')).toBe('a␊b␉c␀');
     expect(visibleText('Fe₂O₃ · 5 H₂O — ü 🧪')).toBe('Fe₂O₃ · 5 H₂O — ü 🧪');
+    // Bidirectional overrides reorder what a terminal shows (a file named 'note\u202Edm.exe'): escaped.
+    expect(visibleLine('note\u202Edm.txt \u2066x\u2069')).toBe('note\\u202edm.txt \\u2066x\\u2069');
   });
 
   it('error messages with a file name are one line, shown as pictures (an IO in memory)', async () => {

@@ -145,7 +145,9 @@ export function decodeNote(bytes: Uint8Array): string {
     throw new InputProblem(`skipped: not UTF-8 text (invalid byte ${hex(bytes[at])} at offset ${at}, line ${lineAt(bytes, at)})`);
   }
   try {
-    return Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength).toString('utf8');
+    const text = Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength).toString('utf8');
+    // A UTF-8 byte-order mark is not part of the note: editors drop it, and columns must agree with theirs.
+    return text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
   } catch (e) {
     if ((e as NodeJS.ErrnoException).code === 'ERR_STRING_TOO_LONG') throw new InputProblem(`skipped: too large to read as one text (${bytes.length} bytes)`);
     throw e;

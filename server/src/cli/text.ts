@@ -6,7 +6,9 @@
  * CSI colour codes and OSC 52 clipboard or OSC 8 hyperlink escapes; BEL, backspace, CR). Text output
  * shows each C0 control and DEL as its Unicode control picture (U+2400–U+241F, U+2421: ESC prints as
  * ␛, BEL as ␇, CR as ␍) and each C1 control (U+0080–U+009F, which have no pictures) as `\x9b`-style
- * hex; newline and tab are kept in multi-line text. JSON output escapes them as JSON does
+ * hex; newline and tab are kept in multi-line text. Bidirectional formatting characters (U+061C, U+200E,
+ * U+200F, U+202A–U+202E, U+2066–U+2069), which reorder what a terminal shows around them, print as
+ * `\u202e`-style escapes. JSON output escapes them as JSON does
  * (`\u001b`; DEL and C1 too, which JSON.stringify leaves raw), so a JSON reader gets the text as written.
  */
 import type { LspDiagnostic } from '../service/diagnostics';
@@ -15,11 +17,12 @@ const picture = (c: string): string => {
   const code = c.charCodeAt(0);
   if (code < 0x20) return String.fromCharCode(0x2400 + code);
   if (code === 0x7f) return '\u2421';
+  if (code > 0xff) return `\\u${code.toString(16).padStart(4, '0')}`;
   return `\\x${code.toString(16)}`;
 };
 
-const CONTROLS_BUT_LINES = /[\u0000-\u0008\u000b-\u001f\u007f-\u009f]/g;
-const CONTROLS = /[\u0000-\u001f\u007f-\u009f]/g;
+const CONTROLS_BUT_LINES = /[\u0000-\u0008\u000b-\u001f\u007f-\u009f\u061c\u200e\u200f\u202a-\u202e\u2066-\u2069]/g;
+const CONTROLS = /[\u0000-\u001f\u007f-\u009f\u061c\u200e\u200f\u202a-\u202e\u2066-\u2069]/g;
 const RAW_IN_JSON = /[\u007f-\u009f]/g;
 
 /** Multi-line text for a terminal: every control character visible, newlines and tabs kept. */
