@@ -15,6 +15,33 @@ interface Run {
   escaped: boolean;
 }
 
+/** The first run after index `after` with `len` backticks, by a plain scan (few runs: the usual paragraph). */
+function nearestRunOfLen(runs: readonly Run[]) {
+  return (len: number, after: number): number => {
+    for (let q = after + 1; q < runs.length; q++) if (runs[q].len === len) return q;
+    return -1;
+  };
+}
+
+/** The same, linear over all the runs: candidates by length, with a pointer per length that only moves forward. */
+function pointerByLen(runs: readonly Run[]) {
+  const byLen = new Map<number, number[]>();
+  runs.forEach((r, k) => {
+    const list = byLen.get(r.len);
+    if (list) list.push(k);
+    else byLen.set(r.len, [k]);
+  });
+  const ptr = new Map<number, number>();
+  return (len: number, after: number): number => {
+    const list = byLen.get(len);
+    if (!list) return -1;
+    let p = ptr.get(len) ?? 0;
+    while (p < list.length && list[p] <= after) p++;
+    ptr.set(len, p);
+    return p < list.length ? list[p] : -1;
+  };
+}
+
 export function scanInline(text: string, start: number, end: number, prose: ProseMode, out: NoteItem[]) {
   const runs: Run[] = [];
   for (let i = start; i < end; ) {
@@ -33,22 +60,7 @@ export function scanInline(text: string, start: number, end: number, prose: Pros
     scanProse(text, start, end, prose, out);
     return;
   }
-  // Closing candidates by run length, with a pointer that only moves forward.
-  const byLen = new Map<number, number[]>();
-  runs.forEach((r, k) => {
-    const list = byLen.get(r.len);
-    if (list) list.push(k);
-    else byLen.set(r.len, [k]);
-  });
-  const ptr = new Map<number, number>();
-  const nextRunOfLen = (len: number, after: number): number => {
-    const list = byLen.get(len);
-    if (!list) return -1;
-    let p = ptr.get(len) ?? 0;
-    while (p < list.length && list[p] <= after) p++;
-    ptr.set(len, p);
-    return p < list.length ? list[p] : -1;
-  };
+  const nextRunOfLen = runs.length <= 32 ? nearestRunOfLen(runs) : pointerByLen(runs);
 
   // Raw HTML tags and autolinks take a backtick inside them out of play when they start first.
   const opaque = opaqueRanges(text, start, end);

@@ -109,7 +109,7 @@ function analyseItems(items: readonly NoteItem[], language: NotesLanguage, setti
       }
     }
   }
-  diagnostics.sort((a, b) => a.start - b.start || a.end - b.end);
+  if (diagnostics.length > 1) diagnostics.sort((a, b) => a.start - b.start || a.end - b.end);
   return heading ? { formulas, reactions, batches, diagnostics, heading } : { formulas, reactions, batches, diagnostics };
 }
 

@@ -28,8 +28,18 @@ function solubilityRow(hill: string): SolubilityRow | undefined {
   return solubilityIndex.get(hill);
 }
 
+type Anhydrous = { atoms: AtomCounts; hill: string; molarMass: number; water: number } | null;
+/** Per analysis (analyses are shared and read-only, so the answer never changes). */
+const anhydrousMemo = new WeakMap<FormulaAnalysis, Anhydrous>();
+
 /** The anhydrous part of a formula: its atoms less the water of crystallisation, and that water per formula unit. */
-export function anhydrousOf(a: FormulaAnalysis): { atoms: AtomCounts; hill: string; molarMass: number; water: number } | null {
+export function anhydrousOf(a: FormulaAnalysis): Anhydrous {
+  let hit = anhydrousMemo.get(a);
+  if (hit === undefined) anhydrousMemo.set(a, (hit = anhydrousUncached(a)));
+  return hit;
+}
+
+function anhydrousUncached(a: FormulaAnalysis): Anhydrous {
   if (!a.ok || !a.formula || a.charge !== 0) return null;
   let water = 0;
   a.formula.parts.forEach((part, k) => {
