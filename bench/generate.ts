@@ -3,10 +3,52 @@
  * (Tarnlow Applied Coatings), with prose, code spans, bare formulas, batch blocks, reaction blocks, lists,
  * tables and other fenced code. Same size and seed → same text.
  */
-const SALTS = ['NaCl', 'KCl', 'CaCl2·2H2O', 'MgSO4·7H2O', 'CuSO4.5H2O', 'ZnSO4·7H2O', 'KH2PO4', 'Na2HPO4·7H2O', 'NaHCO3', 'Na2CO3', 'K2Cr2O7', 'KMnO4', 'NiSO4·6H2O', 'NiCl2·6H2O', 'H3BO3', 'Ca(NO3)2·4H2O', 'Al2(SO4)3·18H2O', 'FeCl3·6H2O', 'Fe3O4', '[Co(NH3)6]Cl3', 'K4[Fe(CN)6]·3H2O', 'Na2S2O3·5H2O', 'CH3COONa', 'C6H8O7', 'TiO2', 'ZnO', 'Fe0.95O', 'SO₄²⁻', 'NH4^+', 'Ca(OH)2'];
+const SALTS = [
+  'NaCl',
+  'KCl',
+  'CaCl2·2H2O',
+  'MgSO4·7H2O',
+  'CuSO4.5H2O',
+  'ZnSO4·7H2O',
+  'KH2PO4',
+  'Na2HPO4·7H2O',
+  'NaHCO3',
+  'Na2CO3',
+  'K2Cr2O7',
+  'KMnO4',
+  'NiSO4·6H2O',
+  'NiCl2·6H2O',
+  'H3BO3',
+  'Ca(NO3)2·4H2O',
+  'Al2(SO4)3·18H2O',
+  'FeCl3·6H2O',
+  'Fe3O4',
+  '[Co(NH3)6]Cl3',
+  'K4[Fe(CN)6]·3H2O',
+  'Na2S2O3·5H2O',
+  'CH3COONa',
+  'C6H8O7',
+  'TiO2',
+  'ZnO',
+  'Fe0.95O',
+  'SO₄²⁻',
+  'NH4^+',
+  'Ca(OH)2',
+];
 const WRONG = ['CaNO3', 'Al(OH)2', 'NaXx', 'NH4SO4'];
-const EQUATIONS = ['Zn + H2SO4 -> ZnSO4 + H2', '2 NaOH + H2SO4 -> Na2SO4 + 2 H2O', 'Fe + O2 -> Fe2O3', 'MnO4^- + Fe^2+ + H^+ -> Mn^2+ + Fe^3+ + H2O', 'CaCO3 -> CaO + CO2', 'Cu + HNO3 -> Cu(NO3)2 + NO + H2O', 'Ni^2+ + 2 e^- -> Ni'];
-const WORDS = 'the rinse was clear after the second pass and the panel showed no bloom so we kept the bath at the same temperature for another hour while I checked OK marks In As CO NO with the operator on line two before lunch'.split(' ');
+const EQUATIONS = [
+  'Zn + H2SO4 -> ZnSO4 + H2',
+  '2 NaOH + H2SO4 -> Na2SO4 + 2 H2O',
+  'Fe + O2 -> Fe2O3',
+  'MnO4^- + Fe^2+ + H^+ -> Mn^2+ + Fe^3+ + H2O',
+  'CaCO3 -> CaO + CO2',
+  'Cu + HNO3 -> Cu(NO3)2 + NO + H2O',
+  'Ni^2+ + 2 e^- -> Ni',
+];
+const WORDS =
+  'the rinse was clear after the second pass and the panel showed no bloom so we kept the bath at the same temperature for another hour while I checked OK marks In As CO NO with the operator on line two before lunch'.split(
+    ' ',
+  );
 const UNITS = ['g', 'mg', 'mol', 'mmol', 'M', 'mM'];
 
 /** Small, fast, seedable PRNG (mulberry32). */
@@ -54,7 +96,10 @@ export function generateNotes(bytes: number, seed = 7): string {
       push(`name: Bath ${section}-${Math.floor(r() * 90 + 10)}`);
       push(`volume: ${Math.floor(r() * 1900 + 100)} mL`);
       const n = 2 + Math.floor(r() * 4);
-      for (let i = 0; i < n; i++) push(`${pick(SALTS.filter((s) => !s.includes('^') && !s.includes('⁻')))} ${(r() * 20 + 0.1).toFixed(2)} ${pick(UNITS)}${r() < 0.2 ? ' @ 99.5%' : ''}${r() < 0.3 ? '  # from stock' : ''}`);
+      for (let i = 0; i < n; i++)
+        push(
+          `${pick(SALTS.filter((s) => !s.includes('^') && !s.includes('⁻')))} ${(r() * 20 + 0.1).toFixed(2)} ${pick(UNITS)}${r() < 0.2 ? ' @ 99.5%' : ''}${r() < 0.3 ? '  # from stock' : ''}`,
+        );
       push('```');
     } else if (kind < 0.65) {
       push('```reaction');

@@ -47,8 +47,8 @@ export function probe(mode: string, n: number, bytes = 1_000_000) {
   let text = withParagraph(generateNotes(bytes, 9));
   let peak = 0;
   const t0 = Date.now();
-  let start = 0;
-  let startHeap: number | null = null;
+  let start: number;
+  let startHeap: number | null;
   if (mode === 'document') {
     let doc = analyseDocument(text, 'markdown');
     startHeap = retained();

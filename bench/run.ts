@@ -75,7 +75,14 @@ for (const size of quick ? [100_000, 1_000_000] : [100_000, 1_000_000, 10_000_00
   const ours = timeIt(() => documentDiagnostics(analyseDocument(text, 'markdown', coldSettings())), reps);
   const warm = timeIt(() => documentDiagnostics(analyseDocument(text, 'markdown')), reps);
   const label = size >= 1e6 ? `${size / 1e6} MB` : `${size / 1e3} KB`;
-  rows.push({ case: `check, ${label} (cold caches)`, ours: ms(ours), baseline: `markdown-it parse ${ms(base)}`, ratio: ours / base, target: '≤ 1.0×', met: ours / base <= 1 });
+  rows.push({
+    case: `check, ${label} (cold caches)`,
+    ours: ms(ours),
+    baseline: `markdown-it parse ${ms(base)}`,
+    ratio: ours / base,
+    target: '≤ 1.0×',
+    met: ours / base <= 1,
+  });
   figures[`check_${label}`] = { oursMs: ours, warmMs: warm, markdownItMs: base, ratio: ours / base };
   if (size === 1_000_000) figures.full1MBms = ours;
 }
@@ -95,17 +102,30 @@ for (const size of quick ? [100_000, 1_000_000] : [100_000, 1_000_000, 10_000_00
   });
   const rounds = quick ? 20 : 60;
   const ours = timeIt(() => {
-    for (let k = 0; k < rounds; k++) for (const f of readable) {
-      const p = parseFormula(f);
-      if (p.formula) molarMass(formulaAtoms(p.formula));
-    }
+    for (let k = 0; k < rounds; k++)
+      for (const f of readable) {
+        const p = parseFormula(f);
+        if (p.formula) molarMass(formulaAtoms(p.formula));
+      }
   }, 5);
   const theirs = timeIt(() => {
     for (let k = 0; k < rounds; k++) for (const f of readable) new MF(f).getInfo();
   }, 5);
   const per = (x: number) => `${((x * 1000) / (rounds * readable.length)).toFixed(2)} µs/formula`;
-  rows.push({ case: `formula parse + molar mass (${readable.length} formulas mf-parser reads)`, ours: per(ours), baseline: `mf-parser ${per(theirs)}`, ratio: theirs / ours, target: '≥ 3× faster', met: theirs / ours >= 3 });
-  figures.formulas = { count: readable.length, oursUsPerFormula: (ours * 1000) / (rounds * readable.length), mfParserUsPerFormula: (theirs * 1000) / (rounds * readable.length), speedup: theirs / ours };
+  rows.push({
+    case: `formula parse + molar mass (${readable.length} formulas mf-parser reads)`,
+    ours: per(ours),
+    baseline: `mf-parser ${per(theirs)}`,
+    ratio: theirs / ours,
+    target: '≥ 3× faster',
+    met: theirs / ours >= 3,
+  });
+  figures.formulas = {
+    count: readable.length,
+    oursUsPerFormula: (ours * 1000) / (rounds * readable.length),
+    mfParserUsPerFormula: (theirs * 1000) / (rounds * readable.length),
+    speedup: theirs / ours,
+  };
 }
 
 // ── 3. incremental re-analysis after a one-character edit, 1 MB ──────────
@@ -131,7 +151,14 @@ for (const size of quick ? [100_000, 1_000_000] : [100_000, 1_000_000, 10_000_00
   }
   const full = figures.full1MBms as number;
   const inc = median(times);
-  rows.push({ case: 'incremental re-analysis after a 1-char edit, 1 MB', ours: ms(inc), baseline: `full analysis ${ms(full)}`, ratio: inc / full, target: '< 2 %', met: inc / full < 0.02 });
+  rows.push({
+    case: 'incremental re-analysis after a 1-char edit, 1 MB',
+    ours: ms(inc),
+    baseline: `full analysis ${ms(full)}`,
+    ratio: inc / full,
+    target: '< 2 %',
+    met: inc / full < 0.02,
+  });
   figures.incremental = { medianMs: inc, p90Ms: pct(times, 90), withoutHintMedianMs: median(timesNoHint), fullMs: full, ratio: inc / full };
 }
 
@@ -143,7 +170,8 @@ async function serverCase() {
   const waiters: Array<{ version: number; resolve: (t: number) => void }> = [];
   conn.onNotification('textDocument/publishDiagnostics', (p: { version?: number }) => {
     const t = now();
-    for (const w of waiters.splice(0)) if (p.version === w.version) w.resolve(t);
+    for (const w of waiters.splice(0))
+      if (p.version === w.version) w.resolve(t);
       else waiters.push(w);
   });
   conn.onRequest('workspace/configuration', (p: { items: unknown[] }) => p.items.map(() => ({ validation: { delayMs: 0 } })));
@@ -187,19 +215,59 @@ async function serverCase() {
     version++;
     const done = diag(version);
     const a = now();
-    await conn.sendNotification('textDocument/didChange', { textDocument: { uri, version }, contentChanges: [{ range: { start: { line, character: 0 }, end: { line, character: 0 } }, text: 'x' }] });
+    await conn.sendNotification('textDocument/didChange', {
+      textDocument: { uri, version },
+      contentChanges: [{ range: { start: { line, character: 0 }, end: { line, character: 0 } }, text: 'x' }],
+    });
     edits.push((await done) - a);
   }
   await conn.sendRequest('shutdown');
   await conn.sendNotification('exit');
   proc.kill();
   const baseHover = median(nullHover);
-  rows.push({ case: 'first diagnostics after opening 1 MB, via the server', ours: ms(firstMs), baseline: `markdown-it parse ${ms(mdParse)}`, ratio: firstMs / mdParse, target: '< 300 ms', met: firstMs < 300 });
+  rows.push({
+    case: 'first diagnostics after opening 1 MB, via the server',
+    ours: ms(firstMs),
+    baseline: `markdown-it parse ${ms(mdParse)}`,
+    ratio: firstMs / mdParse,
+    target: '< 300 ms',
+    met: firstMs < 300,
+  });
   const baseP99 = pct(nullHover, 99);
-  rows.push({ case: 'hover p50 over 1 MB, via the server', ours: ms(median(hovers)), baseline: `null request p50 ${ms(baseHover)}`, ratio: median(hovers) / baseHover, target: '—', met: true });
-  rows.push({ case: 'hover p99 over 1 MB, via the server', ours: ms(pct(hovers, 99)), baseline: `null request p99 ${ms(baseP99)}`, ratio: pct(hovers, 99) / baseP99, target: '< 2 ms', met: pct(hovers, 99) < 2 });
-  rows.push({ case: 'one-character edit re-validated, 1 MB, via the server', ours: ms(median(edits)), baseline: `markdown-it parse ${ms(mdParse)}`, ratio: median(edits) / mdParse, target: '< 20 ms', met: median(edits) < 20 });
-  figures.server = { firstDiagnosticsMs: firstMs, hoverP50Ms: median(hovers), hoverP99Ms: pct(hovers, 99), nullRequestMs: baseHover, nullRequestP99Ms: baseP99, editRevalidateMedianMs: median(edits), editRevalidateP90Ms: pct(edits, 90), markdownItParseMs: mdParse };
+  rows.push({
+    case: 'hover p50 over 1 MB, via the server',
+    ours: ms(median(hovers)),
+    baseline: `null request p50 ${ms(baseHover)}`,
+    ratio: median(hovers) / baseHover,
+    target: '—',
+    met: true,
+  });
+  rows.push({
+    case: 'hover p99 over 1 MB, via the server',
+    ours: ms(pct(hovers, 99)),
+    baseline: `null request p99 ${ms(baseP99)}`,
+    ratio: pct(hovers, 99) / baseP99,
+    target: '< 2 ms',
+    met: pct(hovers, 99) < 2,
+  });
+  rows.push({
+    case: 'one-character edit re-validated, 1 MB, via the server',
+    ours: ms(median(edits)),
+    baseline: `markdown-it parse ${ms(mdParse)}`,
+    ratio: median(edits) / mdParse,
+    target: '< 20 ms',
+    met: median(edits) < 20,
+  });
+  figures.server = {
+    firstDiagnosticsMs: firstMs,
+    hoverP50Ms: median(hovers),
+    hoverP99Ms: pct(hovers, 99),
+    nullRequestMs: baseHover,
+    nullRequestP99Ms: baseP99,
+    editRevalidateMedianMs: median(edits),
+    editRevalidateP90Ms: pct(edits, 90),
+    markdownItParseMs: mdParse,
+  };
 }
 
 // ── 5. memory: peak RSS for a 10 MB workspace ────────────────────────────
@@ -216,7 +284,14 @@ function memoryCase() {
   const ours = run('ionwright');
   const base = run('markdown-it');
   rmSync(dir, { recursive: true, force: true });
-  rows.push({ case: `peak RSS, ${files} MB workspace (all files analysed and kept)`, ours: `${ours.maxRssMB.toFixed(0)} MB`, baseline: `markdown-it tokens kept ${base.maxRssMB.toFixed(0)} MB`, ratio: ours.maxRssMB / base.maxRssMB, target: '—', met: true });
+  rows.push({
+    case: `peak RSS, ${files} MB workspace (all files analysed and kept)`,
+    ours: `${ours.maxRssMB.toFixed(0)} MB`,
+    baseline: `markdown-it tokens kept ${base.maxRssMB.toFixed(0)} MB`,
+    ratio: ours.maxRssMB / base.maxRssMB,
+    target: '—',
+    met: true,
+  });
   figures.memory = { workspaceMB: files, oursMaxRssMB: ours.maxRssMB, markdownItMaxRssMB: base.maxRssMB };
 }
 
@@ -245,8 +320,22 @@ function childMemory(mode: string, dir: string) {
   }, reps);
   const withPlugin = new MarkdownIt().use(ionwrightPreview);
   const warm = timeIt(() => withPlugin.render(text), reps);
-  rows.push({ case: 'preview render with the plugin, 1 MB (cold caches)', ours: ms(cold), baseline: `markdown-it render ${ms(base)}`, ratio: cold / base, target: '≤ 2.0×', met: cold / base <= 2 });
-  rows.push({ case: 'preview re-render with the plugin, 1 MB (warm)', ours: ms(warm), baseline: `markdown-it render ${ms(base)}`, ratio: warm / base, target: '≤ 1.5×', met: warm / base <= 1.5 });
+  rows.push({
+    case: 'preview render with the plugin, 1 MB (cold caches)',
+    ours: ms(cold),
+    baseline: `markdown-it render ${ms(base)}`,
+    ratio: cold / base,
+    target: '≤ 2.0×',
+    met: cold / base <= 2,
+  });
+  rows.push({
+    case: 'preview re-render with the plugin, 1 MB (warm)',
+    ours: ms(warm),
+    baseline: `markdown-it render ${ms(base)}`,
+    ratio: warm / base,
+    target: '≤ 1.5×',
+    met: warm / base <= 1.5,
+  });
   figures.preview = { coldMs: cold, warmMs: warm, markdownItRenderMs: base };
 }
 
@@ -274,18 +363,49 @@ async function longUseCase() {
       after = s.rssMB();
     }
     await s.stop();
-    rows.push({ case: 'server RSS growth, 1,000 keystrokes into 1 MB', ours: `+${(peak - start).toFixed(0)} MB`, baseline: `RSS with the note open ${start.toFixed(0)} MB`, ratio: peak / start, target: '≤ +100 MB', met: peak - start <= 100 });
-    rows.push({ case: 'server RSS after closing that note', ours: `${after - start >= 0 ? '+' : ''}${(after - start).toFixed(0)} MB`, baseline: `RSS with the note open ${start.toFixed(0)} MB`, ratio: after / start, target: '≤ +60 MB', met: after - start <= 60 });
+    rows.push({
+      case: 'server RSS growth, 1,000 keystrokes into 1 MB',
+      ours: `+${(peak - start).toFixed(0)} MB`,
+      baseline: `RSS with the note open ${start.toFixed(0)} MB`,
+      ratio: peak / start,
+      target: '≤ +100 MB',
+      met: peak - start <= 100,
+    });
+    rows.push({
+      case: 'server RSS after closing that note',
+      ours: `${after - start >= 0 ? '+' : ''}${(after - start).toFixed(0)} MB`,
+      baseline: `RSS with the note open ${start.toFixed(0)} MB`,
+      ratio: after / start,
+      target: '≤ +60 MB',
+      met: after - start <= 60,
+    });
     figures.typing = { startMB: start, peakMB: peak, afterCloseMB: after, msPerKeystrokeWithHover: perKey };
   }
   {
-    const probe = (mode: string) => JSON.parse(spawnSync(process.execPath, ['--expose-gc', join(__dirname, 'memory-probes.js'), mode, quick ? '40' : '200'], { encoding: 'utf8' }).stdout) as { startMB: number; peakMB: number; startHeapMB: number; retainedHeapMB: number; msEach: number; n: number };
+    const probe = (mode: string) =>
+      JSON.parse(
+        spawnSync(process.execPath, ['--expose-gc', join(__dirname, 'memory-probes.js'), mode, quick ? '40' : '200'], { encoding: 'utf8' }).stdout,
+      ) as { startMB: number; peakMB: number; startHeapMB: number; retainedHeapMB: number; msEach: number; n: number };
     const plugin = probe('preview');
     const plain = probe('plain');
     const growth = plugin.peakMB - plugin.startMB;
     const plainGrowth = plain.peakMB - plain.startMB;
-    rows.push({ case: `preview RSS growth, ${plugin.n} re-renders of 1 MB`, ours: `+${growth.toFixed(0)} MB`, baseline: `markdown-it alone +${plainGrowth.toFixed(0)} MB`, ratio: growth / plainGrowth, target: '≤ +100 MB over it', met: growth - plainGrowth <= 100 });
-    rows.push({ case: `preview heap kept after ${plugin.n} re-renders (after GC)`, ours: `+${(plugin.retainedHeapMB - plugin.startHeapMB).toFixed(1)} MB`, baseline: `after the first render ${plugin.startHeapMB.toFixed(0)} MB`, ratio: plugin.retainedHeapMB / plugin.startHeapMB, target: '≤ +60 MB', met: plugin.retainedHeapMB - plugin.startHeapMB <= 60 });
+    rows.push({
+      case: `preview RSS growth, ${plugin.n} re-renders of 1 MB`,
+      ours: `+${growth.toFixed(0)} MB`,
+      baseline: `markdown-it alone +${plainGrowth.toFixed(0)} MB`,
+      ratio: growth / plainGrowth,
+      target: '≤ +100 MB over it',
+      met: growth - plainGrowth <= 100,
+    });
+    rows.push({
+      case: `preview heap kept after ${plugin.n} re-renders (after GC)`,
+      ours: `+${(plugin.retainedHeapMB - plugin.startHeapMB).toFixed(1)} MB`,
+      baseline: `after the first render ${plugin.startHeapMB.toFixed(0)} MB`,
+      ratio: plugin.retainedHeapMB / plugin.startHeapMB,
+      target: '≤ +60 MB',
+      met: plugin.retainedHeapMB - plugin.startHeapMB <= 60,
+    });
     figures.previewRenders = { plugin, plain };
   }
   {
@@ -307,7 +427,14 @@ async function longUseCase() {
     }
     await s.stop();
     const label = `${(text.length / 1e6).toFixed(1)} MB`;
-    rows.push({ case: `keystroke + hover in a ${label} one-line note`, ours: ms(median(keys)), baseline: `null request ${ms(median(nulls))}`, ratio: median(keys) / median(nulls), target: '< 200 ms', met: median(keys) < 200 });
+    rows.push({
+      case: `keystroke + hover in a ${label} one-line note`,
+      ours: ms(median(keys)),
+      baseline: `null request ${ms(median(nulls))}`,
+      ratio: median(keys) / median(nulls),
+      target: '< 200 ms',
+      met: median(keys) < 200,
+    });
     figures.longLine = { chars: text.length, medianKeystrokeMs: median(keys), maxKeystrokeMs: Math.max(...keys) };
   }
   {
@@ -318,14 +445,24 @@ async function longUseCase() {
     const outcomes = await Promise.all(
       Array.from({ length: 2000 }, (_, i) => {
         const src = new CancellationTokenSource();
-        const p = s.conn.sendRequest('textDocument/hover', { textDocument: { uri }, position: { line: 10 + (i % 50), character: 5 } }, src.token).then(() => 'answered', (e: { code?: number }) => (e.code === -32800 ? 'cancelled' : 'failed'));
+        const p = s.conn.sendRequest('textDocument/hover', { textDocument: { uri }, position: { line: 10 + (i % 50), character: 5 } }, src.token).then(
+          () => 'answered',
+          (e: { code?: number }) => (e.code === -32800 ? 'cancelled' : 'failed'),
+        );
         src.cancel();
         return p;
       }),
     );
     await s.stop();
     const cancelled = outcomes.filter((o) => o === 'cancelled').length;
-    rows.push({ case: '2,000 hovers cancelled at once: answered RequestCancelled', ours: `${cancelled}`, baseline: 'requests sent 2000', ratio: cancelled / 2000, target: '≥ 90 %', met: cancelled >= 1800 });
+    rows.push({
+      case: '2,000 hovers cancelled at once: answered RequestCancelled',
+      ours: `${cancelled}`,
+      baseline: 'requests sent 2000',
+      ratio: cancelled / 2000,
+      target: '≥ 90 %',
+      met: cancelled >= 1800,
+    });
     figures.cancellation = { sent: 2000, cancelled, answered: outcomes.filter((o) => o === 'answered').length };
   }
 }
@@ -338,14 +475,23 @@ async function main() {
   await serverCase();
   memoryCase();
   await longUseCase();
-  const machine = { cpus: cpus().length, cpu: cpus()[0]?.model, memoryGB: Math.round(totalmem() / 2 ** 30), node: process.version, platform: `${process.platform} ${process.arch}` };
+  const machine = {
+    cpus: cpus().length,
+    cpu: cpus()[0]?.model,
+    memoryGB: Math.round(totalmem() / 2 ** 30),
+    node: process.version,
+    platform: `${process.platform} ${process.arch}`,
+  };
   const out = { date: new Date().toISOString(), quick, machine, rows, figures };
   if (!quick) writeFileSync(join(__dirname, '..', 'bench', 'results.json'), JSON.stringify(out, null, 2) + '\n');
   const w = [52, 14, 34, 9, 12];
   const line = (cells: string[]) => cells.map((c, i) => c.padEnd(w[i])).join(' ');
   console.log(`Machine: ${machine.cpus} × ${machine.cpu}, ${machine.memoryGB} GB, Node ${machine.node}\n`);
   console.log(line(['case', 'ours', 'baseline (same run)', 'ratio', 'target']));
-  for (const r of rows) console.log(line([r.case, r.ours, r.baseline, r.ratio < 0.1 ? `${(r.ratio * 100).toFixed(2)} %` : `${r.ratio.toFixed(2)}×`, `${r.target}${r.met ? '' : '  MISSED'}`]));
+  for (const r of rows)
+    console.log(
+      line([r.case, r.ours, r.baseline, r.ratio < 0.1 ? `${(r.ratio * 100).toFixed(2)} %` : `${r.ratio.toFixed(2)}×`, `${r.target}${r.met ? '' : '  MISSED'}`]),
+    );
   if (!quick) console.log('\nFigures written to bench/results.json');
 }
 

@@ -10,8 +10,13 @@ await Promise.all([
   build({ ...common, entryPoints: ['server/src/server/main.ts'], outfile: 'dist/server.js' }),
   build({ ...common, entryPoints: ['server/src/cli/bin.ts'], outfile: 'dist/cli.js', banner: { js: '#!/usr/bin/env node' } }),
   ...(process.argv.includes('--bench')
-    ? [build({ ...common, entryPoints: ['bench/run.ts'], outfile: 'dist/bench.js' }), build({ ...common, entryPoints: ['bench/memory-probes.ts'], outfile: 'dist/memory-probes.js' })]
+    ? [
+        build({ ...common, entryPoints: ['bench/run.ts'], outfile: 'dist/bench.js' }),
+        build({ ...common, entryPoints: ['bench/memory-probes.ts'], outfile: 'dist/memory-probes.js' }),
+      ]
     : []),
-  ...(process.argv.includes('--screenshots') ? [build({ ...common, entryPoints: ['scripts/screenshots.ts'], outfile: 'dist/screenshots.js', external: ['playwright-core'] })] : []),
+  ...(process.argv.includes('--screenshots')
+    ? [build({ ...common, entryPoints: ['scripts/screenshots.ts'], outfile: 'dist/screenshots.js', external: ['playwright-core'] })]
+    : []),
 ]);
 if (watch) console.log('watch mode is not provided; run npm run build again');

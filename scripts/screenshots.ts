@@ -39,10 +39,15 @@ body { margin: 0; padding: 0; background: #eef0f3; font: 14px/1.45 system-ui, sa
 .caption { font-size: 12.5px; color: #5b6470; margin: 8px 2px 0; }
 `;
 
-const page = (body: string, extraCss = '') => `<!doctype html><html><head><meta charset="utf-8"><style>${FRAME_CSS}</style><style>${extraCss}</style></head><body><div class="shot">${body}</div></body></html>`;
+const page = (body: string, extraCss = '') =>
+  `<!doctype html><html><head><meta charset="utf-8"><style>${FRAME_CSS}</style><style>${extraCss}</style></head><body><div class="shot">${body}</div></body></html>`;
 
 function editorLines(text: string, first: number, count: number, decorate: (line: number, html: string) => string): string {
-  return text.split('\n').slice(first, first + count).map((l, k) => `<div class="line" data-n="${first + k + 1}">${decorate(first + k, escapeHtml(l)) || ' '}</div>`).join('');
+  return text
+    .split('\n')
+    .slice(first, first + count)
+    .map((l, k) => `<div class="line" data-n="${first + k + 1}">${decorate(first + k, escapeHtml(l)) || ' '}</div>`)
+    .join('');
 }
 
 async function main() {
@@ -67,7 +72,11 @@ async function main() {
   const fixHtml = page(`<div class="editor">${editorLines(note, l - 1, 3, (n, html) => {
     if (n !== l) return html;
     const raw = note.split('\n')[n];
-    return escapeHtml(raw.slice(0, diag.range.start.character)) + `<span class="squiggle">${escapeHtml(raw.slice(diag.range.start.character, diag.range.end.character))}</span>` + escapeHtml(raw.slice(diag.range.end.character));
+    return (
+      escapeHtml(raw.slice(0, diag.range.start.character)) +
+      `<span class="squiggle">${escapeHtml(raw.slice(diag.range.start.character, diag.range.end.character))}</span>` +
+      escapeHtml(raw.slice(diag.range.end.character))
+    );
   })}<div class="popup"><p><strong>warning</strong> <code>${escapeHtml(diag.code)}</code>: ${escapeHtml(diag.message)}</p></div>
     <div class="menu">${actions.map((a, k) => `<div class="${k === 0 ? 'first' : ''}">${escapeHtml(a.title)}<span class="kind">${a.kind === 'quickfix' ? 'quick fix' : 'refactor'}</span></div>`).join('')}</div></div>
     <p class="caption">The warning on <code>Al(OH)2</code> and the code actions the server offers there (the first is preferred).</p>`);
@@ -78,12 +87,19 @@ async function main() {
   // 4. The HTML report.
   const report = reportHtml(doc, { title: 'rinse-trials.md', css: CSS, markdownIt: () => new MarkdownIt() });
 
-  const browser = await chromium.launch({ executablePath: process.env.IONWRIGHT_CHROMIUM ?? '/usr/bin/chromium', args: ['--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run'] });
+  const browser = await chromium.launch({
+    executablePath: process.env.IONWRIGHT_CHROMIUM ?? '/usr/bin/chromium',
+    args: ['--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run'],
+  });
   try {
     const shoot = async (html: string, file: string, width: number, clip?: string, scheme: 'light' | 'dark' = 'light') => {
       const p = await browser.newPage({ viewport: { width, height: 600 }, deviceScaleFactor: 1, colorScheme: scheme });
       await p.setContent(html);
-      if (clip) await p.locator(clip).first().screenshot({ path: join(OUT, file) });
+      if (clip)
+        await p
+          .locator(clip)
+          .first()
+          .screenshot({ path: join(OUT, file) });
       else await p.screenshot({ path: join(OUT, file), fullPage: true });
       await p.close();
     };
@@ -95,7 +111,10 @@ async function main() {
   } finally {
     await browser.close();
   }
-  writeFileSync(join(OUT, 'README.md'), '# Pictures for the README\n\nWritten by `npm run screenshots` (scripts/screenshots.ts) from the demo notes; do not edit by hand.\n');
+  writeFileSync(
+    join(OUT, 'README.md'),
+    '# Pictures for the README\n\nWritten by `npm run screenshots` (scripts/screenshots.ts) from the demo notes; do not edit by hand.\n',
+  );
   console.log(`pictures written to ${OUT}/`);
 }
 

@@ -74,7 +74,11 @@ describe('inserted tables', () => {
     expect('reason' in o && o.reason).toMatch(/never closed/);
   });
 
-  for (const [name, eol] of [['CRLF', '\r\n'], ['lone CR', '\r'], ['LF', '\n']] as const) {
+  for (const [name, eol] of [
+    ['CRLF', '\r\n'],
+    ['lone CR', '\r'],
+    ['LF', '\n'],
+  ] as const) {
     it(`uses the document's own line ending (${name})`, () => {
       const text = NOTE.replace(/\n/g, eol);
       const doc = analyseDocument(text, 'markdown');
@@ -94,25 +98,38 @@ describe('inserted tables', () => {
   });
 
   it('property: every block of the note is still a block, unchanged, after the insertion', () => {
-    const pieces = ['Prose with `NaCl` and `KBr`.', 'A second line with `CuSO4·5H2O`.', '```batch\nvolume: 1 L\nKCl 3 g\n```', '```python\nx = 1\n```', '# Heading `LiF`', '', '    indented code'];
+    const pieces = [
+      'Prose with `NaCl` and `KBr`.',
+      'A second line with `CuSO4·5H2O`.',
+      '```batch\nvolume: 1 L\nKCl 3 g\n```',
+      '```python\nx = 1\n```',
+      '# Heading `LiF`',
+      '',
+      '    indented code',
+    ];
     fc.assert(
-      fc.property(fc.array(fc.constantFrom(...pieces), { minLength: 1, maxLength: 8 }), fc.double({ min: 0, max: 1, noNaN: true }), fc.double({ min: 0, max: 1, noNaN: true }), (parts, a, b) => {
-        const text = parts.join('\n') + '\n';
-        const doc = analyseDocument(text, 'markdown');
-        let [s, e] = [Math.floor(a * text.length), Math.floor(b * text.length)];
-        if (e < s) [s, e] = [e, s];
-        for (const o of [tableEditForSelection(doc, s, e), tableEditAt(doc, s)]) {
-          if (!('edit' in o)) continue;
-          const at = doc.lines.offsetAt(o.edit.range.start);
-          const out = apply(text, o);
-          const shift = o.edit.newText.length;
-          const after = new Set(markdownBlocks(out).map((x) => `${x.start}:${x.end}`));
-          for (const x of markdownBlocks(text)) {
-            const moved = x.start >= at ? `${x.start + shift}:${x.end + shift}` : `${x.start}:${x.end}`;
-            expect(after.has(moved), `block ${JSON.stringify(text.slice(x.start, x.end))} split or moved in ${JSON.stringify(out)}`).toBe(true);
+      fc.property(
+        fc.array(fc.constantFrom(...pieces), { minLength: 1, maxLength: 8 }),
+        fc.double({ min: 0, max: 1, noNaN: true }),
+        fc.double({ min: 0, max: 1, noNaN: true }),
+        (parts, a, b) => {
+          const text = parts.join('\n') + '\n';
+          const doc = analyseDocument(text, 'markdown');
+          let [s, e] = [Math.floor(a * text.length), Math.floor(b * text.length)];
+          if (e < s) [s, e] = [e, s];
+          for (const o of [tableEditForSelection(doc, s, e), tableEditAt(doc, s)]) {
+            if (!('edit' in o)) continue;
+            const at = doc.lines.offsetAt(o.edit.range.start);
+            const out = apply(text, o);
+            const shift = o.edit.newText.length;
+            const after = new Set(markdownBlocks(out).map((x) => `${x.start}:${x.end}`));
+            for (const x of markdownBlocks(text)) {
+              const moved = x.start >= at ? `${x.start + shift}:${x.end + shift}` : `${x.start}:${x.end}`;
+              expect(after.has(moved), `block ${JSON.stringify(text.slice(x.start, x.end))} split or moved in ${JSON.stringify(out)}`).toBe(true);
+            }
           }
-        }
-      }),
+        },
+      ),
       { numRuns: 300 },
     );
   });

@@ -46,13 +46,18 @@ describe('ionwright batch', () => {
     expect(r.stdout).toContain("not counted: HNO3 120 mL @ 68% — Unknown unit 'mL'");
     expect(r.stdout).toContain("not counted: H2SO4 80 mL — Unknown unit 'mL'");
     expect(r.stdout).toContain('HNO₃ (line not counted), H₂SO₄ (line not counted): strong acid');
-    expect(r.stdout).toMatch(/^Ingredient +Amount +Molar mass \(g\/mol\) +To weigh \(g\) +Moles \(mol\) +Concentration \(M\) +Share of weighed mass +Share of total$/m);
+    expect(r.stdout).toMatch(
+      /^Ingredient +Amount +Molar mass \(g\/mol\) +To weigh \(g\) +Moles \(mol\) +Concentration \(M\) +Share of weighed mass +Share of total$/m,
+    );
   });
 
   it('--json: skipped [{line, text, reason}] with 0-based document lines; massFraction of the weighed mass, fractionOfTotal where a total is given', () => {
     const r = cli(['batch', 'desmut.md', '--json'], dir);
     const [desmut, seal] = JSON.parse(r.stdout);
-    expect(desmut.skipped.map((s: { line: number; text: string }) => [s.line, s.text])).toEqual([[5, 'HNO3 120 mL @ 68%'], [7, 'H2SO4 80 mL']]);
+    expect(desmut.skipped.map((s: { line: number; text: string }) => [s.line, s.text])).toEqual([
+      [5, 'HNO3 120 mL @ 68%'],
+      [7, 'H2SO4 80 mL'],
+    ]);
     expect(desmut.skipped[0].reason).toContain("Unknown unit 'mL'");
     expect(desmut.incomplete).toBe(true);
     expect(desmut.ingredients.map((i: { formula: string }) => i.formula)).toEqual(['(NH4)HF2', 'Fe2(SO4)3']);

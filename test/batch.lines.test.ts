@@ -25,14 +25,7 @@ const NH4HF2 = 14.007 + 5 * 1.008 + 2 * 18.998;
 const Fe2SO43 = 2 * 55.845 + 3 * (32.06 + 4 * 15.999);
 
 /** An invented desmut bath whose two acid lines are written by volume, which this batch syntax cannot weigh. */
-const DESMUT = [
-  'name: Desmut D-4',
-  'volume: 2 L',
-  'HNO3 120 mL @ 68%   # nitric, by volume',
-  '(NH4)HF2 30 g',
-  'H2SO4 80 mL',
-  'Fe2(SO4)3 33 g',
-].join('\n');
+const DESMUT = ['name: Desmut D-4', 'volume: 2 L', 'HNO3 120 mL @ 68%   # nitric, by volume', '(NH4)HF2 30 g', 'H2SO4 80 mL', 'Fe2(SO4)3 33 g'].join('\n');
 
 describe('a desmut bath with two acid lines in error', () => {
   const b = batch(DESMUT);
@@ -60,7 +53,9 @@ describe('a desmut bath with two acid lines in error', () => {
 
   it('does not lose the acid cautions of the lines not counted (their formulas are readable)', () => {
     // One line per caution, naming every substance it applies to.
-    expect(b.cautions.map((c) => c.text)).toContain('HNO₃ (line not counted), H₂SO₄ (line not counted): strong acid: corrosive; add acid to water, never water to acid');
+    expect(b.cautions.map((c) => c.text)).toContain(
+      'HNO₃ (line not counted), H₂SO₄ (line not counted): strong acid: corrosive; add acid to water, never water to acid',
+    );
     expect(b.skipped[0].cautions.map((c) => c.cls)).toEqual(['strong acid']);
   });
 });
@@ -213,28 +208,51 @@ describe('two shares with two names: of the weighed mass, and of the total', () 
 
 describe('property: every non-blank line is either counted, read as a header, or listed as not counted — once', () => {
   const piece = fc.constantFrom(
-    'NaCl 5 g', 'KCl 0.1 M', 'CuSO4·5H2O 2 wt%', 'NaCl 5 g @ 105%', 'NaCl 5 gallons', 'NaXx 1 g', 'H2SO4 10 mL', 'NaCl', '  KBr 2g',
-    'volume: 1 L', 'volume: 2 furlongs', 'total: 100 g', 'name: A', 'name: B', '# comment', '', 'Ca(NO3 1 g', 'NaCl 1 g extra', 'Na+ 0.1 M',
+    'NaCl 5 g',
+    'KCl 0.1 M',
+    'CuSO4·5H2O 2 wt%',
+    'NaCl 5 g @ 105%',
+    'NaCl 5 gallons',
+    'NaXx 1 g',
+    'H2SO4 10 mL',
+    'NaCl',
+    '  KBr 2g',
+    'volume: 1 L',
+    'volume: 2 furlongs',
+    'total: 100 g',
+    'name: A',
+    'name: B',
+    '# comment',
+    '',
+    'Ca(NO3 1 g',
+    'NaCl 1 g extra',
+    'Na+ 0.1 M',
   );
   it('holds on random blocks, and no error lies on a counted line', () => {
-    fc.assert(fc.property(fc.array(piece, { maxLength: 12 }), (list) => {
-      const block = list.join('\n');
-      const b = batch(block);
-      const counted = new Set(b.ingredients.map((i) => i.lineStart));
-      const skipped = new Set(b.skipped.map((s) => s.lineStart));
-      expect(counted.size).toBe(b.ingredients.length);
-      expect(skipped.size).toBe(b.skipped.length);
-      for (const l of lines(block)) {
-        const content = l.text.replace(/#.*$/, '');
-        if (!content.trim()) continue;
-        const at = l.start + (l.text.length - l.text.trimStart().length);
-        const header = /^\s*(name|volume|total)\s*:/i.test(content);
-        const n = (counted.has(at) ? 1 : 0) + (skipped.has(at) ? 1 : 0);
-        expect(n, `${JSON.stringify(l.text)} in ${JSON.stringify(block)}`).toBe(header && !skipped.has(at) ? 0 : 1);
-      }
-      for (const d of b.diagnostics.filter((x) => x.severity === 'error')) {
-        expect(b.ingredients.some((i) => d.start >= i.lineStart && d.start <= i.lineEnd), d.message).toBe(false);
-      }
-    }), { seed: 20261203, numRuns: 400 });
+    fc.assert(
+      fc.property(fc.array(piece, { maxLength: 12 }), (list) => {
+        const block = list.join('\n');
+        const b = batch(block);
+        const counted = new Set(b.ingredients.map((i) => i.lineStart));
+        const skipped = new Set(b.skipped.map((s) => s.lineStart));
+        expect(counted.size).toBe(b.ingredients.length);
+        expect(skipped.size).toBe(b.skipped.length);
+        for (const l of lines(block)) {
+          const content = l.text.replace(/#.*$/, '');
+          if (!content.trim()) continue;
+          const at = l.start + (l.text.length - l.text.trimStart().length);
+          const header = /^\s*(name|volume|total)\s*:/i.test(content);
+          const n = (counted.has(at) ? 1 : 0) + (skipped.has(at) ? 1 : 0);
+          expect(n, `${JSON.stringify(l.text)} in ${JSON.stringify(block)}`).toBe(header && !skipped.has(at) ? 0 : 1);
+        }
+        for (const d of b.diagnostics.filter((x) => x.severity === 'error')) {
+          expect(
+            b.ingredients.some((i) => d.start >= i.lineStart && d.start <= i.lineEnd),
+            d.message,
+          ).toBe(false);
+        }
+      }),
+      { seed: 20261203, numRuns: 400 },
+    );
   });
 });

@@ -32,7 +32,10 @@ describe('the solubility table', () => {
     for (const r of SOLUBILITY) {
       const a = analyseFormula(r.formula);
       expect(a.ok, r.formula).toBe(true);
-      expect(a.diagnostics.filter((d) => d.severity === 'error'), r.formula).toEqual([]);
+      expect(
+        a.diagnostics.filter((d) => d.severity === 'error'),
+        r.formula,
+      ).toEqual([]);
       expect(hills.has(a.hill), `${r.formula} twice`).toBe(false);
       hills.add(a.hill);
       expect([20, 25]).toContain(r.temperatureC);
@@ -44,12 +47,55 @@ describe('the solubility table', () => {
   it('covers the salts of plating, cleaning, buffers and water treatment', () => {
     const have = new Set(SOLUBILITY.map((r) => r.formula));
     for (const f of [
-      'NaCl', 'KCl', 'NH4Cl', 'CaCl2', 'MgCl2', 'NiCl2', 'CuCl2', 'ZnCl2', 'FeCl3', 'CoCl2',
-      'Na2SO4', 'K2SO4', '(NH4)2SO4', 'MgSO4', 'CaSO4', 'NiSO4', 'CuSO4', 'ZnSO4', 'FeSO4', 'CoSO4',
-      'NaNO3', 'KNO3', 'NH4NO3', 'Ca(NO3)2', 'Ni(NO3)2', 'Cu(NO3)2', 'Zn(NO3)2', 'Na2CO3', 'K2CO3', 'NaHCO3', 'CaCO3',
-      'Na3PO4', 'Na2HPO4', 'NaH2PO4', 'KH2PO4', 'K2HPO4', 'CH3COONa', 'CH3COOK', 'Na3C6H5O7', 'C6H8O7',
-      'Na2B4O7', 'H3BO3', 'Na2C10H14N2O8', 'Na4C10H12N2O8', 'BaSO4', 'AgCl', 'CaF2',
-    ]) expect(have.has(f), f).toBe(true);
+      'NaCl',
+      'KCl',
+      'NH4Cl',
+      'CaCl2',
+      'MgCl2',
+      'NiCl2',
+      'CuCl2',
+      'ZnCl2',
+      'FeCl3',
+      'CoCl2',
+      'Na2SO4',
+      'K2SO4',
+      '(NH4)2SO4',
+      'MgSO4',
+      'CaSO4',
+      'NiSO4',
+      'CuSO4',
+      'ZnSO4',
+      'FeSO4',
+      'CoSO4',
+      'NaNO3',
+      'KNO3',
+      'NH4NO3',
+      'Ca(NO3)2',
+      'Ni(NO3)2',
+      'Cu(NO3)2',
+      'Zn(NO3)2',
+      'Na2CO3',
+      'K2CO3',
+      'NaHCO3',
+      'CaCO3',
+      'Na3PO4',
+      'Na2HPO4',
+      'NaH2PO4',
+      'KH2PO4',
+      'K2HPO4',
+      'CH3COONa',
+      'CH3COOK',
+      'Na3C6H5O7',
+      'C6H8O7',
+      'Na2B4O7',
+      'H3BO3',
+      'Na2C10H14N2O8',
+      'Na4C10H12N2O8',
+      'BaSO4',
+      'AgCl',
+      'CaF2',
+    ])
+      expect(have.has(f), f).toBe(true);
   });
 
   it.each([
@@ -103,7 +149,9 @@ describe('the batch-solubility warning', () => {
     expect(s.per100gWater).toBeCloseTo((40 / 60) * 100, 9);
     expect(s.exceeds).toBe(true);
     const d = b.diagnostics.find((x) => x.code === 'batch-solubility')!;
-    expect(d.message).toMatch(/^NaCl: about 66\.7 g per 100 g water, above its solubility of 36 g per 100 g water at 25 °C: about 18\.4 g would not dissolve\./);
+    expect(d.message).toMatch(
+      /^NaCl: about 66\.7 g per 100 g water, above its solubility of 36 g per 100 g water at 25 °C: about 18\.4 g would not dissolve\./,
+    );
     expect(d.message).toContain('60 g of water in 100 mL, with 40 g dissolved');
     expect(d.message).not.toContain('Near saturation');
   });
@@ -143,7 +191,9 @@ describe('the batch-solubility warning', () => {
 
   it('a practically insoluble salt in any meaningful amount: 5 g CaCO3 in 1 L; not 0.5 mg', () => {
     const [d] = warnings('volume: 1 L\nCaCO3 5 g');
-    expect(d.message).toMatch(/^CaCO₃ is practically insoluble in water \(0\.0013 g per 100 g water at 25 °C\): about 4\.99 g of the 5 g would stay undissolved unless another ingredient dissolves it/);
+    expect(d.message).toMatch(
+      /^CaCO₃ is practically insoluble in water \(0\.0013 g per 100 g water at 25 °C\): about 4\.99 g of the 5 g would stay undissolved unless another ingredient dissolves it/,
+    );
     expect(warnings('volume: 1 L\nCaCO3 0.5 mg')).toEqual([]);
     expect(warnings('volume: 1 L\nBaSO4 1 g')).toHaveLength(1);
     expect(warnings('volume: 1 L\nAgCl 100 mg')).toHaveLength(1);

@@ -33,7 +33,11 @@ describe('the stages of a batch, one by one', () => {
   it('reading: the counted headers, and every other line with its source as written', () => {
     expect(read.headers).toMatchObject({ name: 'Seal S-3', volumeL: 2, totalMassG: null });
     expect(read.lines.map((l) => [l.kind, SEAL.slice(l.source.start, l.source.end)])).toEqual([
-      ['ingredient', 'NaCl 0.1 M   # brine'], ['header', 'volume: 3 L'], ['ingredient', 'KCl 14.91 g'], ['ingredient', 'NaXx 1 g'], ['ingredient', 'Na^+ 0.05 M'],
+      ['ingredient', 'NaCl 0.1 M   # brine'],
+      ['header', 'volume: 3 L'],
+      ['ingredient', 'KCl 14.91 g'],
+      ['ingredient', 'NaXx 1 g'],
+      ['ingredient', 'Na^+ 0.05 M'],
     ]);
     expect(read.diagnostics.map((d) => d.code)).toEqual(['batch-header']);
   });
@@ -43,7 +47,10 @@ describe('the stages of a batch, one by one', () => {
     expect(amounts.counted[0].moles).toBeCloseTo(0.2, 12);
     expect(amounts.counted[0].massG).toBeCloseTo(0.2 * 58.44, 2);
     expect(amounts.counted[1].moles).toBeCloseTo(14.91 / KCL, 4);
-    expect(amounts.skipped.map((s) => [s.kind, s.text, s.code])).toEqual([['header', 'volume: 3 L', 'batch-header'], ['ingredient', 'NaXx 1 g', 'unknown-element']]);
+    expect(amounts.skipped.map((s) => [s.kind, s.text, s.code])).toEqual([
+      ['header', 'volume: 3 L', 'batch-header'],
+      ['ingredient', 'NaXx 1 g', 'unknown-element'],
+    ]);
   });
 
   it('mix: the ions of the counted lines over 2 L, and the listed Na⁺ left without a counter-ion', () => {
@@ -65,17 +72,35 @@ describe('the stages of a batch, one by one', () => {
 });
 
 describe('property: a line followed through the stages', () => {
-  const piece = fc.constantFrom('NaCl 5 g', 'KCl 0.1 M', 'CuSO4 · 5H2O 2 g', 'NaCl 5 g @ 105%', 'H2SO4 10 mL', 'KBr', 'volume: 1 L', 'volume: 2 L', 'total: 10 g', 'name: A', '# note', '', 'SO4^2- 1 mM', 'BaSO4 1 g');
+  const piece = fc.constantFrom(
+    'NaCl 5 g',
+    'KCl 0.1 M',
+    'CuSO4 · 5H2O 2 g',
+    'NaCl 5 g @ 105%',
+    'H2SO4 10 mL',
+    'KBr',
+    'volume: 1 L',
+    'volume: 2 L',
+    'total: 10 g',
+    'name: A',
+    '# note',
+    '',
+    'SO4^2- 1 mM',
+    'BaSO4 1 g',
+  );
   it('every ingredient line read is counted or set aside, never both, and every result points back at its line', () => {
-    fc.assert(fc.property(fc.array(piece, { maxLength: 10 }), (list) => {
-      const block = list.join('\n');
-      const read = readLines(lines(block), null, DEFAULT_CHEM_SETTINGS);
-      const amounts = computeAmounts(read);
-      expect(amounts.counted.length + amounts.skipped.length).toBe(read.lines.length);
-      const b = analyseBatch(lines(block));
-      for (const i of b.ingredients) expect(block.slice(i.formulaStart, i.formulaEnd)).toBe(i.formulaText);
-      for (const s of b.skipped) expect(block.slice(s.lineStart, s.lineEnd)).toBe(s.text);
-      expect(b.ingredients.length + b.skipped.length).toBe(read.lines.length);
-    }), { seed: 20261203, numRuns: 300 });
+    fc.assert(
+      fc.property(fc.array(piece, { maxLength: 10 }), (list) => {
+        const block = list.join('\n');
+        const read = readLines(lines(block), null, DEFAULT_CHEM_SETTINGS);
+        const amounts = computeAmounts(read);
+        expect(amounts.counted.length + amounts.skipped.length).toBe(read.lines.length);
+        const b = analyseBatch(lines(block));
+        for (const i of b.ingredients) expect(block.slice(i.formulaStart, i.formulaEnd)).toBe(i.formulaText);
+        for (const s of b.skipped) expect(block.slice(s.lineStart, s.lineEnd)).toBe(s.text);
+        expect(b.ingredients.length + b.skipped.length).toBe(read.lines.length);
+      }),
+      { seed: 20261203, numRuns: 300 },
+    );
   });
 });

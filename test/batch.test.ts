@@ -59,7 +59,7 @@ describe('phosphate-buffered saline (Cold Spring Harbor Protocols, "Phosphate-bu
   const b = batch(['name: PBS 1×', 'volume: 1 L', 'NaCl 8 g', 'KCl 0.2 g', 'Na2HPO4 1.44 g', 'KH2PO4 0.24 g  # monobasic'].join('\n'));
   const c = { NaCl: 8 / NaCl, KCl: 0.2 / KCl, Na2HPO4: 1.44 / Na2HPO4, KH2PO4: 0.24 / KH2PO4 };
 
-  it('gives the recipe\'s concentrations: 137 mM NaCl, 2.7 mM KCl, 10 mM Na2HPO4, 1.8 mM KH2PO4', () => {
+  it("gives the recipe's concentrations: 137 mM NaCl, 2.7 mM KCl, 10 mM Na2HPO4, 1.8 mM KH2PO4", () => {
     const conc = Object.fromEntries(b.ingredients.map((i) => [i.formulaText, i.concentrationM]));
     expect(conc.NaCl).toBeCloseTo(c.NaCl, 9);
     expect(conc.NaCl!).toBeCloseTo(0.137, 3);
@@ -149,6 +149,7 @@ describe('diagnostics on batch lines, on exact ranges', () => {
 
   it('never produces NaN, Infinity or negative masses', () => {
     const b = batch('volume: 1e-300 L\nNaCl 1e9 g\nKCl 0.000001 mg');
-    for (const i of b.ingredients) for (const v of [i.moles, i.massG, i.concentrationM, i.massFraction]) if (v !== null) expect(Number.isFinite(v) && v >= 0).toBe(true);
+    for (const i of b.ingredients)
+      for (const v of [i.moles, i.massG, i.concentrationM, i.massFraction]) if (v !== null) expect(Number.isFinite(v) && v >= 0).toBe(true);
   });
 });

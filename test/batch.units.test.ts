@@ -23,7 +23,29 @@ const NACL = 22.99 + 35.45;
 describe('the table of units', () => {
   it('gives every spelling the SI factor of its unit', () => {
     // BIPM SI Brochure, Table 7: the prefixes; base units g, mol, mol/L, L.
-    const want: Record<string, number> = { g: 1, mg: 1e-3, µg: 1e-6, ug: 1e-6, kg: 1e3, mol: 1, mmol: 1e-3, µmol: 1e-6, umol: 1e-6, M: 1, 'mol/L': 1, mM: 1e-3, 'mmol/L': 1e-3, µM: 1e-6, uM: 1e-6, L: 1, l: 1, mL: 1e-3, ml: 1e-3, µL: 1e-6, uL: 1e-6 };
+    const want: Record<string, number> = {
+      g: 1,
+      mg: 1e-3,
+      µg: 1e-6,
+      ug: 1e-6,
+      kg: 1e3,
+      mol: 1,
+      mmol: 1e-3,
+      µmol: 1e-6,
+      umol: 1e-6,
+      M: 1,
+      'mol/L': 1,
+      mM: 1e-3,
+      'mmol/L': 1e-3,
+      µM: 1e-6,
+      uM: 1e-6,
+      L: 1,
+      l: 1,
+      mL: 1e-3,
+      ml: 1e-3,
+      µL: 1e-6,
+      uL: 1e-6,
+    };
     for (const [spelling, factor] of Object.entries(want)) {
       const u = unitIn('ingredient', spelling) ?? unitIn('volume', spelling);
       expect(u?.factor, spelling).toBe(factor);
@@ -47,12 +69,28 @@ describe('the table of units', () => {
 describe('the units on batch lines', () => {
   it('reads each ingredient unit and its aliases to the same amount: 2.5 mmol NaCl is 0.1461 g', () => {
     const mass = 2.5e-3 * NACL;
-    for (const [amount, spelled] of [['2.5', 'mmol'], ['2500', 'µmol'], ['2500', 'umol'], ['0.1461', 'g'], ['146.1', 'mg'], ['146100', 'µg'], ['146100', 'ug'], ['0.0001461', 'kg']]) {
+    for (const [amount, spelled] of [
+      ['2.5', 'mmol'],
+      ['2500', 'µmol'],
+      ['2500', 'umol'],
+      ['0.1461', 'g'],
+      ['146.1', 'mg'],
+      ['146100', 'µg'],
+      ['146100', 'ug'],
+      ['0.0001461', 'kg'],
+    ]) {
       const b = batch(`volume: 1 L\nNaCl ${amount} ${spelled}`);
       expect(b.skipped, spelled).toEqual([]);
       expect(b.ingredients[0].massG!, spelled).toBeCloseTo(mass, 3);
     }
-    for (const [amount, spelled] of [['2.5', 'mM'], ['2.5', 'mmol/L'], ['2500', 'µM'], ['2500', 'uM'], ['0.0025', 'M'], ['0.0025', 'mol/L']]) {
+    for (const [amount, spelled] of [
+      ['2.5', 'mM'],
+      ['2.5', 'mmol/L'],
+      ['2500', 'µM'],
+      ['2500', 'uM'],
+      ['0.0025', 'M'],
+      ['0.0025', 'mol/L'],
+    ]) {
       const b = batch(`volume: 1 L\nNaCl ${amount} ${spelled}`);
       expect(b.ingredients[0].moles!, spelled).toBeCloseTo(2.5e-3, 12);
     }
@@ -65,7 +103,8 @@ describe('the units on batch lines', () => {
   });
 
   it('reads every volume spelling: 250 mL, 250 ml, 0.25 L, 0.25 l, 250000 µL and 250000 uL are 0.25 L', () => {
-    for (const v of ['250 mL', '250 ml', '0.25 L', '0.25 l', '250000 µL', '250000 uL', '250mL']) expect(batch(`volume: ${v}\nNaCl 1 g`).volumeL, v).toBeCloseTo(0.25, 12);
+    for (const v of ['250 mL', '250 ml', '0.25 L', '0.25 l', '250000 µL', '250000 uL', '250mL'])
+      expect(batch(`volume: ${v}\nNaCl 1 g`).volumeL, v).toBeCloseTo(0.25, 12);
     for (const t of ['250 g', '0.25 kg', '250000 mg']) expect(batch(`total: ${t}`).totalMassG, t).toBeCloseTo(250, 9);
   });
 
@@ -90,14 +129,17 @@ describe('the units on batch lines', () => {
   it('property: a line in any accepted spelling is counted, with the unit as the table writes it', () => {
     const ingredientUnits = BATCH_UNITS.filter((u) => (u.places as readonly string[]).includes('ingredient'));
     const spelling = fc.constantFrom(...ingredientUnits.flatMap((u) => [u.unit, ...u.aliases].map((s) => [s, u.unit] as const)));
-    fc.assert(fc.property(spelling, fc.integer({ min: 1, max: 99 }), fc.boolean(), ([s, unit], n, glued) => {
-      const b = batch(`volume: 1 L\ntotal: 1 kg\nKCl ${n}${glued ? '' : ' '}${s}`);
-      // `5%w/w` written together is not split (the glued form takes `%` or `wt%` only).
-      if (glued && s === '%w/w') expect(b.skipped.map((x) => x.code)).toEqual(['batch-amount']);
-      else {
-        expect(b.skipped).toEqual([]);
-        expect(b.ingredients[0].amount.unit).toBe(unit);
-      }
-    }), { seed: 20261203, numRuns: 200 });
+    fc.assert(
+      fc.property(spelling, fc.integer({ min: 1, max: 99 }), fc.boolean(), ([s, unit], n, glued) => {
+        const b = batch(`volume: 1 L\ntotal: 1 kg\nKCl ${n}${glued ? '' : ' '}${s}`);
+        // `5%w/w` written together is not split (the glued form takes `%` or `wt%` only).
+        if (glued && s === '%w/w') expect(b.skipped.map((x) => x.code)).toEqual(['batch-amount']);
+        else {
+          expect(b.skipped).toEqual([]);
+          expect(b.ingredients[0].amount.unit).toBe(unit);
+        }
+      }),
+      { seed: 20261203, numRuns: 200 },
+    );
   });
 });

@@ -52,7 +52,7 @@ describe('bond type (common practice: < 0.4 nonpolar covalent, 0.4–1.8 polar c
     expect(analyseFormula('Ni3Al').bond).toBeNull();
     expect(bond('S8').type).toBe('nonpolar covalent');
   });
-  it('uses Pauling\'s relation for percent ionic character: 1 − exp(−ΔEN²/4)', () => {
+  it("uses Pauling's relation for percent ionic character: 1 − exp(−ΔEN²/4)", () => {
     // Pauling, The Nature of the Chemical Bond (3rd ed., 1960): ΔEN 1.7 ≈ 51 % ionic, ΔEN 1 ≈ 22 %.
     expect(percentIonic(1.7)).toBeCloseTo(51.4, 0);
     expect(percentIonic(1)).toBeCloseTo(22.1, 0);

@@ -11,7 +11,10 @@ import { analyseFormula } from '../server/src/chem/analyse';
 import { CAUTION_FOOTNOTE, cautionsFor, type CautionClass } from '../server/src/chem/cautions';
 
 const classes = (f: string) => cautionsFor(analyseFormula(f)).map((c) => c.cls);
-const texts = (f: string) => cautionsFor(analyseFormula(f)).map((c) => c.text).join(' | ');
+const texts = (f: string) =>
+  cautionsFor(analyseFormula(f))
+    .map((c) => c.text)
+    .join(' | ');
 
 describe('cyanide in any form', () => {
   for (const f of ['KCN', 'NaCN', 'CuCN', 'Hg(CN)2', 'HCN', 'K[Au(CN)2]', 'K3[Fe(CN)6]', 'K4[Fe(CN)6]·3H2O', 'Na2[Zn(CN)4]']) {
@@ -50,7 +53,8 @@ describe('oxidisers and solvents', () => {
     expect(classes('KNO2')).toContain('oxidiser');
   });
   it('ethanol, isopropanol, acetone and methanol are flammable; methanol is also toxic', () => {
-    for (const f of ['C2H5OH', 'CH3CH2OH', 'EtOH', 'CH3CH(OH)CH3', '(CH3)2CHOH', 'CH3COCH3', '(CH3)2CO', 'CH3OH', 'MeOH']) expect(classes(f), f).toContain('flammable');
+    for (const f of ['C2H5OH', 'CH3CH2OH', 'EtOH', 'CH3CH(OH)CH3', '(CH3)2CHOH', 'CH3COCH3', '(CH3)2CO', 'CH3OH', 'MeOH'])
+      expect(classes(f), f).toContain('flammable');
     expect(classes('CH3OH')).toContain('toxic');
     expect(classes('C2H5OH')).not.toContain('toxic');
   });
@@ -69,6 +73,10 @@ describe('bifluorides', () => {
       expect(c.map((x) => x.text).join(' '), f).toMatch(/hydrofluoric acid.*calcium gluconate/);
     }
     // A plain fluoride keeps its own caution.
-    expect(cautionsFor(analyseFormula('NaF')).map((x) => x.text).join(' ')).toContain('soluble fluoride');
+    expect(
+      cautionsFor(analyseFormula('NaF'))
+        .map((x) => x.text)
+        .join(' '),
+    ).toContain('soluble fluoride');
   });
 });

@@ -81,7 +81,11 @@ describe('oxidation-state ties by electronegativity; carbonyls; nitrogen by grou
     expect(ox('SO2Cl2')).toMatchObject({ S: 6, O: -2, Cl: -1 });
   });
   it('metal carbonyls are M(0): Ni(CO)4, Fe(CO)5, Cr(CO)6 (Red Book IR-10; G&E ch. 8)', () => {
-    for (const [f, m] of [['Ni(CO)4', 'Ni'], ['Fe(CO)5', 'Fe'], ['Cr(CO)6', 'Cr']]) {
+    for (const [f, m] of [
+      ['Ni(CO)4', 'Ni'],
+      ['Fe(CO)5', 'Fe'],
+      ['Cr(CO)6', 'Cr'],
+    ]) {
       expect(ox(f)[m], f).toBe(0);
       expect(ox(f)).toMatchObject({ C: 2, O: -2 });
     }
@@ -120,21 +124,33 @@ describe('states per site (contract, second round)', () => {
   it('NH4NO3: N −3 in NH₄⁺ and +5 in NO₃⁻, the average +1 kept in oxidationStates', () => {
     const card = cardJson(analyseFormula('NH4NO3'));
     expect(card.oxidationStates!.N).toBe(1);
-    expect(card.oxidationStatesBySite).toEqual(expect.arrayContaining([
-      { element: 'N', state: -3, count: 1, site: 'NH₄⁺' },
-      { element: 'N', state: 5, count: 1, site: 'NO₃⁻' },
-    ]));
+    expect(card.oxidationStatesBySite).toEqual(
+      expect.arrayContaining([
+        { element: 'N', state: -3, count: 1, site: 'NH₄⁺' },
+        { element: 'N', state: 5, count: 1, site: 'NO₃⁻' },
+      ]),
+    );
   });
   it('Fe3O4: one Fe²⁺ and two Fe³⁺ sites (G&E, inverse spinel)', () => {
     const sites = cardJson(analyseFormula('Fe3O4')).oxidationStatesBySite.filter((x) => x.element === 'Fe');
-    expect(sites).toEqual([{ element: 'Fe', state: 2, count: 1, site: 'Fe²⁺' }, { element: 'Fe', state: 3, count: 2, site: 'Fe³⁺' }]);
+    expect(sites).toEqual([
+      { element: 'Fe', state: 2, count: 1, site: 'Fe²⁺' },
+      { element: 'Fe', state: 3, count: 2, site: 'Fe³⁺' },
+    ]);
   });
   it('hydrate water is a site of its own, counted with its multiplier', () => {
     const sites = cardJson(analyseFormula('CuSO4·5H2O')).oxidationStatesBySite;
-    expect(sites).toEqual(expect.arrayContaining([{ element: 'H', state: 1, count: 10, site: 'H₂O' }, { element: 'Cu', state: 2, count: 1, site: 'Cu²⁺' }]));
+    expect(sites).toEqual(
+      expect.arrayContaining([
+        { element: 'H', state: 1, count: 10, site: 'H₂O' },
+        { element: 'Cu', state: 2, count: 1, site: 'Cu²⁺' },
+      ]),
+    );
   });
   it('nitroaniline shows both N groups (−3 amine, +3 nitro)', () => {
-    const n = ch('H2NC6H4NO2').sites!.filter((x) => x.element === 'N').map((x) => x.state);
+    const n = ch('H2NC6H4NO2')
+      .sites!.filter((x) => x.element === 'N')
+      .map((x) => x.state);
     expect(n).toEqual([-3, 3]);
   });
 });
@@ -222,7 +238,13 @@ describe('batches dissociate the strong electrolytes whatever their spelling', (
   it('gives a trisodium citrate batch its ionic strength: 0.1 M → I = ½(0.3·1 + 0.1·9) = 0.6 M (I = ½ Σ cz²)', () => {
     const text = 'volume: 1 L\nC6H5Na3O7 0.1 M';
     let at = 0;
-    const b = analyseBatch(text.split('\n').map((t) => { const l = { text: t, start: at }; at += t.length + 1; return l; }));
+    const b = analyseBatch(
+      text.split('\n').map((t) => {
+        const l = { text: t, start: at };
+        at += t.length + 1;
+        return l;
+      }),
+    );
     expect(b.ionicStrengthM).toBeCloseTo(0.6, 10);
   });
   it('reads ammonium hydroxide as aqueous ammonia, a weak base (CRC: Kb 1.8 × 10⁻⁵), not NH₄⁺ + OH⁻', () => {
@@ -245,7 +267,7 @@ describe('bond pairs are bonds the substance has', () => {
     expect(b.deltaEN).toBeCloseTo(0.84, 2);
     expect(b.betweenIons).toEqual({ cation: 'NH₄⁺', anion: 'Cl⁻', type: 'ionic' });
   });
-  it('keeps the metal–anion pair of a metal salt, with the anion\'s own bond listed (Na2SO4: Na–O ionic, S–O within SO₄²⁻)', () => {
+  it("keeps the metal–anion pair of a metal salt, with the anion's own bond listed (Na2SO4: Na–O ionic, S–O within SO₄²⁻)", () => {
     const b = analyseFormula('Na2SO4').bond!;
     expect(b.pair).toEqual(['Na', 'O']);
     expect(b.within?.[0]).toMatchObject({ ion: 'SO₄²⁻', pair: ['S', 'O'] });

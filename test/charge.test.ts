@@ -23,7 +23,9 @@ describe('charge balance on the test set', () => {
   it('flags no real compound (false-warning rate) and misses no mis-written one (miss rate)', () => {
     const falseWarnings = real.filter(flagged);
     const misses = MISWRITTEN.filter((f) => !flagged(f));
-    console.log(`charge balance: false warnings ${falseWarnings.length}/${real.length} (${((100 * falseWarnings.length) / real.length).toFixed(1)} %), misses ${misses.length}/${MISWRITTEN.length} (${((100 * misses.length) / MISWRITTEN.length).toFixed(1)} %)`);
+    console.log(
+      `charge balance: false warnings ${falseWarnings.length}/${real.length} (${((100 * falseWarnings.length) / real.length).toFixed(1)} %), misses ${misses.length}/${MISWRITTEN.length} (${((100 * misses.length) / MISWRITTEN.length).toFixed(1)} %)`,
+    );
     expect(falseWarnings).toEqual([]);
     expect(misses).toEqual([]);
   });

@@ -92,7 +92,15 @@ export function pointsOf(svg: El): PointView[] {
     const cx = m.name === 'circle' ? num(m.attrs.cx) : num(m.attrs.x) + num(m.attrs.width) / 2;
     const cy = m.name === 'circle' ? num(m.attrs.cy) : num(m.attrs.y) + num(m.attrs.height) / 2;
     const half = m.name === 'circle' ? num(m.attrs.r) : num(m.attrs.width) / 2;
-    return { salt: title.split(': ')[0], title, kind: g.attrs['data-kind'], cx, cy, shape: m.name, box: { x0: cx - half, y0: cy - half, x1: cx + half, y1: cy + half } };
+    return {
+      salt: title.split(': ')[0],
+      title,
+      kind: g.attrs['data-kind'],
+      cx,
+      cy,
+      shape: m.name,
+      box: { x0: cx - half, y0: cy - half, x1: cx + half, y1: cy + half },
+    };
   });
 }
 
@@ -150,7 +158,9 @@ export interface Leader {
   y2: number;
 }
 export const leadersOf = (svg: El): Leader[] =>
-  all(svg, hasClass('iw-lc-leaders')).flatMap((g) => g.children).map((l) => ({ x1: num(l.attrs.x1), y1: num(l.attrs.y1), x2: num(l.attrs.x2), y2: num(l.attrs.y2) }));
+  all(svg, hasClass('iw-lc-leaders'))
+    .flatMap((g) => g.children)
+    .map((l) => ({ x1: num(l.attrs.x1), y1: num(l.attrs.y1), x2: num(l.attrs.x2), y2: num(l.attrs.y2) }));
 
 /** Whether two boxes share more than an edge. */
 export const boxesOverlap = (a: Box, b: Box) => !(a.x1 <= b.x0 || b.x1 <= a.x0 || a.y1 <= b.y0 || b.y1 <= a.y0);

@@ -18,20 +18,7 @@ import { latticeChart, type LatticePoint } from '../server/src/service/chart';
 import { LabelSpace, placeLabels, type LabelRequest, type Mark } from '../server/src/service/chart/labels';
 import { analyseDocument } from '../server/src/service/document';
 import { latticePoints, reportHtml } from '../server/src/service/report';
-import {
-  boxesOverlap,
-  crossesOf,
-  distanceToBox,
-  labelBox,
-  labelReadings,
-  labelsOf,
-  leadersOf,
-  one,
-  parse,
-  plotArea,
-  pointsOf,
-  type Box,
-} from './chart-svg';
+import { boxesOverlap, crossesOf, distanceToBox, labelBox, labelReadings, labelsOf, leadersOf, one, parse, plotArea, pointsOf, type Box } from './chart-svg';
 
 const RADIUS = 4.5;
 const HEIGHT = 11.5;
@@ -116,7 +103,8 @@ describe('label placement on random points', () => {
             expect(Math.hypot(s.x1 - request.x, s.y1 - request.y)).toBeCloseTo(RADIUS + 1.5, 6);
             expect(distanceToBox(box, s.x2, s.y2)).toBeLessThanOrEqual(1.5);
             for (const m of others) expect(segmentEnters(s, m.box), `leader of ${label.owner} across a mark of ${m.owner}`).toBe(false);
-            for (const other of placed) if (other !== label) expect(segmentEnters(s, other.box), `leader of ${label.owner} across label ${other.owner}`).toBe(false);
+            for (const other of placed)
+              if (other !== label) expect(segmentEnters(s, other.box), `leader of ${label.owner} across label ${other.owner}`).toBe(false);
           }
         }
       }),
@@ -126,9 +114,15 @@ describe('label placement on random points', () => {
 
   it('places every label when the points are well apart', () => {
     // Points in separate cells of 80 × 70 px, labels at most 60 px wide: there is always room beside each.
-    const spread = fc
-      .uniqueArray(fc.integer({ min: 0, max: 39 }), { minLength: 1, maxLength: 12 })
-      .chain((cells) => fc.tuple(fc.constant(cells), fc.array(fc.tuple(fc.integer({ min: -10, max: 10 }), fc.integer({ min: -10, max: 10 }), fc.integer({ min: 10, max: 60 })), { minLength: cells.length, maxLength: cells.length })));
+    const spread = fc.uniqueArray(fc.integer({ min: 0, max: 39 }), { minLength: 1, maxLength: 12 }).chain((cells) =>
+      fc.tuple(
+        fc.constant(cells),
+        fc.array(fc.tuple(fc.integer({ min: -10, max: 10 }), fc.integer({ min: -10, max: 10 }), fc.integer({ min: 10, max: 60 })), {
+          minLength: cells.length,
+          maxLength: cells.length,
+        }),
+      ),
+    );
     fc.assert(
       fc.property(spread, ([cells, jitter]) => {
         const bounds = { x0: 0, y0: 0, x1: 640, y1: 350 };
@@ -167,9 +161,13 @@ const saltArb = fc.record({
   meltingPointC: fc.option(fc.double({ min: 100, max: 3000, noNaN: true }), { nil: undefined }),
 });
 const chartArb = fc.record({
-  salts: fc.uniqueArray(fc.stringMatching(/^[A-Z][a-z]?(?:[A-Z][a-z]?[₂₃₄]?){0,3}$/), { minLength: 1, maxLength: 30 }).chain((labels) =>
-    fc.tuple(...labels.map((label) => saltArb.map((s): LatticePoint => ({ ...s, label, method: s.estimate ? 'Kapustinskii equation' : 'Born–Haber cycle' })))),
-  ),
+  salts: fc
+    .uniqueArray(fc.stringMatching(/^[A-Z][a-z]?(?:[A-Z][a-z]?[₂₃₄]?){0,3}$/), { minLength: 1, maxLength: 30 })
+    .chain((labels) =>
+      fc.tuple(
+        ...labels.map((label) => saltArb.map((s): LatticePoint => ({ ...s, label, method: s.estimate ? 'Kapustinskii equation' : 'Born–Haber cycle' }))),
+      ),
+    ),
   x: fc.constantFrom('inverse-radius' as const, 'charge-product' as const),
   width: fc.integer({ min: 320, max: 1000 }),
   height: fc.integer({ min: 240, max: 700 }),
@@ -197,7 +195,8 @@ describe('labels of the drawn chart, read back from the svg', () => {
           const own = at.get(reading.text);
           const read = at.get(reading.salt);
           expect(own, `${reading.text} is a salt`).toBeDefined();
-          if (reading.salt !== reading.text) expect(Math.hypot(own!.cx - read!.cx, own!.cy - read!.cy), `${reading.text} read as ${reading.salt}`).toBeLessThan(1);
+          if (reading.salt !== reading.text)
+            expect(Math.hypot(own!.cx - read!.cx, own!.cy - read!.cy), `${reading.text} read as ${reading.salt}`).toBeLessThan(1);
         }
         // Labels left out are counted, in the <desc> and in the chart.
         const omitted = points.length - labels.length;
@@ -279,7 +278,9 @@ describe('labels of the report charts of real notes', () => {
         const own = pointsOf(svg).find((p) => p.salt === l.text)!;
         const led = leadersOf(svg).some((s) => distanceToBox(box, s.x2, s.y2) <= 1.5 && Math.abs(Math.hypot(s.x1 - own.cx, s.y1 - own.cy) - 6) < 0.1);
         if (led) continue;
-        for (const c of crosses) if (c.salt !== l.text) expect(distanceToBox(box, c.cx, c.cy), `${l.text} beside the cross of ${c.salt}`).toBeGreaterThan(distanceToBox(box, own.cx, own.cy));
+        for (const c of crosses)
+          if (c.salt !== l.text)
+            expect(distanceToBox(box, c.cx, c.cy), `${l.text} beside the cross of ${c.salt}`).toBeGreaterThan(distanceToBox(box, own.cx, own.cy));
       }
     }
   });

@@ -7,29 +7,9 @@
  */
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import {
-  CHART_CSS_VARIABLES,
-  latticeChart,
-  leastSquares,
-  niceTicks,
-  type LatticePoint,
-} from '../server/src/service/chart';
+import { CHART_CSS_VARIABLES, latticeChart, leastSquares, niceTicks, type LatticePoint } from '../server/src/service/chart';
 import { ticksWithin } from '../server/src/service/chart/ticks';
-import {
-  all,
-  hasClass,
-  inverseScale,
-  labelBox,
-  num,
-  one,
-  overlappingPairs,
-  parse,
-  plotArea,
-  pointsOf,
-  ticksOf,
-  type El,
-  type PointView,
-} from './chart-svg';
+import { all, hasClass, inverseScale, labelBox, num, one, overlappingPairs, parse, plotArea, pointsOf, ticksOf, type El, type PointView } from './chart-svg';
 
 const isNiceStep = (step: number) => {
   const mag = Math.pow(10, Math.floor(Math.log10(step) + 1e-9));
@@ -76,7 +56,11 @@ describe('latticeChart: the svg element', () => {
   });
 
   it('stays within the requested size: plot area, markers and labels', () => {
-    for (const [width, height] of [[640, 400], [320, 240], [1200, 700]]) {
+    for (const [width, height] of [
+      [640, 400],
+      [320, 240],
+      [1200, 700],
+    ]) {
       const svg = parse(latticeChart([...SALTS, NH4NO3], { width, height }));
       const plot = plotArea(svg);
       expect(plot.x0).toBeGreaterThan(0);
@@ -189,7 +173,12 @@ describe('latticeChart: geometry and scales', () => {
     // The first and last salt sit max(12 px, 3 % of the plot's width) inside the plot area, whatever the
     // spread of their radii: the rinse-trial salts span 0.333–0.353 Å⁻¹ and used to fill a fifth of the width.
     const narrow: LatticePoint[] = [0.333, 0.342, 0.344, 0.345, 0.353].map((x, i) => ({ ...SALTS[i], inverseR0: x }));
-    for (const [salts, width] of [[SALTS, 640], [narrow, 640], [SALTS, 320], [narrow, 1200]] as const) {
+    for (const [salts, width] of [
+      [SALTS, 640],
+      [narrow, 640],
+      [SALTS, 320],
+      [narrow, 1200],
+    ] as const) {
       const svg = parse(latticeChart([...salts], { width }));
       const plot = plotArea(svg);
       const edge = Math.max(12, 0.03 * (plot.x1 - plot.x0));
@@ -264,8 +253,19 @@ describe('latticeChart: geometry and scales', () => {
 
   it('nudges labels of a stack of near-equal values apart (same x in charge-product mode)', () => {
     // Five salts within 16 px of each other at |z₊z₋| = 1: all labels to the right would overlap 7 times.
-    const crowd: LatticePoint[] = [['NaF', 910], ['NaCl', 787], ['KCl', 717], ['KBr', 689], ['NaBr', 747]].map(([label, u]) => ({
-      label: label as string, kJPerMol: u as number, method: 'Born–Haber cycle', estimate: false, inverseR0: null, chargeProduct: 1,
+    const crowd: LatticePoint[] = [
+      ['NaF', 910],
+      ['NaCl', 787],
+      ['KCl', 717],
+      ['KBr', 689],
+      ['NaBr', 747],
+    ].map(([label, u]) => ({
+      label: label as string,
+      kJPerMol: u as number,
+      method: 'Born–Haber cycle',
+      estimate: false,
+      inverseR0: null,
+      chargeProduct: 1,
     }));
     const c = parse(latticeChart([...crowd, SALTS[2]], { x: 'charge-product' }));
     const labels = one(c, hasClass('iw-lc-labels')).children;
@@ -360,7 +360,10 @@ describe('latticeChart: melting points', () => {
 describe('latticeChart: least-squares guides', () => {
   it('fits slope and intercept exactly on synthetic points', () => {
     expect(leastSquares([1, 2, 3], [2, 4, 7])).toEqual({ slope: 2.5, intercept: expect.closeTo(-2 / 3, 12), n: 3 });
-    const fit = leastSquares([0.3, 0.35, 0.4, 0.45], [0.3, 0.35, 0.4, 0.45].map((x) => 2000 * x - 100)) as NonNullable<ReturnType<typeof leastSquares>>;
+    const fit = leastSquares(
+      [0.3, 0.35, 0.4, 0.45],
+      [0.3, 0.35, 0.4, 0.45].map((x) => 2000 * x - 100),
+    ) as NonNullable<ReturnType<typeof leastSquares>>;
     expect(fit.slope).toBeCloseTo(2000, 8);
     expect(fit.intercept).toBeCloseTo(-100, 8);
     expect(leastSquares([0.4, 0.4, 0.4], [1, 2, 3])).toBeNull(); // one x value
@@ -370,12 +373,22 @@ describe('latticeChart: least-squares guides', () => {
   it('draws one dashed guide per charge-product group of ≥ 3 salts, along the fitted line', () => {
     // z = 1: U = 2200·x − 0 exactly; z = 4: U = 8000·x + 50 exactly; z = 2: only two salts, no guide.
     const mk = (label: string, x: number, z: number, u: number): LatticePoint => ({
-      label, kJPerMol: u, method: 'Kapustinskii equation', estimate: true, inverseR0: x, chargeProduct: z,
+      label,
+      kJPerMol: u,
+      method: 'Kapustinskii equation',
+      estimate: true,
+      inverseR0: x,
+      chargeProduct: z,
     });
     const pts = [
-      mk('A1', 0.3, 1, 660), mk('B1', 0.36, 1, 792), mk('C1', 0.46, 1, 1012),
-      mk('A4', 0.4, 4, 3250), mk('B4', 0.44, 4, 3570), mk('C4', 0.47, 4, 3810),
-      mk('A2', 0.41, 2, 2400), mk('B2', 0.44, 2, 2600),
+      mk('A1', 0.3, 1, 660),
+      mk('B1', 0.36, 1, 792),
+      mk('C1', 0.46, 1, 1012),
+      mk('A4', 0.4, 4, 3250),
+      mk('B4', 0.44, 4, 3570),
+      mk('C4', 0.47, 4, 3810),
+      mk('A2', 0.41, 2, 2400),
+      mk('B2', 0.44, 2, 2600),
     ];
     const svg = parse(latticeChart(pts));
     const guides = all(svg, hasClass('iw-lc-guide-line'));
@@ -403,7 +416,12 @@ describe('latticeChart: least-squares guides', () => {
 
   it('draws no guide for a group whose salts share one x value', () => {
     const same: LatticePoint[] = [700, 750, 800].map((u, i) => ({
-      label: `S${i}`, kJPerMol: u, method: 'Kapustinskii equation', estimate: true, inverseR0: 0.35, chargeProduct: 1,
+      label: `S${i}`,
+      kJPerMol: u,
+      method: 'Kapustinskii equation',
+      estimate: true,
+      inverseR0: 0.35,
+      chargeProduct: 1,
     }));
     const svg = parse(latticeChart(same));
     expect(all(svg, hasClass('iw-lc-guide-line'))).toHaveLength(0);
@@ -412,8 +430,17 @@ describe('latticeChart: least-squares guides', () => {
   });
 
   it('draws no guide for salts bunched within 5 % of one x (three sulfates at 0.343–0.346 Å⁻¹)', () => {
-    const bunched: LatticePoint[] = [[0.343, 2905], [0.345, 2914], [0.346, 2923]].map(([x, u], i) => ({
-      label: `T${i}`, kJPerMol: u, method: 'Kapustinskii equation', estimate: true, inverseR0: x, chargeProduct: 4,
+    const bunched: LatticePoint[] = [
+      [0.343, 2905],
+      [0.345, 2914],
+      [0.346, 2923],
+    ].map(([x, u], i) => ({
+      label: `T${i}`,
+      kJPerMol: u,
+      method: 'Kapustinskii equation',
+      estimate: true,
+      inverseR0: x,
+      chargeProduct: 4,
     }));
     expect(all(parse(latticeChart(bunched)), hasClass('iw-lc-guide-line'))).toHaveLength(0);
   });
@@ -423,7 +450,10 @@ describe('latticeChart: bad input', () => {
   it('escapes <&"\' in labels, title and method, and drops characters XML forbids', () => {
     const nasty = '<b>&"Na\'Cl"</b>';
     const s = latticeChart(
-      [{ ...SALTS[0], label: nasty, method: 'A & B <cycle>' }, { ...SALTS[2], label: 'Mg\u0001O\uD800' }],
+      [
+        { ...SALTS[0], label: nasty, method: 'A & B <cycle>' },
+        { ...SALTS[2], label: 'Mg\u0001O\uD800' },
+      ],
       { title: 'Title <script>alert("x")</script> & more' },
     );
     expect(s).not.toContain('<b>');
@@ -456,7 +486,10 @@ describe('latticeChart: bad input', () => {
   });
 
   it('survives values far too small for tick labels (a melting point of 1e-200 °C)', () => {
-    const tiny = [{ ...SALTS[0], meltingPointC: 1.1e-200 }, { ...SALTS[1], kJPerMol: 1e-200, meltingPointC: 2e-200 }];
+    const tiny = [
+      { ...SALTS[0], meltingPointC: 1.1e-200 },
+      { ...SALTS[1], kJPerMol: 1e-200, meltingPointC: 2e-200 },
+    ];
     const svg = parse(latticeChart(tiny));
     expect(pointsOf(svg)).toHaveLength(2);
     expect(ticksOf(svg, 'iw-lc-mticks', 'y').every((t) => Number.isFinite(t.value))).toBe(true);
@@ -566,16 +599,21 @@ describe('niceTicks', () => {
 
   it('ticksWithin: nice ticks inside a range, at least two', () => {
     fc.assert(
-      fc.property(fc.double({ min: -1e4, max: 1e4, noNaN: true }), fc.double({ min: 1e-3, max: 1e4, noNaN: true }), fc.integer({ min: 2, max: 12 }), (lo, span, target) => {
-        const hi = lo + span;
-        const t = ticksWithin(lo, hi, target);
-        expect(t.ticks.length).toBeGreaterThanOrEqual(2);
-        expect(isNiceStep(t.step)).toBe(true);
-        for (const v of t.ticks) {
-          expect(v).toBeGreaterThanOrEqual(lo - span * 1e-9);
-          expect(v).toBeLessThanOrEqual(hi + span * 1e-9);
-        }
-      }),
+      fc.property(
+        fc.double({ min: -1e4, max: 1e4, noNaN: true }),
+        fc.double({ min: 1e-3, max: 1e4, noNaN: true }),
+        fc.integer({ min: 2, max: 12 }),
+        (lo, span, target) => {
+          const hi = lo + span;
+          const t = ticksWithin(lo, hi, target);
+          expect(t.ticks.length).toBeGreaterThanOrEqual(2);
+          expect(isNiceStep(t.step)).toBe(true);
+          for (const v of t.ticks) {
+            expect(v).toBeGreaterThanOrEqual(lo - span * 1e-9);
+            expect(v).toBeLessThanOrEqual(hi + span * 1e-9);
+          }
+        },
+      ),
     );
     expect(ticksWithin(0.5, 4.5, 6, true).ticks).toEqual([1, 2, 3, 4]);
     expect(ticksWithin(NaN, 1, NaN).ticks.every(Number.isFinite)).toBe(true); // no endless search for more ticks

@@ -28,7 +28,15 @@ function notesFolder(n: number, seed = 1): string {
     const sub = join(dir, i % 3 === 0 ? 'bench' : i % 3 === 1 ? 'Prüfstand ß' : 'line-2/baths');
     mkdirSync(sub, { recursive: true });
     const text = generateNotes(2_000 + ((i * 1_733) % 9_000), seed * 1_000 + i);
-    if (i % 5 === 4) writeFileSync(join(sub, `trial-${i}.fnote`), text.split('\n').filter((l) => !l.startsWith('```')).map((l) => (l.startsWith('- ') ? `formula: ${l.slice(2).split(' ')[1] ?? 'NaCl'}` : l)).join('\n'));
+    if (i % 5 === 4)
+      writeFileSync(
+        join(sub, `trial-${i}.fnote`),
+        text
+          .split('\n')
+          .filter((l) => !l.startsWith('```'))
+          .map((l) => (l.startsWith('- ') ? `formula: ${l.slice(2).split(' ')[1] ?? 'NaCl'}` : l))
+          .join('\n'),
+      );
     else writeFileSync(join(sub, `${i % 7 === 0 ? 'Bäder ' : 'notes-'}${i}.md`), text);
   }
   return dir;
@@ -61,7 +69,7 @@ describe('choosing the number of workers', () => {
 });
 
 describe('the worker pool with the real worker (dist/cli.js)', () => {
-  it('gives each file the findings this thread gives it, in the files\' order, the work done by the workers', async () => {
+  it("gives each file the findings this thread gives it, in the files' order, the work done by the workers", async () => {
     const jobs = jobsOf(Array.from({ length: 40 }, (_, i) => generateNotes(1_000 + 300 * (i % 9), 50 + i)));
     let started = 0;
     let answered = 0;
@@ -120,7 +128,7 @@ const fakeWorker = () => new Worker(FAKE, { eval: true });
 const messages = (o: CheckOutcome) => ('diagnostics' in o ? o.diagnostics.map((d) => d.message) : undefined);
 
 describe('the worker pool when workers misbehave', () => {
-  it('keeps the files\' order whichever worker answers first', async () => {
+  it("keeps the files' order whichever worker answers first", async () => {
     const jobs = jobsOf(Array.from({ length: 30 }, () => 'text'));
     const r = await checkInWorkers(jobs, { size: 3, start: fakeWorker });
     expect(r.outcomes.map(messages)).toEqual(jobs.map((j) => [j.path]));
@@ -137,7 +145,7 @@ describe('the worker pool when workers misbehave', () => {
     expect(r.notice).toBeUndefined();
   });
 
-  it('an uncaught error in a worker is that file\'s one-line problem', async () => {
+  it("an uncaught error in a worker is that file's one-line problem", async () => {
     const jobs = jobsOf(['text', 'THROW', 'text', 'text']);
     const r = await checkInWorkers(jobs, { size: 2, start: fakeWorker });
     expect(r.outcomes[1]).toEqual({ failure: 'analysis stopped: its worker thread failed: stand-in worker broke on n1.md' });
@@ -146,7 +154,12 @@ describe('the worker pool when workers misbehave', () => {
 
   it('workers that cannot start leave the files to this thread, with a notice', async () => {
     const jobs = jobsOf(['We used `NaXx`.', 'formula: KCl', 'Plain prose.']);
-    for (const start of [() => new Worker('throw new Error("no threads here")', { eval: true }), () => { throw new Error('no threads here'); }]) {
+    for (const start of [
+      () => new Worker('throw new Error("no threads here")', { eval: true }),
+      () => {
+        throw new Error('no threads here');
+      },
+    ]) {
       const r = await checkInWorkers(jobs, { size: 2, start: start as () => Worker });
       expect(r.outcomes).toEqual(jobs.map(checkHere));
       expect(r.notice).toMatch(/^worker threads could not start \(.*no threads here.*\); the remaining files were checked in one thread$/);
@@ -168,13 +181,18 @@ describe('the worker pool when workers misbehave', () => {
 
 describe('ionwright check on a folder of 40 notes', () => {
   const dir = notesFolder(40);
-  const cli = (args: string[], env: Record<string, string> = {}) => spawnSync('node', [CLI, 'check', dir, ...args], { cwd: dir, encoding: 'utf8', env: { ...process.env, ...env } });
+  const cli = (args: string[], env: Record<string, string> = {}) =>
+    spawnSync('node', [CLI, 'check', dir, ...args], { cwd: dir, encoding: 'utf8', env: { ...process.env, ...env } });
 
   it.each(['text', 'json', 'sarif'])('prints exactly the same %s in one thread, with two or three workers and with auto', (format) => {
     const one = cli(['--format', format], { IONWRIGHT_JOBS: '1' });
     expect(one.status).toBe(1);
     expect(one.stderr).toBe('');
-    const runs = [cli(['--format', format], { IONWRIGHT_JOBS: '2' }), cli(['--format', format, '--jobs', '3'], { IONWRIGHT_JOBS: '1' }), cli(['--format', format])];
+    const runs = [
+      cli(['--format', format], { IONWRIGHT_JOBS: '2' }),
+      cli(['--format', format, '--jobs', '3'], { IONWRIGHT_JOBS: '1' }),
+      cli(['--format', format]),
+    ];
     for (const r of runs) {
       expect(r.stderr).toBe(''); // no fallback notice: the workers did the work
       expect(r.status).toBe(one.status);
@@ -198,7 +216,8 @@ describe('ionwright check on a folder of 40 notes', () => {
     // without read permission can still be read, so permissions cannot make an unreadable file here.)
     spawnSync('mkfifo', [join(broken, 'bench', 'pipe.md')]);
     if (!existsSync(join(broken, 'bench', 'pipe.md'))) ctx.skip('mkfifo is not available');
-    const run = (jobs: string) => spawnSync('node', [CLI, 'check', broken, '--format', 'json', '--jobs', jobs], { cwd: broken, encoding: 'utf8', timeout: 20_000 });
+    const run = (jobs: string) =>
+      spawnSync('node', [CLI, 'check', broken, '--format', 'json', '--jobs', jobs], { cwd: broken, encoding: 'utf8', timeout: 20_000 });
     const one = run('1');
     const two = run('2');
     for (const r of [one, two]) {
@@ -214,7 +233,10 @@ describe('ionwright check on a folder of 40 notes', () => {
 function captured(tty: boolean, workers: boolean): CliIO & { outText: string; errText: string; raw: string; started: number } {
   const self = {
     ...nodeIO,
-    outText: '', errText: '', raw: '', started: 0,
+    outText: '',
+    errText: '',
+    raw: '',
+    started: 0,
     out: (t: string) => void (self.outText += t + '\n'),
     err: (t: string) => void (self.errText += t + '\n'),
     errRaw: (t: string) => void (self.raw += t),
@@ -252,18 +274,21 @@ describe('when check starts workers', () => {
   });
 });
 
-describe('the progress line', () => {  const dir = notesFolder(12, 3);
+describe('the progress line', () => {
+  const dir = notesFolder(12, 3);
 
   it.each([[false], [true]])('on a terminal it counts the files up and is wiped at the end (workers: %s)', async (workers) => {
     const io = captured(true, workers);
     const code = await run(['check', dir, '--jobs', workers ? '2' : '1'], io);
     expect(code).toBe(1);
     const frames = io.raw.split('\r').filter(Boolean);
-    const counts = frames.filter((f) => f.trim()).map((f) => {
-      const m = /^checking (\d+)\/12 files…\s*$/.exec(f);
-      expect(m, JSON.stringify(f)).not.toBeNull();
-      return Number(m![1]);
-    });
+    const counts = frames
+      .filter((f) => f.trim())
+      .map((f) => {
+        const m = /^checking (\d+)\/12 files…\s*$/.exec(f);
+        expect(m, JSON.stringify(f)).not.toBeNull();
+        return Number(m![1]);
+      });
     expect(counts[0]).toBe(0);
     expect(counts.at(-1)).toBe(12);
     for (let i = 1; i < counts.length; i++) expect(counts[i]).toBeGreaterThan(counts[i - 1]);

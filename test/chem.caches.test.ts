@@ -19,7 +19,10 @@ describe('memos of what follows from an analysis', () => {
     const b = analyseFormula('Na2SO4', other);
     expect(a).not.toBe(b);
     expect(dissociate(b)).toBe(dissociate(a));
-    expect(dissociate(a).ions.map((i) => [i.key, i.count])).toEqual([['Na^+', 2], ['SO4^2-', 1]]);
+    expect(dissociate(a).ions.map((i) => [i.key, i.count])).toEqual([
+      ['Na^+', 2],
+      ['SO4^2-', 1],
+    ]);
     const k1 = analyseFormula('K2Cr2O7');
     const k2 = analyseFormula('K2Cr2O7', other);
     expect(cautionsFor(k2)).toBe(cautionsFor(k1));

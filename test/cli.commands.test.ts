@@ -13,7 +13,8 @@ import { tempFolders } from './temp';
 const mkdtempSync = tempFolders();
 const CLI = join(__dirname, '../dist/cli.js');
 const ROOT = join(__dirname, '..');
-const cli = (args: string[], cwd = ROOT, env: Record<string, string> = {}) => spawnSync('node', [CLI, ...args], { cwd, encoding: 'utf8', env: { ...process.env, ...env } });
+const cli = (args: string[], cwd = ROOT, env: Record<string, string> = {}) =>
+  spawnSync('node', [CLI, ...args], { cwd, encoding: 'utf8', env: { ...process.env, ...env } });
 
 describe('--jobs says what it accepts', () => {
   it.each([
@@ -61,7 +62,13 @@ describe('batch and table on a folder: every file, as check does', () => {
   it('batch --json: one array of every batch, each with its file; the contract fields kept', () => {
     const r = cli(['batch', 'lab', '--json'], dir);
     expect(r.status).toBe(1);
-    const batches = JSON.parse(r.stdout) as Array<{ file: string; name: string; line: number; volumeL: number; ingredients: Array<{ formula: string; massG: number }> }>;
+    const batches = JSON.parse(r.stdout) as Array<{
+      file: string;
+      name: string;
+      line: number;
+      volumeL: number;
+      ingredients: Array<{ formula: string; massG: number }>;
+    }>;
     expect(batches.map((b) => [b.file, b.name, b.line, b.volumeL])).toEqual([
       ['lab/a.md', 'Bath A', 2, 1],
       ['lab/line-2/b.fnote', 'Bath B', 0, 0.5],

@@ -157,7 +157,9 @@ describe('the folder walk', () => {
     expect(r.error).toBeUndefined();
     const files = [...new Set((JSON.parse(r.stdout) as Array<{ file: string }>).map((d) => d.file))];
     expect(files).toEqual(names.map((n) => `web/${n}/${n}.md`));
-    expect(r.stderr).toMatch(/^ionwright: note: 20 symbolic links not followed: 20 lead to what was already read \(web\/p\/to-q, web\/p\/to-r, web\/p\/to-s, 17 more\)\n$/);
+    expect(r.stderr).toMatch(
+      /^ionwright: note: 20 symbolic links not followed: 20 lead to what was already read \(web\/p\/to-q, web\/p\/to-r, web\/p\/to-s, 17 more\)\n$/,
+    );
   });
 
   it('a broken link named like a note is a file that cannot be read: exit 2', () => {
@@ -192,7 +194,9 @@ describe('files that are not checked say why', () => {
       if (format === 'sarif') {
         const inv = JSON.parse(r.stdout).runs[0].invocations[0];
         expect(inv.executionSuccessful).toBe(false);
-        expect(inv.toolExecutionNotifications.map((n: { message: { text: string } }) => n.message.text)[2]).toBe('skipped: binary (NUL byte at offset 17, line 2)');
+        expect(inv.toolExecutionNotifications.map((n: { message: { text: string } }) => n.message.text)[2]).toBe(
+          'skipped: binary (NUL byte at offset 17, line 2)',
+        );
       }
       if (format === 'text') expect(r.stdout).toMatch(/^1 file checked: 1 error, 0 warnings\.$/m);
     }
@@ -243,7 +247,15 @@ describe('decoding a notes file', () => {
     // Encoding Standard's UTF-8 decoder) for where the first replacement character appears.
     const bytes = fc.oneof(
       fc.uint8Array({ maxLength: 40 }),
-      fc.array(fc.oneof(fc.string({ unit: 'binary', maxLength: 6 }).map((s) => [...Buffer.from(s, 'utf8')]), fc.array(fc.integer({ min: 0x80, max: 0xff }), { maxLength: 3 })), { maxLength: 8 }).map((parts) => Uint8Array.from(parts.flat())),
+      fc
+        .array(
+          fc.oneof(
+            fc.string({ unit: 'binary', maxLength: 6 }).map((s) => [...Buffer.from(s, 'utf8')]),
+            fc.array(fc.integer({ min: 0x80, max: 0xff }), { maxLength: 3 }),
+          ),
+          { maxLength: 8 },
+        )
+        .map((parts) => Uint8Array.from(parts.flat())),
     );
     const decoder = new TextDecoder('utf-8');
     fc.assert(

@@ -39,7 +39,13 @@ describe('json written item by item', () => {
     const w = new OutputWriter(s.out, 512);
     await writeJsonArray(w, diags, { render: ([file, d], inner) => diagnosticJson(file, d, inner) });
     await w.flush();
-    expect(s.text()).toBe(JSON.stringify(diags.map(([file, d]) => ({ file, ...d })), null, 2) + '\n');
+    expect(s.text()).toBe(
+      JSON.stringify(
+        diags.map(([file, d]) => ({ file, ...d })),
+        null,
+        2,
+      ) + '\n',
+    );
     expect(s.chunks.length).toBeGreaterThan(10);
     for (const c of s.chunks) expect(c.length).toBeLessThan(512 + 2_000);
     const empty = sink();
@@ -53,10 +59,25 @@ describe('json written item by item', () => {
     for (const [file, d] of diags) expect(diagnosticJson(file, d, '  ')).toBe(indentedJson({ file, ...d }, '  '));
     const text = fc.string({ unit: 'binary', maxLength: 12 });
     fc.assert(
-      fc.property(text, text, text, fc.nat(), fc.nat(), fc.constantFrom(1, 2, 3, 4), fc.constantFrom('', '    '), (file, code, message, line, character, severity, inner) => {
-        const d = { range: { start: { line, character }, end: { line, character: character + 1 } }, severity, code, message, source: 'ionwright' } as LspDiagnostic;
-        expect(diagnosticJson(file, d, inner)).toBe(indentedJson({ file, ...d }, inner));
-      }),
+      fc.property(
+        text,
+        text,
+        text,
+        fc.nat(),
+        fc.nat(),
+        fc.constantFrom(1, 2, 3, 4),
+        fc.constantFrom('', '    '),
+        (file, code, message, line, character, severity, inner) => {
+          const d = {
+            range: { start: { line, character }, end: { line, character: character + 1 } },
+            severity,
+            code,
+            message,
+            source: 'ionwright',
+          } as LspDiagnostic;
+          expect(diagnosticJson(file, d, inner)).toBe(indentedJson({ file, ...d }, inner));
+        },
+      ),
       { numRuns: 2_000 },
     );
     const withData = { ...diags[0][1], data: { suggestions: ['NaCl'] } };
@@ -72,11 +93,22 @@ describe('json written item by item', () => {
     for (const [list, options] of [
       [files, { cwd: '/lab' }],
       [[], { cwd: '/lab' }],
-      [files, { cwd: '/lab', problems: [{ path: '/lab/x.md', message: 'skipped: binary (NUL byte at offset 3, line 1)' }], notes: [{ path: '/lab/link', message: 'symbolic link not followed' }] }],
+      [
+        files,
+        {
+          cwd: '/lab',
+          problems: [{ path: '/lab/x.md', message: 'skipped: binary (NUL byte at offset 3, line 1)' }],
+          notes: [{ path: '/lab/link', message: 'symbolic link not followed' }],
+        },
+      ],
     ] as const) {
       const s = sink();
       const w = new OutputWriter(s.out, 256);
-      await writeSarif(w, [...list], { ...options, problems: options.problems && [...options.problems], notes: options.notes && [...options.notes] } as Parameters<typeof writeSarif>[2]);
+      await writeSarif(w, [...list], {
+        ...options,
+        problems: options.problems && [...options.problems],
+        notes: options.notes && [...options.notes],
+      } as Parameters<typeof writeSarif>[2]);
       await w.flush();
       const whole = toSarif([...list], { ...options } as Parameters<typeof toSarif>[1]);
       expect(s.text()).toBe(jsonText(whole) + '\n');
@@ -188,7 +220,10 @@ describe('control characters never reach the terminal', () => {
   const dir = mkdtempSync(join(tmpdir(), 'ionwright-controls-'));
   const name = `bath${ESC}[31m\r.md`;
   mkdirSync(join(dir, 'notes'));
-  writeFileSync(join(dir, 'notes', name), `Trial ${nasty}\n\nWe used \`Na${ESC}[31mCl\` and \`K\u0007Br\` and \`Ca\u0008\r\`.\n\n\`\`\`batch\nname: B${ESC}]8;;https://x${ESC}\\\nvolume: 1 L\nNaCl 5 g\n\`\`\`\n`);
+  writeFileSync(
+    join(dir, 'notes', name),
+    `Trial ${nasty}\n\nWe used \`Na${ESC}[31mCl\` and \`K\u0007Br\` and \`Ca\u0008\r\`.\n\n\`\`\`batch\nname: B${ESC}]8;;https://x${ESC}\\\nvolume: 1 L\nNaCl 5 g\n\`\`\`\n`,
+  );
   const cli = (args: string[]) => spawnSync('node', [CLI, ...args], { cwd: dir, encoding: 'utf8' });
 
   it.each([
@@ -237,6 +272,6 @@ describe('control characters never reach the terminal', () => {
     let err = '';
     const io: CliIO = { cwd: '/', out: () => undefined, err: (t) => void (err += t + '\n'), readFile: () => '', readDir: () => [], isDirectory: () => false };
     expect(await run(['check', 'evil\n\u001b[2J.txt'], io)).toBe(2);
-    expect(err).toBe("ionwright: evil␊␛[2J.txt: not a Markdown (.md, .markdown) or notes (.fnote) file\n");
+    expect(err).toBe('ionwright: evil␊␛[2J.txt: not a Markdown (.md, .markdown) or notes (.fnote) file\n');
   });
 });

@@ -18,7 +18,21 @@ describe('ionwright card', () => {
     const out = JSON.parse(execFileSync('node', [CLI, 'card', 'CuSO4.5H2O', 'SO₄²⁻', '[Co(NH3)6]Cl3', '--json'], { encoding: 'utf8' }));
     expect(out).toHaveLength(3);
     for (const c of out) {
-      for (const k of ['input', 'formula', 'hill', 'charge', 'atoms', 'molarMass', 'composition', 'oxidationStates', 'chargeBalance', 'bond', 'latticeEnergy', 'diagnostics']) expect(c).toHaveProperty(k);
+      for (const k of [
+        'input',
+        'formula',
+        'hill',
+        'charge',
+        'atoms',
+        'molarMass',
+        'composition',
+        'oxidationStates',
+        'chargeBalance',
+        'bond',
+        'latticeEnergy',
+        'diagnostics',
+      ])
+        expect(c).toHaveProperty(k);
     }
     expect(out[0]).toMatchObject({ input: 'CuSO4.5H2O', formula: 'CuSO₄·5H₂O', hill: 'CuH10O9S', charge: 0, atoms: { Cu: 1, H: 10, O: 9, S: 1 } });
     expect(out[1]).toMatchObject({ charge: -2, atoms: { O: 4, S: 1 } });
@@ -31,7 +45,12 @@ describe('ionwright card', () => {
     expect(r.status).toBe(1);
     const [c] = JSON.parse(r.stdout);
     expect(c.molarMass).toBeNull();
-    expect(c.diagnostics[0]).toMatchObject({ code: 'unknown-element', severity: 1, range: { start: { line: 0, character: 2 }, end: { line: 0, character: 4 } }, source: 'ionwright' });
+    expect(c.diagnostics[0]).toMatchObject({
+      code: 'unknown-element',
+      severity: 1,
+      range: { start: { line: 0, character: 2 }, end: { line: 0, character: 4 } },
+      source: 'ionwright',
+    });
   });
 
   it('prints readable text without --json', () => {
@@ -55,7 +74,12 @@ describe('ionwright check', () => {
     const diags = JSON.parse(r.stdout);
     const a = diags.filter((d: { file: string }) => d.file.endsWith('a.md'));
     const start = note.indexOf('Xx');
-    expect(a[0]).toMatchObject({ code: 'unknown-element', severity: 1, source: 'ionwright', range: { start: { line: 0, character: start }, end: { line: 0, character: start + 2 } } });
+    expect(a[0]).toMatchObject({
+      code: 'unknown-element',
+      severity: 1,
+      source: 'ionwright',
+      range: { start: { line: 0, character: start }, end: { line: 0, character: start + 2 } },
+    });
     expect(a[1]).toMatchObject({ code: 'malformed-formula', range: { start: { line: 0, character: note.indexOf('(') } } });
     const b = diags.filter((d: { file: string }) => d.file.endsWith('b.fnote'));
     expect(b[0]).toMatchObject({ code: 'unknown-element', range: { start: { line: 0, character: 15 }, end: { line: 0, character: 17 } } });
@@ -68,9 +92,17 @@ describe('ionwright check', () => {
     const lines = r.stdout.trimEnd().split('\n');
     const start = note.indexOf('Xx');
     expect(lines[0].startsWith(`a.md:1:${start + 1} error unknown-element 'Xx' is not an element symbol.`)).toBe(true);
-    const json = JSON.parse(cli(['check', dir, '--format', 'json'], dir).stdout) as Array<{ file: string; range: { start: { line: number; character: number } }; severity: number; code: string; message: string }>;
+    const json = JSON.parse(cli(['check', dir, '--format', 'json'], dir).stdout) as Array<{
+      file: string;
+      range: { start: { line: number; character: number } };
+      severity: number;
+      code: string;
+      message: string;
+    }>;
     const word = ['', 'error', 'warning', 'info', 'hint'];
-    expect(lines.slice(0, -1)).toEqual(json.map((d) => `${d.file}:${d.range.start.line + 1}:${d.range.start.character + 1} ${word[d.severity]} ${d.code} ${d.message}`));
+    expect(lines.slice(0, -1)).toEqual(
+      json.map((d) => `${d.file}:${d.range.start.line + 1}:${d.range.start.character + 1} ${word[d.severity]} ${d.code} ${d.message}`),
+    );
     const errors = json.filter((d) => d.severity === 1).length;
     const warnings = json.filter((d) => d.severity === 2).length;
     expect(lines.at(-1)).toBe(`2 files checked: ${errors} error${errors === 1 ? '' : 's'}, ${warnings} warning${warnings === 1 ? '' : 's'}.`);
@@ -125,13 +157,15 @@ describe('ionwright --help and --version', () => {
       expect(r.status).toBe(0);
       expect(r.stderr).toBe('');
       for (const c of ['card', 'check', 'balance', 'batch', 'table', 'report', 'demo']) expect(r.stdout).toMatch(new RegExp(`^  ionwright ${c} `, 'm'));
-      expect(r.stdout).toContain('ionwright report <path> [--html <out.html>] a self-contained HTML page: formulas and batches as tables, a chart of estimated lattice energies');
+      expect(r.stdout).toContain(
+        'ionwright report <path> [--html <out.html>] a self-contained HTML page: formulas and batches as tables, a chart of estimated lattice energies',
+      );
       for (const flag of ['--format text|json|sarif', '--jobs <n>|auto', '--json', '--version', 'IONWRIGHT_JOBS']) expect(r.stdout).toContain(flag);
-      expect(r.stdout).toMatch(/^Examples.*\n  ionwright check examples\//m);
+      expect(r.stdout).toMatch(/^Examples.*\n {2}ionwright check examples\//m);
     }
   });
 
-  it.each(Object.keys(COMMAND_HELP))('%s --help prints that command\'s usage and exits 0', (command) => {
+  it.each(Object.keys(COMMAND_HELP))("%s --help prints that command's usage and exits 0", (command) => {
     const r = cli([command, '--help']);
     expect(r.status).toBe(0);
     expect(r.stdout.startsWith(`Usage: ionwright ${command}`)).toBe(true);

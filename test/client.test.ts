@@ -17,13 +17,24 @@ const settingsSource = readFileSync(join(__dirname, '../server/src/service/confi
 describe('client commands', () => {
   const editor = { uri: 'file:///a.md', languageId: 'markdown', selection: { start: { line: 1, character: 2 }, end: { line: 3, character: 0 } } };
   it('plan the server command with the editor state', () => {
-    expect(planCommand(CLIENT_COMMANDS.insertTable, editor)).toEqual({ kind: 'server', command: SERVER_COMMANDS.insertTable, args: [{ uri: 'file:///a.md', range: editor.selection }] });
-    expect(planCommand(CLIENT_COMMANDS.copyCard, editor)).toEqual({ kind: 'server', command: SERVER_COMMANDS.cardMarkdown, args: [{ uri: 'file:///a.md', position: { line: 1, character: 2 } }] });
+    expect(planCommand(CLIENT_COMMANDS.insertTable, editor)).toEqual({
+      kind: 'server',
+      command: SERVER_COMMANDS.insertTable,
+      args: [{ uri: 'file:///a.md', range: editor.selection }],
+    });
+    expect(planCommand(CLIENT_COMMANDS.copyCard, editor)).toEqual({
+      kind: 'server',
+      command: SERVER_COMMANDS.cardMarkdown,
+      args: [{ uri: 'file:///a.md', position: { line: 1, character: 2 } }],
+    });
     expect(planCommand(CLIENT_COMMANDS.insertSectionTable, { ...editor, languageId: 'fnote' }).kind).toBe('server');
   });
   it('refuse politely outside notes files', () => {
     expect(planCommand(CLIENT_COMMANDS.insertTable, undefined)).toMatchObject({ kind: 'error' });
-    expect(planCommand(CLIENT_COMMANDS.insertTable, { ...editor, languageId: 'python' })).toMatchObject({ kind: 'error', message: expect.stringContaining('python') });
+    expect(planCommand(CLIENT_COMMANDS.insertTable, { ...editor, languageId: 'python' })).toMatchObject({
+      kind: 'error',
+      message: expect.stringContaining('python'),
+    });
   });
   it('say what happened', () => {
     expect(resultMessage(CLIENT_COMMANDS.copyCard, '**NaCl**')).toContain('copied');
@@ -38,13 +49,16 @@ describe('client commands', () => {
 describe('package.json contributions', () => {
   it('every contributed command is registered by the client, and every registered one is contributed', () => {
     const contributed = pkg.contributes.commands.map((c: { command: string }) => c.command).sort();
-    const registered = [...extensionSource.matchAll(/registerCommand\(CLIENT_COMMANDS\.(\w+)/g)].map((m) => CLIENT_COMMANDS[m[1] as keyof typeof CLIENT_COMMANDS]).sort();
+    const registered = [...extensionSource.matchAll(/registerCommand\(CLIENT_COMMANDS\.(\w+)/g)]
+      .map((m) => CLIENT_COMMANDS[m[1] as keyof typeof CLIENT_COMMANDS])
+      .sort();
     expect(registered).toEqual(contributed);
     for (const c of pkg.contributes.commands) expect(c.command.startsWith('ionwright.')).toBe(true);
   });
   it('every menu entry names a contributed command', () => {
     const contributed = new Set(pkg.contributes.commands.map((c: { command: string }) => c.command));
-    for (const list of Object.values(pkg.contributes.menus) as Array<Array<{ command: string }>>) for (const m of list) expect(contributed.has(m.command), m.command).toBe(true);
+    for (const list of Object.values(pkg.contributes.menus) as Array<Array<{ command: string }>>)
+      for (const m of list) expect(contributed.has(m.command), m.command).toBe(true);
   });
   it('every setting is read (server settings or the client trace) and has a default', () => {
     for (const [key, spec] of Object.entries(pkg.contributes.configuration.properties) as Array<[string, { default: unknown }]>) {

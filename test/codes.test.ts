@@ -38,7 +38,13 @@ const expectedTable = () =>
 describe('the README table of codes', () => {
   it('lists exactly the catalogue, in its order, with the same severities, reserved marks, layers and descriptions', () => {
     const rows = readmeRows();
-    const want = entries.map(([code, e]) => ({ code, severity: e.severity, reserved: e.reserved === true, raisedBy: e.raisedBy.join(', '), description: e.description }));
+    const want = entries.map(([code, e]) => ({
+      code,
+      severity: e.severity,
+      reserved: e.reserved === true,
+      raisedBy: e.raisedBy.join(', '),
+      description: e.description,
+    }));
     expect(rows, `the README's table should read:\n${expectedTable()}`).toEqual(want);
   });
 });
@@ -67,7 +73,8 @@ describe('the catalogue', () => {
   it('is what the SARIF rules are made of: every raised code, at its level, and nothing else', () => {
     const level = { error: 'error', warning: 'warning', information: 'note', hint: 'note' } as const;
     expect(Object.keys(RULES)).toEqual([...DIAGNOSTIC_CODES]);
-    for (const code of DIAGNOSTIC_CODES) expect(RULES[code]).toEqual({ level: level[DIAGNOSTIC_CATALOGUE[code].severity], text: DIAGNOSTIC_CATALOGUE[code].description });
+    for (const code of DIAGNOSTIC_CODES)
+      expect(RULES[code]).toEqual({ level: level[DIAGNOSTIC_CATALOGUE[code].severity], text: DIAGNOSTIC_CATALOGUE[code].description });
   });
 
   it('has no code that the sources never raise, and the sources quote no code outside it', () => {
@@ -102,12 +109,43 @@ describe('the codes raised', () => {
   it('are in the catalogue, each at the severity the catalogue gives it', () => {
     const note = [
       '`NaXx` and `Ca(NO3` and `Al(OH)2` and `TcO2` and `(CH2)x`.',
-      '```reaction', 'Fe + O2 -> Fe2O3', 'H2 + O2', 'H2 -> O2 -> H2O', '-> H2O', 'H2 + + O2 -> H2O', '0 H2 -> H2', '2 -> H2', 'H2 + O2 -> H2O + H2O2', 'NaCl -> KBr', '```',
-      '```batch', 'name: A', 'volume: 1 L', 'volume: 2 L', 'NaCl', 'KCl 5 parsecs', 'KBr 5 g extra', 'NaOH 5 wt%', 'SO4^2- 0.1 M', '```',
-      '```batch', 'name: B', 'NaCl 0.1 M', '```',
-      '```batch', 'total: 10 g', 'NaCl 6 g', 'KCl 6 g', '```',
-      '```batch', 'volume: 10 mL', 'BaSO4 1 g', '```',
-      '```batch', 'name: C', 'KCl 3 g \u0000',
+      '```reaction',
+      'Fe + O2 -> Fe2O3',
+      'H2 + O2',
+      'H2 -> O2 -> H2O',
+      '-> H2O',
+      'H2 + + O2 -> H2O',
+      '0 H2 -> H2',
+      '2 -> H2',
+      'H2 + O2 -> H2O + H2O2',
+      'NaCl -> KBr',
+      '```',
+      '```batch',
+      'name: A',
+      'volume: 1 L',
+      'volume: 2 L',
+      'NaCl',
+      'KCl 5 parsecs',
+      'KBr 5 g extra',
+      'NaOH 5 wt%',
+      'SO4^2- 0.1 M',
+      '```',
+      '```batch',
+      'name: B',
+      'NaCl 0.1 M',
+      '```',
+      '```batch',
+      'total: 10 g',
+      'NaCl 6 g',
+      'KCl 6 g',
+      '```',
+      '```batch',
+      'volume: 10 mL',
+      'BaSO4 1 g',
+      '```',
+      '```batch',
+      'name: C',
+      'KCl 3 g \u0000',
     ].join('\n');
     const seen = new Map<string, number>();
     for (const d of checkText('all.md', note)) seen.set(d.code, d.severity);

@@ -57,7 +57,8 @@ describe('the README states the tables as they are', async () => {
     const claims = [...refReadme.matchAll(/^## ([a-z-]+\.csv) \((\d+) rows?/gm)];
     expect(claims.length).toBeGreaterThanOrEqual(10);
     for (const [, file, n] of claims) expect(parseCsv(readFileSync(join(__dirname, '../data/reference', file), 'utf8')).length, file).toBe(Number(n));
-    for (const [, file, n] of refReadme.matchAll(/and ([a-z-]+\.csv) \((\d+) rows?\)/g)) expect(parseCsv(readFileSync(join(__dirname, '../data/reference', file), 'utf8')).length, file).toBe(Number(n));
+    for (const [, file, n] of refReadme.matchAll(/and ([a-z-]+\.csv) \((\d+) rows?\)/g))
+      expect(parseCsv(readFileSync(join(__dirname, '../data/reference', file), 'utf8')).length, file).toBe(Number(n));
   });
 
   it('the table of measured errors per structure type is the one the code measures', () => {
@@ -71,7 +72,9 @@ describe('the README states the tables as they are', async () => {
     for (const group of ['rock salt', 'caesium chloride', 'fluorite', 'cadmium chloride', 'cadmium iodide', COVALENT_GROUP]) {
       const g = t.get(group)!;
       const n = g.methods[METHODS.bornMayer]!.n;
-      const cells = [METHODS.bornMayer, METHODS.bornLande, METHODS.kapustinskii].map((m) => cell(group, m, (g.methods as Record<string, { n: number }>)[m].n !== n));
+      const cells = [METHODS.bornMayer, METHODS.bornLande, METHODS.kapustinskii].map((m) =>
+        cell(group, m, (g.methods as Record<string, { n: number }>)[m].n !== n),
+      );
       const head = analyseHead(group);
       const row = `| ${group} | ${n} | ${cells.join(' | ')} | ${head} |`;
       expect(readme, row).toContain(row);
@@ -82,7 +85,11 @@ describe('the README states the tables as they are', async () => {
 /** The method heading the card of a salt of the group that has no Born–Haber value. */
 function analyseHead(group: string): string {
   const salt: Record<string, string> = {
-    'rock salt': 'MgO', 'caesium chloride': 'TlCl', fluorite: 'CdF2', 'cadmium chloride': 'NiBr2', 'cadmium iodide': 'CoBr2',
+    'rock salt': 'MgO',
+    'caesium chloride': 'TlCl',
+    fluorite: 'CdF2',
+    'cadmium chloride': 'NiBr2',
+    'cadmium iodide': 'CoBr2',
   };
   // The silver and copper(I) halides all have a cycle, which heads their cards.
   if (!salt[group]) return analyseFormula('AgI').lattice!.method === 'Born–Haber cycle' ? 'Born–Haber (all have one)' : '?';

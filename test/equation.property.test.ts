@@ -18,26 +18,184 @@ interface Known {
 
 // Each: common textbook example.
 const KNOWN: Known[] = [
-  { reactants: [[2, 'H2'], [1, 'O2']], products: [[2, 'H2O']] },
-  { reactants: [[1, 'CH4'], [2, 'O2']], products: [[1, 'CO2'], [2, 'H2O']] },
-  { reactants: [[1, 'C3H8'], [5, 'O2']], products: [[3, 'CO2'], [4, 'H2O']] },
-  { reactants: [[1, 'N2'], [3, 'H2']], products: [[2, 'NH3']] },
-  { reactants: [[2, 'Na'], [1, 'Cl2']], products: [[2, 'NaCl']] },
-  { reactants: [[1, 'CaCO3']], products: [[1, 'CaO'], [1, 'CO2']] },
-  { reactants: [[4, 'Fe'], [3, 'O2']], products: [[2, 'Fe2O3']] },
-  { reactants: [[2, 'KClO3']], products: [[2, 'KCl'], [3, 'O2']] },
-  { reactants: [[1, 'MnO4^-'], [5, 'Fe^2+'], [8, 'H^+']], products: [[1, 'Mn^2+'], [5, 'Fe^3+'], [4, 'H2O']] },
-  { reactants: [[1, 'Cr2O7^2-'], [6, 'I^-'], [14, 'H^+']], products: [[2, 'Cr^3+'], [3, 'I2'], [7, 'H2O']] },
-  { reactants: [[1, 'Ag^+'], [1, 'Cl^-']], products: [[1, 'AgCl']] },
-  { reactants: [[1, 'Zn'], [1, 'Cu^2+']], products: [[1, 'Zn^2+'], [1, 'Cu']] },
-  { reactants: [[1, 'Fe^3+'], [1, 'e^-']], products: [[1, 'Fe^2+']] },
-  { reactants: [[1, 'CuSO4·5H2O']], products: [[1, 'CuSO4'], [5, 'H2O']] },
-  { reactants: [[3, 'Cu'], [8, 'HNO3']], products: [[3, 'Cu(NO3)2'], [2, 'NO'], [4, 'H2O']] },
-  { reactants: [[2, 'KMnO4'], [16, 'HCl']], products: [[2, 'KCl'], [2, 'MnCl2'], [5, 'Cl2'], [8, 'H2O']] },
-  { reactants: [[1, 'NaOH'], [1, 'HCl']], products: [[1, 'NaCl'], [1, 'H2O']] },
-  { reactants: [[1, 'H^+'], [1, 'OH^-']], products: [[1, 'H2O']] },
-  { reactants: [[2, 'C8H18'], [25, 'O2']], products: [[16, 'CO2'], [18, 'H2O']] },
-  { reactants: [[1, 'MnO4^-'], [8, 'H^+'], [5, 'e^-']], products: [[1, 'Mn^2+'], [4, 'H2O']] },
+  {
+    reactants: [
+      [2, 'H2'],
+      [1, 'O2'],
+    ],
+    products: [[2, 'H2O']],
+  },
+  {
+    reactants: [
+      [1, 'CH4'],
+      [2, 'O2'],
+    ],
+    products: [
+      [1, 'CO2'],
+      [2, 'H2O'],
+    ],
+  },
+  {
+    reactants: [
+      [1, 'C3H8'],
+      [5, 'O2'],
+    ],
+    products: [
+      [3, 'CO2'],
+      [4, 'H2O'],
+    ],
+  },
+  {
+    reactants: [
+      [1, 'N2'],
+      [3, 'H2'],
+    ],
+    products: [[2, 'NH3']],
+  },
+  {
+    reactants: [
+      [2, 'Na'],
+      [1, 'Cl2'],
+    ],
+    products: [[2, 'NaCl']],
+  },
+  {
+    reactants: [[1, 'CaCO3']],
+    products: [
+      [1, 'CaO'],
+      [1, 'CO2'],
+    ],
+  },
+  {
+    reactants: [
+      [4, 'Fe'],
+      [3, 'O2'],
+    ],
+    products: [[2, 'Fe2O3']],
+  },
+  {
+    reactants: [[2, 'KClO3']],
+    products: [
+      [2, 'KCl'],
+      [3, 'O2'],
+    ],
+  },
+  {
+    reactants: [
+      [1, 'MnO4^-'],
+      [5, 'Fe^2+'],
+      [8, 'H^+'],
+    ],
+    products: [
+      [1, 'Mn^2+'],
+      [5, 'Fe^3+'],
+      [4, 'H2O'],
+    ],
+  },
+  {
+    reactants: [
+      [1, 'Cr2O7^2-'],
+      [6, 'I^-'],
+      [14, 'H^+'],
+    ],
+    products: [
+      [2, 'Cr^3+'],
+      [3, 'I2'],
+      [7, 'H2O'],
+    ],
+  },
+  {
+    reactants: [
+      [1, 'Ag^+'],
+      [1, 'Cl^-'],
+    ],
+    products: [[1, 'AgCl']],
+  },
+  {
+    reactants: [
+      [1, 'Zn'],
+      [1, 'Cu^2+'],
+    ],
+    products: [
+      [1, 'Zn^2+'],
+      [1, 'Cu'],
+    ],
+  },
+  {
+    reactants: [
+      [1, 'Fe^3+'],
+      [1, 'e^-'],
+    ],
+    products: [[1, 'Fe^2+']],
+  },
+  {
+    reactants: [[1, 'CuSO4·5H2O']],
+    products: [
+      [1, 'CuSO4'],
+      [5, 'H2O'],
+    ],
+  },
+  {
+    reactants: [
+      [3, 'Cu'],
+      [8, 'HNO3'],
+    ],
+    products: [
+      [3, 'Cu(NO3)2'],
+      [2, 'NO'],
+      [4, 'H2O'],
+    ],
+  },
+  {
+    reactants: [
+      [2, 'KMnO4'],
+      [16, 'HCl'],
+    ],
+    products: [
+      [2, 'KCl'],
+      [2, 'MnCl2'],
+      [5, 'Cl2'],
+      [8, 'H2O'],
+    ],
+  },
+  {
+    reactants: [
+      [1, 'NaOH'],
+      [1, 'HCl'],
+    ],
+    products: [
+      [1, 'NaCl'],
+      [1, 'H2O'],
+    ],
+  },
+  {
+    reactants: [
+      [1, 'H^+'],
+      [1, 'OH^-'],
+    ],
+    products: [[1, 'H2O']],
+  },
+  {
+    reactants: [
+      [2, 'C8H18'],
+      [25, 'O2'],
+    ],
+    products: [
+      [16, 'CO2'],
+      [18, 'H2O'],
+    ],
+  },
+  {
+    reactants: [
+      [1, 'MnO4^-'],
+      [8, 'H^+'],
+      [5, 'e^-'],
+    ],
+    products: [
+      [1, 'Mn^2+'],
+      [4, 'H2O'],
+    ],
+  },
 ];
 
 /** Atoms and charge of a species, read independently of the equation code (the electron by hand). */
@@ -99,11 +257,15 @@ describe('combinations of known equations', () => {
         // that a species on opposite sides cancels out usually leaves one, which the balancer must find.
         const ti = signedTerms(KNOWN[i]);
         const tj = signedTerms(KNOWN[j]);
-        const shared = ti.flatMap((x) => tj.filter((y) => y.formula === x.formula && Math.sign(y.coefficient) !== Math.sign(x.coefficient)).map((y) => [Math.abs(x.coefficient), Math.abs(y.coefficient)]));
+        const shared = ti.flatMap((x) =>
+          tj
+            .filter((y) => y.formula === x.formula && Math.sign(y.coefficient) !== Math.sign(x.coefficient))
+            .map((y) => [Math.abs(x.coefficient), Math.abs(y.coefficient)]),
+        );
         if (cancel && i !== j && shared.length) {
           const [ci, cj] = shared[pick % shared.length];
           let g = ci;
-          for (let y = cj; y; ) [g, y] = [y, g % y];
+          for (let y = cj; y;) [g, y] = [y, g % y];
           [a, b] = [(cj / g) * a, (ci / g) * a];
         }
         // Merge: net coefficient per formula (positive = reactant); species on both sides cancel.
@@ -111,7 +273,10 @@ describe('combinations of known equations', () => {
         for (const t of [...signedTerms(KNOWN[i], a), ...signedTerms(KNOWN[j], b)]) net.set(t.formula, (net.get(t.formula) ?? 0) + t.coefficient);
         const species = [...net.entries()].filter(([, c]) => c !== 0);
         // Shuffle by random keys.
-        const shuffled = species.map((s, k) => ({ s, key: order[k % order.length] + k * 1e-9 })).sort((x, y) => x.key - y.key).map((x) => x.s);
+        const shuffled = species
+          .map((s, k) => ({ s, key: order[k % order.length] + k * 1e-9 }))
+          .sort((x, y) => x.key - y.key)
+          .map((x) => x.s);
         const reactants = shuffled.filter(([, c]) => c > 0);
         const products = shuffled.filter(([, c]) => c < 0);
         fc.pre(reactants.length > 0 && products.length > 0);
@@ -137,7 +302,10 @@ describe('combinations of known equations', () => {
         // that all-ones balances, which can hold in a larger solution space too.)
         if (r.status === 'balanced') {
           expect(r.nullity).toBe(1);
-          const g = combo.reduce((x, y) => { while (y) [x, y] = [y, x % y]; return x; });
+          const g = combo.reduce((x, y) => {
+            while (y) [x, y] = [y, x % y];
+            return x;
+          });
           expect(cs).toEqual(combo.map((c) => c / g));
         }
         // Written back with its coefficients, it reads as balanced.
@@ -153,8 +321,53 @@ describe('combinations of known equations', () => {
 
 describe('robustness', () => {
   const pieces = [
-    'H', 'O', 'C', 'N', 'Na', 'Cl', 'Fe', 'e', 'a', 'x', '2', '3', '0', '½', '/', '.', '·', '^', '+', '-', '−', '⁺', '⁻', '²',
-    '₂', ' ', '  ', '(', ')', '[', ']', '{', '}', '(aq)', '(s)', '->', '→', '=', '<=>', '⇌', '<', '>', '\t', '\n', '\u0000', '😀', '\ud800',
+    'H',
+    'O',
+    'C',
+    'N',
+    'Na',
+    'Cl',
+    'Fe',
+    'e',
+    'a',
+    'x',
+    '2',
+    '3',
+    '0',
+    '½',
+    '/',
+    '.',
+    '·',
+    '^',
+    '+',
+    '-',
+    '−',
+    '⁺',
+    '⁻',
+    '²',
+    '₂',
+    ' ',
+    '  ',
+    '(',
+    ')',
+    '[',
+    ']',
+    '{',
+    '}',
+    '(aq)',
+    '(s)',
+    '->',
+    '→',
+    '=',
+    '<=>',
+    '⇌',
+    '<',
+    '>',
+    '\t',
+    '\n',
+    '\u0000',
+    '😀',
+    '\ud800',
   ];
   const chemString = fc.array(fc.constantFrom(...pieces), { maxLength: 40 }).map((xs) => xs.join(''));
 
@@ -180,11 +393,17 @@ describe('robustness', () => {
   };
 
   it('chemistry-like strings never throw and give well-formed results', () => {
-    fc.assert(fc.property(chemString, (t) => wellFormed(t)), { numRuns: 1500 });
+    fc.assert(
+      fc.property(chemString, (t) => wellFormed(t)),
+      { numRuns: 1500 },
+    );
   });
 
   it('arbitrary strings never throw', () => {
-    fc.assert(fc.property(fc.string({ unit: 'binary', maxLength: 60 }), (t) => wellFormed(t)), { numRuns: 500 });
+    fc.assert(
+      fc.property(fc.string({ unit: 'binary', maxLength: 60 }), (t) => wellFormed(t)),
+      { numRuns: 500 },
+    );
   });
 
   it('a balanced result is balanced by its coefficients', () => {
@@ -207,7 +426,14 @@ describe('robustness', () => {
   });
 
   it('40+ species and huge subscripts return within a bound', () => {
-    const big = fc.array(fc.tuple(fc.constantFrom('H', 'He', 'Li', 'Be', 'B', 'C', 'N', 'O', 'F', 'Ne', 'Na', 'Mg', 'Al', 'Si', 'P', 'S'), fc.integer({ min: 1, max: 1_000_000 })), { minLength: 1, maxLength: 16 })
+    const big = fc
+      .array(
+        fc.tuple(
+          fc.constantFrom('H', 'He', 'Li', 'Be', 'B', 'C', 'N', 'O', 'F', 'Ne', 'Na', 'Mg', 'Al', 'Si', 'P', 'S'),
+          fc.integer({ min: 1, max: 1_000_000 }),
+        ),
+        { minLength: 1, maxLength: 16 },
+      )
       .map((xs) => xs.map(([e, n]) => e + n).join(''));
     fc.assert(
       fc.property(fc.array(big, { minLength: 2, maxLength: 60 }), fc.nat(), (species, cut) => {
@@ -223,7 +449,47 @@ describe('robustness', () => {
   });
 
   it('a dense 40 × 39 system with six-digit subscripts returns within a bound', () => {
-    const els = ['H', 'He', 'Li', 'Be', 'B', 'C', 'N', 'O', 'F', 'Ne', 'Na', 'Mg', 'Al', 'Si', 'P', 'S', 'Cl', 'Ar', 'K', 'Ca', 'Sc', 'Ti', 'V', 'Cr', 'Mn', 'Fe', 'Co', 'Ni', 'Cu', 'Zn', 'Ga', 'Ge', 'As', 'Se', 'Br', 'Kr', 'Rb', 'Sr', 'Y'];
+    const els = [
+      'H',
+      'He',
+      'Li',
+      'Be',
+      'B',
+      'C',
+      'N',
+      'O',
+      'F',
+      'Ne',
+      'Na',
+      'Mg',
+      'Al',
+      'Si',
+      'P',
+      'S',
+      'Cl',
+      'Ar',
+      'K',
+      'Ca',
+      'Sc',
+      'Ti',
+      'V',
+      'Cr',
+      'Mn',
+      'Fe',
+      'Co',
+      'Ni',
+      'Cu',
+      'Zn',
+      'Ga',
+      'Ge',
+      'As',
+      'Se',
+      'Br',
+      'Kr',
+      'Rb',
+      'Sr',
+      'Y',
+    ];
     let seed = 12345;
     const next = () => (seed = (seed * 48271) % 2147483647);
     const species = Array.from({ length: 40 }, () => els.map((e) => e + (1 + (next() % 999_999))).join(''));

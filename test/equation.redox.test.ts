@@ -98,7 +98,9 @@ describe('what the editor shows', () => {
     const a = analyseReaction('MnO4^- + H2O2 + H^+ -> Mn^2+ + O2 + H2O');
     expect(a.diagnostics.map((d) => d.code)).toEqual(['unbalanced-equation']);
     expect(a.diagnostics[0].data).toMatchObject({ status: 'balanced', coefficients: [2, 5, 6, 2, 5, 8] });
-    expect(a.diagnostics[0].message).toContain('Balanced: 2 MnO₄⁻ + 5 H₂O₂ + 6 H⁺ → 2 Mn²⁺ + 5 O₂ + 8 H₂O (by half-reactions; other combinations also conserve atoms and charge)');
+    expect(a.diagnostics[0].message).toContain(
+      'Balanced: 2 MnO₄⁻ + 5 H₂O₂ + 6 H⁺ → 2 Mn²⁺ + 5 O₂ + 8 H₂O (by half-reactions; other combinations also conserve atoms and charge)',
+    );
     const md = reactionMarkdown(a);
     expect(md).toContain('2 MnO4^- + 5 H2O2 + 6 H^+ -> 2 Mn^2+ + 5 O2 + 8 H2O');
     expect(md).toContain('Balanced by half-reactions');

@@ -9,7 +9,12 @@
  */
 import { describe, expect, it } from 'vitest';
 import {
-  analyseReaction, balanceCheck, balanceEquation, clearReactionCache, parseEquation, unbalancedMessage,
+  analyseReaction,
+  balanceCheck,
+  balanceEquation,
+  clearReactionCache,
+  parseEquation,
+  unbalancedMessage,
   type ParsedEquation,
 } from '../server/src/chem/equation';
 
@@ -226,42 +231,100 @@ describe('the + sign: separator or charge', () => {
   };
 
   it('Na+ + Cl- -> NaCl', () => {
-    expect(read('Na+ + Cl- -> NaCl')).toEqual({ ok: true, reactants: [['Na+', 1], ['Cl-', -1]], products: [['NaCl', 0]] });
+    expect(read('Na+ + Cl- -> NaCl')).toEqual({
+      ok: true,
+      reactants: [
+        ['Na+', 1],
+        ['Cl-', -1],
+      ],
+      products: [['NaCl', 0]],
+    });
     expect(balance('Na+ + Cl- -> NaCl').status).toBe('already-balanced');
   });
 
   it('2H+ + CO3^2- -> H2O + CO2', () => {
     // common textbook example: acid on a carbonate, 2 H+ + CO3^2- -> H2O + CO2
     const p = parseEquation('2H+ + CO3^2- -> H2O + CO2');
-    expect(p.reactants.map((s) => [s.coefficient, s.formulaText, s.charge])).toEqual([[2, 'H+', 1], [null, 'CO3^2-', -2]]);
+    expect(p.reactants.map((s) => [s.coefficient, s.formulaText, s.charge])).toEqual([
+      [2, 'H+', 1],
+      [null, 'CO3^2-', -2],
+    ]);
     expect(balance('2H+ + CO3^2- -> H2O + CO2').status).toBe('already-balanced');
     expect(balance('H+ + CO3^2- -> H2O + CO2').coefficients).toEqual([2, 1, 1, 1]);
   });
 
   it('every charge notation next to separators', () => {
-    expect(read('Fe^3+ + e^- -> Fe^2+').reactants).toEqual([['Fe^3+', 3], ['e^-', -1]]);
-    expect(read('Fe3+ + e- -> Fe2+').reactants).toEqual([['Fe3+', 3], ['e-', -1]]);
-    expect(read('Fe^{3+} + e⁻ -> Fe²⁺').reactants).toEqual([['Fe^{3+}', 3], ['e⁻', -1]]);
-    expect(read('Fe^+3 + e- -> Fe^2+').reactants).toEqual([['Fe^+3', 3], ['e-', -1]]);
-    expect(read('Ca++ + 2 Cl- -> CaCl2').reactants).toEqual([['Ca++', 2], ['2 Cl-', -1]]);
-    expect(read('Ca+2 + 2 Cl- -> CaCl2').reactants).toEqual([['Ca+2', 2], ['2 Cl-', -1]]);
-    expect(read('Na+(aq) + Cl-(aq) -> NaCl(s)').reactants).toEqual([['Na+(aq)', 1], ['Cl-(aq)', -1]]);
-    expect(read('NH4^+ + OH^- -> NH3 + H2O').reactants).toEqual([['NH4^+', 1], ['OH^-', -1]]);
+    expect(read('Fe^3+ + e^- -> Fe^2+').reactants).toEqual([
+      ['Fe^3+', 3],
+      ['e^-', -1],
+    ]);
+    expect(read('Fe3+ + e- -> Fe2+').reactants).toEqual([
+      ['Fe3+', 3],
+      ['e-', -1],
+    ]);
+    expect(read('Fe^{3+} + e⁻ -> Fe²⁺').reactants).toEqual([
+      ['Fe^{3+}', 3],
+      ['e⁻', -1],
+    ]);
+    expect(read('Fe^+3 + e- -> Fe^2+').reactants).toEqual([
+      ['Fe^+3', 3],
+      ['e-', -1],
+    ]);
+    expect(read('Ca++ + 2 Cl- -> CaCl2').reactants).toEqual([
+      ['Ca++', 2],
+      ['2 Cl-', -1],
+    ]);
+    expect(read('Ca+2 + 2 Cl- -> CaCl2').reactants).toEqual([
+      ['Ca+2', 2],
+      ['2 Cl-', -1],
+    ]);
+    expect(read('Na+(aq) + Cl-(aq) -> NaCl(s)').reactants).toEqual([
+      ['Na+(aq)', 1],
+      ['Cl-(aq)', -1],
+    ]);
+    expect(read('NH4^+ + OH^- -> NH3 + H2O').reactants).toEqual([
+      ['NH4^+', 1],
+      ['OH^-', -1],
+    ]);
   });
 
   it('no spaces: a + followed by a species is a separator', () => {
-    expect(read('H2+O2->H2O').reactants).toEqual([['H2', 0], ['O2', 0]]);
-    expect(read('2H2+O2->2H2O').reactants).toEqual([['2H2', 0], ['O2', 0]]);
-    expect(read('H2+2O2->H2O').reactants).toEqual([['H2', 0], ['2O2', 0]]);
-    expect(read('Fe^3++e^-->Fe^2+').reactants).toEqual([['Fe^3+', 3], ['e^-', -1]]);
-    expect(read('Na++Cl-->NaCl').reactants).toEqual([['Na+', 1], ['Cl-', -1]]);
+    expect(read('H2+O2->H2O').reactants).toEqual([
+      ['H2', 0],
+      ['O2', 0],
+    ]);
+    expect(read('2H2+O2->2H2O').reactants).toEqual([
+      ['2H2', 0],
+      ['O2', 0],
+    ]);
+    expect(read('H2+2O2->H2O').reactants).toEqual([
+      ['H2', 0],
+      ['2O2', 0],
+    ]);
+    expect(read('Fe^3++e^-->Fe^2+').reactants).toEqual([
+      ['Fe^3+', 3],
+      ['e^-', -1],
+    ]);
+    expect(read('Na++Cl-->NaCl').reactants).toEqual([
+      ['Na+', 1],
+      ['Cl-', -1],
+    ]);
     // A + with a species after a space is a separator, even when attached on the left.
-    expect(read('H2+ O2 -> H2O').reactants).toEqual([['H2', 0], ['O2', 0]]);
+    expect(read('H2+ O2 -> H2O').reactants).toEqual([
+      ['H2', 0],
+      ['O2', 0],
+    ]);
   });
 
   it('a + with spaces on both sides is always a separator', () => {
-    expect(read('H2 + O2 -> H2O').reactants).toEqual([['H2', 0], ['O2', 0]]);
-    expect(read('H2 +O2 -> H2O').reactants).toEqual([['H2', 0], ['O2', 0]]);
+    expect(read('H2 + O2 -> H2O').reactants).toEqual([
+      ['H2', 0],
+      ['O2', 0],
+    ]);
+    expect(read('H2 +O2 -> H2O').reactants).toEqual([
+      ['H2', 0],
+      ['O2', 0],
+    ]);
   });
 });
 
@@ -286,7 +349,10 @@ describe('offsets', () => {
     const t = 'SO₄²⁻ + Ba²⁺ ⟶ BaSO₄';
     const p = parseEquation(t);
     expect(p.arrow).toEqual({ arrow: '⟶', start: 13, end: 14 });
-    expect(p.reactants.map((s) => [s.start, s.end])).toEqual([[0, 5], [8, 12]]);
+    expect(p.reactants.map((s) => [s.start, s.end])).toEqual([
+      [0, 5],
+      [8, 12],
+    ]);
     expect(p.products.map((s) => [s.start, s.end])).toEqual([[15, 20]]);
   });
 
@@ -318,12 +384,32 @@ describe('offsets', () => {
 });
 
 describe('garbage never throws', () => {
-  it.each([
-    '', ' ', '->', '-> ->', '=>=>', '<=>', '+', '+ -> +', '2 -> 3', 'H2 + O2', '^^^ -> ^', 'e -> e', '½ -> ½',
-    '((((((((((((((((((((((((((((((((((((((((H -> H', `${'('.repeat(5000)} -> H2`, `${'+'.repeat(20000)} -> H`,
-    `${'-> '.repeat(5000)}`, 'H2 + O2 -> H2O \u0000', '\ud83d -> \udc00', '99999999999999999999999999 H2 -> H2',
-    'H1000001 -> H', `${'H2 + '.repeat(5000)}H2 -> H2O`,
-  ].map((t) => [JSON.stringify(t.length > 40 ? `${t.slice(0, 40)}…` : t), t]))('%s', (_, t) => {
+  it.each(
+    [
+      '',
+      ' ',
+      '->',
+      '-> ->',
+      '=>=>',
+      '<=>',
+      '+',
+      '+ -> +',
+      '2 -> 3',
+      'H2 + O2',
+      '^^^ -> ^',
+      'e -> e',
+      '½ -> ½',
+      '((((((((((((((((((((((((((((((((((((((((H -> H',
+      `${'('.repeat(5000)} -> H2`,
+      `${'+'.repeat(20000)} -> H`,
+      `${'-> '.repeat(5000)}`,
+      'H2 + O2 -> H2O \u0000',
+      '\ud83d -> \udc00',
+      '99999999999999999999999999 H2 -> H2',
+      'H1000001 -> H',
+      `${'H2 + '.repeat(5000)}H2 -> H2O`,
+    ].map((t) => [JSON.stringify(t.length > 40 ? `${t.slice(0, 40)}…` : t), t]),
+  )('%s', (_, t) => {
     const a = analyseReaction(t);
     expect(a.balance.status).toBeTypeOf('string');
     for (const d of a.diagnostics) {
@@ -335,8 +421,14 @@ describe('garbage never throws', () => {
 
   it('clear messages for no arrow, two arrows and empty sides', () => {
     expect(analyseReaction('H2 + O2').diagnostics.map((d) => d.code)).toEqual(['missing-arrow']);
-    expect(analyseReaction('-> ->').diagnostics.map((d) => d.code).sort()).toEqual(['empty-side', 'empty-side', 'multiple-arrows']);
-    expect(analyseReaction('H2 ->').diagnostics.map((d) => [d.code, d.message])).toEqual([['empty-side', 'Nothing after the arrow: the equation has no products.']]);
+    expect(
+      analyseReaction('-> ->')
+        .diagnostics.map((d) => d.code)
+        .sort(),
+    ).toEqual(['empty-side', 'empty-side', 'multiple-arrows']);
+    expect(analyseReaction('H2 ->').diagnostics.map((d) => [d.code, d.message])).toEqual([
+      ['empty-side', 'Nothing after the arrow: the equation has no products.'],
+    ]);
   });
 });
 
@@ -344,7 +436,11 @@ describe('balanceCheck and messages', () => {
   it('per-element totals', () => {
     const p = parseEquation('C3H8 + O2 -> CO2 + H2O');
     expect(balanceCheck(p, [1, 5, 3, 4])).toEqual({
-      elements: [{ element: 'C', left: 3, right: 3 }, { element: 'H', left: 8, right: 8 }, { element: 'O', left: 10, right: 10 }],
+      elements: [
+        { element: 'C', left: 3, right: 3 },
+        { element: 'H', left: 8, right: 8 },
+        { element: 'O', left: 10, right: 10 },
+      ],
       charge: { left: 0, right: 0 },
       balanced: true,
     });
@@ -367,7 +463,10 @@ describe('analyseReaction', () => {
     expect(a.ok).toBe(true);
     expect(a.diagnostics).toEqual([
       {
-        code: 'unbalanced-equation', severity: 'warning', start: 0, end: t.length,
+        code: 'unbalanced-equation',
+        severity: 'warning',
+        start: 0,
+        end: t.length,
         // The message in Unicode notation; the fix (data.balanced) in the notation typed, for the edit.
         message: 'Not balanced — left: 1 Fe, 2 O; right: 2 Fe, 3 O. Balanced: 4 Fe + 3 O₂ → 2 Fe₂O₃',
         data: { balanced: '4 Fe + 3 O2 -> 2 Fe2O3', display: '4 Fe + 3 O₂ → 2 Fe₂O₃', coefficients: [4, 3, 2], status: 'balanced' },
@@ -382,10 +481,16 @@ describe('analyseReaction', () => {
 
   it('explains ambiguous and impossible equations', () => {
     const amb = analyseReaction('H2 + O2 -> H2O + H2O2');
-    expect(amb.diagnostics.map((d) => [d.code, d.severity])).toEqual([['unbalanced-equation', 'warning'], ['ambiguous-equation', 'information']]);
+    expect(amb.diagnostics.map((d) => [d.code, d.severity])).toEqual([
+      ['unbalanced-equation', 'warning'],
+      ['ambiguous-equation', 'information'],
+    ]);
     expect(amb.diagnostics[0].data).toEqual({ balanced: null, display: null, coefficients: null, status: 'ambiguous' });
     const imp = analyseReaction('NaCl -> KBr');
-    expect(imp.diagnostics.map((d) => [d.code, d.severity])).toEqual([['unbalanced-equation', 'warning'], ['impossible-equation', 'information']]);
+    expect(imp.diagnostics.map((d) => [d.code, d.severity])).toEqual([
+      ['unbalanced-equation', 'warning'],
+      ['impossible-equation', 'information'],
+    ]);
     expect(imp.diagnostics[1].message).toMatch(/only on the left/);
   });
 

@@ -10,13 +10,15 @@ import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 
 /** Everything the bundle touches on `vscode` at load time: namespaces and classes (stand-ins). */
-const NAMES = ('CallHierarchyIncomingCall CallHierarchyItem CallHierarchyOutgoingCall CancellationError CancellationTokenSource CodeActionKind CodeActionTriggerKind CodeLens Color ColorInformation ' +
+const NAMES = (
+  'CallHierarchyIncomingCall CallHierarchyItem CallHierarchyOutgoingCall CancellationError CancellationTokenSource CodeActionKind CodeActionTriggerKind CodeLens Color ColorInformation ' +
   'ColorPresentation CompletionItem CompletionItemKind CompletionItemTag CompletionList CompletionTriggerKind DiagnosticRelatedInformation DiagnosticSeverity DiagnosticTag Disposable ' +
   'DocumentHighlight DocumentHighlightKind DocumentLink DocumentSymbol EventEmitter FileType FoldingRange FoldingRangeKind Hover InlayHint InlayHintLabelPart InlineCompletionItem ' +
   'InlineCompletionList InlineCompletionTriggerKind InlineValueEvaluatableExpression InlineValueText InlineValueVariableLookup LinkedEditingRanges Location LogLevel MarkdownString ' +
   'ParameterInformation Position ProgressLocation Range RelativePattern SelectionRange SemanticTokens SemanticTokensEdit SemanticTokensEdits SignatureHelp SignatureHelpTriggerKind ' +
   'SignatureInformation SnippetString SnippetTextEdit SymbolInformation SymbolKind SymbolTag TabInputCustom TabInputNotebook TabInputText TabInputTextDiff TextDocumentSaveReason ' +
-  'TextEdit TypeHierarchyItem Uri WorkspaceEdit commands env languages version window workspace Diagnostic CodeAction').split(' ');
+  'TextEdit TypeHierarchyItem Uri WorkspaceEdit commands env languages version window workspace Diagnostic CodeAction'
+).split(' ');
 
 /** A stand-in that accepts any call, construction or property access. */
 function stub(path: string): any {
@@ -32,22 +34,32 @@ const executed: string[] = [];
 let onConfigChange: ((e: { affectsConfiguration(s: string): boolean }) => void) | undefined;
 const special: Record<string, unknown> = {
   version: '1.91.0',
-  workspace: new Proxy({}, {
-    get: (_t, p) => {
-      if (p === 'getConfiguration') return () => ({ get: (k: string) => (k === 'ionwright' ? config : undefined) });
-      if (p === 'onDidChangeConfiguration') return (cb: typeof onConfigChange) => ((onConfigChange = cb), { dispose() {} });
-      return stub(`workspace.${String(p)}`);
+  workspace: new Proxy(
+    {},
+    {
+      get: (_t, p) => {
+        if (p === 'getConfiguration') return () => ({ get: (k: string) => (k === 'ionwright' ? config : undefined) });
+        if (p === 'onDidChangeConfiguration') return (cb: typeof onConfigChange) => ((onConfigChange = cb), { dispose() {} });
+        return stub(`workspace.${String(p)}`);
+      },
     },
-  }),
-  commands: new Proxy({}, {
-    get: (_t, p) => (p === 'executeCommand' ? async (c: string) => void executed.push(c) : stub(`commands.${String(p)}`)),
-  }),
+  ),
+  commands: new Proxy(
+    {},
+    {
+      get: (_t, p) => (p === 'executeCommand' ? async (c: string) => void executed.push(c) : stub(`commands.${String(p)}`)),
+    },
+  ),
 };
-const vscode = new Proxy({}, {
-  get: (_t, p) => (typeof p === 'string' && p in special ? special[p] : p === '__esModule' ? undefined : stub(String(p))),
-  ownKeys: () => NAMES,
-  getOwnPropertyDescriptor: (_t, p) => (NAMES.includes(p as string) ? { configurable: true, enumerable: true, value: (special[p as string] ?? stub(String(p))) } : undefined),
-});
+const vscode = new Proxy(
+  {},
+  {
+    get: (_t, p) => (typeof p === 'string' && p in special ? special[p] : p === '__esModule' ? undefined : stub(String(p))),
+    ownKeys: () => NAMES,
+    getOwnPropertyDescriptor: (_t, p) =>
+      NAMES.includes(p as string) ? { configurable: true, enumerable: true, value: special[p as string] ?? stub(String(p)) } : undefined,
+  },
+);
 
 const load = (Module as unknown as { _load: (...a: unknown[]) => unknown })._load;
 (Module as unknown as { _load: (...a: unknown[]) => unknown })._load = function (request: unknown, ...rest: unknown[]) {

@@ -46,8 +46,21 @@ describe('notations', () => {
 
   it('reads charges in every notation', () => {
     for (const [t, q] of [
-      ['SO4^2-', -2], ['SO4^-2', -2], ['SO4^{2-}', -2], ['SO₄²⁻', -2], ['NH4^+', 1], ['NH4+', 1], ['Cl-', -1],
-      ['Ca++', 2], ['Ca+2', 2], ['Fe3+', 3], ['Fe^3+', 3], ['O2-', -2], ['[Fe(CN)6]^4-', -4], ['H3O⁺', 1], ['e-', 0],
+      ['SO4^2-', -2],
+      ['SO4^-2', -2],
+      ['SO4^{2-}', -2],
+      ['SO₄²⁻', -2],
+      ['NH4^+', 1],
+      ['NH4+', 1],
+      ['Cl-', -1],
+      ['Ca++', 2],
+      ['Ca+2', 2],
+      ['Fe3+', 3],
+      ['Fe^3+', 3],
+      ['O2-', -2],
+      ['[Fe(CN)6]^4-', -4],
+      ['H3O⁺', 1],
+      ['e-', 0],
     ] as const) {
       const r = parseFormula(t);
       if (t === 'e-') {
@@ -71,7 +84,13 @@ describe('notations', () => {
   });
 
   it('reads state symbols at the end', () => {
-    for (const [t, s] of [['NaCl(aq)', 'aq'], ['H2O(l)', 'l'], ['CO2(g)', 'g'], ['Fe(s)', 's'], ['Na^+(aq)', 'aq']] as const) {
+    for (const [t, s] of [
+      ['NaCl(aq)', 'aq'],
+      ['H2O(l)', 'l'],
+      ['CO2(g)', 'g'],
+      ['Fe(s)', 's'],
+      ['Na^+(aq)', 'aq'],
+    ] as const) {
       const f = parseFormula(t).formula!;
       expect(f.state, t).toBe(s);
     }

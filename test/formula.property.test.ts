@@ -68,10 +68,13 @@ describe('parser properties', () => {
   it('strings made of formula characters never throw either', () => {
     const chars = fc.constantFrom(...'HCNOClNaFe()[]{}0123456789.·*^+-²⁻₂₄½ (aq)'.split(''));
     fc.assert(
-      fc.property(fc.array(chars, { maxLength: 40 }).map((a) => a.join('')), (s) => {
-        const r = parseFormula(s);
-        expect(r.ok || r.diagnostics.length > 0).toBe(true);
-      }),
+      fc.property(
+        fc.array(chars, { maxLength: 40 }).map((a) => a.join('')),
+        (s) => {
+          const r = parseFormula(s);
+          expect(r.ok || r.diagnostics.length > 0).toBe(true);
+        },
+      ),
       { numRuns: 5000 },
     );
   });

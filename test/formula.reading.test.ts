@@ -59,13 +59,16 @@ describe('adduct counts and spaces', () => {
     const salts = ['CuSO4', 'NiCl2', 'MgSO4', 'Na2CO3', 'CaCl2', 'FeSO4', 'K4[Fe(CN)6]'];
     const adducts = ['H2O', 'NH3', 'H2O2'];
     const ws = fc.constantFrom('', ' ', '  ', '\t');
-    fc.assert(fc.property(fc.constantFrom(...salts), fc.constantFrom(...adducts), fc.integer({ min: 1, max: 12 }), ws, ws, (salt, add, n, before, after) => {
-      const plain = `${salt}·${n === 1 ? '' : n}${add}`;
-      const spaced = `${salt}${before}·${after}${n === 1 ? '' : n}${add}`;
-      const p = parseFormula(spaced);
-      expect(p.diagnostics).toEqual([]);
-      expect(formulaAtoms(p.formula!)).toEqual(formulaAtoms(parseFormula(plain).formula!));
-    }), { numRuns: 500 });
+    fc.assert(
+      fc.property(fc.constantFrom(...salts), fc.constantFrom(...adducts), fc.integer({ min: 1, max: 12 }), ws, ws, (salt, add, n, before, after) => {
+        const plain = `${salt}·${n === 1 ? '' : n}${add}`;
+        const spaced = `${salt}${before}·${after}${n === 1 ? '' : n}${add}`;
+        const p = parseFormula(spaced);
+        expect(p.diagnostics).toEqual([]);
+        expect(formulaAtoms(p.formula!)).toEqual(formulaAtoms(parseFormula(plain).formula!));
+      }),
+      { numRuns: 500 },
+    );
   });
 });
 
@@ -95,13 +98,46 @@ describe('spaced hydrates on a batch line', () => {
 
 describe('alloy designations are not formulas', () => {
   it.each([
-    ['AlSi10Mg', 'Al', 90, [['Si', 10], ['Mg', null]]],
+    [
+      'AlSi10Mg',
+      'Al',
+      90,
+      [
+        ['Si', 10],
+        ['Mg', null],
+      ],
+    ],
     ['CuZn37', 'Cu', 63, [['Zn', 37]]],
     ['AlMg3', 'Al', 97, [['Mg', 3]]],
     ['CuSn8', 'Cu', 92, [['Sn', 8]]],
-    ['CuNi10Fe1Mn', 'Cu', 89, [['Ni', 10], ['Fe', 1], ['Mn', null]]],
-    ['TiAl6V4', 'Ti', 90, [['Al', 6], ['V', 4]]],
-    ['AlSi7Mg0.3', 'Al', 92.7, [['Si', 7], ['Mg', 0.3]]],
+    [
+      'CuNi10Fe1Mn',
+      'Cu',
+      89,
+      [
+        ['Ni', 10],
+        ['Fe', 1],
+        ['Mn', null],
+      ],
+    ],
+    [
+      'TiAl6V4',
+      'Ti',
+      90,
+      [
+        ['Al', 6],
+        ['V', 4],
+      ],
+    ],
+    [
+      'AlSi7Mg0.3',
+      'Al',
+      92.7,
+      [
+        ['Si', 7],
+        ['Mg', 0.3],
+      ],
+    ],
   ] as const)('%s: %s balance ≈ %d %, no charge warning', (t, base, pct, parts) => {
     const a = analyseFormula(t);
     expect(a.diagnostics.filter((d) => d.code === 'charge-imbalance')).toEqual([]);
@@ -112,9 +148,12 @@ describe('alloy designations are not formulas', () => {
     expect(a.bond).toBeNull();
     expect(formulaCardMarkdown(a, DEFAULT_SETTINGS)).toContain('alloy designation');
   });
-  it.each(['NaCl2', 'CuCl2', 'CuSO4', 'MgB2', 'CuAl2', 'Ni3Al', 'Cu5Zn8', 'FeNi', 'CuZn', 'AlCl3', 'Ag2O', 'CuZn60', 'CuZn10Sn20'])('%s is no designation', (t) => {
-    expect(cardJson(analyseFormula(t)).alloyDesignation).toBeNull();
-  });
+  it.each(['NaCl2', 'CuCl2', 'CuSO4', 'MgB2', 'CuAl2', 'Ni3Al', 'Cu5Zn8', 'FeNi', 'CuZn', 'AlCl3', 'Ag2O', 'CuZn60', 'CuZn10Sn20'])(
+    '%s is no designation',
+    (t) => {
+      expect(cardJson(analyseFormula(t)).alloyDesignation).toBeNull();
+    },
+  );
   it('flags NaCl2 as before (a formula with a wrong count)', () => {
     expect(analyseFormula('NaCl2').charges!.balanced).toBe(false);
   });

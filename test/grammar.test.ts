@@ -60,7 +60,13 @@ async function tokenize(scopeName: string, text: string): Promise<Tok[][]> {
 
 /** The line that starts with `prefix` (after indentation), so that the tests say which line they mean. */
 function lineStarting(lines: Tok[][], prefix: string): Tok[] {
-  const found = lines.find((toks) => toks.map((t) => t.text).join('').trimStart().startsWith(prefix));
+  const found = lines.find((toks) =>
+    toks
+      .map((t) => t.text)
+      .join('')
+      .trimStart()
+      .startsWith(prefix),
+  );
   if (!found) throw new Error(`no line starts with ${JSON.stringify(prefix)}`);
   return found;
 }
@@ -122,7 +128,11 @@ describe('grammar files', () => {
         }
       }
     }
-    const unused = Object.entries(grammars).flatMap(([scope, g]) => Object.keys(g.repository).filter((k) => !used.has(`${scope}#${k}`)).map((k) => `${scope}#${k}`));
+    const unused = Object.entries(grammars).flatMap(([scope, g]) =>
+      Object.keys(g.repository)
+        .filter((k) => !used.has(`${scope}#${k}`))
+        .map((k) => `${scope}#${k}`),
+    );
     expect(unused).toEqual([]);
   });
 
@@ -208,7 +218,13 @@ describe('.fnote: examples/plating-bath.fnote', () => {
     expectScopes(tok(commented, '#'), 'comment.line.number-sign.ionwright', 'punctuation.definition.comment.ionwright');
     expectScopes(tok(commented, ' citric acid, treated as undissociated'), 'comment.line.number-sign.ionwright');
 
-    const ends = lines.filter((l) => l.map((t) => t.text).join('').trim() === 'end');
+    const ends = lines.filter(
+      (l) =>
+        l
+          .map((t) => t.text)
+          .join('')
+          .trim() === 'end',
+    );
     expect(ends).toHaveLength(2);
     for (const e of ends) expectScopes(tok(e, 'end'), 'keyword.control.end.fnote');
     // After the block, lines are top level again.
@@ -267,7 +283,10 @@ describe('.fnote: notation details', () => {
   });
 
   it('in equations a + is a separator where a species follows it, else a charge', async () => {
-    const lines = await tokenize('source.fnote', 'reaction: H2+O2 -> H2O\nreaction: H2+ O2 -> H2O\nreaction: Na+ + Cl- -> NaCl\nreaction: Ca+2 + 1½ O2 -> x\nformula: Na+ Fe3+');
+    const lines = await tokenize(
+      'source.fnote',
+      'reaction: H2+O2 -> H2O\nreaction: H2+ O2 -> H2O\nreaction: Na+ + Cl- -> NaCl\nreaction: Ca+2 + 1½ O2 -> x\nformula: Na+ Fe3+',
+    );
     expectScopes(tok(lines[0], '+'), 'keyword.operator.plus.ionwright');
     expectScopes(tok(lines[1], '+'), 'keyword.operator.plus.ionwright');
     expectScopes(tok(lines[1], '2', 0), 'constant.numeric.count.ionwright');
@@ -282,7 +301,19 @@ describe('.fnote: notation details', () => {
   });
 
   it('batch lines as the batch reader takes them: headers, glued units, assay, # anywhere', async () => {
-    const text = ['batch', '  Name: Bath#3', '  VOLUME: 500mL', '  total: 2 kg', '  CuSO4 5g@98.5 %', '  NaCl 1 wt%', '  KCl 1e-3 mol/L', '  CaCl2 12.5 µmol', '  volume: 2 kg', '  section: not a section', 'end'];
+    const text = [
+      'batch',
+      '  Name: Bath#3',
+      '  VOLUME: 500mL',
+      '  total: 2 kg',
+      '  CuSO4 5g@98.5 %',
+      '  NaCl 1 wt%',
+      '  KCl 1e-3 mol/L',
+      '  CaCl2 12.5 µmol',
+      '  volume: 2 kg',
+      '  section: not a section',
+      'end',
+    ];
     const lines = await tokenize('source.fnote', text.join('\n'));
     expectScopes(tok(lines[1], 'Name'), 'support.type.property-name.ionwright');
     expectScopes(tok(lines[1], 'Bath'), 'entity.name.type.batch.ionwright');
@@ -318,11 +349,55 @@ describe('.fnote: notation details', () => {
 describe('grammar and parser agree', () => {
   // What the parser reads, character by character, against what the grammar scopes.
   const CORPUS = [
-    'NaCl', 'CH3COOH', 'Ca(OH)2', 'K4[Fe(CN)6]', '{[Co(NH3)5]Cl}Cl2', 'Fe0.95O', 'La0.8Sr0.2MnO3', 'Li0.5CoO2', 'Fe₀.₉₅O',
-    'CuSO4·5H2O', 'CuSO4•5H2O', 'CuSO4*5H2O', 'CuSO4.5H2O', 'Na2CO3.10H2O', 'CaSO4.0.5H2O', 'CaSO4·0.5H2O', 'CaSO4·½H2O',
-    'CaSO4·1/2H2O', 'CaCl2.2NH3', '[Cu(H2O)6]SO4·H2O', 'K4[Fe(CN)6]·3H2O', 'H₂O', 'H₂SO₄', 'SO₄²⁻', 'SO4^2-', 'SO4^-2',
-    'SO4^{2-}', 'NH4^+', 'Cl-', 'Ca++', 'Ca+2', 'Fe3+', 'O2-', 'NH4+', 'SO42-', 'Fe3+(aq)', 'NaCl(aq)', 'H2O(l)', 'CO2(g)',
-    'Fe(s)', 'Fe(III)', 'Cu(I)', 'Fe(III)Cl3', 'Et2O', 'PhCOOH', 'Pb(OAc)2', '[Co(en)3]Cl3', 'Cu(acac)2', 'Me3N',
+    'NaCl',
+    'CH3COOH',
+    'Ca(OH)2',
+    'K4[Fe(CN)6]',
+    '{[Co(NH3)5]Cl}Cl2',
+    'Fe0.95O',
+    'La0.8Sr0.2MnO3',
+    'Li0.5CoO2',
+    'Fe₀.₉₅O',
+    'CuSO4·5H2O',
+    'CuSO4•5H2O',
+    'CuSO4*5H2O',
+    'CuSO4.5H2O',
+    'Na2CO3.10H2O',
+    'CaSO4.0.5H2O',
+    'CaSO4·0.5H2O',
+    'CaSO4·½H2O',
+    'CaSO4·1/2H2O',
+    'CaCl2.2NH3',
+    '[Cu(H2O)6]SO4·H2O',
+    'K4[Fe(CN)6]·3H2O',
+    'H₂O',
+    'H₂SO₄',
+    'SO₄²⁻',
+    'SO4^2-',
+    'SO4^-2',
+    'SO4^{2-}',
+    'NH4^+',
+    'Cl-',
+    'Ca++',
+    'Ca+2',
+    'Fe3+',
+    'O2-',
+    'NH4+',
+    'SO42-',
+    'Fe3+(aq)',
+    'NaCl(aq)',
+    'H2O(l)',
+    'CO2(g)',
+    'Fe(s)',
+    'Fe(III)',
+    'Cu(I)',
+    'Fe(III)Cl3',
+    'Et2O',
+    'PhCOOH',
+    'Pb(OAc)2',
+    '[Co(en)3]Cl3',
+    'Cu(acac)2',
+    'Me3N',
   ];
   type Label = '' | 'element' | 'abbrev' | 'charge' | 'state' | 'separator' | 'stock';
 
@@ -374,7 +449,10 @@ describe('grammar and parser agree', () => {
     expect(listIn(repo.multiplier.match)).toBe(list);
     const grammarList = list.split('|').map((m) => m.replace(/\\/g, ''));
     const source = readFileSync(join(__dirname, '..', 'server', 'src', 'chem', 'formula', 'parse.ts'), 'utf8');
-    const parserList = /const ADDUCT_MOLECULES = \[([^\]]*)\]/.exec(source)?.[1].match(/'[^']*'/g)?.map((q) => q.slice(1, -1));
+    const parserList = /const ADDUCT_MOLECULES = \[([^\]]*)\]/
+      .exec(source)?.[1]
+      .match(/'[^']*'/g)
+      ?.map((q) => q.slice(1, -1));
     expect(parserList, 'ADDUCT_MOLECULES in parse.ts').toBeTruthy();
     expect(grammarList).toEqual(parserList);
     for (const m of grammarList) expect(startsWithAdductMolecule(m), m).toBe(true);
@@ -431,7 +509,13 @@ describe('Markdown injection', () => {
     expectScopes(tok(lines[5], 'name'), 'meta.embedded.block.batch.ionwright', 'support.type.property-name.ionwright');
     expectScopes(tok(lines[6], 'mL'), 'keyword.other.unit.ionwright');
     const salt = lines[7];
-    expectScopes(tok(salt, 'Cu'), 'markup.fenced_code.block.markdown', 'meta.embedded.block.batch.ionwright', 'meta.formula.ionwright', 'support.type.element.ionwright');
+    expectScopes(
+      tok(salt, 'Cu'),
+      'markup.fenced_code.block.markdown',
+      'meta.embedded.block.batch.ionwright',
+      'meta.formula.ionwright',
+      'support.type.element.ionwright',
+    );
     expectScopes(tok(salt, '.'), 'punctuation.separator.adduct.ionwright');
     expectScopes(tok(salt, '2.5'), 'constant.numeric.amount.ionwright');
     expectScopes(tok(salt, 'g'), 'keyword.other.unit.ionwright');
@@ -456,9 +540,17 @@ describe('Markdown injection', () => {
   it('leaves Markdown alone elsewhere: inline code, other fences, indented code, prose', () => {
     const inline = lines[2].filter((t) => has(t, 'markup.inline.raw.string.markdown'));
     expect(inline.map((t) => t.text).join('')).toBe('`NaCl``2 H2 + O2 -> 2 H2O`');
-    for (const t of lines[2]) expect(t.scopes.some((s) => s.endsWith('.ionwright')), t.text).toBe(false);
+    for (const t of lines[2])
+      expect(
+        t.scopes.some((s) => s.endsWith('.ionwright')),
+        t.text,
+      ).toBe(false);
     for (const n of [16, 17, 18, 19, 21, 22]) {
-      for (const t of lines[n]) expect(t.scopes.some((s) => s.endsWith('.ionwright')), `line ${n}: ${t.text}`).toBe(false);
+      for (const t of lines[n])
+        expect(
+          t.scopes.some((s) => s.endsWith('.ionwright')),
+          `line ${n}: ${t.text}`,
+        ).toBe(false);
     }
     expectScopes(tok(lines[21], 'After NaCl 2 g.'), 'meta.paragraph.markdown');
   });

@@ -14,7 +14,12 @@ function summary(d: AnalysedDocument) {
   return {
     formulas: d.formulas.map((f) => [f.ref.start, f.ref.end, f.ref.text, f.ref.source, f.analysis.ascii]),
     reactions: d.reactions.map((r) => [r.ref.start, r.ref.end, r.ref.text, r.analysis.balance.status]),
-    batches: d.batches.map((b) => [b.ref.start, b.ref.end, b.ref.lines.map((l) => l.start), b.analysis.ingredients.map((i) => [i.formulaStart, i.lineEnd, i.moles])]),
+    batches: d.batches.map((b) => [
+      b.ref.start,
+      b.ref.end,
+      b.ref.lines.map((l) => l.start),
+      b.analysis.ingredients.map((i) => [i.formulaStart, i.lineEnd, i.moles]),
+    ]),
     diagnostics: d.diagnostics.map((x) => [x.start, x.end, x.code]),
     sections: d.sections.map((s) => [s.start, s.end, s.title]),
     lines: d.lines.starts,
@@ -24,7 +29,35 @@ function summary(d: AnalysedDocument) {
 const edit = fc.record({
   at: fc.double({ min: 0, max: 1, noNaN: true }),
   del: fc.integer({ min: 0, max: 40 }),
-  ins: fc.array(fc.constantFrom('a', ' ', '\n', '\n\n', '`', '```', '```batch\n', '```\n', '#', '# ', 'NaCl', ' 5 g', '->', '·', '\r\n', '-', '    ', 'batch\n', 'end\n', 'é', '🧪', 'section: X\n'), { maxLength: 6 }).map((a) => a.join('')),
+  ins: fc
+    .array(
+      fc.constantFrom(
+        'a',
+        ' ',
+        '\n',
+        '\n\n',
+        '`',
+        '```',
+        '```batch\n',
+        '```\n',
+        '#',
+        '# ',
+        'NaCl',
+        ' 5 g',
+        '->',
+        '·',
+        '\r\n',
+        '-',
+        '    ',
+        'batch\n',
+        'end\n',
+        'é',
+        '🧪',
+        'section: X\n',
+      ),
+      { maxLength: 6 },
+    )
+    .map((a) => a.join('')),
 });
 
 function applyEdit(text: string, e: { at: number; del: number; ins: string }) {
@@ -32,10 +65,26 @@ function applyEdit(text: string, e: { at: number; del: number; ins: string }) {
   return text.slice(0, at) + e.ins + text.slice(Math.min(text.length, at + e.del));
 }
 
-const fnoteBase = ['# plating notes', 'section: Strike', 'formula: NiCl2·6H2O, H3BO3', 'The bath uses `NiSO4·6H2O`.', 'batch Strike', '  volume: 1 L', '  NiSO4·6H2O 240 g', 'end', 'reaction: Ni^2+ + 2 e^- -> Ni', 'section: Converter', 'reaction: Fe2O3 + H3PO4 -> FePO4 + H2O', ''].join('\n');
+const fnoteBase = [
+  '# plating notes',
+  'section: Strike',
+  'formula: NiCl2·6H2O, H3BO3',
+  'The bath uses `NiSO4·6H2O`.',
+  'batch Strike',
+  '  volume: 1 L',
+  '  NiSO4·6H2O 240 g',
+  'end',
+  'reaction: Ni^2+ + 2 e^- -> Ni',
+  'section: Converter',
+  'reaction: Fe2O3 + H3PO4 -> FePO4 + H2O',
+  '',
+].join('\n');
 
 describe('incremental re-analysis', () => {
-  for (const [language, base] of [['markdown', generateNotes(12_000, 3)], ['fnote', fnoteBase.repeat(8)]] as Array<[NotesLanguage, string]>) {
+  for (const [language, base] of [
+    ['markdown', generateNotes(12_000, 3)],
+    ['fnote', fnoteBase.repeat(8)],
+  ] as Array<[NotesLanguage, string]>) {
     it(`equals a full analysis after random edits (${language})`, () => {
       fc.assert(
         fc.property(fc.array(edit, { minLength: 1, maxLength: 4 }), (edits) => {

@@ -17,8 +17,17 @@ describe('molecular oxides and halides get no lattice energy, and the card says 
   // State at 25 °C from CRC melting and boiling points (from memory): OsO4 mp 41 °C; Mn2O7 mp 6 °C;
   // WF6 bp 17 °C; TiCl4, SnCl4, CrO2Cl2, VOCl3, SiCl4 liquids; PCl5 sublimes at 160 °C.
   const cases: Array<[string, 'solid' | 'liquid' | 'gas']> = [
-    ['OsO4', 'solid'], ['Mn2O7', 'liquid'], ['WF6', 'gas'], ['TiCl4', 'liquid'], ['SnCl4', 'liquid'],
-    ['CrO2Cl2', 'liquid'], ['VOCl3', 'liquid'], ['SiCl4', 'liquid'], ['PCl5', 'solid'], ['UF6', 'solid'], ['MoF6', 'liquid'],
+    ['OsO4', 'solid'],
+    ['Mn2O7', 'liquid'],
+    ['WF6', 'gas'],
+    ['TiCl4', 'liquid'],
+    ['SnCl4', 'liquid'],
+    ['CrO2Cl2', 'liquid'],
+    ['VOCl3', 'liquid'],
+    ['SiCl4', 'liquid'],
+    ['PCl5', 'solid'],
+    ['UF6', 'solid'],
+    ['MoF6', 'liquid'],
   ];
   for (const [f, state] of cases) {
     it(`${f}: no lattice energy; a molecular substance, ${state} at 25 °C`, () => {
@@ -36,7 +45,12 @@ describe('molecular oxides and halides get no lattice energy, and the card says 
   }
 
   it('the rule alone, for substances not in the table (Fajans: high formal charge with oxide or halide)', () => {
-    for (const [f, charge] of [['Re2O7', 7], ['UF5', 5], ['VBr4', 4], ['CrF6', 6]] as const) {
+    for (const [f, charge] of [
+      ['Re2O7', 7],
+      ['UF5', 5],
+      ['VBr4', 4],
+      ['CrF6', 6],
+    ] as const) {
       expect(MOLECULAR_SUBSTANCES.has(f)).toBe(false);
       const a = analyseFormula(f);
       expect(a.lattice, f).toBeNull();

@@ -53,7 +53,9 @@ describe('measured error of each model per structure type', () => {
     for (const [group, byMethod] of measured) {
       for (const [m, list] of byMethod) {
         const e = list.map(([, x]) => x);
-        lines.push(`${group} | ${m} | ${e.length} | ${(100 * median(e)).toFixed(1)} % | ${(100 * Math.min(...e)).toFixed(1)} … ${(100 * Math.max(...e)).toFixed(1)} %`);
+        lines.push(
+          `${group} | ${m} | ${e.length} | ${(100 * median(e)).toFixed(1)} % | ${(100 * Math.min(...e)).toFixed(1)} … ${(100 * Math.max(...e)).toFixed(1)} %`,
+        );
       }
     }
     console.log(lines.join('\n'));
@@ -74,8 +76,14 @@ describe('measured error of each model per structure type', () => {
 
   it('Born–Mayer and Born–Landé run 12–25 % low for the CdCl2 and CdI2 layer structures (common practice: 15–25 %)', () => {
     for (const type of ['cadmium chloride', 'cadmium iodide']) {
-      const bm = measured.get(type)!.get(METHODS.bornMayer)!.map(([, x]) => x);
-      const bl = measured.get(type)!.get(METHODS.bornLande)!.map(([, x]) => x);
+      const bm = measured
+        .get(type)!
+        .get(METHODS.bornMayer)!
+        .map(([, x]) => x);
+      const bl = measured
+        .get(type)!
+        .get(METHODS.bornLande)!
+        .map(([, x]) => x);
       expect(bm.length, type).toBeGreaterThanOrEqual(6);
       expect(median(bm), type).toBeLessThan(-0.15);
       expect(median(bm), type).toBeGreaterThan(-0.25);
@@ -86,7 +94,10 @@ describe('measured error of each model per structure type', () => {
 
   it('while they are within 8 % for rock salt, caesium chloride and fluorite halides', () => {
     for (const type of ['rock salt', 'caesium chloride', 'fluorite']) {
-      const bm = measured.get(type)!.get(METHODS.bornMayer)!.map(([, x]) => x);
+      const bm = measured
+        .get(type)!
+        .get(METHODS.bornMayer)!
+        .map(([, x]) => x);
       expect(Math.abs(median(bm)), type).toBeLessThan(0.08);
     }
   });
@@ -106,7 +117,11 @@ describe('measured error of each model per structure type', () => {
 
 describe('the method that heads the card', () => {
   it('for layer salts without a Born–Haber value it is the type’s measured best (Kapustinskii), with that type’s error', () => {
-    for (const [f, type] of [['NiBr2', 'cadmium chloride'], ['CoBr2', 'cadmium iodide'], ['MnBr2', 'cadmium iodide']]) {
+    for (const [f, type] of [
+      ['NiBr2', 'cadmium chloride'],
+      ['CoBr2', 'cadmium iodide'],
+      ['MnBr2', 'cadmium iodide'],
+    ]) {
       const L = analyseFormula(f).lattice!;
       expect(L.method, f).toBe(METHODS.kapustinskii);
       expect(L.estimate).toBe(true);

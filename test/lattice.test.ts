@@ -12,14 +12,38 @@ import { METHODS, bornLande, kapustinskii } from '../server/src/chem/lattice/lat
 
 // CRC Handbook, Section 12, Lattice energies (kJ/mol), from memory.
 const CRC: Record<string, number> = {
-  LiF: 1049, LiCl: 864, LiBr: 820, LiI: 764,
-  NaF: 930, NaCl: 790, NaBr: 754, NaI: 705,
-  KF: 829, KCl: 720, KBr: 691, KI: 650,
-  RbF: 795, RbCl: 695, RbBr: 668, RbI: 632,
-  CsF: 759, CsCl: 670, CsBr: 647, CsI: 613,
-  MgO: 3795, CaO: 3414, SrO: 3217, BaO: 3029,
-  MgF2: 2978, CaF2: 2651, SrF2: 2513, BaF2: 2373,
-  AgF: 974, AgCl: 918, AgBr: 905, AgI: 892,
+  LiF: 1049,
+  LiCl: 864,
+  LiBr: 820,
+  LiI: 764,
+  NaF: 930,
+  NaCl: 790,
+  NaBr: 754,
+  NaI: 705,
+  KF: 829,
+  KCl: 720,
+  KBr: 691,
+  KI: 650,
+  RbF: 795,
+  RbCl: 695,
+  RbBr: 668,
+  RbI: 632,
+  CsF: 759,
+  CsCl: 670,
+  CsBr: 647,
+  CsI: 613,
+  MgO: 3795,
+  CaO: 3414,
+  SrO: 3217,
+  BaO: 3029,
+  MgF2: 2978,
+  CaF2: 2651,
+  SrF2: 2513,
+  BaF2: 2373,
+  AgF: 974,
+  AgCl: 918,
+  AgBr: 905,
+  AgI: 892,
 };
 
 const valueBy = (f: string, method: string): number | undefined => {
@@ -58,7 +82,9 @@ describe('lattice energy against the CRC table', () => {
       worst.sort((a, b) => b[1] - a[1]);
       const noAg = worst.filter(([f]) => !f.startsWith('Ag'));
       const s2 = stats(noAg.map(([, e]) => e));
-      report.push(`${method}: n=${s.n} median ${(100 * s.median).toFixed(1)} % worst ${(100 * s.worst).toFixed(1)} % (${worst[0][0]}); without silver halides median ${(100 * s2.median).toFixed(1)} % worst ${(100 * s2.worst).toFixed(1)} % (${noAg[0][0]})`);
+      report.push(
+        `${method}: n=${s.n} median ${(100 * s.median).toFixed(1)} % worst ${(100 * s.worst).toFixed(1)} % (${worst[0][0]}); without silver halides median ${(100 * s2.median).toFixed(1)} % worst ${(100 * s2.worst).toFixed(1)} % (${noAg[0][0]})`,
+      );
       console.log(report[report.length - 1]);
       expect(s.n).toBeGreaterThanOrEqual(method === METHODS.bornHaber ? 20 : 24);
       expect(s.median).toBeLessThanOrEqual(bounds[method].median);
@@ -105,12 +131,20 @@ describe('rules of thumb (common practice)', () => {
   });
   it('smaller and more highly charged ions give larger lattice energies', () => {
     expect(U('MgO')).toBeGreaterThan(3 * U('NaF'));
-    for (const series of [['NaF', 'NaCl', 'NaBr', 'NaI'], ['LiCl', 'NaCl', 'KCl', 'RbCl', 'CsCl'], ['MgO', 'CaO', 'SrO', 'BaO']]) {
+    for (const series of [
+      ['NaF', 'NaCl', 'NaBr', 'NaI'],
+      ['LiCl', 'NaCl', 'KCl', 'RbCl', 'CsCl'],
+      ['MgO', 'CaO', 'SrO', 'BaO'],
+    ]) {
       for (let i = 1; i < series.length; i++) expect(U(series[i - 1]), series.join(' > ')).toBeGreaterThan(U(series[i]));
     }
   });
   it('higher lattice energy goes with higher melting point within a family, and the card shows the melting point', () => {
-    for (const series of [['NaF', 'NaCl', 'NaBr', 'NaI'], ['KF', 'KCl', 'KBr', 'KI'], ['MgO', 'CaO', 'SrO', 'BaO']]) {
+    for (const series of [
+      ['NaF', 'NaCl', 'NaBr', 'NaI'],
+      ['KF', 'KCl', 'KBr', 'KI'],
+      ['MgO', 'CaO', 'SrO', 'BaO'],
+    ]) {
       for (let i = 1; i < series.length; i++) {
         const a = analyseFormula(series[i - 1]).lattice!;
         const b = analyseFormula(series[i]).lattice!;

@@ -44,7 +44,8 @@ interface Import {
 function importsOf(text: string): Import[] {
   const out: Import[] = [];
   const lines = text.split('\n');
-  const re = /(?:^|\s)(import|export)\s+(type\s+)?[^'";]*?from\s+['"]([^'"]+)['"]|import\s*\(\s*['"]([^'"]+)['"]\s*\)|require\(\s*['"]([^'"]+)['"]\s*\)|^import\s+['"]([^'"]+)['"]/gm;
+  const re =
+    /(?:^|\s)(import|export)\s+(type\s+)?[^'";]*?from\s+['"]([^'"]+)['"]|import\s*\(\s*['"]([^'"]+)['"]\s*\)|require\(\s*['"]([^'"]+)['"]\s*\)|^import\s+['"]([^'"]+)['"]/gm;
   let m: RegExpExecArray | null;
   while ((m = re.exec(text))) {
     const spec = m[3] ?? m[4] ?? m[5] ?? m[6];
@@ -61,7 +62,10 @@ const ALLOWED: Record<string, { layers: string[]; packages: RegExp | null; typeP
   // Pure libraries that run anywhere are fine in the service (rbush: the chart's collision index).
   service: { layers: ['chem', 'notes', 'service', 'shared'], packages: /^rbush$/, typePackages: /^markdown-it$/ },
   shared: { layers: ['shared', 'package.json'], packages: null },
-  server: { layers: ['chem', 'notes', 'service', 'shared', 'server'], packages: /^(vscode-languageserver(\/.*)?|vscode-languageserver-textdocument|vscode-jsonrpc(\/.*)?|node:.*)$/ },
+  server: {
+    layers: ['chem', 'notes', 'service', 'shared', 'server'],
+    packages: /^(vscode-languageserver(\/.*)?|vscode-languageserver-textdocument|vscode-jsonrpc(\/.*)?|node:.*)$/,
+  },
   cli: { layers: ['chem', 'notes', 'service', 'shared', 'cli', 'package.json', 'media'], packages: /^(node:.*|markdown-it)$/ },
   client: { layers: ['client', 'service', 'shared'], packages: /^(vscode|vscode-languageclient(\/.*)?|node:.*|markdown-it)$/ },
 };
@@ -71,7 +75,9 @@ describe('the layers', () => {
 
   it('finds the source files and their imports', () => {
     expect(all.length).toBeGreaterThan(40);
-    expect(importsOf("import { a } from './x';\nimport type { B } from 'markdown-it';\nconst c = require('node:fs');").map((i) => [i.spec, i.typeOnly])).toEqual([
+    expect(
+      importsOf("import { a } from './x';\nimport type { B } from 'markdown-it';\nconst c = require('node:fs');").map((i) => [i.spec, i.typeOnly]),
+    ).toEqual([
       ['./x', false],
       ['markdown-it', true],
       ['node:fs', false],
@@ -88,7 +94,9 @@ describe('the layers', () => {
         const where = `${name}:${imp.line} imports '${imp.spec}'`;
         if (imp.spec.startsWith('.')) {
           const target = resolve(dirname(file), imp.spec);
-          const targetLayer = target.startsWith(join(ROOT, 'media')) ? 'media' : layerOf(target.endsWith('.json') || target.endsWith('.css') ? target : target + '.ts');
+          const targetLayer = target.startsWith(join(ROOT, 'media'))
+            ? 'media'
+            : layerOf(target.endsWith('.json') || target.endsWith('.css') ? target : target + '.ts');
           expect(rule.layers, where).toContain(targetLayer);
         } else if (imp.typeOnly && rule.typePackages?.test(imp.spec)) {
           continue;

@@ -68,7 +68,9 @@ beforeAll(async () => {
   conn.onRequest(ConfigurationRequest.type, (p) => p.items.map(() => settings));
   conn.listen();
   const init = await conn.sendRequest(InitializeRequest.type, {
-    processId: process.pid, rootUri: null, workspaceFolders: null,
+    processId: process.pid,
+    rootUri: null,
+    workspaceFolders: null,
     capabilities: { workspace: { configuration: true, applyEdit: true }, textDocument: { hover: { contentFormat: ['markdown'] } } },
   });
   expect(init.capabilities.hoverProvider).toBe(true);
@@ -107,14 +109,24 @@ describe('LSP over stdio', () => {
 
   it('offers quick fixes whose edits apply', async () => {
     const pos = { line: 2, character: line2.indexOf('CaNO3') + 2 };
-    const acts = (await conn.sendRequest(CodeActionRequest.type, { textDocument: { uri: URI }, range: { start: pos, end: pos }, context: { diagnostics: [] } })) as Array<{ title: string; edit: WorkspaceEdit; kind: string }>;
+    const acts = (await conn.sendRequest(CodeActionRequest.type, {
+      textDocument: { uri: URI },
+      range: { start: pos, end: pos },
+      context: { diagnostics: [] },
+    })) as Array<{ title: string; edit: WorkspaceEdit; kind: string }>;
     const fix = acts.find((a) => a.title === 'Replace with Ca(NO₃)₂')!;
     expect(fix.kind).toBe('quickfix');
-    expect(fix.edit.changes![URI][0]).toEqual({ range: { start: { line: 2, character: line2.indexOf('CaNO3') }, end: { line: 2, character: line2.indexOf('CaNO3') + 5 } }, newText: 'Ca(NO3)2' });
+    expect(fix.edit.changes![URI][0]).toEqual({
+      range: { start: { line: 2, character: line2.indexOf('CaNO3') }, end: { line: 2, character: line2.indexOf('CaNO3') + 5 } },
+      newText: 'Ca(NO3)2',
+    });
   });
 
   it('runs the insert-table command through workspace/applyEdit', async () => {
-    const r = await conn.sendRequest(ExecuteCommandRequest.type, { command: 'ionwright.server.insertTable', arguments: [{ uri: URI, range: { start: { line: 2, character: 0 }, end: { line: 2, character: line2.length } } }] });
+    const r = await conn.sendRequest(ExecuteCommandRequest.type, {
+      command: 'ionwright.server.insertTable',
+      arguments: [{ uri: URI, range: { start: { line: 2, character: 0 }, end: { line: 2, character: line2.length } } }],
+    });
     expect(r).toEqual({ applied: true });
     const text = applied[applied.length - 1].changes![URI][0].newText;
     expect(text).toContain('| NaCl | 58.44 |');
@@ -123,7 +135,10 @@ describe('LSP over stdio', () => {
   });
 
   it('lists sections and reactions as symbols', async () => {
-    const syms = (await conn.sendRequest(DocumentSymbolRequest.type, { textDocument: { uri: URI } })) as Array<{ name: string; children: Array<{ name: string }> }>;
+    const syms = (await conn.sendRequest(DocumentSymbolRequest.type, { textDocument: { uri: URI } })) as Array<{
+      name: string;
+      children: Array<{ name: string }>;
+    }>;
     expect(syms[0].name).toBe('Rinse trials — ünïcødé 🧪');
     expect(syms[0].children.map((c) => c.name)).toEqual(['Fe + O2 -> Fe2O3']);
   });
@@ -161,7 +176,13 @@ describe('LSP over stdio', () => {
       bad.push(conn.sendRequest(HoverRequest.type, { textDocument: { uri: 'file:///nope.md' }, position: { line: 0, character: 0 } }));
       bad.push(conn.sendRequest(HoverRequest.type, { textDocument: { uri: URI }, position: { line: 10_000 + i, character: 99_999 } }));
       bad.push(conn.sendRequest(HoverRequest.type, { textDocument: { uri: URI }, position: { line: -1, character: -5 } }));
-      bad.push(conn.sendRequest(CodeActionRequest.type, { textDocument: { uri: URI }, range: { start: { line: 4, character: 10 }, end: { line: 0, character: 0 } }, context: { diagnostics: [] } }));
+      bad.push(
+        conn.sendRequest(CodeActionRequest.type, {
+          textDocument: { uri: URI },
+          range: { start: { line: 4, character: 10 }, end: { line: 0, character: 0 } },
+          context: { diagnostics: [] },
+        }),
+      );
       bad.push(conn.sendRequest('textDocument/hover', { nonsense: true }).catch((e) => e));
       bad.push(conn.sendRequest('ionwright/doesNotExist', {}).catch((e) => e));
       bad.push(conn.sendRequest(ExecuteCommandRequest.type, { command: 'ionwright.server.insertTable', arguments: [{ uri: 42 }] }).catch((e) => e));

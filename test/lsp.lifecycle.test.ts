@@ -52,13 +52,29 @@ const frame = (o: object) => {
   const s = JSON.stringify(o);
   return `Content-Length: ${Buffer.byteLength(s)}\r\n\r\n${s}`;
 };
-const responses = (out: string) => out.split(/Content-Length: \d+\r\n\r\n/).filter(Boolean).map((s) => JSON.parse(s) as { id?: number; result?: unknown; error?: { code: number; message: string } });
-const hoverReq = (id: number) => frame({ jsonrpc: '2.0', id, method: 'textDocument/hover', params: { textDocument: { uri: 'file:///a.md' }, position: { line: 0, character: 0 } } });
-const initReq = (id: number, params: object = { processId: null, rootUri: null, capabilities: {} }) => frame({ jsonrpc: '2.0', id, method: 'initialize', params });
+const responses = (out: string) =>
+  out
+    .split(/Content-Length: \d+\r\n\r\n/)
+    .filter(Boolean)
+    .map((s) => JSON.parse(s) as { id?: number; result?: unknown; error?: { code: number; message: string } });
+const hoverReq = (id: number) =>
+  frame({ jsonrpc: '2.0', id, method: 'textDocument/hover', params: { textDocument: { uri: 'file:///a.md' }, position: { line: 0, character: 0 } } });
+const initReq = (id: number, params: object = { processId: null, rootUri: null, capabilities: {} }) =>
+  frame({ jsonrpc: '2.0', id, method: 'initialize', params });
 
 describe('lifecycle (LSP 3.17)', () => {
   it('answers a request before initialize with ServerNotInitialized and drops notifications', async () => {
-    const { out } = await raw([frame({ jsonrpc: '2.0', method: 'textDocument/didOpen', params: { textDocument: { uri: 'file:///a.md', languageId: 'markdown', version: 1, text: '`NaXx`' } } }), hoverReq(1)], 800);
+    const { out } = await raw(
+      [
+        frame({
+          jsonrpc: '2.0',
+          method: 'textDocument/didOpen',
+          params: { textDocument: { uri: 'file:///a.md', languageId: 'markdown', version: 1, text: '`NaXx`' } },
+        }),
+        hoverReq(1),
+      ],
+      800,
+    );
     const r = responses(out);
     expect(r).toHaveLength(1);
     expect(r[0]).toMatchObject({ id: 1, error: { code: -32002 } });
@@ -66,7 +82,18 @@ describe('lifecycle (LSP 3.17)', () => {
 
   // A client sends exit once shutdown is answered: the frames wait a moment before it.
   it('refuses a second initialize, and requests after shutdown, with InvalidRequest; exit after shutdown ends with 0', async () => {
-    const { out, code } = await raw([initReq(1), frame({ jsonrpc: '2.0', method: 'initialized', params: {} }), initReq(2), frame({ jsonrpc: '2.0', id: 3, method: 'shutdown' }), hoverReq(4), 300, frame({ jsonrpc: '2.0', method: 'exit' })], 3000);
+    const { out, code } = await raw(
+      [
+        initReq(1),
+        frame({ jsonrpc: '2.0', method: 'initialized', params: {} }),
+        initReq(2),
+        frame({ jsonrpc: '2.0', id: 3, method: 'shutdown' }),
+        hoverReq(4),
+        300,
+        frame({ jsonrpc: '2.0', method: 'exit' }),
+      ],
+      3000,
+    );
     const byId = new Map(responses(out).map((m) => [m.id, m]));
     expect(byId.get(1)?.result).toBeTruthy();
     expect(byId.get(2)?.error?.code).toBe(-32600);
@@ -117,11 +144,16 @@ describe('requests', () => {
     const { conn, proc } = await connect();
     try {
       const uri = 'file:///lab/cancel.md';
-      await conn.sendNotification(DidOpenTextDocumentNotification.type, { textDocument: { uri, languageId: 'markdown', version: 1, text: 'Weighed `NaCl`.\n'.repeat(2000) } });
+      await conn.sendNotification(DidOpenTextDocumentNotification.type, {
+        textDocument: { uri, languageId: 'markdown', version: 1, text: 'Weighed `NaCl`.\n'.repeat(2000) },
+      });
       const outcomes = await Promise.all(
         Array.from({ length: 500 }, (_, i) => {
           const src = new CancellationTokenSource();
-          const p = conn.sendRequest(HoverRequest.type, { textDocument: { uri }, position: { line: i, character: 10 } }, src.token).then(() => 'answered', (e: { code?: number }) => (e.code === -32800 ? 'cancelled' : `other ${e.code}`));
+          const p = conn.sendRequest(HoverRequest.type, { textDocument: { uri }, position: { line: i, character: 10 } }, src.token).then(
+            () => 'answered',
+            (e: { code?: number }) => (e.code === -32800 ? 'cancelled' : `other ${e.code}`),
+          );
           src.cancel();
           return p;
         }),
@@ -139,7 +171,9 @@ describe('requests', () => {
     const { conn, proc } = await connect();
     try {
       const uri = 'file:///lab/reopen.md';
-      const hoverAt0 = async () => ((await conn.sendRequest(HoverRequest.type, { textDocument: { uri }, position: { line: 0, character: 2 } }))?.contents as { value: string } | undefined)?.value ?? '';
+      const hoverAt0 = async () =>
+        ((await conn.sendRequest(HoverRequest.type, { textDocument: { uri }, position: { line: 0, character: 2 } }))?.contents as { value: string } | undefined)
+          ?.value ?? '';
       await conn.sendNotification(DidOpenTextDocumentNotification.type, { textDocument: { uri, languageId: 'markdown', version: 1, text: '`NaCl`\n' } });
       expect(await hoverAt0()).toContain('NaCl');
       await conn.sendNotification(DidOpenTextDocumentNotification.type, { textDocument: { uri, languageId: 'markdown', version: 1, text: '`KBr`\n' } });
@@ -156,11 +190,17 @@ describe('requests', () => {
       await conn.sendNotification(DidOpenTextDocumentNotification.type, { textDocument: { uri, languageId: 'markdown', version: 1, text: '`CaNO3`\n' } });
       const range = { start: { line: 0, character: 1 }, end: { line: 0, character: 1 } };
       for (const only of ['quickfix', [1, 2], { a: 1 }]) {
-        const e = await conn.sendRequest(CodeActionRequest.type, { textDocument: { uri }, range, context: { diagnostics: [], only: only as never } }).then(() => null, (x) => x);
+        const e = await conn.sendRequest(CodeActionRequest.type, { textDocument: { uri }, range, context: { diagnostics: [], only: only as never } }).then(
+          () => null,
+          (x) => x,
+        );
         expect(e?.code).toBe(-32602);
         expect(e?.message).toMatch(/context\.only/);
       }
-      const e2 = await conn.sendRequest('textDocument/hover', { textDocument: { uri: 5 }, position: {} }).then(() => null, (x) => x);
+      const e2 = await conn.sendRequest('textDocument/hover', { textDocument: { uri: 5 }, position: {} }).then(
+        () => null,
+        (x) => x,
+      );
       expect(e2?.code).toBe(-32602);
       // Still serving.
       const acts = await conn.sendRequest(CodeActionRequest.type, { textDocument: { uri }, range, context: { diagnostics: [], only: ['quickfix'] } });
@@ -175,10 +215,19 @@ describe('requests', () => {
     const { conn, proc, applied } = await connect({ workspace: { applyEdit: true, workspaceEdit: { documentChanges: true } } });
     try {
       const uri = 'file:///lab/versioned.md';
-      await conn.sendNotification(DidOpenTextDocumentNotification.type, { textDocument: { uri, languageId: 'markdown', version: 1, text: 'Label says `CaNO3`.\n' } });
-      await conn.sendNotification(DidChangeTextDocumentNotification.type, { textDocument: { uri, version: 7 }, contentChanges: [{ range: { start: { line: 0, character: 0 }, end: { line: 0, character: 0 } }, text: 'The ' }] });
+      await conn.sendNotification(DidOpenTextDocumentNotification.type, {
+        textDocument: { uri, languageId: 'markdown', version: 1, text: 'Label says `CaNO3`.\n' },
+      });
+      await conn.sendNotification(DidChangeTextDocumentNotification.type, {
+        textDocument: { uri, version: 7 },
+        contentChanges: [{ range: { start: { line: 0, character: 0 }, end: { line: 0, character: 0 } }, text: 'The ' }],
+      });
       const at = { line: 0, character: 'The Label says `Ca'.length };
-      const acts = (await conn.sendRequest(CodeActionRequest.type, { textDocument: { uri }, range: { start: at, end: at }, context: { diagnostics: [] } })) as Array<{ title: string; edit: WorkspaceEdit }>;
+      const acts = (await conn.sendRequest(CodeActionRequest.type, {
+        textDocument: { uri },
+        range: { start: at, end: at },
+        context: { diagnostics: [] },
+      })) as Array<{ title: string; edit: WorkspaceEdit }>;
       const fix = acts.find((a) => a.title.includes('Ca(NO₃)₂'))!;
       expect(fix.edit.changes).toBeUndefined();
       expect(fix.edit.documentChanges).toEqual([{ textDocument: { uri, version: 7 }, edits: [expect.objectContaining({ newText: 'Ca(NO3)2' })] }]);
@@ -197,19 +246,55 @@ describe('hostile requests', () => {
     const { conn, proc, stderr } = await connect({ workspace: { applyEdit: true, workspaceEdit: { documentChanges: true } } });
     try {
       const uri = 'file:///lab/hostile.md';
-      await conn.sendNotification(DidOpenTextDocumentNotification.type, { textDocument: { uri, languageId: 'markdown', version: 1, text: 'Weighed `NaCl` and `CaNO3`.\n\n```batch\nvolume: 1 L\nKCl 3 g\n```\n' } });
-      const methods = ['textDocument/hover', 'textDocument/codeAction', 'textDocument/documentSymbol', 'textDocument/codeLens', 'workspace/executeCommand', 'textDocument/didChange', 'textDocument/didOpen', 'textDocument/didClose', 'workspace/didChangeConfiguration', '$/cancelRequest'];
-      const notifications = new Set(['textDocument/didChange', 'textDocument/didOpen', 'textDocument/didClose', 'workspace/didChangeConfiguration', '$/cancelRequest']);
+      await conn.sendNotification(DidOpenTextDocumentNotification.type, {
+        textDocument: { uri, languageId: 'markdown', version: 1, text: 'Weighed `NaCl` and `CaNO3`.\n\n```batch\nvolume: 1 L\nKCl 3 g\n```\n' },
+      });
+      const methods = [
+        'textDocument/hover',
+        'textDocument/codeAction',
+        'textDocument/documentSymbol',
+        'textDocument/codeLens',
+        'workspace/executeCommand',
+        'textDocument/didChange',
+        'textDocument/didOpen',
+        'textDocument/didClose',
+        'workspace/didChangeConfiguration',
+        '$/cancelRequest',
+      ];
+      const notifications = new Set([
+        'textDocument/didChange',
+        'textDocument/didOpen',
+        'textDocument/didClose',
+        'workspace/didChangeConfiguration',
+        '$/cancelRequest',
+      ]);
       const params = fc.oneof(
         fc.jsonValue(),
-        fc.record({ textDocument: fc.record({ uri: fc.oneof(fc.constant(uri), fc.string(), fc.integer()) }), position: fc.oneof(fc.record({ line: fc.integer(), character: fc.integer() }), fc.jsonValue()), range: fc.jsonValue(), context: fc.record({ only: fc.jsonValue(), diagnostics: fc.jsonValue() }) }, { requiredKeys: [] }),
-        fc.record({ command: fc.constantFrom('ionwright.server.insertTable', 'ionwright.server.insertTableAt', 'ionwright.server.cardMarkdown', 'x'), arguments: fc.array(fc.jsonValue(), { maxLength: 2 }) }),
+        fc.record(
+          {
+            textDocument: fc.record({ uri: fc.oneof(fc.constant(uri), fc.string(), fc.integer()) }),
+            position: fc.oneof(fc.record({ line: fc.integer(), character: fc.integer() }), fc.jsonValue()),
+            range: fc.jsonValue(),
+            context: fc.record({ only: fc.jsonValue(), diagnostics: fc.jsonValue() }),
+          },
+          { requiredKeys: [] },
+        ),
+        fc.record({
+          command: fc.constantFrom('ionwright.server.insertTable', 'ionwright.server.insertTableAt', 'ionwright.server.cardMarkdown', 'x'),
+          arguments: fc.array(fc.jsonValue(), { maxLength: 2 }),
+        }),
       );
       const sample = fc.sample(fc.tuple(fc.constantFrom(...methods), params), { numRuns: 2000, seed: 1312 });
       const answers: Array<Promise<unknown>> = [];
       for (const [m, p] of sample) {
         if (notifications.has(m)) await conn.sendNotification(m, p as never);
-        else answers.push(conn.sendRequest(m, p as never).then(() => 'ok', (e: { code?: number }) => e.code));
+        else
+          answers.push(
+            conn.sendRequest(m, p as never).then(
+              () => 'ok',
+              (e: { code?: number }) => e.code,
+            ),
+          );
       }
       const outcomes = await Promise.all(answers);
       expect(outcomes.length).toBeGreaterThan(500);

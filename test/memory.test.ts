@@ -70,7 +70,14 @@ describe('no cache keeps a whole note alive', () => {
   let probe = '';
   beforeAll(async () => {
     probe = join(temp('/tmp/ionwright-mem-'), 'memory-probes.js');
-    await build({ entryPoints: [join(__dirname, '../bench/memory-probes.ts')], bundle: true, platform: 'node', format: 'cjs', outfile: probe, logLevel: 'warning' });
+    await build({
+      entryPoints: [join(__dirname, '../bench/memory-probes.ts')],
+      bundle: true,
+      platform: 'node',
+      format: 'cjs',
+      outfile: probe,
+      logLevel: 'warning',
+    });
   });
   const run = (...args: string[]) => JSON.parse(execFileSync(process.execPath, ['--expose-gc', probe, ...args], { encoding: 'utf8' }));
 

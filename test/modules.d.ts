@@ -8,7 +8,17 @@ declare module 'chemical-elements' {
   export const elementsObject: Record<string, { number: number; symbol: string; mass: number | null; name: string }>;
 }
 declare module 'periodic-table' {
-  export const symbols: Record<string, { atomicNumber: number; symbol: string; electronegativity: number | '' | null; meltingPoint: number | ''; ionizationEnergy: number | ''; electronAffinity: number | '' }>;
+  export const symbols: Record<
+    string,
+    {
+      atomicNumber: number;
+      symbol: string;
+      electronegativity: number | '' | null;
+      meltingPoint: number | '';
+      ionizationEnergy: number | '';
+      electronAffinity: number | '';
+    }
+  >;
 }
 declare module 'mf-parser' {
   export class MF {

@@ -93,7 +93,7 @@ const HANDBOOK: Array<[string, number]> = [
   ['MgSO4·7H2O', 246.47],
   ['CaCl2·2H2O', 147.01],
   ['Na2CO3·10H2O', 286.14],
-  ['Na2SO4·10H2O', 322.20],
+  ['Na2SO4·10H2O', 322.2],
   ['FeSO4·7H2O', 278.01],
   ['CaSO4·2H2O', 172.17],
   ['NiCl2·6H2O', 237.69],

@@ -66,7 +66,8 @@ function exercise(command: string[], examples: string) {
 describe('the npm package', () => {
   it('packs the bundle, the demo notes, README and LICENSE, and nothing of the sources', () => {
     const { files } = pack();
-    for (const f of ['dist/cli.js', 'examples/plating-bath.fnote', 'examples/rinse-trials.md', 'README.md', 'LICENSE', 'package.json']) expect(files).toContain(f);
+    for (const f of ['dist/cli.js', 'examples/plating-bath.fnote', 'examples/rinse-trials.md', 'README.md', 'LICENSE', 'package.json'])
+      expect(files).toContain(f);
     expect(files.filter((f) => /^(server|client|test|bench|scripts|node_modules|data)\//.test(f) || f.endsWith('.map'))).toEqual([]);
     expect(pkg.bin.ionwright).toBe('dist/cli.js');
     expect(readFileSync(join(ROOT, 'dist/cli.js'), 'utf8').startsWith('#!/usr/bin/env node\n')).toBe(true);

@@ -32,7 +32,8 @@ function onPath(name: string): string | undefined {
 
 const NVIM = onPath('nvim');
 const REQUIRED = process.env.IONWRIGHT_REQUIRE_NVIM === '1';
-if (!NVIM && !REQUIRED) console.warn('nvim.e2e: nvim is not on the PATH, skipping the Neovim client test (set IONWRIGHT_REQUIRE_NVIM=1 to make this a failure).');
+if (!NVIM && !REQUIRED)
+  console.warn('nvim.e2e: nvim is not on the PATH, skipping the Neovim client test (set IONWRIGHT_REQUIRE_NVIM=1 to make this a failure).');
 
 interface LspRange {
   start: { line: number; character: number };
@@ -54,7 +55,11 @@ interface Report {
 let work: string;
 
 /** Runs the script under a throw-away XDG home, so that neither the user's nor the machine's Neovim state is read or written. */
-function runCheck(name: string, hoverTargets: string[], env: Record<string, string> = {}): { proc: SpawnSyncReturns<string>; report: Report | undefined; ms: number } {
+function runCheck(
+  name: string,
+  hoverTargets: string[],
+  env: Record<string, string> = {},
+): { proc: SpawnSyncReturns<string>; report: Report | undefined; ms: number } {
   const home = join(work, name);
   mkdirSync(home, { recursive: true });
   const out = join(home, 'report.json');
@@ -100,7 +105,9 @@ describe.skipIf(!NVIM)('Neovim built-in LSP client against dist/server.js', () =
     run = runCheck('main', ['NaCl']);
     const { proc, report } = run;
     if (proc.error || proc.status !== 0 || !report || report.error) {
-      throw new Error(`lsp_check.lua failed (status ${proc.status}, signal ${proc.signal}, ${run.ms} ms): ${proc.error ?? ''}\n${report?.error ?? 'no report'}\nstderr: ${proc.stderr}`);
+      throw new Error(
+        `lsp_check.lua failed (status ${proc.status}, signal ${proc.signal}, ${run.ms} ms): ${proc.error ?? ''}\n${report?.error ?? 'no report'}\nstderr: ${proc.stderr}`,
+      );
     }
   }, 70_000);
 
@@ -123,10 +130,19 @@ describe.skipIf(!NVIM)('Neovim built-in LSP client against dist/server.js', () =
 
   it('receives unknown-element on exactly Xx, charge-imbalance on CaNO3 and unbalanced-equation on the equation', () => {
     const { diagnostics } = run.report!;
-    expect(diagnostics).toContainEqual(expect.objectContaining({ code: 'unknown-element', severity: 1, source: 'ionwright', range: rangeIn(note, '`NaXx`', 'Xx') }));
-    expect(diagnostics).toContainEqual(expect.objectContaining({ code: 'charge-imbalance', severity: 2, source: 'ionwright', range: rangeIn(note, '`CaNO3`', 'CaNO3') }));
     expect(diagnostics).toContainEqual(
-      expect.objectContaining({ code: 'unbalanced-equation', severity: 2, source: 'ionwright', range: rangeIn(note, '`Fe + O2 -> Fe2O3`', 'Fe + O2 -> Fe2O3') }),
+      expect.objectContaining({ code: 'unknown-element', severity: 1, source: 'ionwright', range: rangeIn(note, '`NaXx`', 'Xx') }),
+    );
+    expect(diagnostics).toContainEqual(
+      expect.objectContaining({ code: 'charge-imbalance', severity: 2, source: 'ionwright', range: rangeIn(note, '`CaNO3`', 'CaNO3') }),
+    );
+    expect(diagnostics).toContainEqual(
+      expect.objectContaining({
+        code: 'unbalanced-equation',
+        severity: 2,
+        source: 'ionwright',
+        range: rangeIn(note, '`Fe + O2 -> Fe2O3`', 'Fe + O2 -> Fe2O3'),
+      }),
     );
     // Nothing else in the note is flagged, in particular not the good formula or the prose around it.
     expect(diagnostics.map((d) => d.code).sort()).toEqual(['charge-imbalance', 'unbalanced-equation', 'unknown-element']);

@@ -38,7 +38,11 @@ describe.runIf(HAVE_BROWSER || REQUIRE_BROWSER)('the preview in headless Chromiu
         const sub = await page.evaluate(() => {
           const s = document.querySelector('.iw-formula sub') as HTMLElement;
           const p = s.parentElement as HTMLElement;
-          return { sub: parseFloat(getComputedStyle(s).fontSize), parent: parseFloat(getComputedStyle(p).fontSize), dy: s.getBoundingClientRect().bottom - p.getBoundingClientRect().bottom };
+          return {
+            sub: parseFloat(getComputedStyle(s).fontSize),
+            parent: parseFloat(getComputedStyle(p).fontSize),
+            dy: s.getBoundingClientRect().bottom - p.getBoundingClientRect().bottom,
+          };
         });
         expect(sub.sub).toBeLessThan(sub.parent);
         expect(sub.dy).toBeGreaterThan(0);
@@ -49,7 +53,12 @@ describe.runIf(HAVE_BROWSER || REQUIRE_BROWSER)('the preview in headless Chromiu
         const box = (await table.boundingBox())!;
         expect(box.width).toBeGreaterThan(300);
         expect(box.x + box.width).toBeLessThanOrEqual(960);
-        expect(await page.locator('figure.iw-batch td.iw-n').first().evaluate((e) => getComputedStyle(e).textAlign)).toBe('right');
+        expect(
+          await page
+            .locator('figure.iw-batch td.iw-n')
+            .first()
+            .evaluate((e) => getComputedStyle(e).textAlign),
+        ).toBe('right');
         // Two counted rows and the line not counted ('KCl 3 furlongs'), whose reason wraps inside the page.
         expect(await table.locator('tbody tr').count()).toBe(3);
         expect(await table.locator('tbody tr.iw-skipped td.iw-reason').textContent()).toMatch(/^not counted: Unknown unit 'furlongs'/);
@@ -60,13 +69,23 @@ describe.runIf(HAVE_BROWSER || REQUIRE_BROWSER)('the preview in headless Chromiu
           const bg = getComputedStyle(document.body).backgroundColor;
           const c = (sel: string) => getComputedStyle(document.querySelector(sel) as Element).color;
           const border = getComputedStyle(document.querySelector('table.iw-table td') as Element).borderTopColor;
-          return { bg, text: c('figure.iw-batch td'), error: c('a.iw-flag.iw-error'), warning: c('a.iw-flag.iw-warning'), ok: c('.iw-mark.iw-balanced'), border };
+          return {
+            bg,
+            text: c('figure.iw-batch td'),
+            error: c('a.iw-flag.iw-error'),
+            warning: c('a.iw-flag.iw-warning'),
+            ok: c('.iw-mark.iw-balanced'),
+            border,
+          };
         });
         expect(contrast(colours.text, colours.bg)).toBeGreaterThanOrEqual(4.5);
         for (const k of ['error', 'warning', 'ok'] as const) expect(contrast(colours[k], colours.bg), k).toBeGreaterThanOrEqual(theme === 'light' ? 2.2 : 3);
         // The error marker uses the theme's error colour, not a colour of our own.
         const themeError = VSCODE_THEMES[theme].vars['--vscode-editorError-foreground'];
-        const rgb = themeError.match(/[0-9a-f]{2}/gi)!.map((h) => parseInt(h, 16)).join(', ');
+        const rgb = themeError
+          .match(/[0-9a-f]{2}/gi)!
+          .map((h) => parseInt(h, 16))
+          .join(', ');
         expect(colours.error).toBe(`rgb(${rgb})`);
         if (theme === 'high-contrast') expect(colours.border).toBe('rgb(111, 195, 223)');
 
@@ -86,10 +105,18 @@ describe.runIf(HAVE_BROWSER || REQUIRE_BROWSER)('the preview in headless Chromiu
       const page = await browser.newPage({ colorScheme: scheme, viewport: { width: 960, height: 700 } });
       try {
         const bg = scheme === 'dark' ? '#16181b' : '#ffffff';
-        await page.setContent(`<!doctype html><html><head><meta charset="utf-8"><style>body{background:${bg};color:var(--iw-fg)}</style><style>${CSS}</style></head><body>${html}</body></html>`);
+        await page.setContent(
+          `<!doctype html><html><head><meta charset="utf-8"><style>body{background:${bg};color:var(--iw-fg)}</style><style>${CSS}</style></head><body>${html}</body></html>`,
+        );
         const c = await page.evaluate(() => {
           const col = (sel: string) => getComputedStyle(document.querySelector(sel) as Element).color;
-          return { bg: getComputedStyle(document.body).backgroundColor, fg: getComputedStyle(document.body).color, error: col('a.iw-flag.iw-error'), warning: col('a.iw-flag.iw-warning'), ok: col('.iw-mark.iw-balanced') };
+          return {
+            bg: getComputedStyle(document.body).backgroundColor,
+            fg: getComputedStyle(document.body).color,
+            error: col('a.iw-flag.iw-error'),
+            warning: col('a.iw-flag.iw-warning'),
+            ok: col('.iw-mark.iw-balanced'),
+          };
         });
         // Our own colours meet WCAG AA for text (4.5:1) on the page background.
         for (const k of ['fg', 'error', 'warning', 'ok'] as const) expect(contrast(c[k], c.bg), `${scheme} ${k}`).toBeGreaterThanOrEqual(4.5);

@@ -12,19 +12,51 @@ import { html, trusted } from '../server/src/service/html';
 import { ionwrightPreview } from '../server/src/service/preview';
 import { reportHtml } from '../server/src/service/report';
 
-const HOSTILE = ['<script>alert(1)</script>', '<img src=x onerror=alert(1)>', '"><b id="pwn">', "' onmouseover='alert(1)", '&amp;', '&', '&lt;', '<!--', ']]>', '`', '|', '\\', '</td></tr></table>', '<svg onload=alert(1)>'];
+const HOSTILE = [
+  '<script>alert(1)</script>',
+  '<img src=x onerror=alert(1)>',
+  '"><b id="pwn">',
+  "' onmouseover='alert(1)",
+  '&amp;',
+  '&',
+  '&lt;',
+  '<!--',
+  ']]>',
+  '`',
+  '|',
+  '\\',
+  '</td></tr></table>',
+  '<svg onload=alert(1)>',
+];
 const CHEM = ['NaCl', 'CuSO4·5H2O', 'SO4^2-', 'Xx', 'Ca(NO3', 'H2 + O2 -> H2O', '1 g', '2 M', 'mL', '@ 99%'];
 
 const text = fc.array(fc.constantFrom(...HOSTILE, ...CHEM, ' '), { minLength: 1, maxLength: 6 }).map((p) => p.join(''));
 const line = text.map((t) => t.replace(/[\r\n]/g, ' '));
 
 /** A note with the hostile text in every place a user writes. */
-const note = fc.record({ heading: line, name: line, formula: line, batchLine: line, equation: line, prose: line, code: line.map((t) => t.replace(/`/g, '')) }).map((n) =>
-  [
-    `# ${n.heading}`, '', `Prose: ${n.prose} with \`${n.code}\` and NaCl.`, '',
-    '```batch', `name: ${n.name}`, 'volume: 1 L', `${n.formula} 1 g`, n.batchLine, 'NaCl 2 g', '```', '',
-    '```reaction', n.equation, `${n.formula} -> H2O`, '```', '',
-  ].join('\n'));
+const note = fc
+  .record({ heading: line, name: line, formula: line, batchLine: line, equation: line, prose: line, code: line.map((t) => t.replace(/`/g, '')) })
+  .map((n) =>
+    [
+      `# ${n.heading}`,
+      '',
+      `Prose: ${n.prose} with \`${n.code}\` and NaCl.`,
+      '',
+      '```batch',
+      `name: ${n.name}`,
+      'volume: 1 L',
+      `${n.formula} 1 g`,
+      n.batchLine,
+      'NaCl 2 g',
+      '```',
+      '',
+      '```reaction',
+      n.equation,
+      `${n.formula} -> H2O`,
+      '```',
+      '',
+    ].join('\n'),
+  );
 
 /** Every `&` starts an entity; no element or attribute came from the notes' text. */
 function expectEscaped(page: string) {
@@ -40,8 +72,12 @@ function expectEscaped(page: string) {
 describe('hostile text never reaches the HTML unescaped', () => {
   it('the html builder escapes every value and keeps what is marked safe', () => {
     const v = '<script>"&\'</script>';
-    expect(html`<p title="${v}">${v}</p>`.value).toBe('<p title="&lt;script&gt;&quot;&amp;&#39;&lt;/script&gt;">&lt;script&gt;&quot;&amp;&#39;&lt;/script&gt;</p>');
-    expect(html`<p>${trusted('<b>ok</b>')}${[v, html`<i>x</i>`]}${null}${false}</p>`.value).toBe('<p><b>ok</b>&lt;script&gt;&quot;&amp;&#39;&lt;/script&gt;<i>x</i></p>');
+    expect(html`<p title="${v}">${v}</p>`.value).toBe(
+      '<p title="&lt;script&gt;&quot;&amp;&#39;&lt;/script&gt;">&lt;script&gt;&quot;&amp;&#39;&lt;/script&gt;</p>',
+    );
+    expect(html`<p>${trusted('<b>ok</b>')}${[v, html`<i>x</i>`]}${null}${false}</p>`.value).toBe(
+      '<p><b>ok</b>&lt;script&gt;&quot;&amp;&#39;&lt;/script&gt;<i>x</i></p>',
+    );
   });
 
   it('in the preview (property)', () => {

@@ -24,7 +24,10 @@ const CuSO4_5H2O = 63.546 + 32.06 + 4 * 15.999 + 5 * (2 * 1.008 + 15.999);
 
 describe('formulas in inline code', () => {
   const $ = dom(NOTE);
-  const formula = (text: string) => $('.iw-formula').filter((_, e) => $(e).text() === text).first();
+  const formula = (text: string) =>
+    $('.iw-formula')
+      .filter((_, e) => $(e).text() === text)
+      .first();
 
   it('are typeset: counts in <sub>, charges in <sup>, the hydrate dot kept', () => {
     expect(formula('CuSO4·5H2O').html()).toBe('CuSO<sub>4</sub><span class="iw-dot">·</span>5H<sub>2</sub>O');
@@ -74,8 +77,12 @@ describe('equations in inline code', () => {
 
 describe('bare formulas in prose', () => {
   const $ = dom(NOTE);
-  it('are read by the editor\'s prose rule: KH2PO4 is typeset, the label S-2 is not', () => {
-    expect($('.iw-formula.iw-prose').map((_, e) => $(e).text()).get()).toEqual(['KH2PO4']);
+  it("are read by the editor's prose rule: KH2PO4 is typeset, the label S-2 is not", () => {
+    expect(
+      $('.iw-formula.iw-prose')
+        .map((_, e) => $(e).text())
+        .get(),
+    ).toEqual(['KH2PO4']);
     expect($('p').text()).toContain('sample S-2 is only a label');
   });
   it('are left alone when prose detection is off', () => {
@@ -88,13 +95,25 @@ describe('a batch block', () => {
   const $ = dom(NOTE);
   const fig = $('figure.iw-batch');
   const rows = fig.find('table.iw-table').first().find('tbody tr');
-  const cells = (k: number) => rows.eq(k).find('td').map((_, e) => $(e).text()).get();
+  const cells = (k: number) =>
+    rows
+      .eq(k)
+      .find('td')
+      .map((_, e) => $(e).text())
+      .get();
 
   it('renders as its computed table, with the name and the final volume', () => {
     expect(fig.length).toBe(1);
     expect(fig.find('figcaption').text()).toContain('Rinse K-1');
     expect(fig.find('figcaption').text()).toContain('final volume 500 mL');
-    expect(fig.find('table.iw-table').first().find('thead th').map((_, e) => $(e).text()).get()).toEqual(['Ingredient', 'Amount', 'Molar mass (g/mol)', 'To weigh (g)', 'Moles (mol)', 'Concentration (M)', 'Share of weighed mass']);
+    expect(
+      fig
+        .find('table.iw-table')
+        .first()
+        .find('thead th')
+        .map((_, e) => $(e).text())
+        .get(),
+    ).toEqual(['Ingredient', 'Amount', 'Molar mass (g/mol)', 'To weigh (g)', 'Moles (mol)', 'Concentration (M)', 'Share of weighed mass']);
   });
 
   it('0.1000 M NaCl in 500 mL: 0.05 mol, 2.922 g (common textbook example, as in test/batch.test.ts)', () => {
@@ -116,7 +135,10 @@ describe('a batch block', () => {
   });
 
   it('lists the ions and the ionic strength I = ½ Σ cᵢzᵢ² below (0.1 M NaCl + 0.01 M CuSO4: I = 0.1 + 0.04 = 0.14 M)', () => {
-    const ions = fig.find('table.iw-ions tbody tr').map((_, e) => $(e).find('td').first().text()).get();
+    const ions = fig
+      .find('table.iw-ions tbody tr')
+      .map((_, e) => $(e).find('td').first().text())
+      .get();
     expect(ions).toEqual(expect.arrayContaining(['Na+', 'Cl−', 'Cu2+', 'SO42−']));
     const I = Number(/= ([0-9.]+) M/.exec(fig.find('.iw-summary').text())?.[1]);
     const expected = 0.5 * (0.1 + 0.1 + (1.2484 / CuSO4_5H2O / 0.5) * 4 * 2);
@@ -132,7 +154,7 @@ describe('a batch block', () => {
     expect(fig.find('details.iw-source pre').text()).toContain('KCl 3 furlongs');
   });
 
-  it('carries the model\'s notes (weak electrolytes undissociated, no activities)', () => {
+  it("carries the model's notes (weak electrolytes undissociated, no activities)", () => {
     expect(fig.find('.iw-note').text()).toMatch(/undissociated/);
   });
 
@@ -160,7 +182,7 @@ describe('a batch with lines in error (an invented desmut bath whose acids are w
     expect(parseFloat(rows.eq(1).find('td').last().text())).toBeCloseTo((30 / 63) * 100, 1);
   });
 
-  it('puts each line\'s marker in its own row and keeps the acid caution', () => {
+  it("puts each line's marker in its own row and keeps the acid caution", () => {
     expect(rows.eq(0).find('a.iw-flag.iw-error').length).toBe(1);
     expect(rows.eq(2).find('a.iw-flag.iw-error').length).toBe(1);
     expect(fig.find('ul.iw-findings').length).toBe(0);
@@ -169,13 +191,23 @@ describe('a batch with lines in error (an invented desmut bath whose acids are w
 
   it('names the two shares: of the weighed mass always, of the total where one is given', () => {
     const $t = dom('```batch\ntotal: 250 g\nNaCl 2 wt%\nKCl 0.5 wt%\n```\n');
-    const heads = $t('figure.iw-batch table.iw-table').first().find('thead th').map((_, e) => $t(e).text()).get();
+    const heads = $t('figure.iw-batch table.iw-table')
+      .first()
+      .find('thead th')
+      .map((_, e) => $t(e).text())
+      .get();
     expect(heads.slice(-2)).toEqual(['Share of weighed mass', 'Share of total']);
-    const cells = $t('figure.iw-batch table.iw-table').first().find('tbody tr').first().find('td').map((_, e) => $t(e).text()).get();
+    const cells = $t('figure.iw-batch table.iw-table')
+      .first()
+      .find('tbody tr')
+      .first()
+      .find('td')
+      .map((_, e) => $t(e).text())
+      .get();
     expect(cells.slice(-2)).toEqual(['80.0 %', '2.0 %']);
   });
 
-  it('marks a solubility warning on the amount\'s row', () => {
+  it("marks a solubility warning on the amount's row", () => {
     const $s = dom('```batch\nvolume: 100 mL\nNaCl 500 g\n```\n');
     expect($s('figure.iw-batch tbody tr').first().find('a.iw-flag.iw-warning').attr('title')).toMatch(/^warning: NaCl: the dissolved mass \(500 g\)/);
     expect($s('section.iw-problems .iw-code').text()).toBe('batch-solubility');
@@ -204,7 +236,12 @@ describe('problems are never dropped', () => {
     const listed = $('section.iw-problems li');
     expect(flags.length).toBe(editor.length);
     expect(listed.length).toBe(editor.length);
-    expect(listed.map((_, e) => $(e).find('.iw-code').text()).get().sort()).toEqual(editor.map((d) => d.code).sort());
+    expect(
+      listed
+        .map((_, e) => $(e).find('.iw-code').text())
+        .get()
+        .sort(),
+    ).toEqual(editor.map((d) => d.code).sort());
     // Each marker links to its entry and back.
     flags.each((_, f) => {
       const target = $(`#${$(f).attr('href')!.slice(1)}`);
@@ -229,7 +266,7 @@ describe('everything else is left as markdown-it renders it', () => {
     expect($('img, script, b').length).toBe(0);
     expect($('figcaption strong').text()).toBe('<script>alert(1)</script>');
   });
-  it('keeps the host\'s source-line attributes on a computed block (scroll sync in the preview)', () => {
+  it("keeps the host's source-line attributes on a computed block (scroll sync in the preview)", () => {
     const md = new MarkdownIt().use(ionwrightPreview);
     md.core.ruler.push('lines', (state) => {
       for (const t of state.tokens) if (t.map && t.type === 'fence') t.attrSet('data-line', String(t.map[0]));
@@ -241,7 +278,30 @@ describe('everything else is left as markdown-it renders it', () => {
 });
 
 describe('robustness (fast-check)', () => {
-  const pieces = ['`', '```batch\n', '```reaction\n', '```\n', 'NaCl ', 'H2O', ' 1 g\n', 'volume: 1 L\n', '-> ', '+ ', 'Fe3+ ', '<', '&', '\n', '\n\n', '# ', '(', '[', 'Xx', '·', '^2-', ' M\n'];
+  const pieces = [
+    '`',
+    '```batch\n',
+    '```reaction\n',
+    '```\n',
+    'NaCl ',
+    'H2O',
+    ' 1 g\n',
+    'volume: 1 L\n',
+    '-> ',
+    '+ ',
+    'Fe3+ ',
+    '<',
+    '&',
+    '\n',
+    '\n\n',
+    '# ',
+    '(',
+    '[',
+    'Xx',
+    '·',
+    '^2-',
+    ' M\n',
+  ];
   it('never throws, and markers and list entries always agree', () => {
     fc.assert(
       fc.property(fc.array(fc.constantFrom(...pieces), { maxLength: 60 }), (parts) => {

@@ -74,7 +74,10 @@ describe.runIf(HAVE_BROWSER || REQUIRE_BROWSER)('the report as a weighing sheet:
   beforeAll(async () => {
     // An invented electroless-nickel line, one batch incomplete.
     const note = outputPath('enl-note.md');
-    writeFileSync(note, '# EN-2 (invented)\n\n```batch\nname: EN-2 make-up\nvolume: 1 L\nNiSO4·6H2O 240 g\nNaH2PO2·H2O 30 g\nNH3 to pH 4.8\n```\n\n```batch\nname: Pickle P-1\nvolume: 10 L\nH2SO4 0.5 M\n```\n');
+    writeFileSync(
+      note,
+      '# EN-2 (invented)\n\n```batch\nname: EN-2 make-up\nvolume: 1 L\nNiSO4·6H2O 240 g\nNaH2PO2·H2O 30 g\nNH3 to pH 4.8\n```\n\n```batch\nname: Pickle P-1\nvolume: 10 L\nH2SO4 0.5 M\n```\n',
+    );
     const r = spawnSync(process.execPath, [join(ROOT, 'dist/cli.js'), 'report', note, '--html', file], { cwd: ROOT, encoding: 'utf8' });
     expect(r.status, r.stderr).toBe(1);
     browser = await launch();
@@ -113,8 +116,11 @@ describe.runIf(HAVE_BROWSER || REQUIRE_BROWSER)('the report as a weighing sheet:
         const cs = (sel: string) => getComputedStyle(document.querySelector(sel) as Element);
         const td = cs('figure.iw-batch table.iw-table td');
         return {
-          text: cs('body').color, bg: cs('body').backgroundColor, border: `${td.borderTopStyle} ${td.borderTopColor}`,
-          breakInside: cs('figure.iw-batch').breakInside, weighed: cs('th.iw-weighed').display,
+          text: cs('body').color,
+          bg: cs('body').backgroundColor,
+          border: `${td.borderTopStyle} ${td.borderTopColor}`,
+          breakInside: cs('figure.iw-batch').breakInside,
+          weighed: cs('th.iw-weighed').display,
           widgets: [...document.querySelectorAll('details, nav')].filter((e) => getComputedStyle(e).display !== 'none').length,
           incomplete: cs('.iw-incomplete').color,
         };

@@ -68,7 +68,9 @@ describe('the HTML report', () => {
     expect(fig.find('figcaption').text()).toContain('incomplete: 1 line not counted');
     expect(fig.find('tr.iw-skipped td.iw-reason').text()).toMatch(/^not counted: Unknown unit 'mL'/);
     expect(page('#cautions + .iw-cautions').text()).toContain('strong acid');
-    const formulas = page('#formulas + table tbody tr .iw-formula').map((_, e) => page(e).text()).get();
+    const formulas = page('#formulas + table tbody tr .iw-formula')
+      .map((_, e) => page(e).text())
+      .get();
     expect(formulas).toContain('HNO3');
   });
 

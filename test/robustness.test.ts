@@ -46,44 +46,112 @@ function checkDocument(text: string, language: NotesLanguage) {
     expect(x.start).toBeGreaterThanOrEqual(0);
     expect(x.end).toBeLessThanOrEqual(text.length);
   }
-  honest(doc.batches.map((b) => b.analysis.ingredients.map((i) => ({ massG: i.massG, moles: i.moles, concentration: i.concentrationM, massFraction: i.massFraction }))), 'batches');
+  honest(
+    doc.batches.map((b) =>
+      b.analysis.ingredients.map((i) => ({ massG: i.massG, moles: i.moles, concentration: i.concentrationM, massFraction: i.massFraction })),
+    ),
+    'batches',
+  );
   return doc;
 }
 
 describe('fuzzing the notes scanner and the whole analysis', () => {
-  const alphabet = fc.constantFrom(...'`# \n\r\t-*>|[](){}^+·.0123456789NaClHOFeSCuK=→⇌~<!-->é🧪\u0000\u0007\u202e'.split(''), '```', '```batch\n', '```reaction\n', 'volume: 1 L\n', 'NaCl 5 g\n', 'batch\n', 'end\n', 'section: A\n', 'reaction: H2 + O2 -> H2O\n', 'formula: NaCl\n');
+  const alphabet = fc.constantFrom(
+    ...'`# \n\r\t-*>|[](){}^+·.0123456789NaClHOFeSCuK=→⇌~<!-->é🧪\u0000\u0007\u202e'.split(''),
+    '```',
+    '```batch\n',
+    '```reaction\n',
+    'volume: 1 L\n',
+    'NaCl 5 g\n',
+    'batch\n',
+    'end\n',
+    'section: A\n',
+    'reaction: H2 + O2 -> H2O\n',
+    'formula: NaCl\n',
+  );
   for (const language of ['markdown', 'fnote'] as const) {
     it(`notes made of formula and Markdown pieces never throw (${language})`, () => {
-      fc.assert(fc.property(fc.array(alphabet, { maxLength: 120 }).map((a) => a.join('')), (text) => {
-        const doc = checkDocument(text, language);
-        // Hovers and code actions anywhere answer without throwing.
-        for (let o = 0; o <= text.length; o += 7) {
-          hover(doc, o);
-          codeActions(doc, o, o);
-        }
-        documentTables(doc);
-      }), { numRuns: 1500 });
+      fc.assert(
+        fc.property(
+          fc.array(alphabet, { maxLength: 120 }).map((a) => a.join('')),
+          (text) => {
+            const doc = checkDocument(text, language);
+            // Hovers and code actions anywhere answer without throwing.
+            for (let o = 0; o <= text.length; o += 7) {
+              hover(doc, o);
+              codeActions(doc, o, o);
+            }
+            documentTables(doc);
+          },
+        ),
+        { numRuns: 1500 },
+      );
     });
     it(`arbitrary Unicode and control characters never throw (${language})`, () => {
-      fc.assert(fc.property(fc.string({ unit: 'binary', maxLength: 300 }), (text) => {
-        checkDocument(text, language);
-      }), { numRuns: 1500 });
+      fc.assert(
+        fc.property(fc.string({ unit: 'binary', maxLength: 300 }), (text) => {
+          checkDocument(text, language);
+        }),
+        { numRuns: 1500 },
+      );
     });
   }
 });
 
 describe('fuzzing the batch reader and the balancer', () => {
   it('arbitrary batch lines give diagnostics, never NaN, Infinity or negative masses', () => {
-    const token = fc.constantFrom('NaCl', 'CuSO4·5H2O', 'Xx', '(', '5', '-3', '1e400', '0', 'NaN', 'Infinity', 'g', 'M', 'mM', 'wt%', '@', '99.5%', '@120%', 'volume:', 'total:', 'name:', 'L', 'mL', '#', '1e-320', '0.0000001', '   ');
-    fc.assert(fc.property(fc.array(fc.array(token, { maxLength: 6 }).map((t) => t.join(' ')), { maxLength: 12 }), (lines) => {
-      let at = 0;
-      const b = analyseBatch(lines.map((text) => {
-        const l = { text, start: at };
-        at += text.length + 1;
-        return l;
-      }));
-      honest({ ions: b.ions.map((x) => ({ concentration: x.concentrationM })), ionicStrength: b.ionicStrengthM ?? 0, i: b.ingredients.map((i) => ({ massG: i.massG ?? 0, moles: i.moles ?? 0 })) });
-    }), { numRuns: 2000 });
+    const token = fc.constantFrom(
+      'NaCl',
+      'CuSO4·5H2O',
+      'Xx',
+      '(',
+      '5',
+      '-3',
+      '1e400',
+      '0',
+      'NaN',
+      'Infinity',
+      'g',
+      'M',
+      'mM',
+      'wt%',
+      '@',
+      '99.5%',
+      '@120%',
+      'volume:',
+      'total:',
+      'name:',
+      'L',
+      'mL',
+      '#',
+      '1e-320',
+      '0.0000001',
+      '   ',
+    );
+    fc.assert(
+      fc.property(
+        fc.array(
+          fc.array(token, { maxLength: 6 }).map((t) => t.join(' ')),
+          { maxLength: 12 },
+        ),
+        (lines) => {
+          let at = 0;
+          const b = analyseBatch(
+            lines.map((text) => {
+              const l = { text, start: at };
+              at += text.length + 1;
+              return l;
+            }),
+          );
+          honest({
+            ions: b.ions.map((x) => ({ concentration: x.concentrationM })),
+            ionicStrength: b.ionicStrengthM ?? 0,
+            i: b.ingredients.map((i) => ({ massG: i.massG ?? 0, moles: i.moles ?? 0 })),
+          });
+        },
+      ),
+      { numRuns: 2000 },
+    );
   });
 
   it('equations with many species or huge coefficients finish or say they are too large', () => {
@@ -128,9 +196,12 @@ describe('hostile inputs from the issue', () => {
   });
 
   it('no NaN, Infinity or negative numbers reach a card', () => {
-    fc.assert(fc.property(fc.stringMatching(/^[A-Z][a-z]?[0-9]{0,7}(\([A-Z][a-z]?[0-9]{0,3}\)[0-9]{0,3})?(·[0-9]{0,2}H2O)?$/), (f) => {
-      honest(cardJson(analyseFormula(f)));
-    }), { numRuns: 3000 });
+    fc.assert(
+      fc.property(fc.stringMatching(/^[A-Z][a-z]?[0-9]{0,7}(\([A-Z][a-z]?[0-9]{0,3}\)[0-9]{0,3})?(·[0-9]{0,2}H2O)?$/), (f) => {
+        honest(cardJson(analyseFormula(f)));
+      }),
+      { numRuns: 3000 },
+    );
   });
 });
 
@@ -138,7 +209,9 @@ describe('the command line on bad input', () => {
   /** An in-memory file system: some paths fail to read. */
   function io(files: Record<string, string | Error>, dirs: Record<string, string[] | Error>): CliIO & { outText: string; errText: string } {
     const self = {
-      outText: '', errText: '', cwd: '/',
+      outText: '',
+      errText: '',
+      cwd: '/',
       out: (t: string) => void (self.outText += t + '\n'),
       err: (t: string) => void (self.errText += t + '\n'),
       readFile: (p: string) => {
@@ -161,7 +234,10 @@ describe('the command line on bad input', () => {
   }
 
   it('a folder check continues past an unreadable file and an unreadable folder, reports them, and exits 2', async () => {
-    const fs = io({ '/notes/a.md': 'Used `NaCl`.', '/notes/b.md': new Error('EACCES'), '/notes/c.fnote': 'formula: KCl' }, { '/notes': ['a.md', 'b.md', 'c.fnote', 'locked'], '/notes/locked': new Error('EACCES') });
+    const fs = io(
+      { '/notes/a.md': 'Used `NaCl`.', '/notes/b.md': new Error('EACCES'), '/notes/c.fnote': 'formula: KCl' },
+      { '/notes': ['a.md', 'b.md', 'c.fnote', 'locked'], '/notes/locked': new Error('EACCES') },
+    );
     const code = await run(['check', '/notes', '--format', 'json'], fs);
     expect(code).toBe(2);
     expect(JSON.parse(fs.outText)).toEqual([]);

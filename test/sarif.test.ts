@@ -37,7 +37,6 @@ addFormats(ajv);
 const validate = ajv.compile({ $id: id, ...body });
 const pkg = JSON.parse(readFileSync(join(__dirname, '../package.json'), 'utf8'));
 
-// eslint-disable-next-line @typescript-eslint/no-explicit-any -- a SARIF log read back, checked by the schema
 type Sarif = any;
 
 function sarifOf(paths: string[], cwd: string) {
@@ -56,7 +55,17 @@ describe('the schema', () => {
     expect(schemaText).not.toMatch(/"\$id"/);
     // The validator rejects what the schema forbids.
     expect(validate({ version: '2.1.0', runs: [{ tool: { driver: { name: 'x' } }, columnKind: 'utf16' }] })).toBe(false);
-    expect(validate({ version: '2.1.0', runs: [{ tool: { driver: { name: 'x' } }, results: [{ message: { text: 'm' }, locations: [{ physicalLocation: { artifactLocation: { uri: 'a b/ü.md' } } }] }] }] })).toBe(false);
+    expect(
+      validate({
+        version: '2.1.0',
+        runs: [
+          {
+            tool: { driver: { name: 'x' } },
+            results: [{ message: { text: 'm' }, locations: [{ physicalLocation: { artifactLocation: { uri: 'a b/ü.md' } } }] }],
+          },
+        ],
+      }),
+    ).toBe(false);
     expect(validate({ version: '2.1.0', runs: [{ tool: { driver: { name: 'x' } }, results: [] }] })).toBe(true);
   });
 });
@@ -84,7 +93,12 @@ describe('check --format sarif', () => {
       const d = json[i];
       const loc = x.locations[0].physicalLocation;
       expect(loc.artifactLocation).toEqual({ uri: d.file, uriBaseId: '%SRCROOT%' });
-      expect(loc.region).toEqual({ startLine: d.range.start.line + 1, startColumn: d.range.start.character + 1, endLine: d.range.end.line + 1, endColumn: d.range.end.character + 1 });
+      expect(loc.region).toEqual({
+        startLine: d.range.start.line + 1,
+        startColumn: d.range.start.character + 1,
+        endLine: d.range.end.line + 1,
+        endColumn: d.range.end.character + 1,
+      });
       expect(x.message.text).toBe(d.message);
       expect(x.ruleId).toBe(d.code);
       expect(x.level).toBe(LEVEL[d.severity]);
@@ -152,7 +166,13 @@ describe('check --format sarif', () => {
     expect(r.stderr).toBe('ionwright: pipe.md: cannot be read: a named pipe, not a regular file\n');
     const [inv] = doc.runs[0].invocations;
     expect(inv.executionSuccessful).toBe(false);
-    expect(inv.toolExecutionNotifications).toEqual([{ level: 'error', message: { text: 'cannot be read: a named pipe, not a regular file' }, locations: [{ physicalLocation: { artifactLocation: { uri: 'pipe.md', uriBaseId: '%SRCROOT%' } } }] }]);
+    expect(inv.toolExecutionNotifications).toEqual([
+      {
+        level: 'error',
+        message: { text: 'cannot be read: a named pipe, not a regular file' },
+        locations: [{ physicalLocation: { artifactLocation: { uri: 'pipe.md', uriBaseId: '%SRCROOT%' } } }],
+      },
+    ]);
     expect(doc.runs[0].results).toHaveLength(1);
   });
 });
@@ -172,7 +192,11 @@ describe('check --format sarif with files left out', () => {
       {
         executionSuccessful: true,
         toolExecutionNotifications: [
-          { level: 'note', message: { text: 'symbolic link not followed: it leads out of the folder named on the command line' }, locations: [{ physicalLocation: { artifactLocation: { uri: 'notes/elsewhere', uriBaseId: '%SRCROOT%' } } }] },
+          {
+            level: 'note',
+            message: { text: 'symbolic link not followed: it leads out of the folder named on the command line' },
+            locations: [{ physicalLocation: { artifactLocation: { uri: 'notes/elsewhere', uriBaseId: '%SRCROOT%' } } }],
+          },
         ],
       },
     ]);
@@ -193,10 +217,34 @@ describe('the rule catalogue', () => {
   it('has every code the analysis reports, at the level it reports it', () => {
     const text = [
       '`NaXx` and `Ca(NO3` and `Al(OH)2` and `TcO2`.',
-      '```reaction', 'Fe + O2 -> Fe2O3', 'H2 + O2', 'H2 -> O2 -> H2O', '-> H2O', 'H2 + + O2 -> H2O', '0 H2 -> H2', '2 -> H2', 'H2 + O2 -> H2O + H2O2', 'NaCl -> KBr', '```',
-      '```batch', 'name: A', 'volume: 1 L', 'volume: 2 L', 'NaCl', 'KCl 5 parsecs', 'KBr 5 g extra', 'NaOH 5 wt%', 'SO4^2- 0.1 M', '```',
-      '```batch', 'name: B', 'NaCl 0.1 M', '```',
-      '```batch', 'name: C', 'KCl 3 g \u0000',
+      '```reaction',
+      'Fe + O2 -> Fe2O3',
+      'H2 + O2',
+      'H2 -> O2 -> H2O',
+      '-> H2O',
+      'H2 + + O2 -> H2O',
+      '0 H2 -> H2',
+      '2 -> H2',
+      'H2 + O2 -> H2O + H2O2',
+      'NaCl -> KBr',
+      '```',
+      '```batch',
+      'name: A',
+      'volume: 1 L',
+      'volume: 2 L',
+      'NaCl',
+      'KCl 5 parsecs',
+      'KBr 5 g extra',
+      'NaOH 5 wt%',
+      'SO4^2- 0.1 M',
+      '```',
+      '```batch',
+      'name: B',
+      'NaCl 0.1 M',
+      '```',
+      '```batch',
+      'name: C',
+      'KCl 3 g \u0000',
     ].join('\n');
     const seen = new Map<string, number>();
     for (const d of checkText('all.md', text)) seen.set(d.code, d.severity);

@@ -45,18 +45,34 @@ const norm = (spans: string[]) => spans.map((s) => s.replace(/[\r\n]+/g, ' ').tr
 /** Examples that use containers (block quotes, list items) or constructs the scanner reads as prose by design. */
 const CONTAINER = /^(?: {0,3}>| {0,3}[-*+] | {0,3}\d+[.)] )/m;
 
-interface Example { markdown: string; number: number; section: string }
+interface Example {
+  markdown: string;
+  number: number;
+  section: string;
+}
 const examples = (spec as { tests: Example[] }).tests;
 
 describe('scanner agrees with markdown-it on the CommonMark spec examples', () => {
-  for (const section of ['Code spans', 'Fenced code blocks', 'Backslash escapes', 'Indented code blocks', 'ATX headings', 'Setext headings', 'Paragraphs', 'Blank lines', 'Tabs']) {
+  for (const section of [
+    'Code spans',
+    'Fenced code blocks',
+    'Backslash escapes',
+    'Indented code blocks',
+    'ATX headings',
+    'Setext headings',
+    'Paragraphs',
+    'Blank lines',
+    'Tabs',
+  ]) {
     const list = examples.filter((e) => e.section === section && !CONTAINER.test(e.markdown));
     it(`${section} (${list.length} examples without containers)`, () => {
       const disagreements: number[] = [];
       for (const ex of list) {
         const r = reference(ex.markdown);
         const o = ours(ex.markdown);
-        const same = JSON.stringify(norm(r.spans)) === JSON.stringify(norm(o.spans)) && JSON.stringify(r.fences.map((f) => f.info)) === JSON.stringify(o.fences.map((f) => f.info));
+        const same =
+          JSON.stringify(norm(r.spans)) === JSON.stringify(norm(o.spans)) &&
+          JSON.stringify(r.fences.map((f) => f.info)) === JSON.stringify(o.fences.map((f) => f.info));
         if (!same) disagreements.push(ex.number);
       }
       expect(disagreements, `examples where the scanner disagrees: ${disagreements.join(', ')}`).toEqual(KNOWN[section] ?? []);

@@ -13,7 +13,10 @@ import { chargeNumber, energy, fixed, formulaText, massText, MINUS, percent, per
 import { DEFAULT_SETTINGS } from '../server/src/service/settings';
 import { batchTable, batchText } from '../server/src/service/tables';
 
-const applyEdits = (text: string, edits: Array<{ range: { start: { line: number; character: number }; end: { line: number; character: number } }; newText: string }>) => {
+const applyEdits = (
+  text: string,
+  edits: Array<{ range: { start: { line: number; character: number }; end: { line: number; character: number } }; newText: string }>,
+) => {
   const lines = text.split('\n');
   const off = (p: { line: number; character: number }) => lines.slice(0, p.line).reduce((s, l) => s + l.length + 1, 0) + p.character;
   let out = text;
@@ -69,7 +72,11 @@ describe('the columns, rendered three ways from one definition', () => {
     const text = textTable(cols, countedRows(b));
     const heads = cols.map((c) => c.head);
     expect(md.split('\n')[0]).toBe(`| ${heads.join(' | ')} |`);
-    expect($('thead th').map((_, e) => $(e).text()).get()).toEqual(heads);
+    expect(
+      $('thead th')
+        .map((_, e) => $(e).text())
+        .get(),
+    ).toEqual(heads);
     expect(text.split('\n')[0].split(/\s{2,}/)).toEqual(heads);
     // 0.05 mol NaCl: 2.922 g
     expect(md).toContain('| NaCl | 0.1000 M | 58.44 | 2.922 |');
@@ -105,7 +112,9 @@ describe('the columns, rendered three ways from one definition', () => {
   it('the formula table: the same columns in the inserted Markdown and the report', () => {
     const a = analyseFormula('NaCl');
     const md = markdownTable(formulaColumns(DEFAULT_SETTINGS), [a]);
-    expect(md.split('\n')[0]).toBe('| Formula | Molar mass (g/mol) | Bond type | ΔEN (pair) | Ionic character | Lattice energy | Oxidation states | Charge balance |');
+    expect(md.split('\n')[0]).toBe(
+      '| Formula | Molar mass (g/mol) | Bond type | ΔEN (pair) | Ionic character | Lattice energy | Oxidation states | Charge balance |',
+    );
     expect(md).toContain('| NaCl | 58.44 | ionic |');
     expect(md).toContain('Na +1, Cl −1');
   });

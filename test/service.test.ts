@@ -22,7 +22,10 @@ const hoverAt = (src: string, language: NotesLanguage = 'markdown') => {
 };
 
 /** Apply LSP-style edits (line/character) to a text. */
-function applyEdits(text: string, edits: Array<{ range: { start: { line: number; character: number }; end: { line: number; character: number } }; newText: string }>) {
+function applyEdits(
+  text: string,
+  edits: Array<{ range: { start: { line: number; character: number }; end: { line: number; character: number } }; newText: string }>,
+) {
   const doc = analyseDocument(text, 'markdown');
   const list = edits.map((e) => ({ s: doc.lines.offsetAt(e.range.start), e: doc.lines.offsetAt(e.range.end), t: e.newText })).sort((a, b) => b.s - a.s);
   let out = text;
@@ -196,7 +199,11 @@ describe('code actions', () => {
     expect(acts[0]).toMatchObject({ title: 'Replace with Al(OH)₃', kind: 'quickfix', isPreferred: true });
     expect(applyEdits(text, acts[0].edits)).toBe('Bottle 14: `Al(OH)3` and `FeCl`.\n');
     const f = text.indexOf('FeCl');
-    expect(codeActions(doc, f, f).filter((a) => a.kind === 'quickfix').map((a) => a.title)).toEqual(['Replace with FeCl₂', 'Replace with FeCl₃']);
+    expect(
+      codeActions(doc, f, f)
+        .filter((a) => a.kind === 'quickfix')
+        .map((a) => a.title),
+    ).toEqual(['Replace with FeCl₂', 'Replace with FeCl₃']);
   });
 
   it('fix an unknown symbol by its case', () => {

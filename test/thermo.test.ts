@@ -14,9 +14,7 @@ import { execFileSync } from 'node:child_process';
 import { existsSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { analyseFormula } from '../server/src/chem/analyse';
-import {
-  ATOMISATION, ATOMISATION_SOURCE, ELECTRON_AFFINITY, FORMATION_SOLID, IONISATION, IONISATION_EV, KJ_PER_EV,
-} from '../server/src/chem/data/thermo';
+import { ATOMISATION, ATOMISATION_SOURCE, ELECTRON_AFFINITY, FORMATION_SOLID, IONISATION, IONISATION_EV, KJ_PER_EV } from '../server/src/chem/data/thermo';
 import { AFFINITY_ROWS } from '../server/src/chem/data/generated';
 
 const PYTHON = '/usr/bin/python3';
@@ -85,10 +83,25 @@ describe('named values', () => {
 describe('atomisation enthalpies are CODATA key values where CODATA has them', () => {
   // CODATA Key Values for Thermodynamics (1989), ΔfH°(g, 298.15 K) in kJ/mol ± uncertainty — from memory.
   const CODATA: Record<string, [number, number]> = {
-    Li: [159.3, 1.0], Na: [107.5, 0.7], K: [89.0, 0.8], Rb: [80.9, 0.8], Cs: [76.5, 1.0],
-    Be: [324, 5], Mg: [147.1, 0.8], Ca: [177.8, 0.8], Cu: [337.4, 1.2], Ag: [284.9, 0.8],
-    Zn: [130.4, 0.4], Cd: [111.8, 0.2], Al: [330.0, 4.0], Pb: [195.2, 0.8],
-    H: [217.998, 0.006], F: [79.38, 0.3], Cl: [121.301, 0.008], Br: [111.87, 0.12], I: [106.76, 0.04],
+    Li: [159.3, 1.0],
+    Na: [107.5, 0.7],
+    K: [89.0, 0.8],
+    Rb: [80.9, 0.8],
+    Cs: [76.5, 1.0],
+    Be: [324, 5],
+    Mg: [147.1, 0.8],
+    Ca: [177.8, 0.8],
+    Cu: [337.4, 1.2],
+    Ag: [284.9, 0.8],
+    Zn: [130.4, 0.4],
+    Cd: [111.8, 0.2],
+    Al: [330.0, 4.0],
+    Pb: [195.2, 0.8],
+    H: [217.998, 0.006],
+    F: [79.38, 0.3],
+    Cl: [121.301, 0.008],
+    Br: [111.87, 0.12],
+    I: [106.76, 0.04],
   };
   it('each CODATA element is labelled CODATA, with CODATA’s value and uncertainty', () => {
     for (const [el, [v, u]] of Object.entries(CODATA)) {

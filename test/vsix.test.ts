@@ -49,7 +49,11 @@ describe('the .vsix', () => {
     const out = join(mkdtempSync(join(tmpdir(), 'ionwright-vsix-')), 'ionwright.vsix');
     // npm test has just built dist/; pack with the flags of `npm run package`, into a temp folder.
     const pkg = JSON.parse(readFileSync(join(ROOT, 'package.json'), 'utf8'));
-    const flags = (pkg.scripts.package as string).split('vsce package')[1].trim().split(/\s+/).filter((f, k, all) => f !== '-o' && all[k - 1] !== '-o');
+    const flags = (pkg.scripts.package as string)
+      .split('vsce package')[1]
+      .trim()
+      .split(/\s+/)
+      .filter((f, k, all) => f !== '-o' && all[k - 1] !== '-o');
     execFileSync(process.execPath, [join(ROOT, 'node_modules/@vscode/vsce/vsce'), 'package', ...flags, '-o', out], { cwd: ROOT, stdio: 'pipe' });
     files = await readZip(out);
     manifest = JSON.parse(files.get('extension/package.json')!.toString('utf8'));
@@ -57,8 +61,21 @@ describe('the .vsix', () => {
 
   it('holds the bundles, grammars, styles, icon and docs', () => {
     // vsce stores the docs under the marketplace's names: readme.md, changelog.md, LICENSE.txt.
-    for (const f of ['dist/extension.js', 'dist/server.js', 'dist/cli.js', 'media/preview.css', 'media/icon.png', 'readme.md', 'changelog.md', 'LICENSE.txt', 'package.json',
-      'syntaxes/fnote.tmLanguage.json', 'syntaxes/chem-formula.tmLanguage.json', 'syntaxes/markdown-formulas.tmLanguage.json', 'syntaxes/fnote.language-configuration.json']) {
+    for (const f of [
+      'dist/extension.js',
+      'dist/server.js',
+      'dist/cli.js',
+      'media/preview.css',
+      'media/icon.png',
+      'readme.md',
+      'changelog.md',
+      'LICENSE.txt',
+      'package.json',
+      'syntaxes/fnote.tmLanguage.json',
+      'syntaxes/chem-formula.tmLanguage.json',
+      'syntaxes/markdown-formulas.tmLanguage.json',
+      'syntaxes/fnote.language-configuration.json',
+    ]) {
       expect(files.has(`extension/${f}`), f).toBe(true);
     }
   });
@@ -75,7 +92,13 @@ describe('the .vsix', () => {
   });
 
   it('every file the manifest points at is in the package', () => {
-    const paths = [manifest.main, manifest.icon, ...manifest.contributes['markdown.previewStyles'], ...manifest.contributes.grammars.map((g: { path: string }) => g.path), ...manifest.contributes.languages.map((l: { configuration: string }) => l.configuration)];
+    const paths = [
+      manifest.main,
+      manifest.icon,
+      ...manifest.contributes['markdown.previewStyles'],
+      ...manifest.contributes.grammars.map((g: { path: string }) => g.path),
+      ...manifest.contributes.languages.map((l: { configuration: string }) => l.configuration),
+    ];
     for (const p of paths) expect(files.has(`extension/${p.replace(/^\.\//, '')}`), p).toBe(true);
   });
 

@@ -12,14 +12,13 @@ export interface EditorState {
   selection: { start: { line: number; character: number }; end: { line: number; character: number } };
 }
 
-export type Plan =
-  | { kind: 'server'; command: string; args: unknown[] }
-  | { kind: 'error'; message: string };
+export type Plan = { kind: 'server'; command: string; args: unknown[] } | { kind: 'error'; message: string };
 
 /** What a client command asks of the server, for the editor state it runs in. */
 export function planCommand(command: string, editor: EditorState | undefined): Plan {
   if (!editor) return { kind: 'error', message: 'Open a Markdown or .fnote notes file first.' };
-  if (!(NOTES_LANGUAGES as readonly string[]).includes(editor.languageId)) return { kind: 'error', message: `Ionwright works on Markdown and .fnote notes, not on '${editor.languageId}' files.` };
+  if (!(NOTES_LANGUAGES as readonly string[]).includes(editor.languageId))
+    return { kind: 'error', message: `Ionwright works on Markdown and .fnote notes, not on '${editor.languageId}' files.` };
   const { uri, selection } = editor;
   switch (command) {
     case CLIENT_COMMANDS.insertTable:

@@ -34,7 +34,10 @@ export class ServerLifecycle {
   private pending: Promise<void> = Promise.resolve();
   private stopTimer: unknown = undefined;
 
-  constructor(private readonly host: LifecycleHost, private readonly stopAfterMs = STOP_AFTER_MS) {}
+  constructor(
+    private readonly host: LifecycleHost,
+    private readonly stopAfterMs = STOP_AFTER_MS,
+  ) {}
 
   get isRunning(): boolean {
     return this.running;

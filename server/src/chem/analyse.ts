@@ -97,8 +97,21 @@ function compute(text: string, settings: ChemSettings): FormulaAnalysis {
   const diagnostics = [...parsed.diagnostics];
   if (!parsed.ok || !parsed.formula) {
     return {
-      input: text, formula: parsed.formula, ok: false, display: text, ascii: text, hill: '', charge: 0, atoms: {},
-      molarMass: null, composition: [], charges: null, bond: null, lattice: null, latticeWithheld: null, diagnostics,
+      input: text,
+      formula: parsed.formula,
+      ok: false,
+      display: text,
+      ascii: text,
+      hill: '',
+      charge: 0,
+      atoms: {},
+      molarMass: null,
+      composition: [],
+      charges: null,
+      bond: null,
+      lattice: null,
+      latticeWithheld: null,
+      diagnostics,
     };
   }
   const formula = chooseReading(parsed.formula);
@@ -109,13 +122,19 @@ function compute(text: string, settings: ChemSettings): FormulaAnalysis {
   for (const d of charges.diagnostics) diagnostics.push(d);
   for (const v of variable) {
     diagnostics.push({
-      code: 'variable-count', severity: 'warning', start: v.start, end: v.end,
+      code: 'variable-count',
+      severity: 'warning',
+      start: v.start,
+      end: v.end,
       message: `The count '${text.slice(v.start, v.end)}' is not a number: the ions are read, but a molar mass, a composition and amounts need it (e.g. ${text.slice(0, v.start)}4).`,
     });
   }
   if (mm?.nominal.length) {
     diagnostics.push({
-      code: 'no-standard-weight', severity: 'information', start: 0, end: text.length,
+      code: 'no-standard-weight',
+      severity: 'information',
+      start: 0,
+      end: text.length,
       message: `${mm.nominal.join(', ')} ${mm.nominal.length === 1 ? 'has' : 'have'} no standard atomic weight; the mass number of a long-lived isotope was used.`,
     });
   }
@@ -124,9 +143,18 @@ function compute(text: string, settings: ChemSettings): FormulaAnalysis {
   let lattice: LatticeAssessment | null | undefined;
   let withheld: LatticeWithheld | null | undefined;
   return {
-    input: text, formula, ok: true, display: displayFormula(formula, true), ascii: displayFormula(formula, false),
-    hill: hillFormula(atoms), charge: formula.charge, atoms, molarMass: mm, composition: mm ? composition(atoms, mm.value) : [],
-    charges, diagnostics,
+    input: text,
+    formula,
+    ok: true,
+    display: displayFormula(formula, true),
+    ascii: displayFormula(formula, false),
+    hill: hillFormula(atoms),
+    charge: formula.charge,
+    atoms,
+    molarMass: mm,
+    composition: mm ? composition(atoms, mm.value) : [],
+    charges,
+    diagnostics,
     get bond() {
       return bond === undefined ? (bond = assessBond(formula, atoms, charges, settings)) : bond;
     },

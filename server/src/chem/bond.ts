@@ -110,14 +110,28 @@ export function assessBond(_f: Formula, atoms: AtomCounts, charges: ChargeAssess
           // NH4Cl: ionic between NH₄⁺ and Cl⁻; the pair named is a bond it has, N–H in the cation.
           const inCat = within.find((w) => w.ion === cat.label);
           if (inCat) {
-            const b = make(inCat.pair[0], inCat.pair[1], 'ionic', s, `Ionic bonding holds ${cat.label} and ${an.label} together; ΔEN does not apply between polyatomic ions. The pair named is the ${inCat.pair.join('–')} bond within ${cat.label}, which is covalent.`);
+            const b = make(
+              inCat.pair[0],
+              inCat.pair[1],
+              'ionic',
+              s,
+              `Ionic bonding holds ${cat.label} and ${an.label} together; ΔEN does not apply between polyatomic ions. The pair named is the ${inCat.pair.join('–')} bond within ${cat.label}, which is covalent.`,
+            );
             if (b) return { ...b, betweenIons, within, pairWithin: cat.label };
           }
         }
         const c = ca.reduce((x, y) => ((en(y) as number) < (en(x) as number) ? y : x));
         const a = aa.reduce((x, y) => ((en(y) as number) > (en(x) as number) ? y : x));
         const poly = cat.kind !== 'metal' || an.kind !== 'monatomic-anion';
-        const b = make(c, a, 'ionic', s, poly ? 'Pair of the cation and the anion\'s most electronegative atom; for polyatomic ions ΔEN is only a rough guide to the ionic bonding between them.' : undefined);
+        const b = make(
+          c,
+          a,
+          'ionic',
+          s,
+          poly
+            ? "Pair of the cation and the anion's most electronegative atom; for polyatomic ions ΔEN is only a rough guide to the ionic bonding between them."
+            : undefined,
+        );
         return b ? { ...b, betweenIons, ...(within.length ? { within } : {}) } : null;
       }
     }
@@ -129,13 +143,21 @@ export function assessBond(_f: Formula, atoms: AtomCounts, charges: ChargeAssess
     // An inorganic molecule: the most polar of the bonds it has (HNO3: O–H, not H–N).
     const bonds = likelyBonds(els);
     const [x, y] = mostPolar(bonds);
-    return make(x, y, 'most-polar', s, `Most polar of its bonds (${bonds.map((p) => p.join('–')).join(', ')}); a formula does not say which atoms are bonded, and in an oxo compound H is taken to sit on O.`);
+    return make(
+      x,
+      y,
+      'most-polar',
+      s,
+      `Most polar of its bonds (${bonds.map((p) => p.join('–')).join(', ')}); a formula does not say which atoms are bonded, and in an oxo compound H is taken to sit on O.`,
+    );
   }
   // Central atom: the least electronegative element other than H (C in organic compounds, S in H2SO4);
   // the pair is the central atom with its most electronegative partner.
   const heavy = els.filter((e) => e !== 'H');
   const central = heavy.reduce((x, y) => ((en(y) as number) < (en(x) as number) ? y : x));
-  const partner = els.filter((e) => e !== central).reduce((x, y) => (Math.abs((en(y) as number) - (en(central) as number)) > Math.abs((en(x) as number) - (en(central) as number)) ? y : x));
+  const partner = els
+    .filter((e) => e !== central)
+    .reduce((x, y) => (Math.abs((en(y) as number) - (en(central) as number)) > Math.abs((en(x) as number) - (en(central) as number)) ? y : x));
   return make(central, partner, 'most-polar', s, `Central atom ${central} with its most polar partner; a formula does not say which atoms are bonded.`);
 }
 

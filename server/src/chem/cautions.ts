@@ -33,26 +33,60 @@ const ACID_FORMS: Record<string, string> = { CH3CO2H: 'CH3COOH', HC2H3O2: 'CH3CO
  * formulas is flammable too (dimethyl ether, 1-propanol, propanal). Methanol is also toxic (GHS Acute Tox. 3).
  */
 const FLAMMABLE_BY_HILL: Record<string, string> = {
-  CH4O: 'methanol', C2H6O: 'ethanol', C3H8O: 'isopropanol or propanol', C3H6O: 'acetone', C4H10O: 'diethyl ether or butanol',
-  C6H14: 'hexane', C7H8: 'toluene', C4H8O2: 'ethyl acetate', C2H3N: 'acetonitrile', C4H8O: 'tetrahydrofuran or butanone',
+  CH4O: 'methanol',
+  C2H6O: 'ethanol',
+  C3H8O: 'isopropanol or propanol',
+  C3H6O: 'acetone',
+  C4H10O: 'diethyl ether or butanol',
+  C6H14: 'hexane',
+  C7H8: 'toluene',
+  C4H8O2: 'ethyl acetate',
+  C2H3N: 'acetonitrile',
+  C4H8O: 'tetrahydrofuran or butanone',
 };
 
-const OXIDISING_ANIONS = new Set(['perchlorate', 'chlorate', 'chlorite', 'hypochlorite', 'bromate', 'iodate', 'periodate', 'permanganate', 'manganate', 'chromate', 'dichromate', 'peroxodisulfate', 'peroxide', 'superoxide', 'nitrate', 'nitrite', 'ferrate']);
+const OXIDISING_ANIONS = new Set([
+  'perchlorate',
+  'chlorate',
+  'chlorite',
+  'hypochlorite',
+  'bromate',
+  'iodate',
+  'periodate',
+  'permanganate',
+  'manganate',
+  'chromate',
+  'dichromate',
+  'peroxodisulfate',
+  'peroxide',
+  'superoxide',
+  'nitrate',
+  'nitrite',
+  'ferrate',
+]);
 const TOXIC_METALS: Record<string, string> = {
-  Hg: 'mercury compound: toxic', Pb: 'lead compound: toxic, harms fertility', Cd: 'cadmium compound: toxic and carcinogenic',
-  Tl: 'thallium compound: very toxic', As: 'arsenic compound: toxic and carcinogenic', Be: 'beryllium compound: toxic and carcinogenic',
-  Ba: 'soluble barium salt: toxic if swallowed', Ni: 'nickel compound: skin sensitiser, suspected carcinogen',
-  Co: 'cobalt compound: sensitiser, suspected carcinogen', Os: 'osmium compound: OsO₄ is volatile and very toxic',
+  Hg: 'mercury compound: toxic',
+  Pb: 'lead compound: toxic, harms fertility',
+  Cd: 'cadmium compound: toxic and carcinogenic',
+  Tl: 'thallium compound: very toxic',
+  As: 'arsenic compound: toxic and carcinogenic',
+  Be: 'beryllium compound: toxic and carcinogenic',
+  Ba: 'soluble barium salt: toxic if swallowed',
+  Ni: 'nickel compound: skin sensitiser, suspected carcinogen',
+  Co: 'cobalt compound: sensitiser, suspected carcinogen',
+  Os: 'osmium compound: OsO₄ is volatile and very toxic',
 };
 
 /** Cyanide in the formula: the cyanide ion, or CN written as a group (a ligand, `[Fe(CN)6]`, `[Au(CN)2]`). */
 function cyanideIn(f: Formula): boolean {
-  const walk = (items: readonly FormulaItem[]): boolean => items.some((it) => {
-    if (it.kind !== 'group') return false;
-    const [c, n] = it.items;
-    if (it.items.length === 2 && c.kind === 'element' && n.kind === 'element' && c.symbol === 'C' && n.symbol === 'N' && c.count === 1 && n.count === 1) return true;
-    return walk(it.items);
-  });
+  const walk = (items: readonly FormulaItem[]): boolean =>
+    items.some((it) => {
+      if (it.kind !== 'group') return false;
+      const [c, n] = it.items;
+      if (it.items.length === 2 && c.kind === 'element' && n.kind === 'element' && c.symbol === 'C' && n.symbol === 'N' && c.count === 1 && n.count === 1)
+        return true;
+      return walk(it.items);
+    });
   return f.parts.some((p) => walk(p.items));
 }
 
@@ -88,21 +122,36 @@ function compute(a: FormulaAnalysis): Caution[] {
   const ox = [...names].filter((n) => OXIDISING_ANIONS.has(n));
   if (ox.length || ascii === 'H2O2' || ascii === 'CrO3' || ascii === 'HClO4') {
     const what = ox.length ? ox.join(', ') : ascii === 'H2O2' ? 'peroxide' : 'strong oxidiser';
-    out.push({ cls: 'oxidiser', text: `oxidiser (${what}): keep from organic matter and reducing agents${a.atoms.N && names.has('ammonium') && names.has('nitrate') ? '; ammonium nitrate can detonate' : ''}` });
+    out.push({
+      cls: 'oxidiser',
+      text: `oxidiser (${what}): keep from organic matter and reducing agents${a.atoms.N && names.has('ammonium') && names.has('nitrate') ? '; ammonium nitrate can detonate' : ''}`,
+    });
   }
   if (names.has('nitrite')) out.push({ cls: 'toxic', text: 'nitrite: toxic if swallowed (methaemoglobinaemia); acids release nitrogen oxides' });
   if (names.has('cyanide') || ascii === 'HCN') out.push({ cls: 'toxic', text: 'cyanide: very toxic; acids release HCN gas' });
-  else if (cyanideIn(a.formula)) out.push({ cls: 'toxic', text: 'cyanide complex: acids (and for some, heat or light) release HCN gas; treat as a cyanide, very toxic, unless the SDS says otherwise' });
+  else if (cyanideIn(a.formula))
+    out.push({
+      cls: 'toxic',
+      text: 'cyanide complex: acids (and for some, heat or light) release HCN gas; treat as a cyanide, very toxic, unless the SDS says otherwise',
+    });
   if (names.has('azide')) out.push({ cls: 'toxic', text: 'azide: very toxic; forms explosive heavy-metal azides' });
   if (a.atoms.Cr && (a.charges?.oxidationStates?.Cr ?? 0) >= 6) out.push({ cls: 'carcinogen', text: 'chromium(VI): carcinogenic and sensitising' });
   if (names.has('hydrogen difluoride')) {
     // Bifluorides (NH4HF2, KHF2) are HF in solid form: acidic in water, with HF's burns (from memory:
     // the usual SDS of ammonium bifluoride lists the same first aid as for hydrofluoric acid).
-    out.push({ cls: 'corrosive', text: 'hydrogen difluoride (bifluoride): releases hydrofluoric acid in water or with acids; penetrating burns and fluoride poisoning as with HF. Have calcium gluconate gel at hand; follow the SDS' });
+    out.push({
+      cls: 'corrosive',
+      text: 'hydrogen difluoride (bifluoride): releases hydrofluoric acid in water or with acids; penetrating burns and fluoride poisoning as with HF. Have calcium gluconate gel at hand; follow the SDS',
+    });
   } else if (ascii !== 'HF' && a.atoms.F && ions.some((i) => i.element === 'F')) out.push({ cls: 'toxic', text: 'soluble fluoride: toxic if swallowed' });
   const solvent = a.formula.parts.length === 1 && a.charge === 0 ? FLAMMABLE_BY_HILL[a.hill] : undefined;
-  if (solvent) out.push({ cls: 'flammable', text: `highly flammable (${solvent}): keep from flames, sparks and hot surfaces; the vapour forms explosive mixtures with air` });
-  if (a.hill === 'CH4O' && a.formula.parts.length === 1) out.push({ cls: 'toxic', text: 'methanol: toxic if swallowed, inhaled or absorbed through the skin (blindness)' });
+  if (solvent)
+    out.push({
+      cls: 'flammable',
+      text: `highly flammable (${solvent}): keep from flames, sparks and hot surfaces; the vapour forms explosive mixtures with air`,
+    });
+  if (a.hill === 'CH4O' && a.formula.parts.length === 1)
+    out.push({ cls: 'toxic', text: 'methanol: toxic if swallowed, inhaled or absorbed through the skin (blindness)' });
   if (ascii === 'CH3COOH') out.push({ cls: 'flammable', text: 'flammable (acetic acid: flash point about 40 °C)' });
   for (const [el, text] of Object.entries(TOXIC_METALS)) {
     if (!a.atoms[el]) continue;
@@ -112,4 +161,5 @@ function compute(a: FormulaAnalysis): Caution[] {
   return out;
 }
 
-export const CAUTION_FOOTNOTE = 'Cautions are reminders, not a safety judgement: follow the safety data sheet (SDS), local codes and licensed practice; nothing here replaces a qualified chemist\'s review.';
+export const CAUTION_FOOTNOTE =
+  "Cautions are reminders, not a safety judgement: follow the safety data sheet (SDS), local codes and licensed practice; nothing here replaces a qualified chemist's review.";

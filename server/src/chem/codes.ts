@@ -36,15 +36,39 @@ export interface CatalogueEntry {
 
 const CATALOGUE = {
   // ── formulas ──
-  'unknown-element': { severity: 'error', raisedBy: ['chem/formula'], description: 'A symbol in a formula that is no element (nor a known ligand abbreviation).' },
-  'malformed-formula': { severity: 'error', raisedBy: ['chem/formula', 'chem/equation', 'chem/batch'], description: 'A formula that cannot be read: unbalanced brackets, stray characters, impossible counts.' },
-  'charge-imbalance': { severity: 'warning', raisedBy: ['chem/charge'], description: 'A neutral formula whose ions or oxidation states cannot sum to zero, or an ion whose written charge disagrees with its composition.' },
-  'variable-count': { severity: 'warning', raisedBy: ['chem/analyse'], description: "A count in a formula that is a letter (such as 'x'): the ions are read, but no molar mass." },
-  'no-standard-weight': { severity: 'information', raisedBy: ['chem/analyse'], description: 'An element without a standard atomic weight; the molar mass uses the mass number of a long-lived isotope.' },
+  'unknown-element': {
+    severity: 'error',
+    raisedBy: ['chem/formula'],
+    description: 'A symbol in a formula that is no element (nor a known ligand abbreviation).',
+  },
+  'malformed-formula': {
+    severity: 'error',
+    raisedBy: ['chem/formula', 'chem/equation', 'chem/batch'],
+    description: 'A formula that cannot be read: unbalanced brackets, stray characters, impossible counts.',
+  },
+  'charge-imbalance': {
+    severity: 'warning',
+    raisedBy: ['chem/charge'],
+    description: 'A neutral formula whose ions or oxidation states cannot sum to zero, or an ion whose written charge disagrees with its composition.',
+  },
+  'variable-count': {
+    severity: 'warning',
+    raisedBy: ['chem/analyse'],
+    description: "A count in a formula that is a letter (such as 'x'): the ions are read, but no molar mass.",
+  },
+  'no-standard-weight': {
+    severity: 'information',
+    raisedBy: ['chem/analyse'],
+    description: 'An element without a standard atomic weight; the molar mass uses the mass number of a long-lived isotope.',
+  },
   // ── reactions ──
   'unbalanced-equation': { severity: 'warning', raisedBy: ['chem/equation'], description: 'A reaction whose atoms or charges differ between the sides.' },
   'ambiguous-equation': { severity: 'information', raisedBy: ['chem/equation'], description: 'A reaction that balances in more than one independent way.' },
-  'impossible-equation': { severity: 'information', raisedBy: ['chem/equation'], description: 'A reaction that cannot be balanced with positive coefficients.' },
+  'impossible-equation': {
+    severity: 'information',
+    raisedBy: ['chem/equation'],
+    description: 'A reaction that cannot be balanced with positive coefficients.',
+  },
   'equation-too-large': { severity: 'information', raisedBy: ['chem/equation'], description: 'A reaction too large to be balanced exactly.' },
   'missing-arrow': { severity: 'error', raisedBy: ['chem/equation'], description: 'A reaction without an arrow between reactants and products.' },
   'multiple-arrows': { severity: 'error', raisedBy: ['chem/equation'], description: 'A reaction with more than one arrow.' },
@@ -53,8 +77,16 @@ const CATALOGUE = {
   'bad-coefficient': { severity: 'error', raisedBy: ['chem/equation'], description: 'A coefficient in a reaction that is not a positive number.' },
   'missing-formula': { severity: 'error', raisedBy: ['chem/equation'], description: 'A coefficient in a reaction with no formula after it.' },
   // ── batches ──
-  'batch-header': { severity: 'warning', raisedBy: ['chem/batch'], description: "A batch header line (such as 'volume:') given twice, or a name given again after the opening line; the first one counts." },
-  'batch-amount': { severity: 'error', raisedBy: ['chem/batch'], description: 'An amount, header value or assay in a batch that is missing, not a positive number, or beyond what the batch can hold.' },
+  'batch-header': {
+    severity: 'warning',
+    raisedBy: ['chem/batch'],
+    description: "A batch header line (such as 'volume:') given twice, or a name given again after the opening line; the first one counts.",
+  },
+  'batch-amount': {
+    severity: 'error',
+    raisedBy: ['chem/batch'],
+    description: 'An amount, header value or assay in a batch that is missing, not a positive number, or beyond what the batch can hold.',
+  },
   'batch-unit': { severity: 'error', raisedBy: ['chem/batch'], description: 'A unit in a batch that is missing or unknown.' },
   'batch-syntax': { severity: 'error', raisedBy: ['chem/batch'], description: 'Unexpected text after an amount or a header value in a batch line.' },
   'batch-no-volume': { severity: 'error', raisedBy: ['chem/batch'], description: "A target concentration in a batch without the batch's final volume." },
@@ -62,13 +94,36 @@ const CATALOGUE = {
   'batch-total': { severity: 'warning', raisedBy: ['chem/batch'], description: "Ingredients of a batch that weigh more than its 'total:'." },
   'batch-charge': { severity: 'warning', raisedBy: ['chem/batch'], description: 'Ions listed on their own in a batch that leave it with a net charge.' },
   'batch-solubility': { severity: 'warning', raisedBy: ['chem/batch'], description: 'An ingredient above its solubility in the estimated water of the batch.' },
-  'batch-precipitation': { severity: 'warning', raisedBy: ['chem/solution'], reserved: true, description: 'A sparingly soluble solid oversaturated in the batch at equilibrium.' },
-  'batch-incompatible': { severity: 'warning', raisedBy: ['chem/safety'], reserved: true, description: 'Ingredients of a batch that react dangerously together.' },
-  'batch-heat': { severity: 'warning', raisedBy: ['chem/safety'], reserved: true, description: 'An estimated temperature change on making up the batch above the setting.' },
+  'batch-precipitation': {
+    severity: 'warning',
+    raisedBy: ['chem/solution'],
+    reserved: true,
+    description: 'A sparingly soluble solid oversaturated in the batch at equilibrium.',
+  },
+  'batch-incompatible': {
+    severity: 'warning',
+    raisedBy: ['chem/safety'],
+    reserved: true,
+    description: 'Ingredients of a batch that react dangerously together.',
+  },
+  'batch-heat': {
+    severity: 'warning',
+    raisedBy: ['chem/safety'],
+    reserved: true,
+    description: 'An estimated temperature change on making up the batch above the setting.',
+  },
   'batch-unclosed': { severity: 'warning', raisedBy: ['service/document'], description: 'A batch block that is never closed.' },
   // ── notes and files ──
-  'long-paragraph': { severity: 'information', raisedBy: ['service/document'], description: 'A paragraph so long that it is read in pieces; a code span across two pieces is not read as one.' },
-  'findings-limit': { severity: 'information', raisedBy: ['service/diagnostics'], description: 'More findings in a note than the editor is sent; the last one says how many more there are.' },
+  'long-paragraph': {
+    severity: 'information',
+    raisedBy: ['service/document'],
+    description: 'A paragraph so long that it is read in pieces; a code span across two pieces is not read as one.',
+  },
+  'findings-limit': {
+    severity: 'information',
+    raisedBy: ['service/diagnostics'],
+    description: 'More findings in a note than the editor is sent; the last one says how many more there are.',
+  },
   'not-text': { severity: 'warning', raisedBy: ['cli'], description: 'A notes file with NUL bytes, which does not look like text.' },
 } as const satisfies Record<string, CatalogueEntry>;
 

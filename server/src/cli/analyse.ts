@@ -8,7 +8,13 @@ const service = createLanguageService();
 export function analyseFile(path: string, text: string): AnalysedDocument {
   const doc = service.analyse(text, languageOf(path) ?? 'markdown');
   if (text.includes('\u0000')) {
-    doc.diagnostics.unshift({ code: 'not-text', severity: 'warning', start: 0, end: 0, message: 'This file contains NUL bytes; it does not look like a text file.' });
+    doc.diagnostics.unshift({
+      code: 'not-text',
+      severity: 'warning',
+      start: 0,
+      end: 0,
+      message: 'This file contains NUL bytes; it does not look like a text file.',
+    });
   }
   return doc;
 }

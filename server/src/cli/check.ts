@@ -121,11 +121,15 @@ export async function cmdCheck(args: string[], io: CliIO): Promise<number> {
     await writeJsonArray(w, jsonItems(results, display), { render: ([file, d], inner) => diagnosticJson(file, d, inner) });
   } else if (format === 'sarif') {
     const abs = (p: string) => resolve(io.cwd, p);
-    await writeSarif(w, results.map((r) => ({ path: abs(r.path), diagnostics: r.diagnostics })), {
-      cwd: io.cwd,
-      problems: problems.map((p) => ({ path: abs(p.path), message: p.message })),
-      notes: report.links.map((l) => ({ path: abs(l.path), message: `symbolic link not followed: ${LINK_WHY[l.why]}` })),
-    });
+    await writeSarif(
+      w,
+      results.map((r) => ({ path: abs(r.path), diagnostics: r.diagnostics })),
+      {
+        cwd: io.cwd,
+        problems: problems.map((p) => ({ path: abs(p.path), message: p.message })),
+        notes: report.links.map((l) => ({ path: abs(l.path), message: `symbolic link not followed: ${LINK_WHY[l.why]}` })),
+      },
+    );
   } else {
     let errors = 0;
     let warnings = 0;
@@ -148,7 +152,11 @@ export async function cmdCheck(args: string[], io: CliIO): Promise<number> {
   return results.some((r) => r.diagnostics.some((d) => d.severity === 1)) ? 1 : 0;
 }
 
-const LINK_WHY = { outside: 'it leads out of the folder named on the command line', again: 'it leads to what was already read', broken: 'it leads nowhere' } as const;
+const LINK_WHY = {
+  outside: 'it leads out of the folder named on the command line',
+  again: 'it leads to what was already read',
+  broken: 'it leads nowhere',
+} as const;
 
 /** The json items, one finding at a time, with its file: written as `{file, range, severity, code, message, source}`. */
 function* jsonItems(results: Array<{ path: string; diagnostics: LspDiagnostic[] }>, display: (p: string) => string): Generator<[string, LspDiagnostic]> {

@@ -43,12 +43,24 @@ const balance: Command = (args, io) => {
   const r = service.reaction(input);
   const b = r.balance;
   if (values.json) {
-    io.out(jsonText({ input: positionals[0], status: b.status, balanced: b.balancedText, coefficients: b.coefficients, message: b.message, differences: b.differences, charge: b.charge, diagnostics: r.diagnostics }));
+    io.out(
+      jsonText({
+        input: positionals[0],
+        status: b.status,
+        balanced: b.balancedText,
+        coefficients: b.coefficients,
+        message: b.message,
+        differences: b.differences,
+        charge: b.charge,
+        diagnostics: r.diagnostics,
+      }),
+    );
   } else {
     const shown = b.status === 'already-balanced' ? input : (b.balancedText ?? input);
     const lines = [`${b.status}: ${shown}`];
     // "Balanced: <equation>" says again what the first line says.
-    if (b.message && !b.message.includes(shown) && !(b.status === 'balanced' && b.balancedDisplay && b.message.includes(b.balancedDisplay))) lines.push(b.message);
+    if (b.message && !b.message.includes(shown) && !(b.status === 'balanced' && b.balancedDisplay && b.message.includes(b.balancedDisplay)))
+      lines.push(b.message);
     for (const d of r.parsed.diagnostics) lines.push(`  ${d.severity} [${d.code}] col ${d.start + 1}: ${d.message}`);
     io.out(lines.join('\n'));
   }

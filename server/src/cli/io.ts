@@ -1,7 +1,20 @@
 /** IO of the command line: the only place that touches the file system. */
 import { isUtf8 } from 'node:buffer';
 import { randomBytes } from 'node:crypto';
-import { closeSync, fsyncSync, lstatSync, openSync, readdirSync, readFileSync, realpathSync, renameSync, statSync, unlinkSync, writeSync, type BigIntStats } from 'node:fs';
+import {
+  closeSync,
+  fsyncSync,
+  lstatSync,
+  openSync,
+  readdirSync,
+  readFileSync,
+  realpathSync,
+  renameSync,
+  statSync,
+  unlinkSync,
+  writeSync,
+  type BigIntStats,
+} from 'node:fs';
 import { availableParallelism } from 'node:os';
 import { basename, dirname, join, resolve, sep } from 'node:path';
 import { parseArgs } from 'node:util';

@@ -168,7 +168,8 @@ export function checkInWorkers(jobs: CheckJob[], options: PoolOptions): Promise<
         if (queue.length && ready && deaths < MAX_DEATHS) spawn();
         // Idle workers take what came back to the queue.
         for (const f of workers.values()) f?.();
-        if (queue.length && workers.size === 0) checkRestHere(ready ? `worker threads kept failing (last one ${why})` : `worker threads could not start (${why})`);
+        if (queue.length && workers.size === 0)
+          checkRestHere(ready ? `worker threads kept failing (last one ${why})` : `worker threads could not start (${why})`);
         finishIfDone();
       });
       return true;

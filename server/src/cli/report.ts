@@ -39,5 +39,9 @@ export async function report(args: string[], io: CliIO): Promise<number> {
     }
     io.err(`ionwright: wrote ${out}`);
   }
-  return createLanguageService().diagnostics(file.doc).some((d) => d.severity === 1) ? 1 : 0;
+  return createLanguageService()
+    .diagnostics(file.doc)
+    .some((d) => d.severity === 1)
+    ? 1
+    : 0;
 }

@@ -44,7 +44,7 @@ function pointerByLen(runs: readonly Run[]) {
 
 export function scanInline(text: string, start: number, end: number, prose: ProseMode, out: NoteItem[]) {
   const runs: Run[] = [];
-  for (let i = start; i < end; ) {
+  for (let i = start; i < end;) {
     if (text.charCodeAt(i) !== 96) {
       i++;
       continue;
@@ -85,7 +85,8 @@ export function scanInline(text: string, start: number, end: number, prose: Pros
 }
 
 const AUTOLINK = /<[A-Za-z][A-Za-z0-9+.-]{1,31}:[^\s<>]{0,2000}>/y;
-const HTML_TAG = /<\/?[A-Za-z][A-Za-z0-9-]{0,40}(?:\s+[A-Za-z_:][A-Za-z0-9_.:-]{0,80}(?:\s*=\s*(?:[^\s"'=<>`]{1,500}|'[^']{0,500}'|"[^"]{0,500}"))?){0,40}\s*\/?>/y;
+const HTML_TAG =
+  /<\/?[A-Za-z][A-Za-z0-9-]{0,40}(?:\s+[A-Za-z_:][A-Za-z0-9_.:-]{0,80}(?:\s*=\s*(?:[^\s"'=<>`]{1,500}|'[^']{0,500}'|"[^"]{0,500}"))?){0,40}\s*\/?>/y;
 
 /** [start, end) of raw HTML tags and autolinks, in order (bounded patterns: no backtracking blow-up). */
 function opaqueRanges(text: string, start: number, end: number): Array<[number, number]> {
@@ -116,7 +117,11 @@ export function addCodeSpan(text: string, s: number, e: number, out: NoteItem[])
   // CommonMark: strip one space (or line ending) from each side if both are present and the content is not all spaces.
   if (b - a >= 2 && isBlank(text.charCodeAt(a)) && isBlank(text.charCodeAt(b - 1))) {
     let allBlank = true;
-    for (let i = a; i < b; i++) if (!isBlank(text.charCodeAt(i))) { allBlank = false; break; }
+    for (let i = a; i < b; i++)
+      if (!isBlank(text.charCodeAt(i))) {
+        allBlank = false;
+        break;
+      }
     if (!allBlank) {
       a += text.charCodeAt(a) === 13 && text.charCodeAt(a + 1) === 10 ? 2 : 1;
       b -= text.charCodeAt(b - 1) === 10 && text.charCodeAt(b - 2) === 13 ? 2 : 1;

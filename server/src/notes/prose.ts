@@ -39,11 +39,21 @@ function trimToken(text: string, start: number, end: number): [number, number] {
     if (e - s === 0) return [s, e];
     const first = text[s];
     const last = text[e - 1];
-    if (LEADING.has(first) && !(first === '(' && balance(t, '(', ')') <= 0) && !(first === '[' && balance(t, '[', ']') <= 0) && !(first === '{' && balance(t, '{', '}') <= 0)) {
+    if (
+      LEADING.has(first) &&
+      !(first === '(' && balance(t, '(', ')') <= 0) &&
+      !(first === '[' && balance(t, '[', ']') <= 0) &&
+      !(first === '{' && balance(t, '{', '}') <= 0)
+    ) {
       s++;
       continue;
     }
-    if (TRAILING.has(last) && !(last === ')' && balance(t, '(', ')') >= 0) && !(last === ']' && balance(t, '[', ']') >= 0) && !(last === '}' && balance(t, '{', '}') >= 0)) {
+    if (
+      TRAILING.has(last) &&
+      !(last === ')' && balance(t, '(', ')') >= 0) &&
+      !(last === ']' && balance(t, '[', ']') >= 0) &&
+      !(last === '}' && balance(t, '{', '}') >= 0)
+    ) {
       // A trailing '.' after a digit may be a hydrate dot only when something follows; at a word end it is punctuation.
       e--;
       continue;
@@ -73,7 +83,11 @@ function countSymbols(items: readonly FormulaItem[]): { tokens: number; elements
 const SIGN_FIRST_LABEL = /^[A-Z][a-z]?[+\-−][0-9]+$/;
 
 /** Verdicts per word and mode (words are at most 80 characters; kept as flat copies, see chem/cache.ts). */
-const verdicts: Record<ProseMode, BoundedCache<boolean>> = { off: new BoundedCache(1, 1024), conservative: new BoundedCache(100_000, 32 * 1024 * 1024), eager: new BoundedCache(100_000, 32 * 1024 * 1024) };
+const verdicts: Record<ProseMode, BoundedCache<boolean>> = {
+  off: new BoundedCache(1, 1024),
+  conservative: new BoundedCache(100_000, 32 * 1024 * 1024),
+  eager: new BoundedCache(100_000, 32 * 1024 * 1024),
+};
 
 /** Is this word (already trimmed) a formula a chemist would recognise? Memoised per word. */
 export function isProseFormula(word: string, mode: ProseMode): boolean {

@@ -10,7 +10,16 @@
  * compares the scanner with markdown-it).
  */
 import { scanInline } from './inline';
-import { DEFAULT_SCAN_OPTIONS, type BatchRef, type LineRef, type NoteItem, type NotesLanguage, type ScanOptions, type ScanResult, type SectionRef } from './types';
+import {
+  DEFAULT_SCAN_OPTIONS,
+  type BatchRef,
+  type LineRef,
+  type NoteItem,
+  type NotesLanguage,
+  type ScanOptions,
+  type ScanResult,
+  type SectionRef,
+} from './types';
 
 export interface Line {
   start: number;
@@ -174,7 +183,14 @@ export function shiftMdBlock(b: MdBlock, by: number, copy: (s: string) => string
   if (b.titleEnd !== undefined) out.titleEnd = b.titleEnd + by;
   if (b.fence) {
     const f = b.fence as Fence & { closed?: boolean };
-    const moved: Fence & { closed?: boolean } = { char: f.char, len: f.len, info: copy(f.info), infoStart: f.infoStart + by, open: shiftLineSpan(f.open, by), lines: f.lines.map((l) => shiftLineSpan(l, by)) };
+    const moved: Fence & { closed?: boolean } = {
+      char: f.char,
+      len: f.len,
+      info: copy(f.info),
+      infoStart: f.infoStart + by,
+      open: shiftLineSpan(f.open, by),
+      lines: f.lines.map((l) => shiftLineSpan(l, by)),
+    };
     if (f.closed !== undefined) moved.closed = f.closed;
     out.fence = moved;
   }
@@ -270,7 +286,14 @@ export function markdownBlocksFrom(text: string, from: number, stopAt?: (pos: nu
       if (para) {
         const lvl = isSetextUnderline(text, l, at);
         if (lvl) {
-          blocks.push({ kind: 'heading', start: para.start, end: l.end, level: lvl, titleStart: indentOf(text, { start: para.start, end: para.end, next: para.end }).at, titleEnd: para.end });
+          blocks.push({
+            kind: 'heading',
+            start: para.start,
+            end: l.end,
+            level: lvl,
+            titleStart: indentOf(text, { start: para.start, end: para.end, next: para.end }).at,
+            titleEnd: para.end,
+          });
           para = undefined;
           pos = l.next;
           continue;
@@ -308,7 +331,12 @@ export function scanMarkdownBlock(text: string, b: MdBlock, options: ScanOptions
       const lead = rest.length - rest.trimStart().length;
       const name = rest.trim();
       const batch: BatchRef = {
-        kind: 'batch', start: b.start, end: b.end, open: lineRef(text, f.open), lines: f.lines.map((l) => lineRef(text, l)), closed: f.closed,
+        kind: 'batch',
+        start: b.start,
+        end: b.end,
+        open: lineRef(text, f.open),
+        lines: f.lines.map((l) => lineRef(text, l)),
+        closed: f.closed,
         ...(name ? { openName: { text: name, start: nameStart + lead, end: nameStart + lead + name.length } } : {}),
       };
       out.push(batch);
@@ -347,7 +375,8 @@ export function scanMarkdown(text: string, options: ScanOptions = DEFAULT_SCAN_O
   const heads: Array<{ title: string; level: number; start: number; headingEnd: number }> = [];
   for (const b of markdownBlocks(text)) {
     scanMarkdownBlock(text, b, options, items);
-    if (b.kind === 'heading') heads.push({ title: text.slice(b.titleStart, b.titleEnd).replace(/\s+/g, ' '), level: b.level as number, start: b.start, headingEnd: b.end });
+    if (b.kind === 'heading')
+      heads.push({ title: text.slice(b.titleStart, b.titleEnd).replace(/\s+/g, ' '), level: b.level as number, start: b.start, headingEnd: b.end });
   }
   return { language: 'markdown', items, sections: headingsToSections(text, heads) };
 }

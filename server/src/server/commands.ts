@@ -21,10 +21,16 @@ export function commandHandler(connection: Connection, workspace: NotesWorkspace
   const apply = async (snap: Snapshot, outcome: EditOutcome, label: string): Promise<CommandResult> => {
     if ('reason' in outcome) return { applied: false, reason: outcome.reason };
     // Without a versioned edit the client cannot refuse a stale one: check here, just before sending.
-    if (!shape.versioned && workspace.versionOf(snap.uri) !== snap.version) return { applied: false, reason: 'the note changed while the table was computed; run the command again' };
+    if (!shape.versioned && workspace.versionOf(snap.uri) !== snap.version)
+      return { applied: false, reason: 'the note changed while the table was computed; run the command again' };
     const r = await connection.workspace.applyEdit({ label, edit: shape.edit(snap, [outcome.edit]) });
     if (r.applied) return { applied: true };
-    return { applied: false, reason: r.failureReason ? `the editor did not apply the table (${r.failureReason})` : 'the editor did not apply the table (the note may have changed; run the command again)' };
+    return {
+      applied: false,
+      reason: r.failureReason
+        ? `the editor did not apply the table (${r.failureReason})`
+        : 'the editor did not apply the table (the note may have changed; run the command again)',
+    };
   };
 
   return async (params: ExecuteCommandParams): Promise<unknown> => {

@@ -28,7 +28,8 @@ export interface GateOptions {
 }
 
 const isRequest = (m: Message): m is RequestMessage => typeof (m as RequestMessage).method === 'string' && 'id' in m && (m as RequestMessage).id !== undefined;
-const isNotification = (m: Message): m is Message & { method: string } => typeof (m as { method?: unknown }).method === 'string' && !('id' in m && (m as RequestMessage).id !== undefined);
+const isNotification = (m: Message): m is Message & { method: string } =>
+  typeof (m as { method?: unknown }).method === 'string' && !('id' in m && (m as RequestMessage).id !== undefined);
 
 /** A reader that lets through only what the lifecycle allows, answering the rest itself. */
 export function lifecycleGate(inner: MessageReader, writer: MessageWriter, options: GateOptions): { reader: MessageReader; lifecycle: Lifecycle } {
@@ -81,7 +82,8 @@ export function lifecycleGate(inner: MessageReader, writer: MessageWriter, optio
             state = 'initializing';
             // A client that sends no capabilities (or no params) has none: say so, rather than fail on it.
             const params = m.params && typeof m.params === 'object' && !Array.isArray(m.params) ? (m.params as Record<string, unknown>) : {};
-            if (!params.capabilities || typeof params.capabilities !== 'object') return deliver({ ...m, params: { processId: null, rootUri: null, ...params, capabilities: {} } } as Message);
+            if (!params.capabilities || typeof params.capabilities !== 'object')
+              return deliver({ ...m, params: { processId: null, rootUri: null, ...params, capabilities: {} } } as Message);
             return deliver(m);
           }
           if (state === 'new') return refuse(m, ErrorCodes.ServerNotInitialized, `${m.method} before initialize: the server is not initialised yet`);

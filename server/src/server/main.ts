@@ -65,7 +65,11 @@ rawReader.onClose(() => process.exit(lifecycle.shutdownReceived ? 0 : 1));
 const connection = createConnection(ProposedFeatures.all, reader, writer, {
   // A request cancelled before it was dispatched is answered at once, without running it.
   connectionStrategy: {
-    cancelUndispatched: (message) => ({ jsonrpc: '2.0', id: (message as unknown as { id: number | string }).id, error: { code: LSPErrorCodes.RequestCancelled, message: 'request cancelled' } }),
+    cancelUndispatched: (message) => ({
+      jsonrpc: '2.0',
+      id: (message as unknown as { id: number | string }).id,
+      error: { code: LSPErrorCodes.RequestCancelled, message: 'request cancelled' },
+    }),
   },
 });
 // Over stdio, stdout is the protocol: anything a library prints goes to the log instead.

@@ -8,7 +8,11 @@ import { ErrorCodes, LSPErrorCodes, ResponseError, type CancellationToken } from
 import type { Position, Range } from '../service/positions';
 
 export const isPosition = (p: unknown): p is Position =>
-  !!p && typeof (p as Position).line === 'number' && typeof (p as Position).character === 'number' && Number.isFinite((p as Position).line) && Number.isFinite((p as Position).character);
+  !!p &&
+  typeof (p as Position).line === 'number' &&
+  typeof (p as Position).character === 'number' &&
+  Number.isFinite((p as Position).line) &&
+  Number.isFinite((p as Position).character);
 export const isRange = (r: unknown): r is Range => !!r && isPosition((r as Range).start) && isPosition((r as Range).end);
 
 export const invalidParams = (message: string) => new ResponseError(ErrorCodes.InvalidParams, message);
@@ -31,7 +35,10 @@ export function positionOf(params: unknown): Position {
 /** One line for the log: the message and where it was thrown, no stack. */
 export function oneLine(e: unknown): string {
   if (!(e instanceof Error)) return String(e);
-  const at = e.stack?.split('\n').find((l) => l.trim().startsWith('at '))?.trim();
+  const at = e.stack
+    ?.split('\n')
+    .find((l) => l.trim().startsWith('at '))
+    ?.trim();
   return `${e.name}: ${e.message.split('\n')[0]}${at ? ` (${at})` : ''}`;
 }
 

@@ -53,7 +53,8 @@ export function startServer(connection: Connection, options: ServerOptions = {})
     get versioned() {
       return versioned;
     },
-    edit: (snap, edits) => (versioned ? { documentChanges: [{ textDocument: { uri: snap.uri, version: snap.version }, edits }] } : { changes: { [snap.uri]: edits } }),
+    edit: (snap, edits) =>
+      versioned ? { documentChanges: [{ textDocument: { uri: snap.uri, version: snap.version }, edits }] } : { changes: { [snap.uri]: edits } },
   };
 
   const validateNow = (uri: string) => {
@@ -144,7 +145,8 @@ export function startServer(connection: Connection, options: ServerOptions = {})
       const uri = uriOf(params);
       if (!isRange(params.range)) throw invalidParams('range must be {start, end} positions');
       const only = params.context?.only as unknown;
-      if (only !== undefined && only !== null && !(Array.isArray(only) && only.every((k) => typeof k === 'string'))) throw invalidParams('context.only must be a list of code action kinds (strings)');
+      if (only !== undefined && only !== null && !(Array.isArray(only) && only.every((k) => typeof k === 'string')))
+        throw invalidParams('context.only must be a list of code action kinds (strings)');
       const snap = workspace.snapshot(uri);
       if (!snap) return null;
       return toLspActions(snap, params.range, (only ?? undefined) as string[] | undefined);
@@ -162,7 +164,10 @@ export function startServer(connection: Connection, options: ServerOptions = {})
     request('codeLens', (params) => {
       const snap = workspace.snapshot(uriOf(params));
       if (!snap) return null;
-      return snap.service.codeLenses(snap.doc).map((l) => ({ range: l.range, command: { title: l.title, command: SERVER_COMMANDS.insertTableAt, arguments: [{ uri: snap.uri, position: l.range.start }] } }));
+      return snap.service.codeLenses(snap.doc).map((l) => ({
+        range: l.range,
+        command: { title: l.title, command: SERVER_COMMANDS.insertTableAt, arguments: [{ uri: snap.uri, position: l.range.start }] },
+      }));
     }),
   );
 

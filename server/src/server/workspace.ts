@@ -70,7 +70,12 @@ export class NotesWorkspace {
     let p = this.settingsRequests.get(uri);
     if (!p) {
       const fetch = this.fetchSettings;
-      p = fetch ? fetch(uri).then((raw) => readSettings(raw), () => this.defaults) : Promise.resolve(this.pushed ?? this.defaults);
+      p = fetch
+        ? fetch(uri).then(
+            (raw) => readSettings(raw),
+            () => this.defaults,
+          )
+        : Promise.resolve(this.pushed ?? this.defaults);
       this.settingsRequests.set(uri, p);
     }
     const s = await p;

@@ -52,11 +52,33 @@ export function quickFixes(doc: AnalysedDocument, start: number, end: number): C
       const target = formulaRangeOf(doc, d);
       if (!target) continue;
       // The title in Unicode notation; the edit in the notation the user wrote (the suggestion as made).
-      suggestions.forEach((sug, k) => out.push({ title: `Replace with ${formulaText(sug)}`, kind: 'quickfix', edits: [{ range: doc.lines.range(target.start, target.end), newText: sug }], fixes, isPreferred: k === 0 }));
+      suggestions.forEach((sug, k) =>
+        out.push({
+          title: `Replace with ${formulaText(sug)}`,
+          kind: 'quickfix',
+          edits: [{ range: doc.lines.range(target.start, target.end), newText: sug }],
+          fixes,
+          isPreferred: k === 0,
+        }),
+      );
     } else if (d.code === 'unknown-element') {
-      suggestions.forEach((sug, k) => out.push({ title: `Change to '${sug}'`, kind: 'quickfix', edits: [{ range: doc.lines.range(d.start, d.end), newText: sug }], fixes, isPreferred: k === 0 && suggestions.length === 1 }));
+      suggestions.forEach((sug, k) =>
+        out.push({
+          title: `Change to '${sug}'`,
+          kind: 'quickfix',
+          edits: [{ range: doc.lines.range(d.start, d.end), newText: sug }],
+          fixes,
+          isPreferred: k === 0 && suggestions.length === 1,
+        }),
+      );
     } else if (d.code === 'unbalanced-equation' && typeof d.data?.balanced === 'string') {
-      out.push({ title: typeof d.data.display === 'string' ? `Balance the equation: ${d.data.display}` : 'Balance the equation', kind: 'quickfix', edits: [{ range: doc.lines.range(d.start, d.end), newText: d.data.balanced as string }], fixes, isPreferred: true });
+      out.push({
+        title: typeof d.data.display === 'string' ? `Balance the equation: ${d.data.display}` : 'Balance the equation',
+        kind: 'quickfix',
+        edits: [{ range: doc.lines.range(d.start, d.end), newText: d.data.balanced as string }],
+        fixes,
+        isPreferred: true,
+      });
     }
   }
   return out;
@@ -142,7 +164,12 @@ export function tableEditAt(doc: AnalysedDocument, offset: number): EditOutcome 
   const block = blockAround(doc, offset);
   if (!block || offset > block.end) return { reason: 'there are no formulas here to tabulate' };
   const formulas = formulasIn(doc, block.start, block.end + 1);
-  const table = formulas.length ? formulaTable(formulas.map((f) => f.analysis), doc.settings) : '';
+  const table = formulas.length
+    ? formulaTable(
+        formulas.map((f) => f.analysis),
+        doc.settings,
+      )
+    : '';
   if (!table) return { reason: 'there are no formulas here to tabulate' };
   const outcome = insertAfterBlock(doc, block.start, table);
   return 'edit' in outcome ? { ...outcome, title: 'Insert a table of these formulas below the paragraph' } : outcome;
@@ -152,7 +179,10 @@ export function tableEditAt(doc: AnalysedDocument, offset: number): EditOutcome 
 export function tableEditForSelection(doc: AnalysedDocument, start: number, end: number): EditOutcome {
   if (end > start) {
     const formulas = formulasIn(doc, start, end);
-    const table = formulaTable(formulas.map((f) => f.analysis), doc.settings);
+    const table = formulaTable(
+      formulas.map((f) => f.analysis),
+      doc.settings,
+    );
     if (!table) return { reason: 'there are no formulas in the selection to tabulate' };
     // After the block where the selection ends: a selection ending mid-paragraph does not split it.
     return insertAfterBlock(doc, Math.max(start, end - 1), table);

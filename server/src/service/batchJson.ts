@@ -32,10 +32,18 @@ export function batchJson(doc: AnalysedDocument, b: BatchOccurrence) {
       ions: i.ions.map((x) => ({ ion: x.key, count: x.count, charge: x.charge })),
       ...(i.undissociated ? { undissociated: i.undissociated } : {}),
       cautions: i.cautions.map((c) => c.text),
-      ...(i.solubility ? { solubility: {
-        salt: i.solubility.row.formula, gPer100gWater: i.solubility.row.gPer100gWater, temperatureC: i.solubility.row.temperatureC,
-        per100gWaterEstimate: r(i.solubility.per100gWater, 6), exceeds: i.solubility.exceeds, source: i.solubility.row.source,
-      } } : {}),
+      ...(i.solubility
+        ? {
+            solubility: {
+              salt: i.solubility.row.formula,
+              gPer100gWater: i.solubility.row.gPer100gWater,
+              temperatureC: i.solubility.row.temperatureC,
+              per100gWaterEstimate: r(i.solubility.per100gWater, 6),
+              exceeds: i.solubility.exceeds,
+              source: i.solubility.row.source,
+            },
+          }
+        : {}),
     })),
     /** Every non-blank line that is not counted: 0-based document line, the line as written, why. */
     skipped: a.skipped.map((l) => ({

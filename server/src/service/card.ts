@@ -30,13 +30,25 @@ export interface CardJson {
   alloyDesignation: { base: string; baseMassPercent: number; components: Array<{ element: string; massPercent: number | null; note?: string }> } | null;
   chargeBalance: { balanced: boolean; message: string; suggestions: string[] };
   bond: {
-    pair: [string, string]; deltaEN: number; type: string; percentIonic: number; note?: string;
-    betweenIons?: { cation: string; anion: string; type: 'ionic' }; pairWithin?: string;
+    pair: [string, string];
+    deltaEN: number;
+    type: string;
+    percentIonic: number;
+    note?: string;
+    betweenIons?: { cation: string; anion: string; type: 'ionic' };
+    pairWithin?: string;
     within?: Array<{ ion: string; pair: [string, string]; deltaEN: number; type: string; percentIonic: number }>;
   } | null;
   latticeEnergy: {
-    kJPerMol: number; method: string; inputs: Record<string, unknown>; alternatives: Array<{ method: string; kJPerMol: number }>;
-    estimate: boolean; typicalError: string; salt: string; meltingPointC: number | null; meltingPointSource: string | null;
+    kJPerMol: number;
+    method: string;
+    inputs: Record<string, unknown>;
+    alternatives: Array<{ method: string; kJPerMol: number }>;
+    estimate: boolean;
+    typicalError: string;
+    salt: string;
+    meltingPointC: number | null;
+    meltingPointSource: string | null;
   } | null;
   /** Why `latticeEnergy` is null, where the substance is molecular: `{reason, text, stateAt25C, …}`; null otherwise. */
   latticeEnergyNote: { reason: string; text: string; stateAt25C: string | null; meltingPointC: number | null; boilingPointC: number | null } | null;
@@ -71,7 +83,9 @@ export function cardJson(a: FormulaAnalysis): CardJson {
       : { balanced: false, message: 'The formula could not be read.', suggestions: [] },
     bond: a.bond
       ? {
-          ...a.bond, deltaEN: round(a.bond.deltaEN, 3), percentIonic: round(a.bond.percentIonic, 1),
+          ...a.bond,
+          deltaEN: round(a.bond.deltaEN, 3),
+          percentIonic: round(a.bond.percentIonic, 1),
           ...(a.bond.within ? { within: a.bond.within.map((w) => ({ ...w, deltaEN: round(w.deltaEN, 3), percentIonic: round(w.percentIonic, 1) })) } : {}),
         }
       : null,
@@ -88,12 +102,16 @@ export function cardJson(a: FormulaAnalysis): CardJson {
           meltingPointSource: a.lattice.meltingPointSource ?? null,
         }
       : null,
-    latticeEnergyNote: !a.lattice && a.latticeWithheld
-      ? {
-          reason: a.latticeWithheld.reason, text: a.latticeWithheld.text, stateAt25C: a.latticeWithheld.stateAt25C ?? null,
-          meltingPointC: a.latticeWithheld.meltingPointC ?? null, boilingPointC: a.latticeWithheld.boilingPointC ?? null,
-        }
-      : null,
+    latticeEnergyNote:
+      !a.lattice && a.latticeWithheld
+        ? {
+            reason: a.latticeWithheld.reason,
+            text: a.latticeWithheld.text,
+            stateAt25C: a.latticeWithheld.stateAt25C ?? null,
+            meltingPointC: a.latticeWithheld.meltingPointC ?? null,
+            boilingPointC: a.latticeWithheld.boilingPointC ?? null,
+          }
+        : null,
     diagnostics: (() => {
       const lines = new LineIndex(a.input);
       return a.diagnostics.map((d) => toLsp(lines, d));
@@ -157,28 +175,43 @@ export function cardText(a: FormulaAnalysis, settings: ServiceSettings = DEFAULT
   }
   const mm = a.molarMass;
   out.push(`${a.display}   (Hill: ${a.hill}${a.charge ? `, charge ${signed(a.charge)}` : ''})`);
-  out.push(`  molar mass      ${fixed(mm.value, settings.decimals + 1)}${mm.uncertainty !== null ? ` ± ${mm.uncertainty.toPrecision(1)}` : ' (nominal)'} g/mol`);
+  out.push(
+    `  molar mass      ${fixed(mm.value, settings.decimals + 1)}${mm.uncertainty !== null ? ` ± ${mm.uncertainty.toPrecision(1)}` : ' (nominal)'} g/mol`,
+  );
   out.push(`  composition     ${a.composition.map((c) => `${c.element} ${percent(c.massFraction, 2)}`).join(', ')}`);
   if (a.charges) {
     const bySite = sitesText(a);
-    const split = new Set((a.charges.sites ?? []).filter((x, _, all) => all.some((y) => y.element === x.element && Math.abs(y.state - x.state) > 1e-9)).map((x) => x.element));
+    const split = new Set(
+      (a.charges.sites ?? []).filter((x, _, all) => all.some((y) => y.element === x.element && Math.abs(y.state - x.state) > 1e-9)).map((x) => x.element),
+    );
     const states = a.charges.oxidationStates;
-    const line = states ? Object.entries(states).map(([el, v]) => `${el} ${signed(v)}${split.has(el) ? ' (average of its sites)' : ''}`).join(', ') : 'not assigned';
+    const line = states
+      ? Object.entries(states)
+          .map(([el, v]) => `${el} ${signed(v)}${split.has(el) ? ' (average of its sites)' : ''}`)
+          .join(', ')
+      : 'not assigned';
     out.push(`  oxidation       ${line}`);
     if (bySite) out.push(`  by site         ${bySite}`);
     for (const r of undeterminedText(a)) out.push(`                  ${r}`);
-    out.push(`  charge balance  ${a.charges.balanced ? '' : 'NOT BALANCED: '}${a.charges.message}${a.charges.suggestions.length ? ` Try: ${a.charges.suggestions.map((x) => `${formulaText(x)}${formulaText(x) === x ? '' : ` (${x})`}`).join(', ')}` : ''}`);
+    out.push(
+      `  charge balance  ${a.charges.balanced ? '' : 'NOT BALANCED: '}${a.charges.message}${a.charges.suggestions.length ? ` Try: ${a.charges.suggestions.map((x) => `${formulaText(x)}${formulaText(x) === x ? '' : ` (${x})`}`).join(', ')}` : ''}`,
+    );
   }
   if (a.bond) {
     const between = a.bond.betweenIons && a.bond.pairWithin ? `ionic between ${a.bond.betweenIons.cation} and ${a.bond.betweenIons.anion}; ` : '';
-    out.push(`  bonding         ${between}${a.bond.type} (ΔEN ${a.bond.pair.join('–')} = ${a.bond.deltaEN.toFixed(2)}, ${a.bond.percentIonic.toFixed(0)} % ionic)`);
+    out.push(
+      `  bonding         ${between}${a.bond.type} (ΔEN ${a.bond.pair.join('–')} = ${a.bond.deltaEN.toFixed(2)}, ${a.bond.percentIonic.toFixed(0)} % ionic)`,
+    );
   }
   if (a.lattice) {
     const L = a.lattice;
-    out.push(`  lattice energy  ${L.estimate ? '≈ ' : ''}${energy(L.kJPerMol, settings)} — ${L.method}${a.formula && a.formula.parts.length > 1 ? ` (for ${formulaText(L.salt)})` : ''}; ${L.typicalError}`);
+    out.push(
+      `  lattice energy  ${L.estimate ? '≈ ' : ''}${energy(L.kJPerMol, settings)} — ${L.method}${a.formula && a.formula.parts.length > 1 ? ` (for ${formulaText(L.salt)})` : ''}; ${L.typicalError}`,
+    );
     for (const alt of L.alternatives) out.push(`                  ${alt.method}: ${energy(alt.kJPerMol, settings)}`);
     if (L.meltingPointC !== undefined) out.push(`  melting point   ${L.meltingPointC} °C (${L.meltingPointSource})`);
-  } else if (a.latticeWithheld) out.push(`  lattice energy  none — ${a.latticeWithheld.text.replace(/^No lattice energy(?: \(([^)]*)\))?: /, (_, x) => (x ? `${x}: ` : ''))}`);
+  } else if (a.latticeWithheld)
+    out.push(`  lattice energy  none — ${a.latticeWithheld.text.replace(/^No lattice energy(?: \(([^)]*)\))?: /, (_, x) => (x ? `${x}: ` : ''))}`);
   for (const d of a.diagnostics) out.push(`  ${d.severity} [${d.code}]: ${d.message}`);
   return out.join('\n');
 }

@@ -126,7 +126,10 @@ const balanceText = (a: FormulaAnalysis) => (a.charges ? (a.charges.balanced ? '
 export function formulaColumns(s: ServiceSettings): Column<FormulaAnalysis>[] {
   return [
     {
-      key: 'formula', head: 'Formula', align: 'left', text: (a) => a.display,
+      key: 'formula',
+      head: 'Formula',
+      align: 'left',
+      text: (a) => a.display,
       html: (a) => {
         const c = cautionsFor(a);
         return html`${formulaSpan(a, s)}${c.length ? html` <span class="iw-caution-mark" title="${`caution: ${c.map((x) => x.text).join('; ')}`}">⚠</span>` : ''}`;
@@ -139,7 +142,10 @@ export function formulaColumns(s: ServiceSettings): Column<FormulaAnalysis>[] {
     { key: 'lattice', head: 'Lattice energy', align: 'left', text: (a) => latticeText(a, s), html: (a) => latticeHtml(a, s) },
     { key: 'oxidation', head: 'Oxidation states', align: 'left', text: (a) => (a.charges?.oxidationStates ? oxidationText(a.charges.oxidationStates) : DASH) },
     {
-      key: 'balance', head: 'Charge balance', align: 'left', text: balanceText,
+      key: 'balance',
+      head: 'Charge balance',
+      align: 'left',
+      text: balanceText,
       html: (a) => (a.charges && !a.charges.balanced ? html`<span class="iw-formula iw-warning">not balanced</span>: ${a.charges.message}` : balanceText(a)),
     },
   ];
@@ -174,8 +180,14 @@ export function batchColumns(b: BatchAnalysis, s: ServiceSettings, cell?: (i: In
   const n = (f: (i: Ingredient) => string) => (r: BatchRow) => (r.ingredient ? f(r.ingredient) : '');
   const cols: Column<BatchRow>[] = [
     {
-      key: 'ingredient', head: 'Ingredient', align: 'left', text: (r) => (r.ingredient ? r.ingredient.formula : r.skipped.text),
-      html: (r) => (r.ingredient ? html`${r.ingredient.analysis.ok ? formulaSpan(r.ingredient.analysis, s) : r.ingredient.formulaText}${cell?.(r.ingredient)}` : html`<code>${r.skipped.text}</code>`),
+      key: 'ingredient',
+      head: 'Ingredient',
+      align: 'left',
+      text: (r) => (r.ingredient ? r.ingredient.formula : r.skipped.text),
+      html: (r) =>
+        r.ingredient
+          ? html`${r.ingredient.analysis.ok ? formulaSpan(r.ingredient.analysis, s) : r.ingredient.formulaText}${cell?.(r.ingredient)}`
+          : html`<code>${r.skipped.text}</code>`,
     },
     { key: 'amount', head: 'Amount', align: 'left', text: n(amountText) },
     { key: 'molarMass', head: 'Molar mass (g/mol)', align: 'right', text: n((i) => molarMassText(i.molarMass, s)) },

@@ -4,7 +4,8 @@ import { DEFAULT_PREVIEW_OPTIONS, type PreviewOptions } from './preview';
 import { DEFAULT_SETTINGS, type ServiceSettings } from './settings';
 
 const num = (v: unknown, lo: number, hi: number, dflt: number) => (typeof v === 'number' && Number.isFinite(v) && v >= lo && v <= hi ? v : dflt);
-const oneOf = <T extends string>(v: unknown, allowed: readonly T[], dflt: T): T => (typeof v === 'string' && (allowed as readonly string[]).includes(v) ? (v as T) : dflt);
+const oneOf = <T extends string>(v: unknown, allowed: readonly T[], dflt: T): T =>
+  typeof v === 'string' && (allowed as readonly string[]).includes(v) ? (v as T) : dflt;
 
 export interface ServerSettings {
   service: ServiceSettings;
@@ -24,7 +25,7 @@ function intern(s: ServiceSettings): ServiceSettings {
 }
 
 export function readSettings(raw: unknown): ServerSettings {
-  const r = (raw && typeof raw === 'object' ? raw : {}) as Record<string, any>;
+  const r = (raw && typeof raw === 'object' ? raw : {}) as Record<string, unknown>;
   const bond = (r.bond && typeof r.bond === 'object' ? r.bond : {}) as Record<string, unknown>;
   const lattice = (r.lattice && typeof r.lattice === 'object' ? r.lattice : {}) as Record<string, unknown>;
   const validation = (r.validation && typeof r.validation === 'object' ? r.validation : {}) as Record<string, unknown>;
@@ -53,7 +54,7 @@ export function readSettings(raw: unknown): ServerSettings {
 
 /** `ionwright.*` configuration → the options of the Markdown preview plugin (`preview.typesetFormulas`). */
 export function readPreviewOptions(raw: unknown): PreviewOptions {
-  const r = (raw && typeof raw === 'object' ? raw : {}) as Record<string, any>;
+  const r = (raw && typeof raw === 'object' ? raw : {}) as Record<string, unknown>;
   const preview = (r.preview && typeof r.preview === 'object' ? r.preview : {}) as Record<string, unknown>;
   const typesetFormulas = typeof preview.typesetFormulas === 'boolean' ? preview.typesetFormulas : DEFAULT_PREVIEW_OPTIONS.typesetFormulas;
   return { typesetFormulas, settings: readSettings(raw).service };

@@ -103,8 +103,14 @@ function analyseItems(items: readonly NoteItem[], language: NotesLanguage, setti
       diagnostics.push(...analysis.diagnostics);
       if (!item.closed) {
         diagnostics.push({
-          code: 'batch-unclosed', severity: 'warning', start: item.open.start, end: item.open.end,
-          message: language === 'fnote' ? "This batch has no 'end' line; it runs to the end of the file." : 'This batch block is never closed; it runs to the end of the document.',
+          code: 'batch-unclosed',
+          severity: 'warning',
+          start: item.open.start,
+          end: item.open.end,
+          message:
+            language === 'fnote'
+              ? "This batch has no 'end' line; it runs to the end of the file."
+              : 'This batch block is never closed; it runs to the end of the document.',
         });
       }
     }
@@ -130,12 +136,16 @@ function analyseBlock(own: string, b: Span, language: NotesLanguage, settings: S
     const h = scan.sections[0];
     r = analyseItems(scan.items, language, settings, h ? { title: h.title, level: h.level, start: h.start, headingEnd: h.headingEnd } : undefined);
   } else {
-    const md: MdBlock = b.kind === 'chunk-first' ? { kind: 'paragraph', start: 0, end: own.length } : { ...shiftMdBlock(b as MdBlock, -b.start, detach), ...(b.kind === 'heading-long' ? { kind: 'heading' as const } : {}) };
+    const md: MdBlock =
+      b.kind === 'chunk-first'
+        ? { kind: 'paragraph', start: 0, end: own.length }
+        : { ...shiftMdBlock(b as MdBlock, -b.start, detach), ...(b.kind === 'heading-long' ? { kind: 'heading' as const } : {}) };
     const items: NoteItem[] = [];
     scanMarkdownBlock(own, md, options, items);
-    const heading = md.kind === 'heading'
-      ? { title: own.slice(md.titleStart, md.titleEnd).replace(/\s+/g, ' '), level: md.level as number, start: 0, headingEnd: own.length }
-      : undefined;
+    const heading =
+      md.kind === 'heading'
+        ? { title: own.slice(md.titleStart, md.titleEnd).replace(/\s+/g, ' '), level: md.level as number, start: 0, headingEnd: own.length }
+        : undefined;
     r = analyseItems(items, language, settings, heading);
   }
   if (b.kind === 'chunk-first' || b.kind === 'heading-long') r.diagnostics.unshift(longBlockNotice(own));
@@ -144,9 +154,22 @@ function analyseBlock(own: string, b: Span, language: NotesLanguage, settings: S
 
 const shiftLine = (x: LineRef, by: number): LineRef => ({ text: x.text, start: x.start + by, end: x.end + by });
 const shiftFormulaRef = (x: FormulaRef, by: number): FormulaRef => ({ kind: 'formula', text: x.text, start: x.start + by, end: x.end + by, source: x.source });
-const shiftReactionRef = (x: ReactionRef, by: number): ReactionRef => ({ kind: 'reaction', text: x.text, start: x.start + by, end: x.end + by, source: x.source });
+const shiftReactionRef = (x: ReactionRef, by: number): ReactionRef => ({
+  kind: 'reaction',
+  text: x.text,
+  start: x.start + by,
+  end: x.end + by,
+  source: x.source,
+});
 const shiftBatchRef = (r: BatchRef, by: number): BatchRef => {
-  const out: BatchRef = { kind: 'batch', start: r.start + by, end: r.end + by, open: shiftLine(r.open, by), lines: r.lines.map((l) => shiftLine(l, by)), closed: r.closed };
+  const out: BatchRef = {
+    kind: 'batch',
+    start: r.start + by,
+    end: r.end + by,
+    open: shiftLine(r.open, by),
+    lines: r.lines.map((l) => shiftLine(l, by)),
+    closed: r.closed,
+  };
   if (r.openName) out.openName = shiftLine(r.openName, by);
   return out;
 };
@@ -160,17 +183,26 @@ export function shiftBatch(b: BatchOccurrence, by: number): BatchOccurrence {
       ...a,
       diagnostics: a.diagnostics.map((d) => shiftDiagnostic(d, by)),
       ingredients: a.ingredients.map((i) => ({
-        ...i, lineStart: i.lineStart + by, lineEnd: i.lineEnd + by, formulaStart: i.formulaStart + by, formulaEnd: i.formulaEnd + by, amount: { ...i.amount, start: i.amount.start + by, end: i.amount.end + by },
+        ...i,
+        lineStart: i.lineStart + by,
+        lineEnd: i.lineEnd + by,
+        formulaStart: i.formulaStart + by,
+        formulaEnd: i.formulaEnd + by,
+        amount: { ...i.amount, start: i.amount.start + by, end: i.amount.end + by },
       })),
       skipped: a.skipped.map((l) => ({
-        ...l, lineStart: l.lineStart + by, lineEnd: l.lineEnd + by, ...(l.formulaStart !== undefined ? { formulaStart: l.formulaStart + by, formulaEnd: (l.formulaEnd as number) + by } : {}),
+        ...l,
+        lineStart: l.lineStart + by,
+        lineEnd: l.lineEnd + by,
+        ...(l.formulaStart !== undefined ? { formulaStart: l.formulaStart + by, formulaEnd: (l.formulaEnd as number) + by } : {}),
       })),
     },
   };
 }
 
 export const shiftFormula = (f: FormulaOccurrence, by: number): FormulaOccurrence => (by === 0 ? f : { ref: shiftFormulaRef(f.ref, by), analysis: f.analysis });
-export const shiftReaction = (r: ReactionOccurrence, by: number): ReactionOccurrence => (by === 0 ? r : { ref: shiftReactionRef(r.ref, by), analysis: r.analysis });
+export const shiftReaction = (r: ReactionOccurrence, by: number): ReactionOccurrence =>
+  by === 0 ? r : { ref: shiftReactionRef(r.ref, by), analysis: r.analysis };
 export { shiftDiagnostic };
 
 /**
@@ -185,7 +217,8 @@ export function newBlockCache(textLength: number): BlockCache {
 }
 
 /** Estimated bytes held by a block result (its items and their analyses are shared and counted roughly). */
-const resultBytes = (own: string, r: BlockResult) => 2 * own.length + 256 * (r.formulas.length + r.reactions.length + r.diagnostics.length) + 4096 * r.batches.length;
+const resultBytes = (own: string, r: BlockResult) =>
+  2 * own.length + 256 * (r.formulas.length + r.reactions.length + r.diagnostics.length) + 4096 * r.batches.length;
 
 function blockResult(text: string, b: Span, language: NotesLanguage, settings: ServiceSettings, cache: BlockCache): PlacedBlock {
   const { start, end, kind } = b;
@@ -222,7 +255,10 @@ function longBlockNotice(own: string): ChemDiagnostic {
   let end = 0;
   while (end < own.length && end < 200 && own.charCodeAt(end) !== 10 && own.charCodeAt(end) !== 13) end++;
   return {
-    code: 'long-paragraph', severity: 'information', start: 0, end: Math.max(1, end),
+    code: 'long-paragraph',
+    severity: 'information',
+    start: 0,
+    end: Math.max(1, end),
     message: `This paragraph is longer than ${LONG_BLOCK.toLocaleString('en-US')} characters, so it is read in pieces of ${PIECE_MIN / 1024}–${PIECE_MAX / 1024} thousand characters: a code span that runs across two pieces is not read as one. Blank lines between paragraphs avoid this.`,
   };
 }
@@ -262,7 +298,14 @@ function pieces(text: string, block: Span): Span[] {
   if (block.kind === 'heading') {
     const h = block as MdBlock;
     const first = out[0];
-    out[0] = { kind: 'heading-long', start: first.start, end: first.end, level: h.level, titleStart: h.titleStart, titleEnd: Math.min(h.titleEnd as number, first.end) } as unknown as Span;
+    out[0] = {
+      kind: 'heading-long',
+      start: first.start,
+      end: first.end,
+      level: h.level,
+      titleStart: h.titleStart,
+      titleEnd: Math.min(h.titleEnd as number, first.end),
+    } as unknown as Span;
   }
   return out;
 }
@@ -341,7 +384,8 @@ class Doc implements AnalysedDocument {
   get sections(): SectionRef[] {
     if (this.cache.s) return this.cache.s;
     const heads: NonNullable<BlockResult['heading']>[] = [];
-    for (const b of this.blocks) if (b.rel.heading) heads.push({ ...b.rel.heading, start: b.rel.heading.start + b.start, headingEnd: b.rel.heading.headingEnd + b.start });
+    for (const b of this.blocks)
+      if (b.rel.heading) heads.push({ ...b.rel.heading, start: b.rel.heading.start + b.start, headingEnd: b.rel.heading.headingEnd + b.start });
     return (this.cache.s = heads.map((h, k) => ({ ...h, end: k + 1 < heads.length ? heads[k + 1].start : this.text.length })));
   }
 
@@ -384,7 +428,12 @@ class Doc implements AnalysedDocument {
  * Analyse a whole document. Its block cache is its own unless one is handed in (the preview shares one
  * across renders of the same settings); `updateDocument` hands it on to the next version.
  */
-export function analyseDocument(text: string, language: NotesLanguage, settings: ServiceSettings = DEFAULT_SETTINGS, cache: BlockCache = newBlockCache(text.length)): AnalysedDocument {
+export function analyseDocument(
+  text: string,
+  language: NotesLanguage,
+  settings: ServiceSettings = DEFAULT_SETTINGS,
+  cache: BlockCache = newBlockCache(text.length),
+): AnalysedDocument {
   const { blocks } = split(text, language, 0);
   const results = blocks.map((b) => blockResult(text, b, language, settings, cache));
   return new Doc(text, language, settings, results, new LineIndex(text), cache);
@@ -467,7 +516,10 @@ export function updateDocument(prev: AnalysedDocument, text: string, hint: Chang
   const cache = (prev as Doc).blockCache ?? newBlockCache(text.length);
   const fresh = blocks.map((b) => blockResult(text, b, language, settings, cache));
   const kept = old.slice(0, i0);
-  const moved = stoppedAt !== null && resumeAt >= 0 ? old.slice(resumeAt).map((b) => (delta === 0 ? b : { start: b.start + delta, end: b.end + delta, rel: b.rel, cont: b.cont, open: b.open })) : [];
+  const moved =
+    stoppedAt !== null && resumeAt >= 0
+      ? old.slice(resumeAt).map((b) => (delta === 0 ? b : { start: b.start + delta, end: b.end + delta, rel: b.rel, cont: b.cont, open: b.open }))
+      : [];
   const lines = prev.lines.update(text, hint.start, hint.oldEnd, hint.newEnd);
   return new Doc(text, language, settings, kept.concat(fresh, moved), lines, cache);
 }

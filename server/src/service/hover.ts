@@ -33,7 +33,6 @@ function cautionBlock(cautions: readonly Caution[]): string[] {
   return [texts.length === 1 ? `⚠ ${esc(texts[0])}.` : texts.map((t) => `⚠ ${esc(t)}`).join('  \n'), '', `_${CAUTION_FOOTNOTE}_`, ''];
 }
 
-
 function latticeLine(a: FormulaAnalysis, s: ServiceSettings): string | undefined {
   const L = a.lattice;
   if (!L) return undefined;
@@ -41,10 +40,26 @@ function latticeLine(a: FormulaAnalysis, s: ServiceSettings): string | undefined
   return `Lattice energy ${L.estimate ? '≈ ' : ''}**${energy(L.kJPerMol, s)}**${forSalt} — ${L.method}${L.estimate ? ' (estimate)' : ''}${L.meltingPointC !== undefined ? ` · mp ${L.meltingPointC} °C` : ''}`;
 }
 
+/** The inputs a lattice method records (each method records the ones it used). */
+interface LatticeInputView {
+  charges?: { cation: number; anion: number };
+  radii?: { cation: number; anion: number };
+  r0?: number;
+  nu?: number;
+  madelung?: number;
+  structure?: string;
+  bornExponent?: number;
+  formationEnthalpy?: number;
+  ionisationEnergies?: number[];
+  electronAffinity?: number;
+  radiusSources?: { cation: string; anion: string };
+  source?: string;
+}
+
 function latticeInputs(a: FormulaAnalysis, s: ServiceSettings): string[] {
   const L = a.lattice;
   if (!L) return [];
-  const i = L.inputs as Record<string, any>;
+  const i = L.inputs as LatticeInputView;
   const bits: string[] = [];
   if (i.charges) bits.push(`z₊ ${signed(i.charges.cation)}, z₋ ${signed(i.charges.anion)}`);
   if (i.radii) bits.push(`r₊ ${i.radii.cation} Å, r₋ ${i.radii.anion} Å`);
@@ -52,7 +67,8 @@ function latticeInputs(a: FormulaAnalysis, s: ServiceSettings): string[] {
   if (i.nu) bits.push(`ν ${i.nu}`);
   if (i.madelung) bits.push(`M ${i.madelung} (${i.structure})`);
   if (i.bornExponent) bits.push(`n ${i.bornExponent}`);
-  if (i.formationEnthalpy !== undefined) bits.push(`ΔfH° ${signed(i.formationEnthalpy)} kJ/mol, IE ${i.ionisationEnergies.join(' + ')}, EA ${i.electronAffinity}`);
+  if (i.formationEnthalpy !== undefined)
+    bits.push(`ΔfH° ${signed(i.formationEnthalpy)} kJ/mol, IE ${(i.ionisationEnergies ?? []).join(' + ')}, EA ${i.electronAffinity}`);
   const out = [`Inputs: ${bits.join(' · ')}`];
   if (i.radiusSources) out.push(`Radii: ${i.radiusSources.cation}; ${i.radiusSources.anion}`);
   if (i.source) out.push(`Data: ${i.source}`);
@@ -83,7 +99,15 @@ export function formulaCardMarkdown(a: FormulaAnalysis, s: ServiceSettings): str
   }
   const designation = designationText(a);
   if (designation) {
-    return [`**${esc(a.input)}** · alloy designation`, '', `Nominal composition: **${esc(designation)}**`, '', '---', '', esc('The numbers of a designation are mass percent, the base metal the balance; it is not a chemical formula, so no charge balance applies.')].join('\n');
+    return [
+      `**${esc(a.input)}** · alloy designation`,
+      '',
+      `Nominal composition: **${esc(designation)}**`,
+      '',
+      '---',
+      '',
+      esc('The numbers of a designation are mass percent, the base metal the balance; it is not a chemical formula, so no charge balance applies.'),
+    ].join('\n');
   }
   const mm = a.molarMass;
   const name = nameOf(a);
@@ -93,12 +117,16 @@ export function formulaCardMarkdown(a: FormulaAnalysis, s: ServiceSettings): str
   if (c) {
     if (!c.balanced) lines.push(`⚠ **Not charge-balanced:** ${esc(c.message)}${tryText(c.suggestions)}`, '');
     else if (c.message) lines.push(`${c.basis === 'ionic' ? '✓ ' : ''}${esc(c.message)}`, '');
-    if (c.oxidationStates && Object.keys(c.oxidationStates).length) lines.push(`Oxidation states: ${oxidationText(c.oxidationStates)}${c.mixedValence.length ? ' (averages: mixed valence)' : ''}`, '');
+    if (c.oxidationStates && Object.keys(c.oxidationStates).length)
+      lines.push(`Oxidation states: ${oxidationText(c.oxidationStates)}${c.mixedValence.length ? ' (averages: mixed valence)' : ''}`, '');
   }
   lines.push(`Composition: ${a.composition.map((x) => `${x.element} ${percent(x.massFraction, 2)}`).join(', ')}`, '');
   if (a.bond) {
     const between = a.bond.betweenIons && a.bond.pairWithin ? `**ionic** between ${esc(a.bond.betweenIons.cation)} and ${esc(a.bond.betweenIons.anion)}; ` : '';
-    lines.push(`Bonding: ${between}**${a.bond.type}** — ΔEN ${a.bond.pair.join('–')} ${a.bond.deltaEN.toFixed(2)}, ${a.bond.percentIonic.toFixed(0)} % ionic`, '');
+    lines.push(
+      `Bonding: ${between}**${a.bond.type}** — ΔEN ${a.bond.pair.join('–')} ${a.bond.deltaEN.toFixed(2)}, ${a.bond.percentIonic.toFixed(0)} % ionic`,
+      '',
+    );
   }
   const lat = latticeLine(a, s);
   if (lat) lines.push(lat, '');
@@ -109,7 +137,9 @@ export function formulaCardMarkdown(a: FormulaAnalysis, s: ServiceSettings): str
   const bySite = sitesText(a);
   if (bySite) detail.push(`By site: ${bySite}`);
   for (const r of undeterminedText(a)) detail.push(`No state given for ${r}`);
-  detail.push(`Hill ${a.hill} · ± ${mm.uncertainty === null ? '— (no standard atomic weight for ' + mm.nominal.join(', ') + ')' : mm.uncertainty.toPrecision(1)} g/mol (CIAAW 2021 weights)`);
+  detail.push(
+    `Hill ${a.hill} · ± ${mm.uncertainty === null ? '— (no standard atomic weight for ' + mm.nominal.join(', ') + ')' : mm.uncertainty.toPrecision(1)} g/mol (CIAAW 2021 weights)`,
+  );
   if (a.bond?.note) detail.push(a.bond.note);
   detail.push(...latticeInputs(a, s));
   lines.push(detail.map((d) => esc(d)).join('  \n'));
@@ -125,7 +155,7 @@ export function perLitre(i: Ingredient, volumeL: number | null): { salt: number;
   if (volumeL === null || !(volumeL > 0) || i.moles === null) return undefined;
   const metals = Object.entries(i.analysis.atoms)
     .filter(([el, n]) => isMetal(el) && Number.isFinite(n) && n > 0)
-    .map(([el, n]) => ({ element: el, gPerL: (i.moles as number) * n * (element(el)?.mass ?? 0) / volumeL }))
+    .map(([el, n]) => ({ element: el, gPerL: ((i.moles as number) * n * (element(el)?.mass ?? 0)) / volumeL }))
     // In the order the formula names them (KAl(SO4)2: K, then Al).
     .map((m) => ({ m, at: i.analysis.ascii.search(new RegExp(`${m.element}(?![a-z])`)) }))
     .sort((x, y) => x.at - y.at)
@@ -147,14 +177,28 @@ function ingredientMarkdown(i: Ingredient, b: BatchAnalysis, s: ServiceSettings)
     const metals = pl.metals.filter((m) => Object.keys(i.analysis.atoms).length > 1 && m.gPerL > 0);
     lines.push(`**${perLitreText(pl.salt)}** ${esc(i.formula)}${metals.map((m) => ` · **${perLitreText(m.gPerL)}** ${m.element}`).join('')}`, '');
   }
-  lines.push(i.ions.length ? `Dissociates to ${i.ions.map((x) => `${x.count === 1 ? '' : x.count + ' '}${x.ion}`).join(' + ')}` : `Not split into ions (${i.undissociated ?? 'undissociated'})`, '');
-  lines.push(`Molar mass ${molarMassText(i.molarMass, s)} g/mol${i.analysis.formula && i.analysis.formula.parts.length > 1 ? ' (hydrate water included)' : ''}`);
+  lines.push(
+    i.ions.length
+      ? `Dissociates to ${i.ions.map((x) => `${x.count === 1 ? '' : x.count + ' '}${x.ion}`).join(' + ')}`
+      : `Not split into ions (${i.undissociated ?? 'undissociated'})`,
+    '',
+  );
+  lines.push(
+    `Molar mass ${molarMassText(i.molarMass, s)} g/mol${i.analysis.formula && i.analysis.formula.parts.length > 1 ? ' (hydrate water included)' : ''}`,
+  );
   const sol = i.solubility;
   if (sol) {
     const here = sol.per100gWater === null ? 'no water left by the estimate' : `about ${sig(sol.per100gWater, 3)} g per 100 g water here (estimate)`;
-    lines.push('', `${sol.exceeds ? '⚠ ' : ''}Solubility of ${esc(sol.salt)} in water: ${sig(sol.row.gPer100gWater, 3)} g per 100 g water at ${sol.row.temperatureC} °C — ${esc(sol.row.source)}; ${here}.`);
+    lines.push(
+      '',
+      `${sol.exceeds ? '⚠ ' : ''}Solubility of ${esc(sol.salt)} in water: ${sig(sol.row.gPer100gWater, 3)} g per 100 g water at ${sol.row.temperatureC} °C — ${esc(sol.row.source)}; ${here}.`,
+    );
   }
-  if (b.skipped.length) lines.push('', `_The batch is incomplete: ${notCountedText(b)} (hover the batch's opening line for the list); shares and totals are of the counted lines._`);
+  if (b.skipped.length)
+    lines.push(
+      '',
+      `_The batch is incomplete: ${notCountedText(b)} (hover the batch's opening line for the list); shares and totals are of the counted lines._`,
+    );
   if (i.cautions.length) lines.push('', ...cautionBlock(i.cautions));
   return lines.join('\n').trimEnd();
 }
@@ -164,17 +208,21 @@ function skippedMarkdown(l: SkippedLine, s: ServiceSettings): string {
   const a = l.analysis;
   const lines = [`${codeSpan(l.text)} — **not counted**`, '', esc(l.reason), ''];
   if (a?.molarMass) lines.push(`${esc(a.display)}: molar mass ${molarMassText(a.molarMass.value, s)} g/mol`, '');
-  lines.push('_Nothing on this line is in the batch\'s figures until it is fixed._', '');
+  lines.push("_Nothing on this line is in the batch's figures until it is fixed._", '');
   lines.push(...cautionBlock(l.cautions));
   return lines.join('\n').trimEnd();
 }
 
 export function batchSummaryMarkdown(b: BatchAnalysis, s: ServiceSettings): string {
-  const lines = [`**${esc(b.name ?? 'Batch')}** · ${esc(countsText(b))} · ${sig(weighedMass(b))} g to weigh${b.volumeL !== null ? ` · ${volumeText(b.volumeL)}` : ''}${b.totalMassG !== null ? ` · total ${sig(b.totalMassG)} g` : ''}`, ''];
+  const lines = [
+    `**${esc(b.name ?? 'Batch')}** · ${esc(countsText(b))} · ${sig(weighedMass(b))} g to weigh${b.volumeL !== null ? ` · ${volumeText(b.volumeL)}` : ''}${b.totalMassG !== null ? ` · total ${sig(b.totalMassG)} g` : ''}`,
+    '',
+  ];
   if (b.ionicStrengthM !== null) lines.push(`Ionic strength **${sig(b.ionicStrengthM)} M** · net charge ${sig(b.netChargeEqPerL ?? 0, 2)} eq/L`, '');
   if (b.ions.length) lines.push(b.ions.map((x) => `${x.ion} ${sig(x.concentrationM)} M`).join(' · '), '');
   lines.push(markdownTable(pick(batchColumns(b, s), COMPACT_BATCH), countedRows(b), { short: true }));
-  if (b.skipped.length) lines.push('', `**Not counted** (left out of the figures above):`, '', ...b.skipped.map((l) => `- ${codeSpan(l.text)} — ${esc(l.reason)}`));
+  if (b.skipped.length)
+    lines.push('', `**Not counted** (left out of the figures above):`, '', ...b.skipped.map((l) => `- ${codeSpan(l.text)} — ${esc(l.reason)}`));
   const warnings = batchWarnings(b);
   if (warnings.length) lines.push('', ...warnings.map((d) => `⚠ ${esc(d.message)}`));
   lines.push('', ...b.notes.map((n) => `_${n}_`));
@@ -206,8 +254,7 @@ export function reactionMarkdown(r: ReactionAnalysis): string {
     if (b.balancedDisplay) {
       lines.push(`Balanced: **${esc(b.balancedDisplay)}**`);
       if (b.balancedText && b.balancedText !== b.balancedDisplay) lines.push('', `In the note's notation: ${codeSpan(b.balancedText)}`);
-    }
-    else lines.push(esc(b.message));
+    } else lines.push(esc(b.message));
     if (b.note) lines.push('', esc(b.note));
   }
   return lines.join('\n');

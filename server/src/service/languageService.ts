@@ -70,7 +70,9 @@ export function createLanguageService(settings: ServiceSettings = DEFAULT_SETTIN
   const service: LanguageService = {
     settings,
     analyse: (text, language, previous) =>
-      previous && previous.doc.language === language && previous.doc.settings === settings ? updateDocument(previous.doc, text, previous.hint) : analyseDocument(text, language, settings),
+      previous && previous.doc.language === language && previous.doc.settings === settings
+        ? updateDocument(previous.doc, text, previous.hint)
+        : analyseDocument(text, language, settings),
     diagnostics: (doc) => documentDiagnostics(doc),
     editorDiagnostics: (doc, limit) => editorDiagnostics(doc, limit),
     hover: (doc, position) => hover(doc, offset(doc, position)),

@@ -1,6 +1,14 @@
 /** What is at an offset of an analysed document. */
 import type { Ingredient } from '../chem/batch';
-import { shiftBatch, shiftFormula, shiftReaction, type AnalysedDocument, type BatchOccurrence, type FormulaOccurrence, type ReactionOccurrence } from './document';
+import {
+  shiftBatch,
+  shiftFormula,
+  shiftReaction,
+  type AnalysedDocument,
+  type BatchOccurrence,
+  type FormulaOccurrence,
+  type ReactionOccurrence,
+} from './document';
 
 export type Target =
   | { kind: 'formula'; occ: FormulaOccurrence; start: number; end: number }
@@ -51,7 +59,10 @@ export function targetAt(doc: AnalysedDocument, offset: number): Target | undefi
 
 /** Formulas whose text lies within [start, end). */
 export function formulasIn(doc: AnalysedDocument, start: number, end: number): FormulaOccurrence[] {
-  const from = Math.max(0, lastStartingBefore(doc.formulas, start, (x) => x.ref.start));
+  const from = Math.max(
+    0,
+    lastStartingBefore(doc.formulas, start, (x) => x.ref.start),
+  );
   const out: FormulaOccurrence[] = [];
   for (let i = from; i < doc.formulas.length; i++) {
     const f = doc.formulas[i];

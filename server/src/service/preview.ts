@@ -87,7 +87,9 @@ function mark(state: RenderState, diagnostics: readonly ChemDiagnostic[], subjec
     const line = lineOf?.(d);
     state.problems.push({ n, severity: d.severity, code: d.code, message: d.message, subject, ...(line !== undefined ? { line } : {}) });
     const word = SEVERITY_WORD[d.severity];
-    out.push(html`<a class="iw-flag iw-${d.severity}" href="#iw-problem-${n}" id="iw-flag-${n}" title="${`${word}: ${d.message}`}" aria-label="${`Ionwright ${word} ${n}: ${d.message}`}">${d.severity === 'error' ? '✖' : d.severity === 'warning' ? '⚠' : 'ℹ'}<sup>${n}</sup></a>`);
+    out.push(
+      html`<a class="iw-flag iw-${d.severity}" href="#iw-problem-${n}" id="iw-flag-${n}" title="${`${word}: ${d.message}`}" aria-label="${`Ionwright ${word} ${n}: ${d.message}`}">${d.severity === 'error' ? '✖' : d.severity === 'warning' ? '⚠' : 'ℹ'}<sup>${n}</sup></a>`,
+    );
   }
   return out.length ? join(out) : NO_MARKS;
 }
@@ -167,9 +169,12 @@ function proseHtmlUncached(text: string, o: PreviewOptions, state: RenderState):
     const shown = a.diagnostics.filter((d) => d.severity !== 'information');
     const flags = mark(state, shown, f.text);
     const w = worst(shown);
-    const body = o.typesetFormulas && a.ok && a.molarMass
-      ? formulaSpan(a, o.settings, ` iw-prose${w ? ` iw-${w}` : ''}`)
-      : w ? html`<span class="iw-code-flagged iw-${w}">${f.text}</span>` : f.text;
+    const body =
+      o.typesetFormulas && a.ok && a.molarMass
+        ? formulaSpan(a, o.settings, ` iw-prose${w ? ` iw-${w}` : ''}`)
+        : w
+          ? html`<span class="iw-code-flagged iw-${w}">${f.text}</span>`
+          : f.text;
     out.push(html`${text.slice(at, f.start)}${body}${flags}`);
     at = f.end;
   }
@@ -195,7 +200,13 @@ function analyseFence(info: 'batch' | 'reaction', content: string, settings: Ser
 /** A batch without findings renders the same every time: memoised per analysis and settings object. */
 const batches = new WeakMap<BatchAnalysis, { settings: ServiceSettings; weighed: boolean; html: Html }>();
 
-export function batchHtml(b: BatchAnalysis, o: PreviewOptions, state: RenderState, lineOf: (d: ChemDiagnostic) => number | undefined, subjectOf: (d: ChemDiagnostic) => string): Html {
+export function batchHtml(
+  b: BatchAnalysis,
+  o: PreviewOptions,
+  state: RenderState,
+  lineOf: (d: ChemDiagnostic) => number | undefined,
+  subjectOf: (d: ChemDiagnostic) => string,
+): Html {
   if (b.diagnostics.length) return batchHtmlUncached(b, o, state, lineOf, subjectOf);
   const hit = batches.get(b);
   if (hit && hit.settings === o.settings && hit.weighed === !!o.weighedColumn) return hit.html;
@@ -204,7 +215,13 @@ export function batchHtml(b: BatchAnalysis, o: PreviewOptions, state: RenderStat
   return out;
 }
 
-function batchHtmlUncached(b: BatchAnalysis, o: PreviewOptions, state: RenderState, lineOf: (d: ChemDiagnostic) => number | undefined, subjectOf: (d: ChemDiagnostic) => string): Html {
+function batchHtmlUncached(
+  b: BatchAnalysis,
+  o: PreviewOptions,
+  state: RenderState,
+  lineOf: (d: ChemDiagnostic) => number | undefined,
+  subjectOf: (d: ChemDiagnostic) => string,
+): Html {
   const s = o.settings;
   const inRow = new Set<ChemDiagnostic>();
   const flagsOf = (start: number, end: number): Html | '' => {
@@ -214,12 +231,25 @@ function batchHtmlUncached(b: BatchAnalysis, o: PreviewOptions, state: RenderSta
   };
   // Every line in the order written: counted ingredients with their figures, the others with why they are not counted.
   const cols = batchColumns(b, s, (i: Ingredient) => flagsOf(i.lineStart, i.lineEnd));
-  if (o.weighedColumn) cols.push({ key: 'weighed', head: 'Weighed', align: 'left', cls: 'iw-weighed', text: () => '', html: () => html`<span class="iw-tick" aria-hidden="true"></span>` });
+  if (o.weighedColumn)
+    cols.push({
+      key: 'weighed',
+      head: 'Weighed',
+      align: 'left',
+      cls: 'iw-weighed',
+      text: () => '',
+      html: () => html`<span class="iw-tick" aria-hidden="true"></span>`,
+    });
   const table = htmlTable(cols, batchRows(b), {
     rowClass: (r: BatchRow) => (r.skipped ? 'iw-skipped' : undefined),
-    wide: (r: BatchRow) => r.skipped
-      ? { first: html`<code>${r.skipped.text}</code>${flagsOf(r.skipped.lineStart, r.skipped.lineEnd)}`, rest: html`<strong>not counted</strong>: ${r.skipped.reason}`, restClass: 'iw-reason' }
-      : undefined,
+    wide: (r: BatchRow) =>
+      r.skipped
+        ? {
+            first: html`<code>${r.skipped.text}</code>${flagsOf(r.skipped.lineStart, r.skipped.lineEnd)}`,
+            rest: html`<strong>not counted</strong>: ${r.skipped.reason}`,
+            restClass: 'iw-reason',
+          }
+        : undefined,
   });
   const head = [
     html`<strong class="iw-batch-name">${b.name ?? 'Batch'}</strong>`,
@@ -227,25 +257,28 @@ function batchHtmlUncached(b: BatchAnalysis, o: PreviewOptions, state: RenderSta
     b.totalMassG !== null ? `total ${sig(b.totalMassG)} g` : null,
   ].filter((x): x is Html | string => x !== null);
   const incomplete = b.skipped.length ? html` · <strong class="iw-incomplete">incomplete: ${notCountedText(b)}</strong>` : '';
-  const parts: Html[] = [
-    html`<figcaption>${join(head, ' · ')}${incomplete} <span class="iw-by">computed by Ionwright</span></figcaption>`,
-    table,
-  ];
+  const parts: Html[] = [html`<figcaption>${join(head, ' · ')}${incomplete} <span class="iw-by">computed by Ionwright</span></figcaption>`, table];
   if (b.ions.length) parts.push(htmlTable(ION_COLUMNS, b.ions, { cls: 'iw-ions' }));
   if (b.ionicStrengthM !== null) {
-    parts.push(html`<p class="iw-summary">Ionic strength <var>I</var> = ½ Σ <var>c</var><sub><var>i</var></sub><var>z</var><sub><var>i</var></sub><sup>2</sup> = <strong>${sig(b.ionicStrengthM)} M</strong>; net charge ${sig(b.netChargeEqPerL ?? 0, 2)} eq/L.</p>`);
+    parts.push(
+      html`<p class="iw-summary">Ionic strength <var>I</var> = ½ Σ <var>c</var><sub><var>i</var></sub><var>z</var><sub><var>i</var></sub><sup>2</sup> = <strong>${sig(b.ionicStrengthM)} M</strong>; net charge ${sig(b.netChargeEqPerL ?? 0, 2)} eq/L.</p>`,
+    );
   }
   const undissociated = undissociatedOf(b).map((i) => typesetDisplay(i.formula));
   if (undissociated.length) parts.push(html`<p class="iw-note">Not split into ions: ${join(undissociated, ', ')}.</p>`);
   for (const n of b.notes) parts.push(html`<p class="iw-note">${n}</p>`);
   if (b.cautions.length) {
-    parts.push(html`<div class="iw-cautions" role="note"><strong>Cautions</strong><ul>${b.cautions.map((c) => html`<li>${c.text}</li>`)}</ul><p>${CAUTION_FOOTNOTE}</p></div>`);
+    parts.push(
+      html`<div class="iw-cautions" role="note"><strong>Cautions</strong><ul>${b.cautions.map((c) => html`<li>${c.text}</li>`)}</ul><p>${CAUTION_FOOTNOTE}</p></div>`,
+    );
   }
   if (b.diagnostics.length) {
-    const items = b.diagnostics.filter((d) => d.severity !== 'hint' && !inRow.has(d)).map((d) => {
-      const line = lineOf(d);
-      return html`<li class="iw-${d.severity}">${mark(state, [d], subjectOf(d), lineOf)} ${line !== undefined ? `line ${line}: ` : ''}${d.message}</li>`;
-    });
+    const items = b.diagnostics
+      .filter((d) => d.severity !== 'hint' && !inRow.has(d))
+      .map((d) => {
+        const line = lineOf(d);
+        return html`<li class="iw-${d.severity}">${mark(state, [d], subjectOf(d), lineOf)} ${line !== undefined ? `line ${line}: ` : ''}${d.message}</li>`;
+      });
     if (items.length) parts.push(html`<ul class="iw-findings">${items}</ul>`);
   }
   return join(parts, '\n');
@@ -257,7 +290,9 @@ export function reactionBlockHtml(r: ReactionAnalysis, state: RenderState, line:
   const form = balancedForm(r);
   const balanced = form
     ? html`<div class="iw-balanced-form">Balanced: ${form}</div>`
-    : r.balance.status !== 'already-balanced' ? html`<div class="iw-balanced-form">${r.balance.message}</div>` : '';
+    : r.balance.status !== 'already-balanced'
+      ? html`<div class="iw-balanced-form">${r.balance.message}</div>`
+      : '';
   return html`<div class="iw-reaction"><span class="iw-equation">${typesetEquation(r.parsed)}</span> ${reactionMark(r)}${flags}${balanced}</div>`;
 }
 
@@ -330,13 +365,23 @@ export function ionwrightPreview(md: MarkdownIt, options?: OptionsSource): void 
       const attrs = trusted(self.renderAttrs(t));
       const source = html`<details class="iw-source"><summary>As written</summary><pre><code>${t.content}</code></pre></details>`;
       if (info === 'batch') {
-        const bodies = doc.batches.map((b) => batchHtml(b.analysis, o, state, (d) => sourceLine(d.start), (d) => lineText(d.start)));
+        const bodies = doc.batches.map((b) =>
+          batchHtml(
+            b.analysis,
+            o,
+            state,
+            (d) => sourceLine(d.start),
+            (d) => lineText(d.start),
+          ),
+        );
         const unclosed = doc.diagnostics.filter((d) => d.code === 'batch-unclosed');
         const incomplete = doc.batches.some((b) => b.analysis.skipped.length > 0);
-        return html`<figure class="iw-batch${incomplete ? ' iw-batch-incomplete' : ''}"${attrs}>\n${bodies.length ? join(bodies, '\n') : html`<p>An empty batch block.</p>`}${unclosed.length ? mark(state, unclosed, 'batch') : ''}\n${source}</figure>\n`.value;
+        return html`<figure class="iw-batch${incomplete ? ' iw-batch-incomplete' : ''}"${attrs}>\n${bodies.length ? join(bodies, '\n') : html`<p>An empty batch block.</p>`}${unclosed.length ? mark(state, unclosed, 'batch') : ''}\n${source}</figure>\n`
+          .value;
       }
       const lines = doc.reactions.map((r) => reactionBlockHtml(r.analysis, state, sourceLine(r.ref.start)));
-      return html`<figure class="iw-reactions"${attrs}>\n${lines.length ? join(lines, '\n') : html`<p>No equations in this block.</p>`}\n${source}</figure>\n`.value;
+      return html`<figure class="iw-reactions"${attrs}>\n${lines.length ? join(lines, '\n') : html`<p>No equations in this block.</p>`}\n${source}</figure>\n`
+        .value;
     } catch {
       return baseFence(tokens, idx, opts, env, self);
     }
@@ -345,10 +390,12 @@ export function ionwrightPreview(md: MarkdownIt, options?: OptionsSource): void 
   rules.ionwright_problems = (_tokens, _idx, _opts, env) => {
     const problems = stateOf(env).problems;
     if (problems.length === 0) return '';
-    const items = problems.map((p) =>
-      html`<li id="iw-problem-${p.n}" class="iw-${p.severity}"><a href="#iw-flag-${p.n}" title="Back to the text">${p.n}</a> <span class="iw-sev">${SEVERITY_WORD[p.severity]}</span> <code>${p.subject}</code>${p.line !== undefined ? ` (line ${p.line})` : ''}: ${p.message} <span class="iw-code">${p.code}</span></li>`,
+    const items = problems.map(
+      (p) =>
+        html`<li id="iw-problem-${p.n}" class="iw-${p.severity}"><a href="#iw-flag-${p.n}" title="Back to the text">${p.n}</a> <span class="iw-sev">${SEVERITY_WORD[p.severity]}</span> <code>${p.subject}</code>${p.line !== undefined ? ` (line ${p.line})` : ''}: ${p.message} <span class="iw-code">${p.code}</span></li>`,
     );
     const n = problems.length;
-    return html`<section class="iw-problems" aria-label="Ionwright findings"><p><strong>Ionwright: ${plural(n, 'finding')} in these notes</strong></p><ol>${items}</ol></section>\n`.value;
+    return html`<section class="iw-problems" aria-label="Ionwright findings"><p><strong>Ionwright: ${plural(n, 'finding')} in these notes</strong></p><ol>${items}</ol></section>\n`
+      .value;
   };
 }

@@ -124,19 +124,34 @@ export function reportHtml(doc: AnalysedDocument, options: ReportOptions): strin
   const incomplete = doc.batches.filter((b) => b.analysis.skipped.length > 0).length;
 
   const parts: Html[] = [];
-  parts.push(html`<header><h1>${options.title}</h1><p class="iw-sub">Ionwright report${options.generator ? ` · ${options.generator}` : ''}</p><ul class="iw-counts"><li>${plural(doc.batches.length, 'batch')}${incomplete ? html` <span class="iw-incomplete">(${incomplete} incomplete)</span>` : ''}</li><li>${plural(count(1), 'error')}</li><li>${plural(count(2), 'warning')}</li><li>${plural(doc.reactions.length, 'reaction')}</li><li>${plural(formulas.length, 'formula')}</li><li>${plural(points.length, 'salt')} charted</li></ul><nav class="iw-toc" aria-label="Sections"><a href="#batches">Batches</a> · <a href="#findings">Findings</a> · <a href="#reactions">Reactions</a> · <a href="#formulas">Formulas</a> · <a href="#lattice">Lattice energies</a>${doc.language === 'markdown' ? html` · <a href="#notes">Notes</a>` : ''}</nav></header>`);
+  parts.push(
+    html`<header><h1>${options.title}</h1><p class="iw-sub">Ionwright report${options.generator ? ` · ${options.generator}` : ''}</p><ul class="iw-counts"><li>${plural(doc.batches.length, 'batch')}${incomplete ? html` <span class="iw-incomplete">(${incomplete} incomplete)</span>` : ''}</li><li>${plural(count(1), 'error')}</li><li>${plural(count(2), 'warning')}</li><li>${plural(doc.reactions.length, 'reaction')}</li><li>${plural(formulas.length, 'formula')}</li><li>${plural(points.length, 'salt')} charted</li></ul><nav class="iw-toc" aria-label="Sections"><a href="#batches">Batches</a> · <a href="#findings">Findings</a> · <a href="#reactions">Reactions</a> · <a href="#formulas">Formulas</a> · <a href="#lattice">Lattice energies</a>${doc.language === 'markdown' ? html` · <a href="#notes">Notes</a>` : ''}</nav></header>`,
+  );
 
   // What goes to the bench: each batch's weighing and pouring, an incomplete one marked.
   parts.push(html`<section class="iw-bench" aria-labelledby="batches"><h2 id="batches">Batches: what to weigh and pour</h2>`);
   if (doc.batches.length) {
-    parts.push(html`<p class="iw-caveat iw-bench-note" role="note">Figures assume full dissociation of strong electrolytes; weak acids and bases stay undissociated, and activities and non-ideal mixing are not modelled. Check each mass against the notes before weighing.</p>`);
+    parts.push(
+      html`<p class="iw-caveat iw-bench-note" role="note">Figures assume full dissociation of strong electrolytes; weak acids and bases stay undissociated, and activities and non-ideal mixing are not modelled. Check each mass against the notes before weighing.</p>`,
+    );
     for (const b of doc.batches) {
       const cls = b.analysis.skipped.length ? 'iw-batch iw-batch-incomplete' : 'iw-batch';
-      parts.push(html`<figure class="${cls}">${batchHtml(b.analysis, o, silentState(), (d) => lineOf(d.start), (d) => lineText(d.start))}<p class="iw-by">Block at line ${lineOf(b.ref.start)}.</p></figure>`);
+      parts.push(
+        html`<figure class="${cls}">${batchHtml(
+          b.analysis,
+          o,
+          silentState(),
+          (d) => lineOf(d.start),
+          (d) => lineText(d.start),
+        )}<p class="iw-by">Block at line ${lineOf(b.ref.start)}.</p></figure>`,
+      );
     }
   } else parts.push(html`<p>No batch blocks in these notes.</p>`);
   if (cautions.length) {
-    parts.push(html`<h2 id="cautions">Cautions</h2>`, html`<div class="iw-cautions" role="note"><ul>${cautions.map((c) => html`<li>${c}</li>`)}</ul><p>${CAUTION_FOOTNOTE}</p></div>`);
+    parts.push(
+      html`<h2 id="cautions">Cautions</h2>`,
+      html`<div class="iw-cautions" role="note"><ul>${cautions.map((c) => html`<li>${c}</li>`)}</ul><p>${CAUTION_FOOTNOTE}</p></div>`,
+    );
   }
   parts.push(html`</section>`);
 
@@ -146,28 +161,45 @@ export function reportHtml(doc: AnalysedDocument, options: ReportOptions): strin
   } else parts.push(html`<p>No findings.</p>`);
 
   parts.push(html`<h2 id="reactions">Reactions</h2>`);
-  if (doc.reactions.length) parts.push(html`<figure class="iw-reactions">${join(doc.reactions.map((r) => reactionBlockHtml(r.analysis, silentState(), lineOf(r.ref.start))), '\n')}</figure>`);
+  if (doc.reactions.length)
+    parts.push(
+      html`<figure class="iw-reactions">${join(
+        doc.reactions.map((r) => reactionBlockHtml(r.analysis, silentState(), lineOf(r.ref.start))),
+        '\n',
+      )}</figure>`,
+    );
   else parts.push(html`<p>No reactions in these notes.</p>`);
 
   parts.push(html`<h2 id="formulas">Formulas</h2>`);
   if (formulas.length) parts.push(htmlTable(formulaColumns(o.settings), formulas));
   else parts.push(html`<p>No formulas in these notes.</p>`);
-  parts.push(html`<p class="iw-caveat" role="note">Lattice energies marked ≈ are model estimates, not measurements; molar masses use the CIAAW 2021 standard atomic weights.</p>`);
+  parts.push(
+    html`<p class="iw-caveat" role="note">Lattice energies marked ≈ are model estimates, not measurements; molar masses use the CIAAW 2021 standard atomic weights.</p>`,
+  );
 
   parts.push(html`<h2 id="lattice">Lattice energies</h2>`);
   // The chart's SVG is built by chart.ts, which escapes its own text.
-  parts.push(html`<figure class="iw-chart">${trusted(latticeChart(points, { title: 'Lattice energy against 1/(r₊ + r₋)' }))}<figcaption>Lattice energy against 1/(r₊ + r₋) with six-coordinate Shannon radii (thermochemical radii for polyatomic ions); Coulomb's law makes it grow with z₊z₋/r₀. Typical errors: Kapustinskii ${TYPICAL_ERROR['Kapustinskii equation'] ?? ''}; Born–Mayer ${TYPICAL_ERROR['Born–Mayer equation'] ?? ''}.</figcaption></figure>`);
+  parts.push(
+    html`<figure class="iw-chart">${trusted(latticeChart(points, { title: 'Lattice energy against 1/(r₊ + r₋)' }))}<figcaption>Lattice energy against 1/(r₊ + r₋) with six-coordinate Shannon radii (thermochemical radii for polyatomic ions); Coulomb's law makes it grow with z₊z₋/r₀. Typical errors: Kapustinskii ${TYPICAL_ERROR['Kapustinskii equation'] ?? ''}; Born–Mayer ${TYPICAL_ERROR['Born–Mayer equation'] ?? ''}.</figcaption></figure>`,
+  );
   if (points.some((p) => p.inverseR0 === null)) {
-    parts.push(html`<figure class="iw-chart">${trusted(latticeChart(points, { x: 'charge-product', title: 'Lattice energy against the charge product' }))}<figcaption>Against |z₊z₋|, for the salts whose radii are not all known.</figcaption></figure>`);
+    parts.push(
+      html`<figure class="iw-chart">${trusted(latticeChart(points, { x: 'charge-product', title: 'Lattice energy against the charge product' }))}<figcaption>Against |z₊z₋|, for the salts whose radii are not all known.</figcaption></figure>`,
+    );
   }
 
   if (doc.language === 'markdown') {
     const md = options.markdownIt().use(ionwrightPreview, { ...o, weighedColumn: false });
     // markdown-it renders the notes with its own escaping and the plugin's (html.ts); raw HTML in the notes is as markdown-it's options allow.
-    parts.push(html`<h2 id="notes">The notes</h2>`, html`<details class="iw-rendered"><summary>As the preview shows them</summary>${trusted(md.render(doc.text))}</details>`);
+    parts.push(
+      html`<h2 id="notes">The notes</h2>`,
+      html`<details class="iw-rendered"><summary>As the preview shows them</summary>${trusted(md.render(doc.text))}</details>`,
+    );
   }
 
-  parts.push(html`<footer>Molar masses: IUPAC/CIAAW 2021 abridged standard atomic weights. Electronegativities: Pauling scale. Radii: Shannon (1976), six-coordinate unless a structure says otherwise; thermochemical radii of polyatomic ions after Jenkins and co-workers. Bond types by ΔEN thresholds ${o.settings.chem.nonpolarBelow} and ${o.settings.chem.ionicAbove} (common practice). ${CAUTION_FOOTNOTE}</footer>`);
+  parts.push(
+    html`<footer>Molar masses: IUPAC/CIAAW 2021 abridged standard atomic weights. Electronegativities: Pauling scale. Radii: Shannon (1976), six-coordinate unless a structure says otherwise; thermochemical radii of polyatomic ions after Jenkins and co-workers. Bond types by ΔEN thresholds ${o.settings.chem.nonpolarBelow} and ${o.settings.chem.ionicAbove} (common practice). ${CAUTION_FOOTNOTE}</footer>`,
+  );
 
   return html`<!doctype html>
 <html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1">

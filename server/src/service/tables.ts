@@ -61,7 +61,8 @@ export function formulaTable(formulas: readonly FormulaAnalysis[], settings: Ser
   if (title) lines.push(`**${escapeMarkdown(title)}** (computed by Ionwright)`, '');
   lines.push(markdownTable(formulaColumns(settings), list));
   const notes: string[] = [];
-  if (list.some((a) => a.lattice?.estimate)) notes.push('Lattice energies marked ≈ are model estimates (typically 5–10 % low; more for salts with covalent character).');
+  if (list.some((a) => a.lattice?.estimate))
+    notes.push('Lattice energies marked ≈ are model estimates (typically 5–10 % low; more for salts with covalent character).');
   if (list.some((a) => a.charges && !a.charges.balanced)) notes.push('Some formulas are not charge-balanced; see the warnings in the notes.');
   if (notes.length) lines.push('', ...notes.map((n) => `_${n}_`));
   return lines.join('\n');
@@ -69,7 +70,9 @@ export function formulaTable(formulas: readonly FormulaAnalysis[], settings: Ser
 
 /** The head of a batch's table: name, final volume, total. */
 export function batchHead(b: BatchAnalysis): string {
-  return [b.name ?? 'Batch', b.volumeL !== null ? `final volume ${volumeText(b.volumeL)}` : null, b.totalMassG !== null ? `total ${sig(b.totalMassG)} g` : null].filter(Boolean).join(', ');
+  return [b.name ?? 'Batch', b.volumeL !== null ? `final volume ${volumeText(b.volumeL)}` : null, b.totalMassG !== null ? `total ${sig(b.totalMassG)} g` : null]
+    .filter(Boolean)
+    .join(', ');
 }
 
 /** The ionic-strength line of a batch, or undefined without a volume. */
@@ -84,7 +87,11 @@ export function batchTable(b: BatchAnalysis, settings: ServiceSettings = DEFAULT
   lines.push(markdownTable(cols, countedRows(b)));
   if (b.ingredients.length === 0) lines.push(markdownRow(['(none counted)', ...cols.slice(1).map(() => '')]));
   if (b.skipped.length) {
-    lines.push('', `**Not counted** (left out of every figure here; fix the line to count it):`, ...b.skipped.map((s) => `- ${codeSpan(s.text)} — ${escapeMarkdown(s.reason)}`));
+    lines.push(
+      '',
+      `**Not counted** (left out of every figure here; fix the line to count it):`,
+      ...b.skipped.map((s) => `- ${codeSpan(s.text)} — ${escapeMarkdown(s.reason)}`),
+    );
   }
   if (b.ions.length) lines.push('', markdownTable(ION_COLUMNS, b.ions));
   lines.push('');
@@ -162,7 +169,11 @@ export function sectionsOf(doc: AnalysedDocument): SectionTables[] {
 /** The tables of one section: its formulas, then each batch ('' when there is nothing to tabulate). */
 export function sectionTables(s: SectionTables, settings: ServiceSettings): string {
   const parts: string[] = [];
-  const ft = formulaTable(s.formulas.map((f) => f.analysis), settings, `Formulas — ${s.title}`);
+  const ft = formulaTable(
+    s.formulas.map((f) => f.analysis),
+    settings,
+    `Formulas — ${s.title}`,
+  );
   if (ft) parts.push(ft);
   for (const b of s.batches) parts.push(batchTable(b.analysis, settings));
   return parts.join('\n\n');
@@ -170,5 +181,8 @@ export function sectionTables(s: SectionTables, settings: ServiceSettings): stri
 
 /** All tables of a document, as `ionwright table` prints them. */
 export function documentTables(doc: AnalysedDocument, settings: ServiceSettings = doc.settings): string {
-  return sectionsOf(doc).map((s) => sectionTables(s, settings)).filter(Boolean).join('\n\n');
+  return sectionsOf(doc)
+    .map((s) => sectionTables(s, settings))
+    .filter(Boolean)
+    .join('\n\n');
 }

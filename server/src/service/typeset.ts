@@ -55,7 +55,10 @@ export function formulaTitle(a: FormulaAnalysis, s: ServiceSettings): string {
   const bits = [`${a.display}: ${a.molarMass ? `${molarMassText(a.molarMass.value, s)} g/mol` : 'no molar mass'}`];
   if (a.charges && !a.charges.balanced) bits.push(`not charge-balanced: ${a.charges.message}`);
   if (a.bond) bits.push(`${a.bond.type}, ΔEN ${a.bond.deltaEN.toFixed(2)} (${a.bond.pair.join('–')})`);
-  if (a.lattice) bits.push(`lattice energy ${a.lattice.estimate ? '≈ ' : ''}${energy(a.lattice.kJPerMol, s)} (${shortMethod(a.lattice.method)}${a.lattice.estimate ? ', estimate' : ''})`);
+  if (a.lattice)
+    bits.push(
+      `lattice energy ${a.lattice.estimate ? '≈ ' : ''}${energy(a.lattice.kJPerMol, s)} (${shortMethod(a.lattice.method)}${a.lattice.estimate ? ', estimate' : ''})`,
+    );
   const c = cautionsFor(a);
   if (c.length) bits.push(`caution: ${c.map((x) => x.text).join('; ')}; follow the SDS`);
   return bits.join(' · ');
@@ -67,7 +70,8 @@ const spans = new WeakMap<FormulaAnalysis, { settings: ServiceSettings; title: s
 /** A formula typeset in a span with its card's headline in the tooltip; `cls` adds classes (' iw-warning'). */
 export function formulaSpan(a: FormulaAnalysis, s: ServiceSettings, cls = ''): Html {
   let hit = spans.get(a);
-  if (!hit || hit.settings !== s) spans.set(a, (hit = { settings: s, title: escapeHtml(formulaTitle(a, s)), html: typesetDisplay(a.display).value, byClass: new Map() }));
+  if (!hit || hit.settings !== s)
+    spans.set(a, (hit = { settings: s, title: escapeHtml(formulaTitle(a, s)), html: typesetDisplay(a.display).value, byClass: new Map() }));
   let span = hit.byClass.get(cls);
   if (!span) hit.byClass.set(cls, (span = new Html(`<span class="iw-formula${escapeHtml(cls)}" title="${hit.title}">${hit.html}</span>`)));
   return span;
@@ -98,8 +102,12 @@ const written = new WeakMap<ParsedEquation, Html>();
 
 function typesetUncached(eq: ParsedEquation, coefficients?: readonly number[] | null): Html {
   const all = [...eq.reactants, ...eq.products];
-  const coef = (s: Species) => (coefficients ? coefficients[all.indexOf(s)] ?? null : s.coefficientText || null);
-  const side = (list: Species[]) => join(list.map((s) => speciesHtml(s, coef(s))), ' + ');
+  const coef = (s: Species) => (coefficients ? (coefficients[all.indexOf(s)] ?? null) : s.coefficientText || null);
+  const side = (list: Species[]) =>
+    join(
+      list.map((s) => speciesHtml(s, coef(s))),
+      ' + ',
+    );
   const arrow = eq.arrow ? (isReversible(eq.arrow.arrow) ? '⇌' : '→') : '→';
   return html`${side(eq.reactants)} <span class="iw-arrow">${arrow}</span> ${side(eq.products)}`;
 }

@@ -73,9 +73,14 @@ function countLine(line: IngredientLine, headers: BatchHeaders): LineResult {
     const amount = line.amount as Token;
     const unit = line.unit as Token;
     const counted: CountedLine = {
-      line, molarMass: M as number, moles: target.moles, massG: target.massG,
+      line,
+      molarMass: M as number,
+      moles: target.moles,
+      massG: target.massG,
       amount: { value: line.value, unit: unit.text as Ingredient['amount']['unit'], text: `${amount.text} ${unit.text}`, start: amount.start, end: unit.end },
-      concentrationM: headers.volumeL ? target.moles / headers.volumeL : null, massFraction: null, fractionOfTotal: null,
+      concentrationM: headers.volumeL ? target.moles / headers.volumeL : null,
+      massFraction: null,
+      fractionOfTotal: null,
     };
     return { diagnostics, counted };
   }
@@ -86,7 +91,12 @@ function countLine(line: IngredientLine, headers: BatchHeaders): LineResult {
 }
 
 /** Moles and mass to weigh of a line, once the volume and total are known; a target that cannot be met is an error on the line. */
-function amountsOf(line: IngredientLine, unit: BatchUnit, M: number, { volumeL, totalMassG }: BatchHeaders): { moles: number; massG: number } | { error: ChemDiagnostic } {
+function amountsOf(
+  line: IngredientLine,
+  unit: BatchUnit,
+  M: number,
+  { volumeL, totalMassG }: BatchHeaders,
+): { moles: number; massG: number } | { error: ChemDiagnostic } {
   const amount = line.amount as Token;
   const unitEnd = (line.unit as Token).end;
   if (unit.kind === 'mass') {
@@ -98,11 +108,15 @@ function amountsOf(line: IngredientLine, unit: BatchUnit, M: number, { volumeL, 
     return { moles, massG: (moles * M) / line.assay };
   }
   if (unit.kind === 'concentration') {
-    if (volumeL === null) return { error: finding('batch-no-volume', amount.start, unitEnd, `A target concentration needs the batch's final volume: add a line 'volume: 500 mL'.`) };
+    if (volumeL === null)
+      return {
+        error: finding('batch-no-volume', amount.start, unitEnd, `A target concentration needs the batch's final volume: add a line 'volume: 500 mL'.`),
+      };
     const moles = line.value * unit.factor * volumeL;
     return { moles, massG: (moles * M) / line.assay };
   }
-  if (totalMassG === null) return { error: finding('batch-no-total', amount.start, unitEnd, `A wt% target needs the batch's total mass: add a line 'total: 250 g'.`) };
+  if (totalMassG === null)
+    return { error: finding('batch-no-total', amount.start, unitEnd, `A wt% target needs the batch's total mass: add a line 'total: 250 g'.`) };
   if (line.value > 100) return { error: finding('batch-amount', amount.start, unitEnd, `${line.value} wt% is more than the whole batch.`) };
   const substance = (line.value / 100) * totalMassG;
   return { moles: substance / M, massG: substance / line.assay };
@@ -118,9 +132,17 @@ function reasonOf(diagnostics: readonly ChemDiagnostic[]): { reason: string; cod
 function skippedIngredient(line: IngredientLine, { reason, code }: { reason: string; code: DiagnosticCode }): SkippedLine {
   const readable = line.analysis.ok && line.analysis.molarMass ? line.analysis : undefined;
   return {
-    kind: 'ingredient', text: line.source.text, lineStart: line.source.start, lineEnd: line.source.end, reason, code,
-    formulaText: line.formula.text, formulaStart: line.formula.start, formulaEnd: line.formula.end,
-    ...(readable ? { analysis: readable } : {}), cautions: readable ? cautionsFor(readable) : [],
+    kind: 'ingredient',
+    text: line.source.text,
+    lineStart: line.source.start,
+    lineEnd: line.source.end,
+    reason,
+    code,
+    formulaText: line.formula.text,
+    formulaStart: line.formula.start,
+    formulaEnd: line.formula.end,
+    ...(readable ? { analysis: readable } : {}),
+    cautions: readable ? cautionsFor(readable) : [],
   };
 }
 

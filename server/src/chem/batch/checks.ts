@@ -28,7 +28,10 @@ export function checkBatch(amounts: BatchAmounts, headers: BatchHeaders): BatchC
   const named = amounts.counted.map((c, k) => ({ who: c.line.analysis.display, cautions: cautions[k] }));
   const sol = checkSolubility(amounts.counted, headers.volumeL);
   return {
-    cautions, batchCautions: batchCautions(named, amounts.skipped), solubility: sol.checks, waterG: sol.waterG,
+    cautions,
+    batchCautions: batchCautions(named, amounts.skipped),
+    solubility: sol.checks,
+    waterG: sol.waterG,
     diagnostics: [...totalCheck(amounts.weighedG, headers), ...sol.diagnostics],
   };
 }

@@ -53,10 +53,25 @@ function assemble(headers: BatchHeaders, amounts: BatchAmounts, mix: BatchMix, c
     const d = mix.dissociations[k];
     const solubility = checks.solubility[k];
     return {
-      formulaText: line.formula.text, formula: line.analysis.display, analysis: line.analysis, lineStart: line.lineStart, lineEnd: line.lineEnd,
-      formulaStart: line.formula.start, formulaEnd: line.formula.end, amount: c.amount, assay: line.assay, molarMass: c.molarMass,
-      moles: c.moles, massG: c.massG, concentrationM: c.concentrationM, massFraction: c.massFraction, fractionOfTotal: c.fractionOfTotal,
-      ions: d.ions, ...(d.undissociated ? { undissociated: d.undissociated } : {}), cautions: checks.cautions[k], ...(solubility ? { solubility } : {}),
+      formulaText: line.formula.text,
+      formula: line.analysis.display,
+      analysis: line.analysis,
+      lineStart: line.lineStart,
+      lineEnd: line.lineEnd,
+      formulaStart: line.formula.start,
+      formulaEnd: line.formula.end,
+      amount: c.amount,
+      assay: line.assay,
+      molarMass: c.molarMass,
+      moles: c.moles,
+      massG: c.massG,
+      concentrationM: c.concentrationM,
+      massFraction: c.massFraction,
+      fractionOfTotal: c.fractionOfTotal,
+      ions: d.ions,
+      ...(d.undissociated ? { undissociated: d.undissociated } : {}),
+      cautions: checks.cautions[k],
+      ...(solubility ? { solubility } : {}),
     };
   });
   const notes = [MODEL_NOTE];
@@ -64,5 +79,18 @@ function assemble(headers: BatchHeaders, amounts: BatchAmounts, mix: BatchMix, c
   diagnostics.sort((x, y) => x.start - y.start);
   const { name, volumeL, totalMassG } = headers;
   const { ions, ionicStrengthM, netChargeEqPerL } = mix;
-  return { name, volumeL, totalMassG, ingredients, skipped: amounts.skipped, ions, ionicStrengthM, netChargeEqPerL, waterG: checks.waterG, diagnostics, cautions: checks.batchCautions, notes };
+  return {
+    name,
+    volumeL,
+    totalMassG,
+    ingredients,
+    skipped: amounts.skipped,
+    ions,
+    ionicStrengthM,
+    netChargeEqPerL,
+    waterG: checks.waterG,
+    diagnostics,
+    cautions: checks.batchCautions,
+    notes,
+  };
 }

@@ -86,8 +86,13 @@ function listedChargeWarning(counted: readonly CountedLine[], ions: readonly Bat
   if (!(Math.abs(listedCharge) > 1e-9 * ions.reduce((m, x) => Math.max(m, x.concentrationM), 1))) return [];
   const first = counted.find((c) => c.line.analysis.charge !== 0);
   if (!first) return [];
-  return [{
-    code: 'batch-charge', severity: 'warning', start: first.line.lineStart, end: first.line.lineEnd,
-    message: `The ions listed on their own leave a net charge of ${listedCharge > 0 ? '+' : ''}${listedCharge.toPrecision(3)} eq/L; add counter-ions or list the salts instead.`,
-  }];
+  return [
+    {
+      code: 'batch-charge',
+      severity: 'warning',
+      start: first.line.lineStart,
+      end: first.line.lineEnd,
+      message: `The ions listed on their own leave a net charge of ${listedCharge > 0 ? '+' : ''}${listedCharge.toPrecision(3)} eq/L; add counter-ions or list the salts instead.`,
+    },
+  ];
 }

@@ -117,9 +117,10 @@ export function readLines(lines: readonly BatchLine[], openName: string | null, 
 function readHeader(headers: BatchHeaders, counted: Set<HeaderKey>, openName: string | null, header: RegExpExecArray, at: Located): ChemDiagnostic | null {
   const key = header[1].toLowerCase() as HeaderKey;
   if (counted.has(key)) {
-    const message = key === 'name' && headers.name === openName && openName !== null
-      ? `This batch is already named '${openName}' on its opening line; the first name counts.`
-      : `'${key}:' is given twice; the first one counts.`;
+    const message =
+      key === 'name' && headers.name === openName && openName !== null
+        ? `This batch is already named '${openName}' on its opening line; the first name counts.`
+        : `'${key}:' is given twice; the first one counts.`;
     return finding('batch-header', at.lineStart, at.lineEnd, message, 'warning');
   }
   if (key === 'name') {
@@ -143,7 +144,13 @@ function readHeader(headers: BatchHeaders, counted: Set<HeaderKey>, openName: st
 }
 
 /** A `volume:` or `total:` value, or the finding that says why it cannot be read. */
-function readHeaderValue(key: 'volume' | 'total', value: string, valueStart: number, lineStart: number, lineEnd: number): { value: number } | { error: ChemDiagnostic } {
+function readHeaderValue(
+  key: 'volume' | 'total',
+  value: string,
+  valueStart: number,
+  lineStart: number,
+  lineEnd: number,
+): { value: number } | { error: ChemDiagnostic } {
   const tk = tokens(value, valueStart);
   const units = unitList(key);
   if (tk.length === 0) return { error: finding('batch-amount', lineStart, lineEnd, `'${key}:' needs a number and a unit (${units}).`) };
@@ -163,7 +170,9 @@ function readHeaderValue(key: 'volume' | 'total', value: string, valueStart: num
   }
   if (tk.length > 2) {
     const extra = tk.slice(2);
-    return { error: finding('batch-syntax', extra[0].start, extra[extra.length - 1].end, `Unexpected '${extra.map((t) => t.text).join(' ')}' after the ${key}.`) };
+    return {
+      error: finding('batch-syntax', extra[0].start, extra[extra.length - 1].end, `Unexpected '${extra.map((t) => t.text).join(' ')}' after the ${key}.`),
+    };
   }
   return { value: v * u.factor };
 }
@@ -175,8 +184,19 @@ function readIngredient(at: Located, settings: ChemSettings): IngredientLine {
   const analysis = analyseFormula(formula.text, settings);
   const diagnostics: ChemDiagnostic[] = [];
   for (const d of analysis.diagnostics) if (d.severity !== 'information') diagnostics.push(shiftDiagnostic(d, formula.start));
-  const line: IngredientLine = { kind: 'ingredient', source: at.source, lineStart: at.lineStart, lineEnd: at.lineEnd, formula, analysis, value: NaN, assay: 1, diagnostics };
-  if (!amount) diagnostics.push(finding('batch-amount', formula.start, formula.end, `'${formula.text}' needs an amount and a unit, e.g. '${formula.text} 5.0 g'.`));
+  const line: IngredientLine = {
+    kind: 'ingredient',
+    source: at.source,
+    lineStart: at.lineStart,
+    lineEnd: at.lineEnd,
+    formula,
+    analysis,
+    value: NaN,
+    assay: 1,
+    diagnostics,
+  };
+  if (!amount)
+    diagnostics.push(finding('batch-amount', formula.start, formula.end, `'${formula.text}' needs an amount and a unit, e.g. '${formula.text} 5.0 g'.`));
   else readQuantity(line, amount, unit, rest);
   return line;
 }
@@ -196,11 +216,27 @@ function readQuantity(line: IngredientLine, amount: Token, unitTok: Token | unde
   line.amount = amountTok;
   const value = NUMBER.test(amountTok.text) ? Number(amountTok.text) : NaN;
   if (/^\d*(?:H2O|H₂O)$/.test(amount.text)) {
-    diagnostics.push(finding('batch-amount', amount.start, amount.end, `'${amount.text}' after the formula reads as the amount; write the hydrate as one formula, e.g. '${formula.text}·${amount.text}' or '${formula.text}.${amount.text}'.`));
+    diagnostics.push(
+      finding(
+        'batch-amount',
+        amount.start,
+        amount.end,
+        `'${amount.text}' after the formula reads as the amount; write the hydrate as one formula, e.g. '${formula.text}·${amount.text}' or '${formula.text}.${amount.text}'.`,
+      ),
+    );
     return;
   }
   if (!Number.isFinite(value) || value <= 0 || value > MAX_AMOUNT) {
-    diagnostics.push(finding('batch-amount', amountTok.start, amountTok.end, Number.isFinite(value) && value > MAX_AMOUNT ? `Amount ${amountTok.text} is beyond the limit of ${MAX_AMOUNT}.` : `'${amountTok.text}' is not a positive number.`));
+    diagnostics.push(
+      finding(
+        'batch-amount',
+        amountTok.start,
+        amountTok.end,
+        Number.isFinite(value) && value > MAX_AMOUNT
+          ? `Amount ${amountTok.text} is beyond the limit of ${MAX_AMOUNT}.`
+          : `'${amountTok.text}' is not a positive number.`,
+      ),
+    );
     return;
   }
   line.value = value;

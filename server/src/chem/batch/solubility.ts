@@ -95,18 +95,31 @@ export function checkSolubility(counted: readonly CountedLine[], volumeL: number
     if (!an || !row) return;
     const anhydrousG = c.moles * an.molarMass;
     const per100 = w.waterG > 0 ? (anhydrousG / w.waterG) * 100 : null;
-    const check: SolubilityCheck = { salt: subscriptDigits(row.formula), row, anhydrousG, per100gWater: per100, exceeds: per100 === null || per100 > row.gPer100gWater };
+    const check: SolubilityCheck = {
+      salt: subscriptDigits(row.formula),
+      row,
+      anhydrousG,
+      per100gWater: per100,
+      exceeds: per100 === null || per100 > row.gPer100gWater,
+    };
     out.checks[k] = check;
     if (!check.exceeds) return;
     out.diagnostics.push({
-      code: 'batch-solubility', severity: 'warning', start: c.amount.start, end: c.amount.end, message: exceededMessage(check, an.water > 0, w),
+      code: 'batch-solubility',
+      severity: 'warning',
+      start: c.amount.start,
+      end: c.amount.end,
+      message: exceededMessage(check, an.water > 0, w),
       data: { salt: row.formula, solubility: row.gPer100gWater, temperatureC: row.temperatureC, per100gWater: per100 },
     });
   });
   if (w.waterG <= 0 && out.diagnostics.length === 0 && w.parts.length) {
     const big = w.parts.reduce((a, b) => (b.dissolved > a.dissolved ? b : a));
     out.diagnostics.push({
-      code: 'batch-solubility', severity: 'warning', start: big.c.amount.start, end: big.c.amount.end,
+      code: 'batch-solubility',
+      severity: 'warning',
+      start: big.c.amount.start,
+      end: big.c.amount.end,
       message: `The dissolved mass (${fmt(w.dissolvedG)} g) is more than the ${fmt(w.solutionG)} mL final volume can hold at about 1 g/mL: no water is left to dissolve it. ${ESTIMATE}.`,
     });
   }
@@ -114,7 +127,11 @@ export function checkSolubility(counted: readonly CountedLine[], volumeL: number
 }
 
 /** What a warning of an exceeded solubility says: how much would not dissolve, on what estimate. */
-function exceededMessage({ salt, row, anhydrousG, per100gWater: per100 }: SolubilityCheck, hydrate: boolean, w: { solutionG: number; dissolvedG: number; waterG: number }): string {
+function exceededMessage(
+  { salt, row, anhydrousG, per100gWater: per100 }: SolubilityCheck,
+  hydrate: boolean,
+  w: { solutionG: number; dissolvedG: number; waterG: number },
+): string {
   const sol = `${fmt(row.gPer100gWater)} g per 100 g water at ${row.temperatureC} °C`;
   if (per100 === null) {
     return `${salt}: the dissolved mass (${fmt(w.dissolvedG)} g) is more than the ${fmt(w.solutionG)} mL final volume can hold at about 1 g/mL, so no water is left to dissolve it; ${salt} dissolves to ${sol}. ${ESTIMATE}.`;
@@ -122,11 +139,15 @@ function exceededMessage({ salt, row, anhydrousG, per100gWater: per100 }: Solubi
   const basis = hydrate ? ' (anhydrous; the hydrate water is counted as solvent)' : '';
   const rescue = row.gPer100gWater < 1 ? ' unless another ingredient dissolves it (an acid or a complexing agent)' : '';
   const undissolved = anhydrousG - (row.gPer100gWater * w.waterG) / 100;
-  const head = row.gPer100gWater < PRACTICALLY_INSOLUBLE_BELOW
-    ? `${salt} is practically insoluble in water (${sol}): about ${fmt(undissolved)} g of the ${fmt(anhydrousG)} g${basis} would stay undissolved${rescue}.`
-    : `${salt}: about ${fmt(per100)} g per 100 g water${basis}, above its solubility of ${sol}: about ${fmt(undissolved)} g would not dissolve${rescue}.`;
+  const head =
+    row.gPer100gWater < PRACTICALLY_INSOLUBLE_BELOW
+      ? `${salt} is practically insoluble in water (${sol}): about ${fmt(undissolved)} g of the ${fmt(anhydrousG)} g${basis} would stay undissolved${rescue}.`
+      : `${salt}: about ${fmt(per100)} g per 100 g water${basis}, above its solubility of ${sol}: about ${fmt(undissolved)} g would not dissolve${rescue}.`;
   const estimate = `${ESTIMATE} (${fmt(Math.max(w.waterG, 0))} g of water in ${fmt(w.solutionG)} mL, with ${fmt(w.dissolvedG)} g dissolved).`;
   // Where even all of the final volume as water would hold it, the estimate of the water decides.
-  const near = (anhydrousG / w.solutionG) * 100 <= row.gPer100gWater ? ' Near saturation: a denser solution holds more water than this estimate, so it may still dissolve.' : '';
+  const near =
+    (anhydrousG / w.solutionG) * 100 <= row.gPer100gWater
+      ? ' Near saturation: a denser solution holds more water than this estimate, so it may still dissolve.'
+      : '';
   return `${head} ${estimate}${near}`;
 }

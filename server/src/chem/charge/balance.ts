@@ -12,7 +12,18 @@ import { BoundedCache, detach } from '../cache';
 import type { ChemDiagnostic } from '../diagnostic';
 import { element, isMetal } from '../data/elements';
 import type { Formula, FormulaItem, FormulaPart } from '../formula/ast';
-import { cleanCount, formatCharge, formatCount, formulaAtoms, inNotationOf, itemAtoms, partAtoms, signed, subscriptDigits, type AtomCounts } from '../formula/compute';
+import {
+  cleanCount,
+  formatCharge,
+  formatCount,
+  formulaAtoms,
+  inNotationOf,
+  itemAtoms,
+  partAtoms,
+  signed,
+  subscriptDigits,
+  type AtomCounts,
+} from '../formula/compute';
 import { parseFormula } from '../formula/parse';
 import { readAlloyDesignation, type AlloyDesignation } from '../formula/alloy';
 import { assignStates } from './oxidation';
@@ -85,7 +96,12 @@ function decisive(segs: Segment[], target: number): boolean {
   if (cationWithAnion(segs)) return true;
   if (target !== 0 && segs.length === 1) {
     const s = segs[0];
-    return (s.kind === 'polyatomic' && !!s.ion) || s.kind === 'complex' || s.kind === 'metal' || ((s.kind === 'monatomic-anion' || s.kind === 'proton') && s.multiplicity === 1);
+    return (
+      (s.kind === 'polyatomic' && !!s.ion) ||
+      s.kind === 'complex' ||
+      s.kind === 'metal' ||
+      ((s.kind === 'monatomic-anion' || s.kind === 'proton') && s.multiplicity === 1)
+    );
   }
   return false;
 }
@@ -122,7 +138,13 @@ function ionsOf(sol: IonicSolution): IonInReading[] {
       kind: s.kind,
       states: unitCharges,
       ...(s.element ? { element: s.element } : {}),
-      ...(s.ion ? { ionName: s.ion.charges.length > 1 && s.ion.namesByCharge?.[unitCharges[0]] ? s.ion.namesByCharge[unitCharges[0]] : s.ion.name, radius: s.ion.radius, radiusFromMemory: s.ion.radiusFromMemory } : {}),
+      ...(s.ion
+        ? {
+            ionName: s.ion.charges.length > 1 && s.ion.namesByCharge?.[unitCharges[0]] ? s.ion.namesByCharge[unitCharges[0]] : s.ion.name,
+            radius: s.ion.radius,
+            radiusFromMemory: s.ion.radiusFromMemory,
+          }
+        : {}),
     };
   });
 }
@@ -156,7 +178,7 @@ function statesOf(sol: IonicSolution): { states: Record<string, number>; sites: 
     const atoms = segmentAtoms(s);
     if (!atoms) return null;
     if (Object.values(atoms).some(Number.isNaN)) continue; // `Sx`: its state depends on x (see variablePart)
-    let inner: Record<string, number> | null = null;
+    let inner: Record<string, number> | null;
     if (s.ion?.states) {
       // Internal states given for some atoms (peroxo O, thio S, amine N); the others by the usual rules.
       const fixed = s.ion.states;
@@ -166,7 +188,7 @@ function statesOf(sol: IonicSolution): { states: Record<string, number>; sites: 
         if (el in fixed) left -= fixed[el] * n;
         else rest[el] = n;
       }
-      const others = Object.keys(rest).length ? assignStates(rest, left)?.states ?? null : {};
+      const others = Object.keys(rest).length ? (assignStates(rest, left)?.states ?? null) : {};
       inner = others ? { ...others, ...fixed } : null;
     } else if (s.kind === 'complex' && s.complex) {
       const metalState = unit - s.complex.ligandCharge;
@@ -238,7 +260,10 @@ function partSuggestions(segs: Segment[], target: number): string[] {
     for (const qc of usual(c)) {
       if (qa === 0) break;
       const g = gcd(qc, qa);
-      const counts = new Map<Segment, number>([[c, qa / g], [a, qc / g]]);
+      const counts = new Map<Segment, number>([
+        [c, qa / g],
+        [a, qc / g],
+      ]);
       out.push(segs.map((s) => renderSegment(s, counts.get(s) ?? s.multiplicity)).join(''));
     }
     return out;
@@ -327,8 +352,13 @@ function outsideSaltWords(sol: IonicSolution): string {
     if (!states) continue;
     const off = [...new Set(unitCharges)].filter((q) => !states.includes(q));
     if (off.length === 0) continue;
-    const usual = [...states].sort((a, b) => a - b).map(signed).join(', ');
-    bits.push(`${off.map((q) => s.element + formatCharge(q, true)).join(', ')}, a state ${ELEMENT_NAME(s.element)} does not show in salts of this kind (${ELEMENT_NAME(s.element)} in salts: ${usual})`);
+    const usual = [...states]
+      .sort((a, b) => a - b)
+      .map(signed)
+      .join(', ');
+    bits.push(
+      `${off.map((q) => s.element + formatCharge(q, true)).join(', ')}, a state ${ELEMENT_NAME(s.element)} does not show in salts of this kind (${ELEMENT_NAME(s.element)} in salts: ${usual})`,
+    );
   }
   return bits.length ? `It balances only with ${bits.join('; ')}.` : '';
 }
@@ -342,9 +372,19 @@ function assessPart(formula: Formula, part: FormulaPart, target: number): PartRe
   const partLabel = subscriptDigits(text.slice(span.start, span.end).replace(/\s+/g, ''));
   // One object shape for every result (object spreads here were the hot spot of cold analyses).
   const mk = (r: Pick<PartResult, 'balanced' | 'states' | 'basis' | 'message'> & Partial<PartResult>): PartResult => ({
-    balanced: r.balanced, states: r.states, weights: atoms, basis: r.basis, message: r.message, suggestions: r.suggestions ?? [],
-    ions: r.ions ?? null, mixed: r.mixed ?? [], unusual: r.unusual ?? [], span: r.span, wholeSuggestions: r.wholeSuggestions ?? false,
-    sites: r.sites ?? (r.states ? wholeSites(r.states, unitAtoms, partLabel) : undefined), undetermined: r.undetermined,
+    balanced: r.balanced,
+    states: r.states,
+    weights: atoms,
+    basis: r.basis,
+    message: r.message,
+    suggestions: r.suggestions ?? [],
+    ions: r.ions ?? null,
+    mixed: r.mixed ?? [],
+    unusual: r.unusual ?? [],
+    span: r.span,
+    wholeSuggestions: r.wholeSuggestions ?? false,
+    sites: r.sites ?? (r.states ? wholeSites(r.states, unitAtoms, partLabel) : undefined),
+    undetermined: r.undetermined,
   });
   if (els.length === 0) return mk({ balanced: true, states: null, basis: 'none', message: '' });
   const varEls = els.filter((el) => Number.isNaN(atoms[el]));
@@ -413,7 +453,14 @@ function assessPart(formula: Formula, part: FormulaPart, target: number): PartRe
     if (best) {
       const ions = ionsOf(best.sol);
       const st = statesOf(best.sol);
-      return mk({ balanced: true, states: st?.states ?? null, basis: 'ionic', message: `Balanced: ${describeIons(ions)} (read by composition).`, ions, sites: st?.sites });
+      return mk({
+        balanced: true,
+        states: st?.states ?? null,
+        basis: 'ionic',
+        message: `Balanced: ${describeIons(ions)} (read by composition).`,
+        ions,
+        sites: st?.sites,
+      });
     }
     if (firstReading && !decisiveSegs) decisiveSegs = firstReading;
   }
@@ -422,7 +469,13 @@ function assessPart(formula: Formula, part: FormulaPart, target: number): PartRe
     const suggestions = ion ? ionChargeSuggestions(formula, decisiveSegs[0]) : partSuggestions(decisiveSegs, target);
     let message = imbalanceWords(decisiveSegs, target);
     if (outsideSalt) message += ` ${outsideSaltWords(outsideSalt)}`;
-    return mk({ balanced: false, states: null, basis: 'ionic', wholeSuggestions: ion, message, suggestions,
+    return mk({
+      balanced: false,
+      states: null,
+      basis: 'ionic',
+      wholeSuggestions: ion,
+      message,
+      suggestions,
       span: target !== 0 && formula.chargeSpan ? { start: Math.min(span.start, formula.chargeSpan.start), end: formula.chargeSpan.end } : span,
     });
   }
@@ -436,9 +489,18 @@ function assessPart(formula: Formula, part: FormulaPart, target: number): PartRe
       const asg = assignStates(rest, target / part.multiplier - nSum);
       if (asg) {
         const nAvg = cleanCount(nSum / unitAtoms.N);
-        const sites: SiteState[] = [...nr.sites.map((x) => ({ element: 'N', state: x.state, count: x.count, site: x.site })), ...wholeSites(asg.states, rest, partLabel)];
+        const sites: SiteState[] = [
+          ...nr.sites.map((x) => ({ element: 'N', state: x.state, count: x.count, site: x.site })),
+          ...wholeSites(asg.states, rest, partLabel),
+        ];
         const words = nr.sites.map((x) => `N ${signed(x.state)} in ${x.site}`).join(', ');
-        return mk({ balanced: true, states: { ...asg.states, N: nAvg }, basis: 'molecular', sites, message: `Molecular substance: ${words}; the other atoms by the usual rules${asg.averaged.length ? ` (${asg.averaged.join(', ')} as an average)` : ''}.` });
+        return mk({
+          balanced: true,
+          states: { ...asg.states, N: nAvg },
+          basis: 'molecular',
+          sites,
+          message: `Molecular substance: ${words}; the other atoms by the usual rules${asg.averaged.length ? ` (${asg.averaged.join(', ')} as an average)` : ''}.`,
+        });
       }
     } else if (nr?.kind === 'undetermined') {
       const all = assignStates(atoms, target);
@@ -446,29 +508,51 @@ function assessPart(formula: Formula, part: FormulaPart, target: number): PartRe
       const undetermined = [{ element: 'N', reason: `N: no firm state — ${nr.reason}` }];
       if (all) for (const [el, q] of Object.entries(all.states)) if (el !== 'N' && el !== 'C') states[el] = q;
       undetermined.push({ element: 'C', reason: 'C: its average depends on the state of N, which the formula does not fix.' });
-      return mk({ balanced: true, states, basis: 'molecular', undetermined, message: `Molecular substance: no firm oxidation state for N (and so for C): ${nr.reason}` });
+      return mk({
+        balanced: true,
+        states,
+        basis: 'molecular',
+        undetermined,
+        message: `Molecular substance: no firm oxidation state for N (and so for C): ${nr.reason}`,
+      });
     }
   }
   if (anySolution) {
     const st = statesOf(anySolution.sol);
     if (st && carbonyl) {
       const m = anySolution.sol.segments.filter((x) => x.segment.kind === 'metal').map((x) => x.segment.element as string);
-      return mk({ balanced: true, states: st.states, basis: 'states', message: `Metal carbonyl: ${[...new Set(m)].join(', ')} in oxidation state 0 with neutral ligands.`, sites: st.sites });
+      return mk({
+        balanced: true,
+        states: st.states,
+        basis: 'states',
+        message: `Metal carbonyl: ${[...new Set(m)].join(', ')} in oxidation state 0 with neutral ligands.`,
+        sites: st.sites,
+      });
     }
-    if (st) return mk({ balanced: true, states: st.states, basis: metals.length ? 'states' : 'molecular', message: metals.length ? 'Balanced by oxidation states.' : 'Molecular substance: oxidation states by the usual rules.' });
+    if (st)
+      return mk({
+        balanced: true,
+        states: st.states,
+        basis: metals.length ? 'states' : 'molecular',
+        message: metals.length ? 'Balanced by oxidation states.' : 'Molecular substance: oxidation states by the usual rules.',
+      });
   }
   const assigned = assignStates(atoms, target);
   if (assigned) {
     const avg = assigned.averaged.length ? ` (${assigned.averaged.join(', ')} as an average)` : '';
-    if (metals.length === 0) return mk({ balanced: true, states: assigned.states, basis: 'molecular', message: `Molecular substance: oxidation states by the usual rules${avg}.` });
+    if (metals.length === 0)
+      return mk({ balanced: true, states: assigned.states, basis: 'molecular', message: `Molecular substance: oxidation states by the usual rules${avg}.` });
     return mk({ balanced: true, states: assigned.states, basis: 'states', message: `Balanced by oxidation states${avg}.`, unusual: assigned.unusual });
   }
   if (metals.length === 0 || organic) {
-    return mk({ balanced: true, states: null, basis: 'molecular', message: 'Molecular substance: no oxidation states assigned; charge balance does not apply.' });
+    return mk({
+      balanced: true,
+      states: null,
+      basis: 'molecular',
+      message: 'Molecular substance: no oxidation states assigned; charge balance does not apply.',
+    });
   }
-  return mk({ balanced: false, states: null, basis: 'states', span,
-    message: `No usual oxidation states of ${els.join(', ')} sum to ${signed(target)}.`,
-  });
+  return mk({ balanced: false, states: null, basis: 'states', span, message: `No usual oxidation states of ${els.join(', ')} sum to ${signed(target)}.` });
 }
 
 const RULE_STATES: Record<string, number> = { O: -2, H: 1, F: -1, Li: 1, Na: 1, K: 1, Rb: 1, Cs: 1, Be: 2, Mg: 2, Ca: 2, Sr: 2, Ba: 2 };
@@ -477,16 +561,34 @@ const RULE_STATES: Record<string, number> = { O: -2, H: 1, F: -1, Li: 1, Na: 1, 
  * A part with a count written `x` (`(NH4)2Sx`, `NOx`): read as ions where a table ion has that form
  * (polysulfide Sx²⁻), and never flagged; the state of an element that depends on x is not given.
  */
-function variablePart(formula: Formula, part: FormulaPart, target: number, mk: (r: Pick<PartResult, 'balanced' | 'states' | 'basis' | 'message'> & Partial<PartResult>) => PartResult, unitAtoms: AtomCounts, partLabel: string): PartResult {
+function variablePart(
+  formula: Formula,
+  part: FormulaPart,
+  target: number,
+  mk: (r: Pick<PartResult, 'balanced' | 'states' | 'basis' | 'message'> & Partial<PartResult>) => PartResult,
+  unitAtoms: AtomCounts,
+  partLabel: string,
+): PartResult {
   const why = (el: string) => ({ element: el, reason: `${el}: its state depends on the count x, which the formula leaves open.` });
   for (const segs of segmentations(formula.text, part.items, false)) {
-    if (!plausible(segs) || !decisive(segs, target) || !segs.some((x) => x.ion && Number.isNaN(itemAtoms(parseFormula(x.ionText).formula?.parts[0].items ?? []).S))) continue;
-    const sol = solve(segs.filter((x) => Number.isFinite(x.multiplicity)), target, false);
+    if (
+      !plausible(segs) ||
+      !decisive(segs, target) ||
+      !segs.some((x) => x.ion && Number.isNaN(itemAtoms(parseFormula(x.ionText).formula?.parts[0].items ?? []).S))
+    )
+      continue;
+    const sol = solve(
+      segs.filter((x) => Number.isFinite(x.multiplicity)),
+      target,
+      false,
+    );
     if (!sol) continue;
     const ions = ionsOf(sol);
     const st = statesOf(sol);
     const known = st ? st.states : {};
-    const undetermined = Object.keys(unitAtoms).filter((el) => !(el in known)).map(why);
+    const undetermined = Object.keys(unitAtoms)
+      .filter((el) => !(el in known))
+      .map(why);
     return mk({ balanced: true, states: known, basis: 'ionic', message: `Balanced: ${describeIons(ions)}.`, ions, sites: st?.sites ?? [], undetermined });
   }
   const states: Record<string, number> = {};
@@ -496,7 +598,14 @@ function variablePart(formula: Formula, part: FormulaPart, target: number, mk: (
     else undetermined.push(why(el));
   }
   const counted = Object.fromEntries(Object.entries(unitAtoms).filter(([, n]) => Number.isFinite(n)));
-  return mk({ balanced: true, states, basis: 'molecular', message: 'A count is written x: no charge balance is checked, and states that depend on x are not given.', sites: wholeSites(states, counted, partLabel), undetermined });
+  return mk({
+    balanced: true,
+    states,
+    basis: 'molecular',
+    message: 'A count is written x: no charge balance is checked, and states that depend on x are not given.',
+    sites: wholeSites(states, counted, partLabel),
+    undetermined,
+  });
 }
 
 const pctText = (x: number) => `${formatCount(x)} %`;
@@ -509,9 +618,18 @@ function designationAssessment(formula: Formula, alloy: AlloyDesignation): Charg
   const atoms = formulaAtoms(formula);
   const states = Object.fromEntries(Object.keys(atoms).map((el) => [el, 0]));
   return {
-    balanced: true, message, suggestions: [], oxidationStates: states,
+    balanced: true,
+    message,
+    suggestions: [],
+    oxidationStates: states,
     sites: Object.keys(atoms).map((el) => ({ element: el, state: 0, count: atoms[el], site: 'alloy' })),
-    undetermined: [], ions: null, basis: 'alloy', mixedValence: [], unusual: [], diagnostics: [], designation: alloy,
+    undetermined: [],
+    ions: null,
+    basis: 'alloy',
+    mixedValence: [],
+    unusual: [],
+    diagnostics: [],
+    designation: alloy,
   };
 }
 
@@ -519,7 +637,9 @@ function designationAssessment(formula: Formula, alloy: AlloyDesignation): Charg
 export function assessCharge(formula: Formula): ChargeAssessment {
   const alloy = readAlloyDesignation(formula);
   if (alloy) return designationAssessment(formula, alloy);
-  const results = formula.parts.map((p, k) => (p.items.length ? assessPart(formula, p, k === 0 ? formula.charge : 0) : null)).filter((r): r is PartResult => r !== null);
+  const results = formula.parts
+    .map((p, k) => (p.items.length ? assessPart(formula, p, k === 0 ? formula.charge : 0) : null))
+    .filter((r): r is PartResult => r !== null);
   const diagnostics: ChemDiagnostic[] = [];
   const suggestions: string[] = [];
   const bad = results.filter((r) => !r.balanced);
@@ -535,7 +655,11 @@ export function assessCharge(formula: Formula): ChargeAssessment {
     suggestions.push(...whole);
     const span = r.span ?? { start: from, end: p.end };
     diagnostics.push({
-      code: 'charge-imbalance', severity: 'warning', start: span.start, end: span.end, message: r.message,
+      code: 'charge-imbalance',
+      severity: 'warning',
+      start: span.start,
+      end: span.end,
+      message: r.message,
       data: { suggestions: whole },
     });
   });
@@ -556,7 +680,8 @@ export function assessCharge(formula: Formula): ChargeAssessment {
   }
   const undetermined = results.flatMap((r) => r.undetermined ?? []);
   const unknown = new Set(undetermined.map((u) => u.element));
-  if (oxidationStates) for (const el of Object.keys(tot)) if (!unknown.has(el)) oxidationStates[el] = w[el] ? cleanCount(Number((tot[el] / w[el]).toFixed(4))) : 0;
+  if (oxidationStates)
+    for (const el of Object.keys(tot)) if (!unknown.has(el)) oxidationStates[el] = w[el] ? cleanCount(Number((tot[el] / w[el]).toFixed(4))) : 0;
   // Per-site states over all parts (a part's multiplier multiplies its counts), null where states are.
   let sites: SiteState[] | null = oxidationStates ? [] : null;
   if (sites) {
@@ -571,7 +696,7 @@ export function assessCharge(formula: Formula): ChargeAssessment {
     });
   }
   const main = results[0];
-  const message = bad.length ? bad.map((r) => r.message).join(' ') : main?.message ?? '';
+  const message = bad.length ? bad.map((r) => r.message).join(' ') : (main?.message ?? '');
   return {
     balanced: bad.length === 0,
     message,

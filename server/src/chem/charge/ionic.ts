@@ -32,7 +32,11 @@ const MAX_MIX = 24;
 /** The ways a segment can be charged, over all its units. */
 function segmentOptions(s: Segment): Opt[] {
   const m = s.multiplicity;
-  const out: Opt[] = s.unitOptions.map((o) => ({ total: o.charge * m, unitCharges: Number.isInteger(m) && m <= MAX_MIX ? Array(m).fill(o.charge) : [o.charge], cost: o.cost }));
+  const out: Opt[] = s.unitOptions.map((o) => ({
+    total: o.charge * m,
+    unitCharges: Number.isInteger(m) && m <= MAX_MIX ? Array(m).fill(o.charge) : [o.charge],
+    cost: o.cost,
+  }));
   // Mixed valence: a metal written with a whole count may carry two of its states.
   if (s.kind === 'metal' && Number.isInteger(m) && m >= 2 && m <= MAX_MIX) {
     const u = s.unitOptions;

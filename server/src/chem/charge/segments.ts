@@ -174,8 +174,16 @@ function groupSegments(formula: string, g: GroupNode, fallback: boolean): Segmen
     out.push({ ...base, kind: 'complex', role, complex: cx, unitOptions: opts });
   }
   const lig = ligandCharge(g.items);
-  if (lig === 0) out.push({ ...base, kind: 'neutral-ligand', role: 'neutral', unitOptions: [{ charge: 0, cost: 0 }], ...(isCarbonylLigand(g.items) ? { carbonyl: true } : {}) });
-  else if (lig !== undefined && out.length === 0) out.push({ ...base, kind: 'polyatomic', role: lig < 0 ? 'anion' : 'cation', unitOptions: [{ charge: lig, cost: 0 }] });
+  if (lig === 0)
+    out.push({
+      ...base,
+      kind: 'neutral-ligand',
+      role: 'neutral',
+      unitOptions: [{ charge: 0, cost: 0 }],
+      ...(isCarbonylLigand(g.items) ? { carbonyl: true } : {}),
+    });
+  else if (lig !== undefined && out.length === 0)
+    out.push({ ...base, kind: 'polyatomic', role: lig < 0 ? 'anion' : 'cation', unitOptions: [{ charge: lig, cost: 0 }] });
   // A single element in brackets: (Cl)2 reads as Cl2.
   if (out.length === 0 && g.items.length === 1 && g.items[0].kind === 'element' && g.items[0].count === 1) {
     const el = g.items[0].symbol;
@@ -222,10 +230,37 @@ export function segmentations(formula: string, items: readonly FormulaItem[], fa
       return out;
     }
     if (it.kind === 'abbrev') {
-      if (it.charge !== 0) out.push({ seg: { kind: 'polyatomic', role: 'anion', ionText: textOf(formula, { start: it.start, end: it.end - (it.count === 1 ? 0 : String(it.count).length) }), bracket: '', multiplicity: it.count, start: it.start, end: it.end, unitOptions: [{ charge: it.charge, cost: 0 }] }, next: i + 1 });
+      if (it.charge !== 0)
+        out.push({
+          seg: {
+            kind: 'polyatomic',
+            role: 'anion',
+            ionText: textOf(formula, { start: it.start, end: it.end - (it.count === 1 ? 0 : String(it.count).length) }),
+            bracket: '',
+            multiplicity: it.count,
+            start: it.start,
+            end: it.end,
+            unitOptions: [{ charge: it.charge, cost: 0 }],
+          },
+          next: i + 1,
+        });
       else {
         const m = matchIon([it]);
-        for (const x of m) out.push({ seg: { kind: 'polyatomic', role: x.role, ion: x.ion, ionText: textOf(formula, it), bracket: '', multiplicity: 1, start: it.start, end: it.end, unitOptions: ionOptions(x.ion) }, next: i + 1 });
+        for (const x of m)
+          out.push({
+            seg: {
+              kind: 'polyatomic',
+              role: x.role,
+              ion: x.ion,
+              ionText: textOf(formula, it),
+              bracket: '',
+              multiplicity: 1,
+              start: it.start,
+              end: it.end,
+              unitOptions: ionOptions(x.ion),
+            },
+            next: i + 1,
+          });
       }
       return out;
     }
@@ -245,16 +280,45 @@ export function segmentations(formula: string, items: readonly FormulaItem[], fa
       const last = items[i + len - 1];
       for (const m of matchKey(runKey)) {
         out.push({
-          seg: { kind: 'polyatomic', role: m.role, ion: m.ion, ionText: formula.slice(first.start, last.end), bracket: '', multiplicity: 1, start: first.start, end: last.end, unitOptions: ionOptions(m.ion) },
+          seg: {
+            kind: 'polyatomic',
+            role: m.role,
+            ion: m.ion,
+            ionText: formula.slice(first.start, last.end),
+            bracket: '',
+            multiplicity: 1,
+            start: first.start,
+            end: last.end,
+            unitOptions: ionOptions(m.ion),
+          },
           next: i + len,
         });
       }
     }
     const symEnd = it.symbolEnd;
     for (const s of singleElement(it.symbol, fallback)) {
-      const opts = it.stock !== undefined ? s.unitOptions.filter((o) => o.charge === it.stock).concat(s.unitOptions.some((o) => o.charge === it.stock) || s.kind !== 'metal' ? [] : [{ charge: it.stock, cost: 0 }]) : s.unitOptions;
+      const opts =
+        it.stock !== undefined
+          ? s.unitOptions
+              .filter((o) => o.charge === it.stock)
+              .concat(s.unitOptions.some((o) => o.charge === it.stock) || s.kind !== 'metal' ? [] : [{ charge: it.stock, cost: 0 }])
+          : s.unitOptions;
       if (opts.length === 0) continue;
-      out.push({ seg: { kind: s.kind, role: s.role, unitOptions: opts, element: it.symbol, ionText: formula.slice(it.start, symEnd), bracket: '', multiplicity: it.count, start: it.start, end: it.end, ...(it.stock !== undefined ? { stock: it.stock } : {}) }, next: i + 1 });
+      out.push({
+        seg: {
+          kind: s.kind,
+          role: s.role,
+          unitOptions: opts,
+          element: it.symbol,
+          ionText: formula.slice(it.start, symEnd),
+          bracket: '',
+          multiplicity: it.count,
+          start: it.start,
+          end: it.end,
+          ...(it.stock !== undefined ? { stock: it.stock } : {}),
+        },
+        next: i + 1,
+      });
     }
     return out;
   };
@@ -292,13 +356,16 @@ export function interstitialOnly(segs: Segment[]): boolean {
 /** Whether a segmentation is chemically sensible as a salt or ion (rules on monatomic anions and protons). */
 export function plausible(segs: Segment[]): boolean {
   const monoAnions = segs.filter((s) => s.kind === 'monatomic-anion').map((s) => s.element as string);
-  const hasStrongAnion = segs.some((s) => (s.kind === 'monatomic-anion' && (HALOGENS.has(s.element!) || CHALCOGENS.has(s.element!))) || (s.role === 'anion' && s.kind !== 'monatomic-anion'));
+  const hasStrongAnion = segs.some(
+    (s) => (s.kind === 'monatomic-anion' && (HALOGENS.has(s.element!) || CHALCOGENS.has(s.element!))) || (s.role === 'anion' && s.kind !== 'monatomic-anion'),
+  );
   for (const el of monoAnions) {
     if (el in PNICTOGEN_LIKE && hasStrongAnion) return false;
     if (el === 'H' && monoAnions.some((x) => x !== 'H')) return false;
     if (el === 'H' && segs.some((s) => s.role === 'anion' && s.kind !== 'monatomic-anion')) return false;
   }
-  if (segs.length > 1 && segs.some((s) => s.kind === 'proton') && !segs.some((s) => s.role === 'anion' && !(s.kind === 'monatomic-anion' && s.element === 'H'))) return false;
+  if (segs.length > 1 && segs.some((s) => s.kind === 'proton') && !segs.some((s) => s.role === 'anion' && !(s.kind === 'monatomic-anion' && s.element === 'H')))
+    return false;
   if (segs.some((s) => s.kind === 'proton') && monoAnions.includes('H')) return false;
   return true;
 }

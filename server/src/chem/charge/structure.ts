@@ -77,7 +77,10 @@ export function organicNitrogen(items: readonly FormulaItem[], atoms: Record<str
     const next = flat[i + 1];
     const n = a.count * a.factor;
     if ((next && next.symbol === 'N') || (prev && prev.symbol === 'N') || a.count > 1) {
-      return { kind: 'undetermined', reason: 'an N–N bond (hydrazine, azo or azide group) shares electrons equally, and the formula does not show how many bonds each N has to C, H and O.' };
+      return {
+        kind: 'undetermined',
+        reason: 'an N–N bond (hydrazine, azo or azide group) shares electrons equally, and the formula does not show how many bonds each N has to C, H and O.',
+      };
     }
     // An O written right before N is bonded to it unless it is the carbonyl O of a C written just before
     // it (`CONH2`: an amide, the O on the C).

@@ -11,9 +11,7 @@ import { isReversible } from './arrows';
 import { allSpecies, parseEquation, type ParsedEquation, type Species } from './parse';
 import { BoundedCache, detach } from '../cache';
 import { balanceByHalfReactions } from './redox';
-import {
-  add, fromNumber, gcd, isZero, lcm, mul, neg, ONE, rational, sub, toNumber, ZERO, type Rational,
-} from './rational';
+import { add, fromNumber, gcd, isZero, lcm, mul, neg, ONE, rational, sub, toNumber, ZERO, type Rational } from './rational';
 
 export const MAX_SPECIES = 40;
 export const MAX_ELEMENTS = 40;
@@ -103,7 +101,7 @@ function writtenCoefficients(eq: ParsedEquation): Rational[] {
 }
 
 function coefficientsToRational(coefficients: readonly (number | Rational)[]): Rational[] {
-  return coefficients.map((c) => (typeof c === 'number' ? fromNumber(c) ?? ZERO : c));
+  return coefficients.map((c) => (typeof c === 'number' ? (fromNumber(c) ?? ZERO) : c));
 }
 
 /**
@@ -202,7 +200,11 @@ export function smallestIntegers(v: readonly Rational[]): bigint[] {
 // Text
 
 /** The equation written with the given coefficients (1 omitted), the user's formulas and arrow. */
-export function writeEquation(eq: ParsedEquation, coefficients: readonly (bigint | number)[], order: { reactants: Species[]; products: Species[] } = eq): string {
+export function writeEquation(
+  eq: ParsedEquation,
+  coefficients: readonly (bigint | number)[],
+  order: { reactants: Species[]; products: Species[] } = eq,
+): string {
   const index = new Map(allSpecies(eq).map((s, k) => [s, k] as const));
   const term = (s: Species) => {
     const c = coefficients[index.get(s) ?? -1];
@@ -219,7 +221,11 @@ export const formatSignedCharge = (q: number): string => signed(q);
  * The equation in Unicode and IUPAC notation, for people: formulas in their display form (`SO₄²⁻`,
  * `CuSO₄·5H₂O`), `e⁻` for the electron, `→` or `⇌` for the arrow, coefficients as given (1 omitted).
  */
-export function displayEquation(eq: ParsedEquation, coefficients?: readonly (bigint | number)[] | null, order: { reactants: Species[]; products: Species[] } = eq): string {
+export function displayEquation(
+  eq: ParsedEquation,
+  coefficients?: readonly (bigint | number)[] | null,
+  order: { reactants: Species[]; products: Species[] } = eq,
+): string {
   const index = new Map(allSpecies(eq).map((s, k) => [s, k] as const));
   const term = (s: Species) => {
     const c = coefficients ? coefficients[index.get(s) ?? -1] : s.coefficientText || undefined;
@@ -247,7 +253,15 @@ const SAFE = BigInt(Number.MAX_SAFE_INTEGER);
 
 function result(status: BalanceStatus, message: string, rest: Partial<BalanceResult> = {}): BalanceResult {
   return {
-    status, message, coefficients: null, balancedText: null, balancedDisplay: null, differences: [], charge: { left: 0, right: 0 }, nullity: null, reducible: false,
+    status,
+    message,
+    coefficients: null,
+    balancedText: null,
+    balancedDisplay: null,
+    differences: [],
+    charge: { left: 0, right: 0 },
+    nullity: null,
+    reducible: false,
     ...rest,
   };
 }
@@ -276,9 +290,7 @@ export function balanceEquation(parsed: ParsedEquation): BalanceResult {
     const coefficients = fits ? ints.map(Number) : null;
     const balancedText = coefficients ? writeEquation(parsed, coefficients) : null;
     const balancedDisplay = coefficients ? displayEquation(parsed, coefficients) : null;
-    const message = reducible && balancedDisplay
-      ? `Balanced as written; in smallest whole numbers: ${balancedDisplay}.`
-      : 'Balanced as written.';
+    const message = reducible && balancedDisplay ? `Balanced as written; in smallest whole numbers: ${balancedDisplay}.` : 'Balanced as written.';
     return result('already-balanced', message, { ...asWritten, coefficients, balancedText, balancedDisplay, reducible });
   }
 
@@ -291,9 +303,7 @@ export function balanceEquation(parsed: ParsedEquation): BalanceResult {
 
   // The matrix: one row per element, plus a charge row when anything is charged.
   const sideSign = (s: Species) => (s.side === 'reactant' ? ONE : neg(ONE));
-  const matrix: Rational[][] = t.elements.map((el) =>
-    species.map((s) => (s.atoms[el] ? mul(sideSign(s), exactCount(s.atoms[el])) : ZERO)),
-  );
+  const matrix: Rational[][] = t.elements.map((el) => species.map((s) => (s.atoms[el] ? mul(sideSign(s), exactCount(s.atoms[el])) : ZERO)));
   if (species.some((s) => s.charge !== 0)) {
     matrix.push(species.map((s) => mul(sideSign(s), rational(BigInt(Math.trunc(s.charge))))));
   }
@@ -311,7 +321,15 @@ export function balanceEquation(parsed: ParsedEquation): BalanceResult {
       const balancedDisplay = displayEquation(parsed, coefficients);
       const couples = hr.couples.map((c) => `${c.element} ${formatSignedCharge(c.from)} → ${formatSignedCharge(c.to)}`).join(', ');
       const note = `Balanced by half-reactions (electrons lost = electrons gained; ${couples}; every other atom keeps its oxidation state). Other combinations of these species also conserve atoms and charge (${nullity} independent ones), such as a side reaction of one of them; these coefficients are the redox reaction as a titration writes it.`;
-      return result('balanced', `Balanced: ${balancedDisplay}. ${note}`, { ...asWritten, coefficients, balancedText, balancedDisplay, nullity, method: 'half-reactions', note });
+      return result('balanced', `Balanced: ${balancedDisplay}. ${note}`, {
+        ...asWritten,
+        coefficients,
+        balancedText,
+        balancedDisplay,
+        nullity,
+        method: 'half-reactions',
+        note,
+      });
     }
     return result(
       'ambiguous',
@@ -344,11 +362,10 @@ export function balanceEquation(parsed: ParsedEquation): BalanceResult {
       products: species.filter((s, k) => (s.side === 'product') === w[k] > 0n),
     };
     const hint = fits ? `: ${displayEquation(parsed, abs.map(Number), order)}` : '';
-    return result(
-      'impossible',
-      `It cannot be balanced with the species on the sides given: ${names} would have to be on the other side${hint}.`,
-      { ...asWritten, nullity },
-    );
+    return result('impossible', `It cannot be balanced with the species on the sides given: ${names} would have to be on the other side${hint}.`, {
+      ...asWritten,
+      nullity,
+    });
   }
   if (w.some((x) => x > SAFE)) {
     return result('too-large', `The balanced coefficients exceed ${Number.MAX_SAFE_INTEGER} and cannot be shown exactly.`, { ...asWritten, nullity });
@@ -382,7 +399,8 @@ export function unbalancedMessage(r: BalanceResult): string {
   }
   if (r.charge.left !== r.charge.right) parts.push(`charge ${formatSignedCharge(r.charge.left)} vs ${formatSignedCharge(r.charge.right)}`);
   let text = parts.length ? `Not balanced — ${parts.join('; ')}.` : 'Balanced as written.';
-  if (r.status === 'balanced' && r.balancedDisplay) text += ` Balanced: ${r.balancedDisplay}${r.method === 'half-reactions' ? ' (by half-reactions; other combinations also conserve atoms and charge)' : ''}`;
+  if (r.status === 'balanced' && r.balancedDisplay)
+    text += ` Balanced: ${r.balancedDisplay}${r.method === 'half-reactions' ? ' (by half-reactions; other combinations also conserve atoms and charge)' : ''}`;
   else if (r.status === 'impossible') text += ' No coefficients balance these species as placed.';
   else if (r.status === 'ambiguous') text += ' These species have more than one independent balanced form; write the coefficients.';
   else if (r.status === 'too-large') text += ` ${r.message}`;
@@ -419,7 +437,11 @@ export function analyseReaction(text: string): ReactionAnalysis {
   // For a readable equation the balance as written is checked first, so any other status means it is unbalanced.
   if (parsed.ok && balance.status !== 'already-balanced' && balance.status !== 'invalid') {
     diagnostics.push({
-      code: 'unbalanced-equation', severity: 'warning', start: 0, end: text.length, message: unbalancedMessage(balance),
+      code: 'unbalanced-equation',
+      severity: 'warning',
+      start: 0,
+      end: text.length,
+      message: unbalancedMessage(balance),
       data: { balanced: balance.balancedText, display: balance.balancedDisplay, coefficients: balance.coefficients, status: balance.status },
     });
   }

@@ -4,7 +4,20 @@ export * as rationalMath from './rational';
 export type { Rational } from './rational';
 export { allSpecies, parseEquation, type ParsedEquation, type Species } from './parse';
 export {
-  analyseReaction, balanceCheck, balanceEquation, clearReactionCache, displayEquation, formatSignedCharge, MAX_ELEMENTS, MAX_SPECIES,
-  nullSpace, smallestIntegers, unbalancedMessage, writeEquation,
-  type BalanceCheck, type BalanceResult, type BalanceStatus, type ReactionAnalysis,
+  analyseReaction,
+  balanceCheck,
+  balanceEquation,
+  clearReactionCache,
+  displayEquation,
+  formatSignedCharge,
+  MAX_ELEMENTS,
+  MAX_SPECIES,
+  nullSpace,
+  smallestIntegers,
+  unbalancedMessage,
+  writeEquation,
+  type BalanceCheck,
+  type BalanceResult,
+  type BalanceStatus,
+  type ReactionAnalysis,
 } from './balance';

@@ -87,8 +87,7 @@ const startsSpecies = (c: string | undefined) => isLetter(c) || isDigit(c) || (c
 /** Parse an equation. Offsets in the result are relative to `text`. */
 export function parseEquation(text: string): ParsedEquation {
   const diagnostics: ChemDiagnostic[] = [];
-  const error = (code: DiagnosticCode, start: number, end: number, message: string) =>
-    diagnostics.push({ code, severity: 'error', message, start, end });
+  const error = (code: DiagnosticCode, start: number, end: number, message: string) => diagnostics.push({ code, severity: 'error', message, start, end });
 
   const first = findArrow(text);
   if (!first) {
@@ -108,7 +107,12 @@ export function parseEquation(text: string): ParsedEquation {
 
   const sideOf = (from: number, to: number, side: Species['side']) => {
     if (text.slice(from, to).trim() === '') {
-      error('empty-side', first.start, first.end, side === 'reactant' ? 'Nothing before the arrow: the equation has no reactants.' : 'Nothing after the arrow: the equation has no products.');
+      error(
+        'empty-side',
+        first.start,
+        first.end,
+        side === 'reactant' ? 'Nothing before the arrow: the equation has no reactants.' : 'Nothing after the arrow: the equation has no products.',
+      );
       return [];
     }
     return readSide(text, from, to, side, diagnostics);
@@ -208,8 +212,7 @@ function readSide(text: string, from: number, to: number, side: Species['side'],
 }
 
 function readSpecies(text: string, a: number, b: number, side: Species['side'], diagnostics: ChemDiagnostic[]): Species {
-  const error = (code: DiagnosticCode, start: number, end: number, message: string) =>
-    diagnostics.push({ code, severity: 'error', message, start, end });
+  const error = (code: DiagnosticCode, start: number, end: number, message: string) => diagnostics.push({ code, severity: 'error', message, start, end });
   let ok = true;
 
   // Coefficient.
@@ -242,9 +245,22 @@ function readSpecies(text: string, a: number, b: number, side: Species['side'], 
   while (f < b && isWs(text[f])) f++;
   const formulaText = text.slice(f, b);
   const species: Species = {
-    text: text.slice(a, b), start: a, end: b, side, coefficient, coefficientExact, coefficientText,
+    text: text.slice(a, b),
+    start: a,
+    end: b,
+    side,
+    coefficient,
+    coefficientExact,
+    coefficientText,
     ...(coefficientText !== '' ? { coefficientStart: a, coefficientEnd: i } : {}),
-    formulaText, formulaStart: f, formulaEnd: b, formula: null, atoms: {}, charge: 0, isElectron: false, ok,
+    formulaText,
+    formulaStart: f,
+    formulaEnd: b,
+    formula: null,
+    atoms: {},
+    charge: 0,
+    isElectron: false,
+    ok,
   };
 
   if (formulaText === '') {

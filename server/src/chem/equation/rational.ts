@@ -136,14 +136,20 @@ export function fromNumber(x: number): Rational | null {
   const tolerance = 1e-9 * Math.max(1, Math.abs(x));
   // Continued-fraction convergents of |x|.
   const ax = Math.abs(x);
-  let h0 = 0, h1 = 1, k0 = 1, k1 = 0;
+  let h0 = 0,
+    h1 = 1,
+    k0 = 1,
+    k1 = 0;
   let y = ax;
   for (let step = 0; step < 64; step++) {
     const a = Math.floor(y);
     const h2 = a * h1 + h0;
     const k2 = a * k1 + k0;
     if (k2 > 1_000_000 || !Number.isSafeInteger(h2)) break;
-    h0 = h1; h1 = h2; k0 = k1; k1 = k2;
+    h0 = h1;
+    h1 = h2;
+    k0 = k1;
+    k1 = k2;
     if (Math.abs(ax - h1 / k1) <= tolerance) return rational(BigInt(x < 0 ? -h1 : h1), BigInt(k1));
     const frac = y - a;
     if (frac === 0) break;

@@ -38,8 +38,33 @@ const BASES = new Set(['Al', 'Cu', 'Mg', 'Zn', 'Ni', 'Ti', 'Sn', 'Pb', 'Co']);
 const NONMETAL_ADDITIONS = new Set(['B', 'C', 'Si', 'P', 'Te']);
 /** Binary phases written as formulas whose second count would otherwise read as a mass percent. */
 const PHASES = new Set([
-  'MgB2', 'AlB2', 'AlB12', 'TiB2', 'ZrB2', 'MgZn2', 'MgCu2', 'MgNi2', 'CuAl2', 'NiAl3', 'TiAl3', 'TiSi2', 'NiSi2',
-  'CoSi2', 'CoSb3', 'CuZr2', 'TiCr2', 'ZnSb2', 'NiSn4', 'CoAl3', 'AlCu2', 'TiFe2', 'TiCo2', 'MgSn2', 'NiP2', 'CuP2', 'CoP3',
+  'MgB2',
+  'AlB2',
+  'AlB12',
+  'TiB2',
+  'ZrB2',
+  'MgZn2',
+  'MgCu2',
+  'MgNi2',
+  'CuAl2',
+  'NiAl3',
+  'TiAl3',
+  'TiSi2',
+  'NiSi2',
+  'CoSi2',
+  'CoSb3',
+  'CuZr2',
+  'TiCr2',
+  'ZnSb2',
+  'NiSn4',
+  'CoAl3',
+  'AlCu2',
+  'TiFe2',
+  'TiCo2',
+  'MgSn2',
+  'NiP2',
+  'CuP2',
+  'CoP3',
 ]);
 
 /** The nominal composition of an alloy designation, or null where the text is not one (see the rules above). */

@@ -117,9 +117,11 @@ function renderItems(items: readonly FormulaItem[], unicode: boolean): string {
   let out = '';
   for (const it of items) {
     const body =
-      it.kind === 'element' ? it.symbol + (it.stock === undefined ? '' : `(${ROMAN[it.stock]})`)
-      : it.kind === 'abbrev' ? it.name
-      : it.open + renderItems(it.items, unicode) + CLOSE[it.open];
+      it.kind === 'element'
+        ? it.symbol + (it.stock === undefined ? '' : `(${ROMAN[it.stock]})`)
+        : it.kind === 'abbrev'
+          ? it.name
+          : it.open + renderItems(it.items, unicode) + CLOSE[it.open];
     const count = it.count === 1 ? '' : formatCount(it.count);
     out += body + (unicode ? toSub(count) : count);
   }

@@ -71,7 +71,26 @@ export const LIGANDS: Record<string, { atoms: Record<string, number>; charge: nu
 };
 
 /** Molecules that follow a hydrate/adduct dot; used only to read `CuSO4.5H2O` as an adduct. Longest first. */
-const ADDUCT_MOLECULES = ['CO(NH2)2', 'C2H5OH', 'CH3OH', 'CH3CN', 'CH2Cl2', 'CHCl3', 'H2O2', 'N2H4', 'H2O', 'D2O', 'NH3', 'HCl', 'HF', 'HBr', 'SO2', 'CO2', 'EtOH', 'MeOH'];
+const ADDUCT_MOLECULES = [
+  'CO(NH2)2',
+  'C2H5OH',
+  'CH3OH',
+  'CH3CN',
+  'CH2Cl2',
+  'CHCl3',
+  'H2O2',
+  'N2H4',
+  'H2O',
+  'D2O',
+  'NH3',
+  'HCl',
+  'HF',
+  'HBr',
+  'SO2',
+  'CO2',
+  'EtOH',
+  'MeOH',
+];
 
 const isDigit = (c: string | undefined) => c !== undefined && c >= '0' && c <= '9';
 const isUpper = (c: string | undefined) => c !== undefined && c >= 'A' && c <= 'Z';
@@ -109,7 +128,10 @@ class FormulaParser {
   private lastCount: { item: FormulaItem; text: string; end: number } | undefined;
   private readonly variables: Array<{ start: number; end: number }> = [];
 
-  constructor(private readonly s: string, private readonly options: ParseOptions) {
+  constructor(
+    private readonly s: string,
+    private readonly options: ParseOptions,
+  ) {
     this.n = s.length;
   }
 
@@ -305,7 +327,7 @@ class FormulaParser {
   private readCount(item: FormulaItem): number {
     const s = this.s;
     const start = this.i;
-    let value = 1;
+    let value: number;
     if (s[this.i] === 'x' && !isLower(s[this.i + 1])) {
       this.i++;
       return this.variableCount(start);
@@ -373,7 +395,14 @@ class FormulaParser {
     let suggestions = symbolSuggestions(token);
     // 'CL2': an element letter followed by an unknown capital; suggest the two-letter symbol over both.
     const prev = items[items.length - 1];
-    if (prev && prev.kind === 'element' && prev.end === start && prev.symbol.length === 1 && token.length === 1 && isElementSymbol(prev.symbol + token.toLowerCase())) {
+    if (
+      prev &&
+      prev.kind === 'element' &&
+      prev.end === start &&
+      prev.symbol.length === 1 &&
+      token.length === 1 &&
+      isElementSymbol(prev.symbol + token.toLowerCase())
+    ) {
       items.pop();
       from = prev.start;
       suggestions = [prev.symbol + token.toLowerCase()];
@@ -401,7 +430,9 @@ class FormulaParser {
     }
     const cap = token[0].toUpperCase() + token.slice(1);
     if (token.length <= 2 && isElementSymbol(cap)) {
-      this.error(start, this.i, `'${token}' is not an element symbol; symbols start with a capital letter: '${cap}'.`, 'unknown-element', { suggestions: [cap] });
+      this.error(start, this.i, `'${token}' is not an element symbol; symbols start with a capital letter: '${cap}'.`, 'unknown-element', {
+        suggestions: [cap],
+      });
     } else if (lig) {
       this.error(start, this.i, `The ligand abbreviation '${token}' must stand in brackets, e.g. (${token}).`);
     } else {
@@ -443,8 +474,8 @@ class FormulaParser {
   private readCharge(formula: Formula) {
     const s = this.s;
     const start = this.i;
-    let magnitude = 0;
-    let sign = 0;
+    let magnitude: number;
+    let sign: number;
     let notation: Formula['chargeNotation'] = 'explicit';
     if (s[this.i] === '^') {
       this.i++;
@@ -499,7 +530,8 @@ class FormulaParser {
       magnitude = digits === '' ? signs.length : Number(digits);
       const lc = this.lastCount;
       if (digits === '' && signs.length === 1 && lc && lc.end === start && /^[0-9]+$/.test(lc.text) && !lc.text.endsWith('0')) {
-        const monatomic = formula.parts.length === 1 && formula.parts[0].items.length === 1 && formula.parts[0].items[0] === lc.item && lc.item.kind === 'element';
+        const monatomic =
+          formula.parts.length === 1 && formula.parts[0].items.length === 1 && formula.parts[0].items[0] === lc.item && lc.item.kind === 'element';
         const mode = this.options.bareDigit ?? (monatomic ? 'charge' : 'count');
         if (mode === 'charge') {
           const rest = lc.text.slice(0, -1);

@@ -44,7 +44,16 @@ export function visibleAmmonium(items: readonly FormulaItem[], factor = 1): numb
     const it = items[i];
     if (it.kind === 'group') {
       const inner = it.items;
-      if (inner.length === 2 && inner[0].kind === 'element' && inner[0].symbol === 'N' && inner[0].count === 1 && inner[1].kind === 'element' && inner[1].symbol === 'H' && inner[1].count === 4) n += it.count * factor;
+      if (
+        inner.length === 2 &&
+        inner[0].kind === 'element' &&
+        inner[0].symbol === 'N' &&
+        inner[0].count === 1 &&
+        inner[1].kind === 'element' &&
+        inner[1].symbol === 'H' &&
+        inner[1].count === 4
+      )
+        n += it.count * factor;
       else n += visibleAmmonium(inner, factor * it.count);
     } else if (it.kind === 'element' && it.symbol === 'N' && it.count === 1) {
       const next = items[i + 1];
@@ -89,11 +98,39 @@ export function compositionReadings(atoms: AtomCounts, items: readonly FormulaIt
       if (!whole) continue;
       for (const ion of BY_COMPOSITION.get(keyOfAtoms(unit)) ?? []) {
         const segs: Segment[] = metals.map((el) => ({
-          kind: 'metal', role: 'cation', ionText: el, bracket: '', multiplicity: atoms[el], start: span.start, end: span.end, element: el,
+          kind: 'metal',
+          role: 'cation',
+          ionText: el,
+          bracket: '',
+          multiplicity: atoms[el],
+          start: span.start,
+          end: span.end,
+          element: el,
           unitOptions: SALT_STATES[el] ? SALT_STATES[el].map((charge, j) => ({ charge, cost: j === 0 ? 0 : 0.25 })) : metalCharges(el, false),
         }));
-        if (k > 0) segs.push({ kind: 'polyatomic', role: 'cation', ion: AMMONIUM, ionText: 'NH4', bracket: '', multiplicity: k, start: span.start, end: span.end, unitOptions: ionOptions(AMMONIUM) });
-        segs.push({ kind: 'polyatomic', role: 'anion', ion, ionText: ion.forms[0], bracket: '', multiplicity: m, start: span.start, end: span.end, unitOptions: ionOptions(ion) });
+        if (k > 0)
+          segs.push({
+            kind: 'polyatomic',
+            role: 'cation',
+            ion: AMMONIUM,
+            ionText: 'NH4',
+            bracket: '',
+            multiplicity: k,
+            start: span.start,
+            end: span.end,
+            unitOptions: ionOptions(AMMONIUM),
+          });
+        segs.push({
+          kind: 'polyatomic',
+          role: 'anion',
+          ion,
+          ionText: ion.forms[0],
+          bracket: '',
+          multiplicity: m,
+          start: span.start,
+          end: span.end,
+          unitOptions: ionOptions(ion),
+        });
         out.push(segs);
         if (out.length >= 8) return out;
       }

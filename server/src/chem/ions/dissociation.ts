@@ -20,7 +20,13 @@ export interface IonShare {
 
 /** Strong acids and the ion they give with their first proton (common practice). */
 const STRONG_ACIDS: Record<string, [string, number]> = {
-  HCl: ['Cl', -1], HBr: ['Br', -1], HI: ['I', -1], HNO3: ['NO3', -1], HClO4: ['ClO4', -1], HClO3: ['ClO3', -1], H2SO4: ['HSO4', -1],
+  HCl: ['Cl', -1],
+  HBr: ['Br', -1],
+  HI: ['I', -1],
+  HNO3: ['NO3', -1],
+  HClO4: ['ClO4', -1],
+  HClO3: ['ClO3', -1],
+  H2SO4: ['HSO4', -1],
 };
 
 /**
@@ -37,14 +43,22 @@ export function electrolyteIons(a: FormulaAnalysis): { ions: IonShare[]; undisso
   }
   const acid = STRONG_ACIDS[ascii];
   if (acid) {
-    return { ions: [{ ion: 'H⁺', key: 'H^+', charge: 1, count: 1 }, { ion: subscriptDigits(acid[0]) + formatCharge(acid[1], true), key: acid[0] + formatCharge(acid[1], false), charge: acid[1], count: 1 }] };
+    return {
+      ions: [
+        { ion: 'H⁺', key: 'H^+', charge: 1, count: 1 },
+        { ion: subscriptDigits(acid[0]) + formatCharge(acid[1], true), key: acid[0] + formatCharge(acid[1], false), charge: acid[1], count: 1 },
+      ],
+    };
   }
   const c = a.charges;
-  if (!c || !c.balanced || c.basis !== 'ionic' || !c.ions) return { ions: [], undissociated: c?.basis === 'ionic' ? 'charges do not balance' : 'molecular or weak: treated as undissociated' };
+  if (!c || !c.balanced || c.basis !== 'ionic' || !c.ions)
+    return { ions: [], undissociated: c?.basis === 'ionic' ? 'charges do not balance' : 'molecular or weak: treated as undissociated' };
   const ions = c.ions.filter((i) => i.role !== 'neutral');
   if (ions.some((i) => i.kind === 'proton')) return { ions: [], undissociated: 'weak acid: treated as undissociated' };
-  if (ions.length === 2 && ions.some((i) => i.ionName === 'ammonium') && ions.some((i) => i.ionName === 'hydroxide')) return { ions: [], undissociated: AQUEOUS_AMMONIA };
-  if (ions.some((i) => i.kind === 'monatomic-anion' && (i.element === 'O' || i.element === 'N' || i.element === 'C'))) return { ions: [], undissociated: 'oxide, nitride or carbide: not dissolved' };
+  if (ions.length === 2 && ions.some((i) => i.ionName === 'ammonium') && ions.some((i) => i.ionName === 'hydroxide'))
+    return { ions: [], undissociated: AQUEOUS_AMMONIA };
+  if (ions.some((i) => i.kind === 'monatomic-anion' && (i.element === 'O' || i.element === 'N' || i.element === 'C')))
+    return { ions: [], undissociated: 'oxide, nitride or carbide: not dissolved' };
   if (ions.some((i) => new Set(i.states).size > 1 || !Number.isInteger(i.charge))) return { ions: [], undissociated: 'mixed-valence solid: not dissolved' };
   const out = new Map<string, IonShare>();
   for (const i of ions) {

@@ -35,7 +35,10 @@ export interface IonMatch {
 }
 
 const TABLE = new Map<string, IonMatch[]>();
-for (const [list, role] of [[ANIONS, 'anion'], [CATIONS, 'cation']] as const) {
+for (const [list, role] of [
+  [ANIONS, 'anion'],
+  [CATIONS, 'cation'],
+] as const) {
   for (const ion of list) {
     for (const form of ion.forms) {
       const k = keyOf(form);
@@ -60,7 +63,7 @@ export const MAX_ION_ITEMS = 6;
 
 export function matchIon(items: readonly FormulaItem[]): IonMatch[] {
   const k = itemsKey(items);
-  return k === undefined ? [] : TABLE.get(k) ?? [];
+  return k === undefined ? [] : (TABLE.get(k) ?? []);
 }
 
 const NONE: IonMatch[] = [];

@@ -97,10 +97,19 @@ export function accuracyTable(): ReadonlyMap<string, GroupAccuracy> {
     for (const [method, list] of byMethod) {
       list.sort((x, y) => x[1] - y[1]);
       const errors = list.map(([, e]) => e);
-      methods[method] = { method, n: errors.length, errors, median: median(errors), min: errors[0], max: errors[errors.length - 1], salts: list.map(([s]) => s) };
+      methods[method] = {
+        method,
+        n: errors.length,
+        errors,
+        median: median(errors),
+        min: errors[0],
+        max: errors[errors.length - 1],
+        salts: list.map(([s]) => s),
+      };
     }
-    const ranked = MODEL_METHODS.filter((m) => (methods[m]?.n ?? 0) >= MIN_REFERENCES)
-      .sort((x, y) => Math.abs(methods[x]!.median) - Math.abs(methods[y]!.median));
+    const ranked = MODEL_METHODS.filter((m) => (methods[m]?.n ?? 0) >= MIN_REFERENCES).sort(
+      (x, y) => Math.abs(methods[x]!.median) - Math.abs(methods[y]!.median),
+    );
     table.set(group, { group, methods, ...(ranked.length ? { best: ranked[0] } : {}) });
   }
   return table;

@@ -18,9 +18,7 @@ import { accuracyTable, ALL_IONIC, COVALENT_GROUP, errorPhrase, MIN_REFERENCES, 
 import { isCovalentHalide, latticeMethods, METHODS, MODEL_METHODS, type Method, type MethodName } from './methods';
 import { covalentByCharge } from './molecular';
 
-export {
-  BORN_MAYER_RHO, COULOMB_KJ_A, KAPUSTINSKII_D, KAPUSTINSKII_K, METHODS, bornExponent, bornHaber, bornLande, bornMayer, kapustinskii,
-} from './methods';
+export { BORN_MAYER_RHO, COULOMB_KJ_A, KAPUSTINSKII_D, KAPUSTINSKII_K, METHODS, bornExponent, bornHaber, bornLande, bornMayer, kapustinskii } from './methods';
 export { latticeWithheld, type LatticeWithheld } from './molecular';
 
 export interface LatticeAlternative {
@@ -72,7 +70,13 @@ function modelOrder(g: GroupAccuracy | undefined): MethodName[] {
   for (const m of have.slice(1)) common = new Set(g.methods[m]!.salts.filter((s) => common.has(s)));
   const medianOn = (m: MethodName) => {
     const e = g.methods[m]!;
-    const xs = common.size >= MIN_REFERENCES ? e.salts.map((s, k) => [s, e.errors[k]] as const).filter(([s]) => common.has(s)).map(([, x]) => x) : e.errors;
+    const xs =
+      common.size >= MIN_REFERENCES
+        ? e.salts
+            .map((s, k) => [s, e.errors[k]] as const)
+            .filter(([s]) => common.has(s))
+            .map(([, x]) => x)
+        : e.errors;
     const s = [...xs].sort((a, b) => a - b);
     return Math.abs(s.length % 2 ? s[(s.length - 1) / 2] : (s[s.length / 2 - 1] + s[s.length / 2]) / 2);
   };
@@ -150,7 +154,16 @@ export function estimateLattice(formula: Formula, _atoms: AtomCounts, charges: C
   const { group } = groupFor(st?.structure, covalent);
   const order: string[] = [METHODS.bornHaber, ...modelOrder(group)];
   const pref = settings.latticePreference;
-  const wanted = pref === 'kapustinskii' ? METHODS.kapustinskii : pref === 'born-lande' ? METHODS.bornLande : pref === 'born-mayer' ? METHODS.bornMayer : pref === 'born-haber' ? METHODS.bornHaber : undefined;
+  const wanted =
+    pref === 'kapustinskii'
+      ? METHODS.kapustinskii
+      : pref === 'born-lande'
+        ? METHODS.bornLande
+        : pref === 'born-mayer'
+          ? METHODS.bornMayer
+          : pref === 'born-haber'
+            ? METHODS.bornHaber
+            : undefined;
   const head = methods.find((m) => m.method === wanted) ?? [...methods].sort((x, y) => order.indexOf(x.method) - order.indexOf(y.method))[0];
   // The others in a fixed order, so that cards list them alike.
   const fixed: string[] = [METHODS.bornHaber, ...MODEL_METHODS];

@@ -90,21 +90,28 @@ export const round2 = (x: number) => Math.round(x * 100) / 100;
 
 export function kapustinskii(nu: number, zc: number, za: number, rc: number, ra: number): number {
   const r0 = rc + ra;
-  return (KAPUSTINSKII_K * nu * Math.abs(zc * za)) / r0 * (1 - KAPUSTINSKII_D / r0);
+  return ((KAPUSTINSKII_K * nu * Math.abs(zc * za)) / r0) * (1 - KAPUSTINSKII_D / r0);
 }
 
 export function bornLande(madelung: number, zc: number, za: number, r0: number, n: number): number {
-  return (COULOMB_KJ_A * madelung * Math.abs(zc * za)) / r0 * (1 - 1 / n);
+  return ((COULOMB_KJ_A * madelung * Math.abs(zc * za)) / r0) * (1 - 1 / n);
 }
 
 export function bornMayer(madelung: number, zc: number, za: number, r0: number): number {
-  return (COULOMB_KJ_A * madelung * Math.abs(zc * za)) / r0 * (1 - BORN_MAYER_RHO / r0);
+  return ((COULOMB_KJ_A * madelung * Math.abs(zc * za)) / r0) * (1 - BORN_MAYER_RHO / r0);
 }
 
 const atomisationLabel = (el: string) => (ATOMISATION_SOURCE[el]?.source === 'CODATA' ? SOURCES.atomisationCodata : SOURCES.atomisationNbs);
 
 /** Born–Haber lattice enthalpy of MₐXᵦ (halides and hydrides) from tabulated enthalpies, or undefined. */
-export function bornHaber(salt: string, metal: string, m: number, zc: number, anion: string, x: number): { kJPerMol: number; inputs: Record<string, unknown> } | undefined {
+export function bornHaber(
+  salt: string,
+  metal: string,
+  m: number,
+  zc: number,
+  anion: string,
+  x: number,
+): { kJPerMol: number; inputs: Record<string, unknown> } | undefined {
   const dfH = FORMATION_SOLID[salt];
   const atomM = ATOMISATION[metal];
   const ies = IONISATION[metal];
@@ -118,7 +125,13 @@ export function bornHaber(salt: string, metal: string, m: number, zc: number, an
   return {
     kJPerMol: u,
     inputs: {
-      formationEnthalpy: dfH, atomisationMetal: atomM, ionisationEnergies: used.map(r1), atomisationAnion: atomX, electronAffinity: r1(ea), cations: m, anions: x,
+      formationEnthalpy: dfH,
+      atomisationMetal: atomM,
+      ionisationEnergies: used.map(r1),
+      atomisationAnion: atomX,
+      electronAffinity: r1(ea),
+      cations: m,
+      anions: x,
       source: `ΔfH°: ${SOURCES.formation}; ΔatomH: ${atomisationLabel(metal)} (${metal}), ${atomisationLabel(anion)} (${anion}); IE: ${SOURCES.ionisation}; EA: ${SOURCES.affinity}`,
     },
   };
@@ -136,9 +149,16 @@ export function latticeMethods(saltText: string, c: LatticeIon, a: LatticeIon, s
       kJPerMol: kapustinskii(nu, c.charge, a.charge, rc6.radius, ra6.radius),
       estimate: true,
       inputs: {
-        charges: { cation: c.charge, anion: a.charge }, nu,
-        radii: { cation: rc6.radius, anion: ra6.radius }, radiusSources: { cation: `${rc6.source}${rc6.coordination ? `, ${rc6.coordination}` : ''}`, anion: `${ra6.source}${ra6.coordination ? `, ${ra6.coordination}` : ''}${ra6.fromMemory ? ' (value from memory)' : ''}` },
-        r0: round2(rc6.radius + ra6.radius), K: KAPUSTINSKII_K, d: KAPUSTINSKII_D,
+        charges: { cation: c.charge, anion: a.charge },
+        nu,
+        radii: { cation: rc6.radius, anion: ra6.radius },
+        radiusSources: {
+          cation: `${rc6.source}${rc6.coordination ? `, ${rc6.coordination}` : ''}`,
+          anion: `${ra6.source}${ra6.coordination ? `, ${ra6.coordination}` : ''}${ra6.fromMemory ? ' (value from memory)' : ''}`,
+        },
+        r0: round2(rc6.radius + ra6.radius),
+        K: KAPUSTINSKII_K,
+        d: KAPUSTINSKII_D,
       },
     });
   }
@@ -147,13 +167,31 @@ export function latticeMethods(saltText: string, c: LatticeIon, a: LatticeIon, s
     const ra = radiusOf(a, st.anionCN);
     if (rc && ra) {
       const r0 = rc.radius + ra.radius;
-      const common = { charges: { cation: c.charge, anion: a.charge }, structure: st.structure, madelung: st.madelung, r0: round2(r0), radii: { cation: rc.radius, anion: ra.radius }, coordination: { cation: rc.coordination, anion: ra.coordination }, ...(st.note ? { note: st.note } : {}) };
+      const common = {
+        charges: { cation: c.charge, anion: a.charge },
+        structure: st.structure,
+        madelung: st.madelung,
+        r0: round2(r0),
+        radii: { cation: rc.radius, anion: ra.radius },
+        coordination: { cation: rc.coordination, anion: ra.coordination },
+        ...(st.note ? { note: st.note } : {}),
+      };
       const nc = bornExponent(c.element, c.charge);
       const na = bornExponent(a.element, a.charge);
-      methods.push({ method: METHODS.bornMayer, kJPerMol: bornMayer(st.madelung, c.charge, a.charge, r0), estimate: true, inputs: { ...common, rho: BORN_MAYER_RHO } });
+      methods.push({
+        method: METHODS.bornMayer,
+        kJPerMol: bornMayer(st.madelung, c.charge, a.charge, r0),
+        estimate: true,
+        inputs: { ...common, rho: BORN_MAYER_RHO },
+      });
       if (nc !== undefined && na !== undefined) {
         const n = (nc + na) / 2;
-        methods.push({ method: METHODS.bornLande, kJPerMol: bornLande(st.madelung, c.charge, a.charge, r0, n), estimate: true, inputs: { ...common, bornExponent: n, bornExponents: { cation: nc, anion: na } } });
+        methods.push({
+          method: METHODS.bornLande,
+          kJPerMol: bornLande(st.madelung, c.charge, a.charge, r0, n),
+          estimate: true,
+          inputs: { ...common, bornExponent: n, bornExponents: { cation: nc, anion: na } },
+        });
       }
     }
   }
@@ -161,7 +199,10 @@ export function latticeMethods(saltText: string, c: LatticeIon, a: LatticeIon, s
     const bh = bornHaber(saltText, c.element, c.count, c.charge, a.element, a.count);
     if (bh) methods.push({ method: METHODS.bornHaber, kJPerMol: bh.kJPerMol, estimate: false, inputs: bh.inputs });
   }
-  return { methods: methods.filter((m) => Number.isFinite(m.kJPerMol) && m.kJPerMol > 0), ...(rc6 && ra6 ? { radiusSum: round2(rc6.radius + ra6.radius) } : {}) };
+  return {
+    methods: methods.filter((m) => Number.isFinite(m.kJPerMol) && m.kJPerMol > 0),
+    ...(rc6 && ra6 ? { radiusSum: round2(rc6.radius + ra6.radius) } : {}),
+  };
 }
 
 /**

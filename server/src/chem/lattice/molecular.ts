@@ -62,7 +62,13 @@ function points(m: MolecularSubstance): string {
   const bits: string[] = [];
   if (m.meltingPointC !== null && m.boilingKind !== 'sublimes') bits.push(`mp ${deg(m.meltingPointC)}`);
   if (m.boilingPointC !== null) {
-    bits.push(m.boilingKind === 'boils' ? `bp ${deg(m.boilingPointC)}` : m.boilingKind === 'sublimes' ? `sublimes at ${deg(m.boilingPointC)}` : `decomposes near ${deg(m.boilingPointC)}`);
+    bits.push(
+      m.boilingKind === 'boils'
+        ? `bp ${deg(m.boilingPointC)}`
+        : m.boilingKind === 'sublimes'
+          ? `sublimes at ${deg(m.boilingPointC)}`
+          : `decomposes near ${deg(m.boilingPointC)}`,
+    );
   } else if (m.boilingKind === 'decomposes') bits.push('decomposes on heating');
   return bits.join(', ');
 }
@@ -109,15 +115,21 @@ export function latticeWithheld(formula: Formula, charges: ChargeAssessment | nu
   if (entry && name) {
     const state = stateAt(entry);
     const pts = points(entry);
-    const what = entry.kind === 'molecular'
-      ? `${name} is a molecular substance, not an ionic solid`
-      : `${name} is a covalent, polymeric solid (molecular in the vapour), not an ionic lattice`;
+    const what =
+      entry.kind === 'molecular'
+        ? `${name} is a molecular substance, not an ionic solid`
+        : `${name} is a covalent, polymeric solid (molecular in the vapour), not an ionic lattice`;
     const where = state ? `${state === 'solid' ? 'a solid' : state === 'liquid' ? 'a liquid' : 'a gas'} at ${ROOM_TEMPERATURE_C} °C` : '';
     const detail = [where, pts].filter(Boolean).join(': ');
     const text = `No lattice energy${formula.parts.length > 1 ? ' (for the substance without its adducts)' : ''}: ${what}${detail ? ` (${detail}; ${SOURCES.molecular})` : ''}${entry.note ? `; ${entry.note}` : ''}.`;
     return {
-      reason: entry.kind, text, ...(state ? { stateAt25C: state } : {}),
-      meltingPointC: entry.meltingPointC, boilingPointC: entry.boilingPointC, boilingKind: entry.boilingKind, source: SOURCES.molecular,
+      reason: entry.kind,
+      text,
+      ...(state ? { stateAt25C: state } : {}),
+      meltingPointC: entry.meltingPointC,
+      boilingPointC: entry.boilingPointC,
+      boilingKind: entry.boilingKind,
+      source: SOURCES.molecular,
     };
   }
   const rule = covalentByCharge(charges);

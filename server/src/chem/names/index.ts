@@ -7,8 +7,34 @@
 import type { FormulaAnalysis } from '../analyse';
 import { element } from '../data/elements';
 
-const HYDRATE = ['', 'monohydrate', 'dihydrate', 'trihydrate', 'tetrahydrate', 'pentahydrate', 'hexahydrate', 'heptahydrate', 'octahydrate', 'nonahydrate', 'decahydrate', 'undecahydrate', 'dodecahydrate'];
-const MONATOMIC: Record<string, string> = { F: 'fluoride', Cl: 'chloride', Br: 'bromide', I: 'iodide', O: 'oxide', S: 'sulfide', Se: 'selenide', Te: 'telluride', N: 'nitride', P: 'phosphide', H: 'hydride' };
+const HYDRATE = [
+  '',
+  'monohydrate',
+  'dihydrate',
+  'trihydrate',
+  'tetrahydrate',
+  'pentahydrate',
+  'hexahydrate',
+  'heptahydrate',
+  'octahydrate',
+  'nonahydrate',
+  'decahydrate',
+  'undecahydrate',
+  'dodecahydrate',
+];
+const MONATOMIC: Record<string, string> = {
+  F: 'fluoride',
+  Cl: 'chloride',
+  Br: 'bromide',
+  I: 'iodide',
+  O: 'oxide',
+  S: 'sulfide',
+  Se: 'selenide',
+  Te: 'telluride',
+  N: 'nitride',
+  P: 'phosphide',
+  H: 'hydride',
+};
 /** Metals named without an oxidation number: they have one state in their salts (IUPAC 2005, IR-5.4.2.2). */
 const ONE_STATE = new Set(['Li', 'Na', 'K', 'Rb', 'Cs', 'Be', 'Mg', 'Ca', 'Sr', 'Ba', 'Al', 'Zn', 'Cd', 'Ag', 'Ga', 'Sc', 'Y', 'La']);
 const ROMAN = ['', 'I', 'II', 'III', 'IV', 'V', 'VI', 'VII', 'VIII'];

@@ -37,8 +37,12 @@ function titleRow(input: ChartInput, omitted: number): string {
   const note = omitted ? `${count(omitted, 'label')} left out for room; every point has a tooltip` : '';
   const noteWidth = note ? textWidth(note, FONT.note) + 16 : 0;
   const title = shorten(input.title, Math.max(8, Math.floor((input.width - 2 * PAD - noteWidth) / 8)));
-  return `<text class="iw-lc-text iw-lc-title" fill="currentColor" x="${coord(PAD)}" y="${coord(TITLE_Y)}" font-size="${FONT.title}" font-weight="600">${escapeXml(title)}</text>` +
-    (note ? `<text class="iw-lc-text iw-lc-note" fill="currentColor" x="${coord(input.width - PAD)}" y="${coord(TITLE_Y)}" font-size="${FONT.note}" text-anchor="end" opacity="0.8">${escapeXml(note)}</text>` : '');
+  return (
+    `<text class="iw-lc-text iw-lc-title" fill="currentColor" x="${coord(PAD)}" y="${coord(TITLE_Y)}" font-size="${FONT.title}" font-weight="600">${escapeXml(title)}</text>` +
+    (note
+      ? `<text class="iw-lc-text iw-lc-note" fill="currentColor" x="${coord(input.width - PAD)}" y="${coord(TITLE_Y)}" font-size="${FONT.note}" text-anchor="end" opacity="0.8">${escapeXml(note)}</text>`
+      : '')
+  );
 }
 
 function svgOpen(width: number, height: number, id: string, extra = ''): string {
@@ -73,24 +77,34 @@ const line = (x1: number, y1: number, x2: number, y2: number, attrs = '') =>
   `<line${attrs} x1="${coord(x1)}" y1="${coord(y1)}" x2="${coord(x2)}" y2="${coord(y2)}"/>`;
 
 function legend(items: readonly LegendItem[]): string {
-  return group(`<g class="iw-lc-legend">`, items.map((item) => {
-    const mx = item.x + 8;
-    const my = item.y - 4;
-    const symbol =
-      item.kind === 'est' ? estimateMarker(mx, my, 4.5)
-      : item.kind === 'meas' ? measuredMarker(mx, my, 4.25)
-      : item.kind === 'melt' ? meltCross(mx, my, 3.75)
-      : guideStroke({ x1: mx - 8, y1: my, x2: mx + 8, y2: my });
-    return `<g class="iw-lc-legend-item" data-kind="${item.kind}">${symbol}` +
-      `<text class="iw-lc-text" fill="currentColor" x="${coord(item.x + 20)}" y="${coord(item.y)}" font-size="${FONT.legend}">${escapeXml(item.text)}</text></g>`;
-  }));
+  return group(
+    `<g class="iw-lc-legend">`,
+    items.map((item) => {
+      const mx = item.x + 8;
+      const my = item.y - 4;
+      const symbol =
+        item.kind === 'est'
+          ? estimateMarker(mx, my, 4.5)
+          : item.kind === 'meas'
+            ? measuredMarker(mx, my, 4.25)
+            : item.kind === 'melt'
+              ? meltCross(mx, my, 3.75)
+              : guideStroke({ x1: mx - 8, y1: my, x2: mx + 8, y2: my });
+      return (
+        `<g class="iw-lc-legend-item" data-kind="${item.kind}">${symbol}` +
+        `<text class="iw-lc-text" fill="currentColor" x="${coord(item.x + 20)}" y="${coord(item.y)}" font-size="${FONT.legend}">${escapeXml(item.text)}</text></g>`
+      );
+    }),
+  );
 }
 
 function grid({ plot, x, y }: ChartLayout): string {
-  return `<g class="iw-lc-grid" stroke="currentColor" stroke-opacity="0.15" stroke-width="1">` +
+  return (
+    `<g class="iw-lc-grid" stroke="currentColor" stroke-opacity="0.15" stroke-width="1">` +
     y.ticks.ticks.map((t) => line(plot.x0, y.at(t), plot.x1, y.at(t))).join('') +
     x.ticks.ticks.map((t) => line(x.at(t), plot.y0, x.at(t), plot.y1)).join('') +
-    `</g>`;
+    `</g>`
+  );
 }
 
 /** The plot area itself (transparent), so a host or a check can read its bounds. */
@@ -99,46 +113,60 @@ function plotRect({ plot }: ChartLayout): string {
 }
 
 function axisLines({ plot, x, y, melt }: ChartLayout): string {
-  const main = `<g class="iw-lc-axis" stroke="currentColor" stroke-width="1" fill="none">` +
+  const main =
+    `<g class="iw-lc-axis" stroke="currentColor" stroke-width="1" fill="none">` +
     `<path d="M${coord(plot.x0)} ${coord(plot.y0)}V${coord(plot.y1)}H${coord(plot.x1)}"/>` +
     y.ticks.ticks.map((t) => line(plot.x0 - 4, y.at(t), plot.x0, y.at(t))).join('') +
     x.ticks.ticks.map((t) => line(x.at(t), plot.y1, x.at(t), plot.y1 + 4)).join('') +
     `</g>`;
   if (!melt) return main;
-  return main + `<g class="iw-lc-melt" stroke="${COLOURS.melt}" stroke-width="1" fill="none">` +
+  return (
+    main +
+    `<g class="iw-lc-melt" stroke="${COLOURS.melt}" stroke-width="1" fill="none">` +
     `<path d="M${coord(plot.x1)} ${coord(plot.y0)}V${coord(plot.y1)}"/>` +
     melt.ticks.ticks.map((t) => line(plot.x1, melt.at(t), plot.x1 + 4, melt.at(t))).join('') +
-    `</g>`;
+    `</g>`
+  );
 }
 
 function tickLabels({ plot, x, y, melt }: ChartLayout): string {
   const size = FONT.tick;
-  const beside = (a: Axis, left: number) => a.ticks.ticks.map((t, i) => `<text x="${coord(left)}" y="${coord(a.at(t) + size * 0.35)}">${a.labels[i]}</text>`).join('');
-  return `<g class="iw-lc-text iw-lc-yticks" fill="currentColor" font-size="${size}" text-anchor="end">${beside(y, plot.x0 - 7)}</g>` +
+  const beside = (a: Axis, left: number) =>
+    a.ticks.ticks.map((t, i) => `<text x="${coord(left)}" y="${coord(a.at(t) + size * 0.35)}">${a.labels[i]}</text>`).join('');
+  return (
+    `<g class="iw-lc-text iw-lc-yticks" fill="currentColor" font-size="${size}" text-anchor="end">${beside(y, plot.x0 - 7)}</g>` +
     `<g class="iw-lc-text iw-lc-xticks" fill="currentColor" font-size="${size}" text-anchor="middle">` +
     x.ticks.ticks.map((t, i) => `<text x="${coord(x.at(t))}" y="${coord(plot.y1 + 6 + size)}">${x.labels[i]}</text>`).join('') +
     `</g>` +
-    (melt ? `<g class="iw-lc-melt-text iw-lc-mticks" fill="${COLOURS.melt}" font-size="${size}" text-anchor="start">${beside(melt, plot.x1 + 7)}</g>` : '');
+    (melt ? `<g class="iw-lc-melt-text iw-lc-mticks" fill="${COLOURS.melt}" font-size="${size}" text-anchor="start">${beside(melt, plot.x1 + 7)}</g>` : '')
+  );
 }
 
 function axisTitles(input: ChartInput, { plot, melt }: ChartLayout): string {
   const size = FONT.axisTitle;
   const midY = (plot.y0 + plot.y1) / 2;
   const xTitle = input.mode === 'inverse-radius' ? '1/(r₊ + r₋) (Å⁻¹), six-coordinate radii' : 'Charge product |z₊z₋|';
-  return `<text class="iw-lc-text iw-lc-ytitle" fill="currentColor" font-size="${size}" text-anchor="middle" transform="translate(${coord(PAD + size * 0.8)} ${coord(midY)}) rotate(-90)">Lattice energy (kJ/mol)</text>` +
+  return (
+    `<text class="iw-lc-text iw-lc-ytitle" fill="currentColor" font-size="${size}" text-anchor="middle" transform="translate(${coord(PAD + size * 0.8)} ${coord(midY)}) rotate(-90)">Lattice energy (kJ/mol)</text>` +
     `<text class="iw-lc-text iw-lc-xtitle" fill="currentColor" font-size="${size}" text-anchor="middle" x="${coord((plot.x0 + plot.x1) / 2)}" y="${coord(input.height - PAD)}">${xTitle}</text>` +
-    (melt ? `<text class="iw-lc-melt-text iw-lc-mtitle" fill="${COLOURS.melt}" font-size="${size}" text-anchor="middle" transform="translate(${coord(input.width - PAD - size * 0.3)} ${coord(midY)}) rotate(-90)">Melting point (°C)</text>` : '');
+    (melt
+      ? `<text class="iw-lc-melt-text iw-lc-mtitle" fill="${COLOURS.melt}" font-size="${size}" text-anchor="middle" transform="translate(${coord(input.width - PAD - size * 0.3)} ${coord(midY)}) rotate(-90)">Melting point (°C)</text>`
+      : '')
+  );
 }
 
 function guideLines(guides: readonly GuideLine[]): string {
-  return group(`<g class="iw-lc-guides">`, guides.map(({ guide, segment }) => {
-    const { fit, chargeProduct } = guide;
-    const tip =
-      `Least-squares guide for |z₊z₋| = ${chargeProduct} (${fit.n} salts): U ≈ ${energyText(fit.slope)}·x ` +
-      `${fit.intercept < 0 ? '−' : '+'} ${energyText(Math.abs(fit.intercept))} kJ/mol, x = 1/(r₊ + r₋) in Å⁻¹. ` +
-      `A guide to the eye, not a model.`;
-    return `<g class="iw-lc-guide-line" data-z="${coord(chargeProduct)}"><title>${escapeXml(tip)}</title>${guideStroke(segment)}</g>`;
-  }));
+  return group(
+    `<g class="iw-lc-guides">`,
+    guides.map(({ guide, segment }) => {
+      const { fit, chargeProduct } = guide;
+      const tip =
+        `Least-squares guide for |z₊z₋| = ${chargeProduct} (${fit.n} salts): U ≈ ${energyText(fit.slope)}·x ` +
+        `${fit.intercept < 0 ? '−' : '+'} ${energyText(Math.abs(fit.intercept))} kJ/mol, x = 1/(r₊ + r₋) in Å⁻¹. ` +
+        `A guide to the eye, not a model.`;
+      return `<g class="iw-lc-guide-line" data-z="${coord(chargeProduct)}"><title>${escapeXml(tip)}</title>${guideStroke(segment)}</g>`;
+    }),
+  );
 }
 
 /** Melting points: a faint connector to the salt's energy marker, then the cross with its tooltip. */
@@ -155,8 +183,10 @@ function meltingPoints(plotted: readonly Plotted[], { marks, marker, melt }: Cha
     if (meltY === null || p.meltingPoint === null) return [];
     return [`<g class="iw-lc-mp"><title>${escapeXml(`${p.label}: melting point ${Math.round(p.meltingPoint)} °C`)}</title>${meltCross(cx, meltY, cross)}</g>`];
   });
-  return `<g class="iw-lc-melt iw-lc-connectors" stroke="${COLOURS.melt}" stroke-opacity="0.4" stroke-width="1" stroke-dasharray="1 3" fill="none">${connectors.join('')}</g>` +
-    `<g class="iw-lc-melts">${crosses.join('')}</g>`;
+  return (
+    `<g class="iw-lc-melt iw-lc-connectors" stroke="${COLOURS.melt}" stroke-opacity="0.4" stroke-width="1" stroke-dasharray="1 3" fill="none">${connectors.join('')}</g>` +
+    `<g class="iw-lc-melts">${crosses.join('')}</g>`
+  );
 }
 
 /** Energy markers, each with its tooltip. */
@@ -173,9 +203,7 @@ function tooltip(p: Plotted, mode: ChartInput['mode']): string {
   const radius = p.inverseR0 !== null ? `1/(r₊ + r₋) = ${p.inverseR0.toFixed(3)} Å⁻¹` : '';
   const charge = p.chargeProduct !== null ? `|z₊z₋| = ${p.chargeProduct}` : '';
   const where = mode === 'inverse-radius' ? [radius, charge] : [charge, radius];
-  const value = p.estimate
-    ? `≈ ${energyText(p.kJ)} kJ/mol (estimate, ${p.method})`
-    : `${energyText(p.kJ)} kJ/mol (${p.method}, from recalled enthalpies)`;
+  const value = p.estimate ? `≈ ${energyText(p.kJ)} kJ/mol (estimate, ${p.method})` : `${energyText(p.kJ)} kJ/mol (${p.method}, from recalled enthalpies)`;
   const lines = [`${p.label}: ${value}`, where.filter(Boolean).join(', ')];
   if (p.meltingPoint !== null) lines.push(`melting point ${Math.round(p.meltingPoint)} °C`);
   return lines.join('\n');
@@ -192,9 +220,9 @@ function labels(placement: LabelPlacement, guides: readonly GuideLine[]): string
     `<g class="iw-lc-guide-text" fill="currentColor" fill-opacity="0.8" font-size="${FONT.guide}" font-style="italic" aria-hidden="true">`,
     placement.captions.flatMap((c, i) => (c ? [`<text x="${coord(c.x)}" y="${coord(c.y)}" text-anchor="middle">${escapeXml(guides[i].caption)}</text>`] : [])),
   );
-  return leaders +
-    `<g class="iw-lc-text iw-lc-label iw-lc-labels" fill="currentColor" font-size="${FONT.label}" aria-hidden="true">${text.join('')}</g>` +
-    captions;
+  return (
+    leaders + `<g class="iw-lc-text iw-lc-label iw-lc-labels" fill="currentColor" font-size="${FONT.label}" aria-hidden="true">${text.join('')}</g>` + captions
+  );
 }
 
 // ---------------------------------------------------------------------------------------------------------

@@ -21,8 +21,7 @@ export const squareAround = (cx: number, cy: number, half: number): Rect => ({ x
 export const rectsOverlap = (a: Rect, b: Rect): boolean => a.x0 < b.x1 && b.x0 < a.x1 && a.y0 < b.y1 && b.y0 < a.y1;
 
 /** Whether `inner` lies within `outer`. */
-export const rectInside = (inner: Rect, outer: Rect): boolean =>
-  inner.x0 >= outer.x0 && inner.x1 <= outer.x1 && inner.y0 >= outer.y0 && inner.y1 <= outer.y1;
+export const rectInside = (inner: Rect, outer: Rect): boolean => inner.x0 >= outer.x0 && inner.x1 <= outer.x1 && inner.y0 >= outer.y0 && inner.y1 <= outer.y1;
 
 /** The point of a box nearest to (x, y). */
 export const nearestPointOf = (box: Rect, x: number, y: number): [number, number] => [

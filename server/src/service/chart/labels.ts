@@ -30,17 +30,7 @@
  * exactly (boxes that share an edge do not overlap).
  */
 import RBush from 'rbush';
-import {
-  distanceToRect,
-  nearestPointOf,
-  rectInside,
-  rectsOverlap,
-  segmentBounds,
-  segmentCrossesRect,
-  squareAround,
-  type Rect,
-  type Segment,
-} from './geometry';
+import { distanceToRect, nearestPointOf, rectInside, rectsOverlap, segmentBounds, segmentCrossesRect, squareAround, type Rect, type Segment } from './geometry';
 import type { Plotted } from './input';
 import { FONT, type ChartLayout } from './layout';
 import { textWidth } from './text';
@@ -120,7 +110,11 @@ export class LabelSpace {
   private readonly leaders = new RBush<Entry>();
   private readonly soft = new RBush<Entry>();
 
-  constructor(private readonly bounds: Rect, marks: readonly Mark[], softLines: readonly Segment[] = []) {
+  constructor(
+    private readonly bounds: Rect,
+    marks: readonly Mark[],
+    softLines: readonly Segment[] = [],
+  ) {
     this.marks.load(marks.map((m) => entry(m.box, m.owner, { x: m.x, y: m.y })));
     this.soft.load(softLines.map((s) => entry(segmentBounds(s), -1, { segment: s })));
   }
@@ -142,8 +136,7 @@ export class LabelSpace {
   /** The distance from the box to the nearest centre of another salt's mark, if any is within `reach`. */
   nearestOther(box: Rect, owner: number, reach: number): number {
     let nearest = Infinity;
-    for (const m of this.marks.search(query(box, reach)))
-      if (m.owner !== owner) nearest = Math.min(nearest, distanceToRect(box, m.x as number, m.y as number));
+    for (const m of this.marks.search(query(box, reach))) if (m.owner !== owner) nearest = Math.min(nearest, distanceToRect(box, m.x as number, m.y as number));
     return nearest;
   }
 
@@ -179,7 +172,11 @@ export function placeLabels(requests: readonly LabelRequest[], space: LabelSpace
   });
   const droppedAt = waiting.filter((i) => {
     const request = requests[i];
-    const spot = firstFit(farSpots(request), space, (box) => space.nearestOther(box, request.owner, BESIDE) >= BESIDE && space.leaderIsClear(leaderTo(request, box), request.owner));
+    const spot = firstFit(
+      farSpots(request),
+      space,
+      (box) => space.nearestOther(box, request.owner, BESIDE) >= BESIDE && space.leaderIsClear(leaderTo(request, box), request.owner),
+    );
     if (spot) placed.push(occupy(request, spot, space));
     return !spot;
   });
@@ -250,8 +247,7 @@ function farSpots(request: LabelRequest): Spot[] {
   const { x: cx, y: cy, width: w, height: h } = request;
   const gap = request.radius + 3;
   const spots: Spot[] = [];
-  for (const lines of [1, -1, 2, -2])
-    for (const x of [cx + gap, cx - gap - w]) spots.push({ box: boxAt(request, x, cy + h * (0.35 + lines)), far: true });
+  for (const lines of [1, -1, 2, -2]) for (const x of [cx + gap, cx - gap - w]) spots.push({ box: boxAt(request, x, cy + h * (0.35 + lines)), far: true });
   for (const ring of RINGS)
     for (const angle of DIRECTIONS) {
       const ux = Math.round(Math.cos(angle) * 1e9) / 1e9;

@@ -86,7 +86,13 @@ export function layOutChart(input: ChartInput): ChartLayout {
   const plotBottom = plotTop + plotHeight;
   const vertical = (ticks: Ticks) => (v: number) => plotBottom - ((v - ticks.min) / (ticks.max - ticks.min)) * plotHeight;
 
-  const yTicks = niceTicks(...paddedRange(plotted.map((p) => p.kJ), 0.05), clamp(Math.round(plotHeight / 48), 2, 10));
+  const yTicks = niceTicks(
+    ...paddedRange(
+      plotted.map((p) => p.kJ),
+      0.05,
+    ),
+    clamp(Math.round(plotHeight / 48), 2, 10),
+  );
   const y = axis(yTicks, vertical(yTicks));
   const meltingPoints = meltingPointsOf(plotted);
   const meltTicks = meltingPoints.length ? niceTicks(...paddedRange(meltingPoints, 0.05), yTicks.ticks.length - 1) : null;
@@ -95,13 +101,23 @@ export function layOutChart(input: ChartInput): ChartLayout {
   const plotLeft = sideMargin(y);
   const plotRight = Math.max(plotLeft + 40, width - (melt ? sideMargin(melt) : PAD + 8));
   const plotWidth = plotRight - plotLeft;
-  const [xMin, xMax] = xDomain(plotted.map((p) => p.x), mode, plotWidth);
+  const [xMin, xMax] = xDomain(
+    plotted.map((p) => p.x),
+    mode,
+    plotWidth,
+  );
   const xTicks = ticksWithin(xMin, xMax, clamp(Math.round(plotWidth / 80), 2, 12), mode === 'charge-product');
   const x = axis(xTicks, (v) => plotLeft + ((v - xMin) / (xMax - xMin)) * plotWidth);
 
   const marker = markerSize(plotted.length);
   const marks = plotted.map((p) => ({ cx: x.at(p.x), cy: y.at(p.kJ), meltY: melt && p.meltingPoint !== null ? melt.at(p.meltingPoint) : null }));
-  if (mode === 'charge-product') dodge(marks, plotted.map((p) => p.x), marker.radius, plotWidth / (xMax - xMin));
+  if (mode === 'charge-product')
+    dodge(
+      marks,
+      plotted.map((p) => p.x),
+      marker.radius,
+      plotWidth / (xMax - xMin),
+    );
   const guides = fitted.flatMap((g) => guideLine(g, x, y));
   return { legend, plot: { x0: plotLeft, y0: plotTop, x1: plotRight, y1: plotBottom }, x, y, melt, marker, marks, guides, fittedGuides: fitted.length };
 }
@@ -121,8 +137,7 @@ function xDomain(xs: readonly number[], mode: XMode, plotWidth: number): [number
   return [lo - margin, hi + margin];
 }
 
-export const meltingPointsOf = (plotted: readonly Plotted[]): number[] =>
-  plotted.flatMap((p) => (p.meltingPoint !== null ? [p.meltingPoint] : []));
+export const meltingPointsOf = (plotted: readonly Plotted[]): number[] => plotted.flatMap((p) => (p.meltingPoint !== null ? [p.meltingPoint] : []));
 
 function axis(ticks: Ticks, at: (v: number) => number): Axis {
   return { ticks, labels: ticks.ticks.map((t) => tickText(t, ticks.decimals)), at };
@@ -186,7 +201,10 @@ function fitGuides(plotted: readonly Plotted[], mode: XMode): Guide[] {
     const meanX = xs.reduce((a, b) => a + b, 0) / xs.length;
     const [x0, x1] = [Math.min(...xs), Math.max(...xs)];
     if (x1 - x0 < 0.05 * Math.abs(meanX)) continue;
-    const fit = leastSquares(xs, group.map((p) => p.kJ));
+    const fit = leastSquares(
+      xs,
+      group.map((p) => p.kJ),
+    );
     if (!fit || !Number.isFinite(fit.slope) || !Number.isFinite(fit.intercept)) continue;
     guides.push({ chargeProduct, fit, x0, x1 });
   }
@@ -199,11 +217,13 @@ function guideLine(guide: Guide, x: Axis, y: Axis): GuideLine[] {
   if (!span) return [];
   const energy = (v: number) => guide.fit.intercept + guide.fit.slope * v;
   const [a, b] = span;
-  return [{
-    guide,
-    segment: { x1: x.at(a), y1: y.at(energy(a)), x2: x.at(b), y2: y.at(energy(b)) },
-    caption: `guide, |z₊z₋| = ${guide.chargeProduct}`,
-  }];
+  return [
+    {
+      guide,
+      segment: { x1: x.at(a), y1: y.at(energy(a)), x2: x.at(b), y2: y.at(energy(b)) },
+      caption: `guide, |z₊z₋| = ${guide.chargeProduct}`,
+    },
+  ];
 }
 
 /** The part of the fitted line over [x0, x1] whose value lies within [ymin, ymax]; null if none. */

@@ -20,8 +20,7 @@ export function escapeXml(text: string): string {
 }
 
 /** Whatever slipped past the types, as a string ('' for null and undefined). */
-export const asText = (value: unknown): string =>
-  typeof value === 'string' ? value : value === null || value === undefined ? '' : String(value);
+export const asText = (value: unknown): string => (typeof value === 'string' ? value : value === null || value === undefined ? '' : String(value));
 
 /** Whitespace collapsed: a label is one line. */
 export const oneLine = (text: string): string => text.replace(/\s+/g, ' ').trim();
