@@ -68,7 +68,8 @@ const figures: Record<string, unknown> = {};
 const ms = (x: number) => `${x.toFixed(x < 10 ? 2 : 1)} ms`;
 
 // ── 1. whole-file analysis vs markdown-it ────────────────────────────────
-for (const size of quick ? [100_000, 1_000_000] : [100_000, 1_000_000, 10_000_000]) {
+// 2.6 MB: a notebook of a year's trials, the size the target below is set for.
+for (const size of quick ? [100_000, 1_000_000, 2_600_000] : [100_000, 1_000_000, 2_600_000, 10_000_000]) {
   const text = generateNotes(size);
   const reps = size >= 10_000_000 ? 3 : 7;
   const base = timeIt(() => md.parse(text, {}), reps);
@@ -230,8 +231,8 @@ async function serverCase() {
     ours: ms(firstMs),
     baseline: `markdown-it parse ${ms(mdParse)}`,
     ratio: firstMs / mdParse,
-    target: '< 300 ms',
-    met: firstMs < 300,
+    target: '≤ 200 ms',
+    met: firstMs <= 200,
   });
   const baseP99 = pct(nullHover, 99);
   rows.push({
