@@ -1,25 +1,18 @@
 /**
  * Thin LSP wiring over the language service: the open notes (workspace.ts), debounced validation, the
- * request handlers (each checks its parameters, honours cancellation and never lets an exception reach
- * the protocol library: requests.ts), the commands (commands.ts) and conversion to LSP types. The
+ * handlers (handlers.ts; each request checks its parameters, honours cancellation and never lets an
+ * exception reach the protocol library: requests.ts), the commands (commands.ts). The
  * lifecycle (nothing before initialize, nothing after shutdown) is enforced where messages enter
  * (lifecycle.ts), so this file can assume an initialised connection. The logic lives in ../service.
  */
-import {
-  CodeActionKind,
-  TextDocumentSyncKind,
-  type CodeAction as LspCodeAction,
-  type Connection,
-  type InitializeParams,
-  type InitializeResult,
-  type WorkspaceEdit,
-} from 'vscode-languageserver';
-import type { Range, TextEdit } from '../service/languageService';
+import { CodeActionKind, TextDocumentSyncKind, type Connection, type InitializeParams, type InitializeResult, type WorkspaceEdit } from 'vscode-languageserver';
+import type { TextEdit } from '../service/languageService';
 import { SERVER_COMMANDS } from '../shared/commands';
 import { VERSION } from '../shared/version';
 import { commandHandler } from './commands';
+import { registerDocumentEvents, registerFeatures } from './handlers';
 import { CollectionBudget } from './memory';
-import { invalidParams, isRange, makeRequestWrapper, oneLine, positionOf, uriOf } from './requests';
+import { makeRequestWrapper, oneLine } from './requests';
 import { DebouncedValidator, realTimers, type Timers } from './validator';
 import { NotesWorkspace, type Snapshot } from './workspace';
 
@@ -90,87 +83,8 @@ export function startServer(connection: Connection, options: ServerOptions = {})
     };
   });
 
-  // TextDocuments reports an open as an open and a change; the open validates at once, the change is skipped.
-  const justOpened = new Set<string>();
-  documents.onDidOpen((e) => {
-    const uri = e.document.uri;
-    workspace.opened(uri);
-    justOpened.add(uri);
-    workspace.refreshSettings(uri).then(
-      () => validator.schedule(uri, 0),
-      (err) => log(`ionwright: open failed: ${oneLine(err)}`),
-    );
-  });
-  documents.onDidChangeContent((e) => {
-    if (justOpened.delete(e.document.uri)) return;
-    validator.schedule(e.document.uri, workspace.settingsOf(e.document.uri).validationDelayMs);
-  });
-  documents.onDidClose((e) => {
-    const uri = e.document.uri;
-    validator.cancel(uri);
-    justOpened.delete(uri);
-    workspace.closed(uri);
-    void connection.sendDiagnostics({ uri, diagnostics: [] });
-  });
-  connection.onDidChangeConfiguration((params) => {
-    workspace.configurationChanged((params?.settings as { ionwright?: unknown } | undefined)?.ionwright);
-    void (async () => {
-      for (const td of documents.all()) {
-        await workspace.refreshSettings(td.uri);
-        validator.schedule(td.uri, 0);
-      }
-    })().catch((e) => log(`ionwright: configuration failed: ${oneLine(e)}`));
-  });
-
-  connection.onHover(
-    request('hover', (params) => {
-      const snap = workspace.snapshot(uriOf(params));
-      if (!snap) return null;
-      const h = snap.service.hover(snap.doc, positionOf(params));
-      return h ? { contents: { kind: 'markdown' as const, value: h.markdown }, range: h.range } : null;
-    }),
-  );
-
-  const toLspActions = (snap: Snapshot, range: Range, only?: string[]): LspCodeAction[] =>
-    snap.service.codeActions(snap.doc, range, only).map((a) => ({
-      title: a.title,
-      kind: a.kind,
-      edit: shape.edit(snap, a.edits),
-      ...(a.isPreferred ? { isPreferred: true } : {}),
-      ...(a.fixes ? { diagnostics: [a.fixes.diagnostic] as never } : {}),
-    }));
-
-  connection.onCodeAction(
-    request('codeAction', (params) => {
-      const uri = uriOf(params);
-      if (!isRange(params.range)) throw invalidParams('range must be {start, end} positions');
-      const only = params.context?.only as unknown;
-      if (only !== undefined && only !== null && !(Array.isArray(only) && only.every((k) => typeof k === 'string')))
-        throw invalidParams('context.only must be a list of code action kinds (strings)');
-      const snap = workspace.snapshot(uri);
-      if (!snap) return null;
-      return toLspActions(snap, params.range, (only ?? undefined) as string[] | undefined);
-    }),
-  );
-
-  connection.onDocumentSymbol(
-    request('documentSymbol', (params) => {
-      const snap = workspace.snapshot(uriOf(params));
-      return snap ? (snap.service.documentSymbols(snap.doc) as never) : null;
-    }),
-  );
-
-  connection.onCodeLens(
-    request('codeLens', (params) => {
-      const snap = workspace.snapshot(uriOf(params));
-      if (!snap) return null;
-      return snap.service.codeLenses(snap.doc).map((l) => ({
-        range: l.range,
-        command: { title: l.title, command: SERVER_COMMANDS.insertTableAt, arguments: [{ uri: snap.uri, position: l.range.start }] },
-      }));
-    }),
-  );
-
+  registerDocumentEvents(connection, workspace, validator, log);
+  registerFeatures(connection, workspace, shape, request);
   connection.onExecuteCommand(request('executeCommand', commandHandler(connection, workspace, shape)));
 
   documents.listen(connection);
