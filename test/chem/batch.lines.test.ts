@@ -7,18 +7,11 @@
  */
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { analyseBatch, type BatchLine } from '../../server/src/chem/batch';
+import { analyseBatch } from '../../server/src/chem/batch';
+import { batchLines } from '../fixtures/batch';
 
 /** Lines of a block with their offsets, as the scanner hands them over (block starting at offset 0). */
-function lines(block: string): BatchLine[] {
-  const out: BatchLine[] = [];
-  let at = 0;
-  for (const text of block.split('\n')) {
-    out.push({ text, start: at });
-    at += text.length + 1;
-  }
-  return out;
-}
+const lines = batchLines;
 const batch = (block: string, openName: string | null = null) => analyseBatch(lines(block), openName);
 
 const NH4HF2 = 14.007 + 5 * 1.008 + 2 * 18.998;

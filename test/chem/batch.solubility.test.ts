@@ -6,18 +6,11 @@
  */
 import { describe, expect, it } from 'vitest';
 import { analyseFormula } from '../../server/src/chem/analyse';
-import { analyseBatch, type BatchLine } from '../../server/src/chem/batch';
+import { analyseBatch } from '../../server/src/chem/batch';
+import { batchLines } from '../fixtures/batch';
 import { SOLUBILITY } from '../../server/src/chem/data/solubility';
 
-function lines(block: string): BatchLine[] {
-  const out: BatchLine[] = [];
-  let at = 0;
-  for (const text of block.split('\n')) {
-    out.push({ text, start: at });
-    at += text.length + 1;
-  }
-  return out;
-}
+const lines = batchLines;
 const batch = (block: string) => analyseBatch(lines(block));
 const warnings = (block: string) => batch(block).diagnostics.filter((d) => d.code === 'batch-solubility');
 const row = (formula: string) => SOLUBILITY.find((r) => r.formula === formula)!;

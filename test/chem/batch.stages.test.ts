@@ -6,21 +6,15 @@
  */
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { analyseBatch, type BatchLine } from '../../server/src/chem/batch';
+import { analyseBatch } from '../../server/src/chem/batch';
+import { batchLines } from '../fixtures/batch';
 import { computeAmounts } from '../../server/src/chem/batch/amounts';
 import { checkBatch } from '../../server/src/chem/batch/checks';
 import { mixIons } from '../../server/src/chem/batch/mix';
 import { readLines } from '../../server/src/chem/batch/read';
 import { DEFAULT_CHEM_SETTINGS } from '../../server/src/chem/settings';
 
-function lines(block: string): BatchLine[] {
-  let at = 0;
-  return block.split('\n').map((text) => {
-    const l = { text, start: at };
-    at += text.length + 1;
-    return l;
-  });
-}
+const lines = batchLines;
 
 const KCL = 39.098 + 35.45;
 const SEAL = ['name: Seal S-3', 'volume: 2 L', 'NaCl 0.1 M   # brine', 'volume: 3 L', 'KCl 14.91 g', 'NaXx 1 g', '', 'Na^+ 0.05 M'].join('\n');

@@ -4,18 +4,11 @@
  * (Na 22.990, Cl 35.45, K 39.098, H 1.0080, P 30.974, O 15.999, Cu 63.546, S 32.06).
  */
 import { describe, expect, it } from 'vitest';
-import { analyseBatch, type BatchLine } from '../../server/src/chem/batch';
+import { analyseBatch } from '../../server/src/chem/batch';
+import { batchLines } from '../fixtures/batch';
 
 /** Lines of a block with their offsets, as the scanner hands them over (block starting at offset 0). */
-function lines(block: string): BatchLine[] {
-  const out: BatchLine[] = [];
-  let at = 0;
-  for (const text of block.split('\n')) {
-    out.push({ text, start: at });
-    at += text.length + 1;
-  }
-  return out;
-}
+const lines = batchLines;
 const batch = (block: string) => analyseBatch(lines(block));
 
 const NaCl = 22.99 + 35.45;

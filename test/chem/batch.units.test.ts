@@ -6,17 +6,11 @@
  */
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { analyseBatch, type BatchLine } from '../../server/src/chem/batch';
+import { analyseBatch } from '../../server/src/chem/batch';
+import { batchLines } from '../fixtures/batch';
 import { BATCH_UNITS, unitIn, unitList } from '../../server/src/chem/batch/units';
 
-function lines(block: string): BatchLine[] {
-  let at = 0;
-  return block.split('\n').map((text) => {
-    const l = { text, start: at };
-    at += text.length + 1;
-    return l;
-  });
-}
+const lines = batchLines;
 const batch = (block: string) => analyseBatch(lines(block));
 const NACL = 22.99 + 35.45;
 

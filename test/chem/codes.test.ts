@@ -12,6 +12,7 @@ import { DIAGNOSTIC_CATALOGUE, DIAGNOSTIC_CODES, isDiagnosticCode, type Catalogu
 import type { ChemDiagnostic } from '../../server/src/chem/diagnostic';
 import { editorDiagnostics } from '../../server/src/service/diagnostics';
 import { analyseDocument } from '../../server/src/service/document';
+import { EVERY_CODE_NOTE } from '../fixtures/every-code';
 
 const ROOT = join(__dirname, '../..');
 const SEVERITY_NAME = ['', 'error', 'warning', 'information', 'hint'];
@@ -107,46 +108,7 @@ describe('the catalogue', () => {
 
 describe('the codes raised', () => {
   it('are in the catalogue, each at the severity the catalogue gives it', () => {
-    const note = [
-      '`NaXx` and `Ca(NO3` and `Al(OH)2` and `TcO2` and `(CH2)x`.',
-      '```reaction',
-      'Fe + O2 -> Fe2O3',
-      'H2 + O2',
-      'H2 -> O2 -> H2O',
-      '-> H2O',
-      'H2 + + O2 -> H2O',
-      '0 H2 -> H2',
-      '2 -> H2',
-      'H2 + O2 -> H2O + H2O2',
-      'NaCl -> KBr',
-      '```',
-      '```batch',
-      'name: A',
-      'volume: 1 L',
-      'volume: 2 L',
-      'NaCl',
-      'KCl 5 parsecs',
-      'KBr 5 g extra',
-      'NaOH 5 wt%',
-      'SO4^2- 0.1 M',
-      '```',
-      '```batch',
-      'name: B',
-      'NaCl 0.1 M',
-      '```',
-      '```batch',
-      'total: 10 g',
-      'NaCl 6 g',
-      'KCl 6 g',
-      '```',
-      '```batch',
-      'volume: 10 mL',
-      'BaSO4 1 g',
-      '```',
-      '```batch',
-      'name: C',
-      'KCl 3 g \u0000',
-    ].join('\n');
+    const note = EVERY_CODE_NOTE;
     const seen = new Map<string, number>();
     for (const d of checkText('all.md', note)) seen.set(d.code, d.severity);
     const long = analyseDocument('`NaCl` '.repeat(6000), 'markdown');

@@ -8,19 +8,9 @@
  * is re-checked here by counting atoms and charge (`countsBalance`).
  */
 import { describe, expect, it } from 'vitest';
-import { analyseReaction, balanceEquation, parseEquation, type ParsedEquation } from '../../server/src/chem/equation';
+import { analyseReaction, balanceEquation, parseEquation } from '../../server/src/chem/equation';
 import { reactionMarkdown } from '../../server/src/service/hover';
-
-function countsBalance(eq: ParsedEquation, coefficients: readonly number[]): boolean {
-  const net: Record<string, number> = {};
-  let charge = 0;
-  [...eq.reactants, ...eq.products].forEach((s, k) => {
-    const sign = s.side === 'reactant' ? 1 : -1;
-    for (const [el, n] of Object.entries(s.atoms)) net[el] = (net[el] ?? 0) + sign * coefficients[k] * n;
-    charge += sign * coefficients[k] * s.charge;
-  });
-  return Object.values(net).every((x) => Math.abs(x) < 1e-9) && Math.abs(charge) < 1e-9;
-}
+import { countsBalance } from '../fixtures/equation';
 
 function expectTitration(text: string, coefficients: number[], method: 'unique' | 'half-reactions') {
   const parsed = parseEquation(text);

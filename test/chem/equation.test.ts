@@ -8,29 +8,10 @@
  * rest on memory alone.
  */
 import { describe, expect, it } from 'vitest';
-import {
-  analyseReaction,
-  balanceCheck,
-  balanceEquation,
-  clearReactionCache,
-  parseEquation,
-  unbalancedMessage,
-  type ParsedEquation,
-} from '../../server/src/chem/equation';
+import { analyseReaction, balanceCheck, balanceEquation, clearReactionCache, parseEquation, unbalancedMessage } from '../../server/src/chem/equation';
+import { countsBalance } from '../fixtures/equation';
 
 const balance = (text: string) => balanceEquation(parseEquation(text));
-
-/** Test-side arithmetic: do these coefficients balance every element and the charge? */
-function countsBalance(eq: ParsedEquation, coefficients: readonly number[]): boolean {
-  const net: Record<string, number> = {};
-  let charge = 0;
-  [...eq.reactants, ...eq.products].forEach((s, k) => {
-    const sign = s.side === 'reactant' ? 1 : -1;
-    for (const [el, n] of Object.entries(s.atoms)) net[el] = (net[el] ?? 0) + sign * coefficients[k] * n;
-    charge += sign * coefficients[k] * s.charge;
-  });
-  return Object.values(net).every((x) => Math.abs(x) < 1e-9) && Math.abs(charge) < 1e-9;
-}
 
 function expectBalanced(text: string, coefficients: number[], balancedText?: string) {
   const parsed = parseEquation(text);

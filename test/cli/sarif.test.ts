@@ -23,6 +23,7 @@ import { describe, expect, it } from 'vitest';
 import { tempFolders } from '../temp';
 import { checkText } from '../../server/src/cli/analyse';
 import { RULES } from '../../server/src/cli/sarif';
+import { EVERY_CODE_NOTE } from '../fixtures/every-code';
 
 /** Temporary folders of this file, removed when it is done. */
 const mkdtempSync = tempFolders();
@@ -215,37 +216,7 @@ describe('check --format sarif with files left out', () => {
 
 describe('the rule catalogue', () => {
   it('has every code the analysis reports, at the level it reports it', () => {
-    const text = [
-      '`NaXx` and `Ca(NO3` and `Al(OH)2` and `TcO2`.',
-      '```reaction',
-      'Fe + O2 -> Fe2O3',
-      'H2 + O2',
-      'H2 -> O2 -> H2O',
-      '-> H2O',
-      'H2 + + O2 -> H2O',
-      '0 H2 -> H2',
-      '2 -> H2',
-      'H2 + O2 -> H2O + H2O2',
-      'NaCl -> KBr',
-      '```',
-      '```batch',
-      'name: A',
-      'volume: 1 L',
-      'volume: 2 L',
-      'NaCl',
-      'KCl 5 parsecs',
-      'KBr 5 g extra',
-      'NaOH 5 wt%',
-      'SO4^2- 0.1 M',
-      '```',
-      '```batch',
-      'name: B',
-      'NaCl 0.1 M',
-      '```',
-      '```batch',
-      'name: C',
-      'KCl 3 g \u0000',
-    ].join('\n');
+    const text = EVERY_CODE_NOTE;
     const seen = new Map<string, number>();
     for (const d of checkText('all.md', text)) seen.set(d.code, d.severity);
     expect(seen.size).toBeGreaterThanOrEqual(20);
