@@ -10,7 +10,7 @@ import { mkdirSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'nod
 import { cpus, tmpdir, totalmem } from 'node:os';
 import { join } from 'node:path';
 import MarkdownIt from 'markdown-it';
-import { ionwrightPreview } from '../server/src/service/preview';
+import { clearPreviewCache, ionwrightPreview } from '../server/src/service/preview';
 import { MF } from 'mf-parser';
 import { clearFormulaCache } from '../server/src/chem/analyse';
 import { clearReactionCache } from '../server/src/chem/equation';
@@ -52,6 +52,8 @@ function coldSettings(): ServiceSettings {
   clearFormulaCache();
   clearReactionCache();
   clearProseCache();
+  // The preview's caches are kept per settings content, so a new settings object alone finds them warm.
+  clearPreviewCache();
   return { ...DEFAULT_SETTINGS, chem: { ...DEFAULT_SETTINGS.chem } };
 }
 
