@@ -47,7 +47,7 @@ function timeIt(fn: () => void, reps: number, warmup = 1): number {
   }
   return median(t);
 }
-/** A fresh settings object: the per-settings caches start cold. */
+/** Cold caches for a measurement: every memo emptied, and a fresh settings object. */
 function coldSettings(): ServiceSettings {
   clearFormulaCache();
   clearReactionCache();
