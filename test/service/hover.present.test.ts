@@ -9,6 +9,7 @@
 import { describe, expect, it } from 'vitest';
 import { analyseFormula } from '../../server/src/chem/analyse';
 import { CAUTION_FOOTNOTE } from '../../server/src/chem/cautions';
+import { cardText } from '../../server/src/service/card';
 import { analyseDocument } from '../../server/src/service/document';
 import { formulaCardMarkdown, hover } from '../../server/src/service/hover';
 import { nameOf as knownName } from '../../server/src/chem/names';
@@ -101,5 +102,19 @@ describe('the batch-line hover', () => {
     expect(count(summary, CAUTION_FOOTNOTE)).toBe(1);
     expect(summary).toContain('lead compound');
     expect(summary).toContain('nickel compound');
+  });
+});
+
+describe('oxidation states by site', () => {
+  // NH4NO3: N −3 in the ammonium ion, +5 in the nitrate ion (IUPAC Red Book 2005, IR-4.6.1: oxidation
+  // numbers are assigned per atom; the average +1 is not a state any N atom has).
+  it('the hover and the text card give a split element by site, never only its average', () => {
+    const a = analyseFormula('NH4NO3');
+    const md = formulaCardMarkdown(a, DEFAULT_SETTINGS);
+    expect(md).toContain('Oxidation states: H +1, N −3 in NH₄⁺ and +5 in NO₃⁻, O −2');
+    expect(md).not.toMatch(/N \+1\b/);
+    expect(cardText(a)).toContain('oxidation       H +1, N −3 in NH₄⁺ and +5 in NO₃⁻, O −2');
+    // Fe3O4: one Fe²⁺ and two Fe³⁺ (magnetite, an inverse spinel; Greenwood & Earnshaw, from memory).
+    expect(cardText(analyseFormula('Fe3O4'))).toContain('Fe +2 in Fe²⁺ and +3 in 2 Fe³⁺');
   });
 });

@@ -120,19 +120,20 @@ export function cardJson(a: FormulaAnalysis): CardJson {
 }
 
 /**
- * The per-site states in words, where they say more than the averages (an element at two or more
- * states, or a named group): "N −3 in NH₄⁺, N +5 in NO₃⁻". Undefined where every element has one state.
+ * The oxidation states in one line: each element at its state, and an element at two or more states
+ * (NH₄NO₃'s N, Fe₃O₄'s Fe) by site instead of by its average: "H +1, N −3 in NH₄⁺ and +5 in NO₃⁻, O −2".
  */
-export function sitesText(a: FormulaAnalysis): string | undefined {
-  const sites = a.charges?.sites;
-  if (!sites || sites.length === 0) return undefined;
-  const byEl = new Map<string, Set<number>>();
-  for (const x of sites) (byEl.get(x.element) ?? byEl.set(x.element, new Set()).get(x.element)!).add(Math.round(x.state * 1e4));
-  const split = [...byEl].filter(([, v]) => v.size > 1).map(([el]) => el);
-  if (split.length === 0) return undefined;
-  return sites
-    .filter((x) => split.includes(x.element))
-    .map((x) => `${x.element} ${signed(x.state)} in ${x.count === 1 ? '' : `${x.count} `}${x.site}`)
+export function statesText(a: FormulaAnalysis): string | undefined {
+  const states = a.charges?.oxidationStates;
+  if (!states || Object.keys(states).length === 0) return undefined;
+  const sites = a.charges?.sites ?? [];
+  return Object.entries(states)
+    .map(([el, v]) => {
+      const own = sites.filter((x) => x.element === el);
+      const distinct = new Set(own.map((x) => Math.round(x.state * 1e4)));
+      if (distinct.size < 2) return `${el} ${signed(v)}`;
+      return `${el} ${own.map((x) => `${signed(x.state)} in ${x.count === 1 ? '' : `${x.count} `}${x.site}`).join(' and ')}`;
+    })
     .join(', ');
 }
 
@@ -180,18 +181,7 @@ export function cardText(a: FormulaAnalysis, settings: ServiceSettings = DEFAULT
   );
   out.push(`  composition     ${a.composition.map((c) => `${c.element} ${percent(c.massFraction, 2)}`).join(', ')}`);
   if (a.charges) {
-    const bySite = sitesText(a);
-    const split = new Set(
-      (a.charges.sites ?? []).filter((x, _, all) => all.some((y) => y.element === x.element && Math.abs(y.state - x.state) > 1e-9)).map((x) => x.element),
-    );
-    const states = a.charges.oxidationStates;
-    const line = states
-      ? Object.entries(states)
-          .map(([el, v]) => `${el} ${signed(v)}${split.has(el) ? ' (average of its sites)' : ''}`)
-          .join(', ')
-      : 'not assigned';
-    out.push(`  oxidation       ${line}`);
-    if (bySite) out.push(`  by site         ${bySite}`);
+    out.push(`  oxidation       ${statesText(a) ?? 'not assigned'}`);
     for (const r of undeterminedText(a)) out.push(`                  ${r}`);
     out.push(
       `  charge balance  ${a.charges.balanced ? '' : 'NOT BALANCED: '}${a.charges.message}${a.charges.suggestions.length ? ` Try: ${a.charges.suggestions.map((x) => `${formulaText(x)}${formulaText(x) === x ? '' : ` (${x})`}`).join(', ')}` : ''}`,

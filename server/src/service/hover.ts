@@ -7,7 +7,7 @@ import { CAUTION_FOOTNOTE, cautionsFor, type Caution } from '../chem/cautions';
 import { element, isMetal } from '../chem/data/elements';
 import type { ReactionAnalysis } from '../chem/equation';
 import { nameOf } from '../chem/names';
-import { designationText, sitesText, undeterminedText } from './card';
+import { designationText, statesText, undeterminedText } from './card';
 import { COMPACT_BATCH, batchColumns, countedRows, markdownTable, pick } from './columns';
 import type { AnalysedDocument } from './document';
 import { chargeWords, energy, formulaText, massText, molarMassText, oxidationText, percent, perLitreText, sig, signed, volumeText } from './format';
@@ -118,7 +118,7 @@ export function formulaCardMarkdown(a: FormulaAnalysis, s: ServiceSettings): str
     if (!c.balanced) lines.push(`⚠ **Not charge-balanced:** ${esc(c.message)}${tryText(c.suggestions)}`, '');
     else if (c.message) lines.push(`${c.basis === 'ionic' ? '✓ ' : ''}${esc(c.message)}`, '');
     if (c.oxidationStates && Object.keys(c.oxidationStates).length)
-      lines.push(`Oxidation states: ${oxidationText(c.oxidationStates)}${c.mixedValence.length ? ' (averages: mixed valence)' : ''}`, '');
+      lines.push(`Oxidation states: ${esc(statesText(a) ?? oxidationText(c.oxidationStates))}`, '');
   }
   lines.push(`Composition: ${a.composition.map((x) => `${x.element} ${percent(x.massFraction, 2)}`).join(', ')}`, '');
   if (a.bond) {
@@ -134,8 +134,6 @@ export function formulaCardMarkdown(a: FormulaAnalysis, s: ServiceSettings): str
   lines.push(...cautionBlock(cautionsFor(a)));
   lines.push('---', '');
   const detail: string[] = [];
-  const bySite = sitesText(a);
-  if (bySite) detail.push(`By site: ${bySite}`);
   for (const r of undeterminedText(a)) detail.push(`No state given for ${r}`);
   detail.push(
     `Hill ${a.hill} · ± ${mm.uncertainty === null ? '— (no standard atomic weight for ' + mm.nominal.join(', ') + ')' : mm.uncertainty.toPrecision(1)} g/mol (CIAAW 2021 weights)`,
