@@ -1,75 +1,70 @@
 /**
- * Names of substances (formula → name), following the IUPAC 2005 recommendations for inorganic
- * compounds (Nomenclature of Inorganic Chemistry, the "Red Book": stoichiometric names with the Stock
- * number, IR-5; hydrates IR-5.5). Only what the reading makes plain is named; anything else has no name
- * rather than a guessed one.
+ * Names of substances, both ways.
+ *
+ * - Formula → name (`nameOf`, `namesOf`): the systematic English name by the IUPAC 2005 recommendations
+ *   for inorganic compounds (./systematic.ts), and the names the trade uses beside it (./common.ts, the
+ *   acid names of ./acids.ts).
+ * - Name → formula (`readName`, `nameAtStart`): systematic, acid and shelf names, tolerant of case,
+ *   spacing, hyphens and British or American spelling; a name not read exactly is never taken for the
+ *   nearest one (./read.ts says how).
+ * - Completion (`namesByPrefix`): every listed name and the salts of the usual ions, by prefix.
  */
-import type { FormulaAnalysis } from '../analyse';
-import { element } from '../data/elements';
+import { analyseFormula, type FormulaAnalysis } from '../analyse';
+import { acidByForm } from './acids';
+import { COMMON_NAMES } from './common';
+import { itemsText, systematicName, waterOf } from './systematic';
 
-const HYDRATE = [
-  '',
-  'monohydrate',
-  'dihydrate',
-  'trihydrate',
-  'tetrahydrate',
-  'pentahydrate',
-  'hexahydrate',
-  'heptahydrate',
-  'octahydrate',
-  'nonahydrate',
-  'decahydrate',
-  'undecahydrate',
-  'dodecahydrate',
-];
-const MONATOMIC: Record<string, string> = {
-  F: 'fluoride',
-  Cl: 'chloride',
-  Br: 'bromide',
-  I: 'iodide',
-  O: 'oxide',
-  S: 'sulfide',
-  Se: 'selenide',
-  Te: 'telluride',
-  N: 'nitride',
-  P: 'phosphide',
-  H: 'hydride',
-};
-/** Metals named without an oxidation number: they have one state in their salts (IUPAC 2005, IR-5.4.2.2). */
-const ONE_STATE = new Set(['Li', 'Na', 'K', 'Rb', 'Cs', 'Be', 'Mg', 'Ca', 'Sr', 'Ba', 'Al', 'Zn', 'Cd', 'Ag', 'Ga', 'Sc', 'Y', 'La']);
-const ROMAN = ['', 'I', 'II', 'III', 'IV', 'V', 'VI', 'VII', 'VIII'];
+export { readName, nameAtStart, namesByPrefix, type NameReading, type NameCandidate, type NameEntry, type NameStatus } from './read';
+export { systematicName, complexName } from './systematic';
+export { ACIDS, acidByForm, type AcidDef } from './acids';
+export { COMMON_NAMES, type CommonName } from './common';
 
 /**
- * The name of the substance where the reading makes it plain: an element, a single named ion, or a salt of
- * one cation and one anion (with its water of crystallisation): `nickel(II) sulfate hexahydrate`. Names
- * follow the IUPAC 2005 recommendations (stoichiometric names with the Stock number); undefined otherwise.
+ * The name of the substance where the reading makes it plain, e.g. `nickel(II) sulfate hexahydrate`,
+ * `potassium hexacyanidoferrate(III)`, `dinitrogen tetraoxide`, `sulfuric acid`; undefined otherwise.
  */
 export function nameOf(a: FormulaAnalysis): string | undefined {
-  const c = a.charges;
-  if (!a.ok || !a.formula || !c) return undefined;
-  if (c.basis === 'element' && a.formula.parts.length === 1) {
-    const el = Object.keys(a.atoms)[0];
-    return el ? element(el)?.name : undefined;
+  return systematicName(a);
+}
+
+export interface SubstanceNames {
+  /** The systematic name (as `nameOf`), or undefined. */
+  systematic: string | undefined;
+  /** Names the trade uses for it, the usual first (`blue vitriol`); a solution's name says so. */
+  common: string[];
+}
+
+/** A solution's name says it is one: `bleach (solution)`, `ammonia solution`. */
+const solutionLabel = (row: (typeof COMMON_NAMES)[number]) => (row.solution && !/solution/.test(row.names[0]) ? `${row.names[0]} (solution)` : row.names[0]);
+
+const byHill = new Map<string, string[]>();
+const byForm = new Map<string, string[]>();
+for (const row of COMMON_NAMES) {
+  if (row.iupac) continue;
+  const label = solutionLabel(row);
+  if (row.byForm) for (const f of row.forms ?? [row.formula]) byForm.set(f, [...(byForm.get(f) ?? []), label]);
+}
+/** Hill formulas of the table's rows, filled on first use. */
+let hillFilled = false;
+
+/** The systematic name and the trade's names of an analysed formula. */
+export function namesOf(a: FormulaAnalysis): SubstanceNames {
+  if (!hillFilled) {
+    for (const row of COMMON_NAMES) {
+      if (row.iupac || row.byForm) continue;
+      const label = solutionLabel(row);
+      const h = analyseFormula(row.formula).hill;
+      byHill.set(h, [...(byHill.get(h) ?? []), label]);
+    }
+    hillFilled = true;
   }
-  const ions = c.ions;
-  if (!ions || c.basis !== 'ionic' || !c.balanced) return undefined;
-  if (ions.length === 1 && a.charge !== 0) return ions[0].ionName;
-  // Water only in the other parts: a hydrate.
-  let water = 0;
-  for (const p of a.formula.parts.slice(1)) {
-    const t = p.items.map((it) => (it.kind === 'element' ? it.symbol + (it.count === 1 ? '' : it.count) : '?')).join('');
-    if (t !== 'H2O' || !Number.isInteger(p.multiplier)) return undefined;
-    water += p.multiplier;
+  const systematic = systematicName(a);
+  const common: string[] = [];
+  if (a.ok && a.formula) {
+    const bare = waterOf(a.formula.parts) === 0 && a.formula.parts.length === 1 ? itemsText(a.formula.parts[0].items) : undefined;
+    const acid = bare ? acidByForm(bare) : undefined;
+    if (acid?.compound) common.push(`${acid.name} (solution)`);
+    for (const n of (bare && byForm.get(bare)) || byHill.get(a.hill) || []) if (!common.includes(n) && n !== systematic) common.push(n);
   }
-  if (a.charge !== 0 || ions.length !== 2 || water >= HYDRATE.length) return undefined;
-  const [cat, an] = ions;
-  if (cat.role !== 'cation' || an.role !== 'anion' || !Number.isInteger(cat.charge) || new Set(cat.states).size > 1) return undefined;
-  let cation: string | undefined;
-  if (cat.kind === 'metal' && cat.element) {
-    const name = element(cat.element)?.name;
-    cation = name && (ONE_STATE.has(cat.element) ? name : `${name}(${ROMAN[cat.charge] ?? cat.charge})`);
-  } else if (cat.kind === 'polyatomic') cation = cat.ionName;
-  const anion = an.kind === 'monatomic-anion' && an.element ? MONATOMIC[an.element] : an.kind === 'polyatomic' ? an.ionName : undefined;
-  if (!cation || !anion) return undefined;
-  return `${cation} ${anion}${water ? ` ${HYDRATE[water]}` : ''}`;
+  return { systematic, common };
 }
