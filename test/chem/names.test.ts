@@ -172,6 +172,8 @@ const PAIRS: Array<[string, string]> = [
   ['ClF3', 'chlorine trifluoride'],
   ['IF7', 'iodine heptafluoride'],
   ['OF2', 'oxygen difluoride'],
+  ['OCl2', 'oxygen dichloride'], // RB IR-5.2 example: oxygen precedes the halogens in Table VI
+  ['O2Cl2', 'dioxygen dichloride'], // RB IR-5.2 example
   // Acids (RB IR-8, Table IR-8.1) and hydrogen compounds.
   ['H2SO4', 'sulfuric acid'],
   ['HNO3', 'nitric acid'],
@@ -188,6 +190,7 @@ const PAIRS: Array<[string, string]> = [
   ['H2O', 'water'],
   ['NH3', 'ammonia'],
   ['H2O2', 'hydrogen peroxide'],
+  ['H2C2O4·2H2O', 'oxalic acid dihydrate'],
   // Elements (RB IR-3.4) and ions (RB IR-5.3).
   ['O2', 'dioxygen'],
   ['S8', 'octasulfur'],
@@ -206,6 +209,14 @@ describe('formula → systematic name', () => {
     expect(nameOf(analyseFormula('SO4^2-'))).toBe('sulfate');
     expect(nameOf(analyseFormula('HCO3^-'))).toBe('hydrogencarbonate');
     expect(nameOf(analyseFormula('[Fe(CN)6]^3-'))).toBe('hexacyanidoferrate(III)');
+  });
+
+  it('follows Table VI for the halogen oxides and gives the trade name beside (RB IR-5.2, from memory)', () => {
+    expect(namesOf(analyseFormula('ClO2'))).toEqual({ systematic: 'dioxygen chloride', common: ['chlorine dioxide'] });
+    expect(namesOf(analyseFormula('Cl2O7')).common).toEqual(['dichlorine heptoxide']);
+    // Either order reads back.
+    expect(readName('dichlorine oxide').hill).toBe('Cl2O');
+    expect(readName('oxygen dichloride').hill).toBe('Cl2O');
   });
 
   it('gives a charge number, not an oxidation number, where a ligand is not innocent (nitrosyl; RB IR-9.1.2.8)', () => {
@@ -289,6 +300,14 @@ describe('name → formula', () => {
     expect(readName('sodium hydrogen carbonate').hill).toBe(hill('NaHCO3'));
     expect(readName('potassium hexacyanoferrate(III)').hill).toBe(hill('K3[Fe(CN)6]'));
     expect(readName('ferrous sulfate heptahydrate').hill).toBe(hill('FeSO4·7H2O'));
+  });
+
+  it('reads acids and shelf names with their water, and solutions named as such', () => {
+    expect(readName('citric acid monohydrate').hill).toBe(hill('C6H8O7·H2O'));
+    expect(readName('borax pentahydrate').hill).toBe(hill('Na2B4O7·5H2O'));
+    const naoh = readName('sodium hydroxide solution');
+    expect([naoh.formula, !!naoh.solution]).toEqual(['NaOH', true]);
+    expect(readName('aqueous ammonia').formula).toBe('NH3');
   });
 
   it('reads counted cations and double salts', () => {

@@ -67,7 +67,7 @@ describe('densities and molarities of the concentrated reagents', () => {
 
   it('every table starts at water and rises where the handbook rises (acetic acid peaks near 78 %)', () => {
     for (const t of AQUEOUS) {
-      expect(t.rows[0]).toEqual([0, 0.99821]);
+      expect(t.rows[0].slice(0, 2)).toEqual([0, 0.99821]); // CRC Handbook, Section 6: water at 20 °C
       for (let i = 1; i < t.rows.length; i++) expect(t.rows[i][0]).toBeGreaterThan(t.rows[i - 1][0]);
     }
     const acetic = AQUEOUS.find((x) => x.id === 'acetic')!;

@@ -84,6 +84,8 @@ export const COMMON_NAMES: CommonName[] = [
   { names: ['dry ice'], formula: 'CO2', src: 'CP' },
   { names: ['chlorine dioxide'], formula: 'ClO2', src: 'CP' },
   { names: ['dichlorine monoxide', 'chlorine monoxide'], formula: 'Cl2O', src: 'CP' },
+  { names: ['dichlorine heptoxide'], formula: 'Cl2O7', src: 'CP' },
+  { names: ['iodine pentoxide', 'diiodine pentoxide'], formula: 'I2O5', src: 'CP' },
   { names: ['phosphorus pentoxide'], formula: 'P4O10', src: 'CP' },
   { names: ['disodium EDTA', 'edetate disodium', 'EDTA disodium salt dihydrate'], formula: 'Na2C10H14N2O8·2H2O', src: 'MI, CP' },
   { names: ['EDTA', 'edetic acid', 'ethylenediaminetetraacetic acid'], formula: 'C10H16N2O8', src: 'MI, CP' },

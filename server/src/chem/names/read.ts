@@ -245,8 +245,26 @@ function readKey(key: string, written: string): Reading {
     const formula = `${ion.formula}^${Math.abs(ion.charge) === 1 ? '' : Math.abs(ion.charge)}-`;
     return { status: 'exact', formula, hill: hillOf(formula), name: ion.name, via: 'ion', candidates: [], lookalikes: [], notes: [] };
   }
+  // A solution named as one: `sodium hydroxide solution`, `aqueous ammonia`.
+  const bare = /^(.{3,}?)(?:solution|\(aq\))$/.exec(key)?.[1] ?? /^aqueous(.{3,})$/.exec(key)?.[1];
+  if (bare) {
+    const r = readKey(bare, written);
+    if (r.status !== 'exact') return r;
+    return {
+      ...r,
+      solution: r.solution ?? { typical: 'as on the label' },
+      notes: [...r.notes, `'${written}' is a solution in water: its strength must come from the label`],
+    };
+  }
   const water = splitWater(key);
   if (water.error) return unknown(written, water.error);
+  // A shelf or acid name with its water named: citric acid monohydrate, borax pentahydrate.
+  const named = water.n || water.anhydrous ? WHOLE.get(water.core) : undefined;
+  if (named && named.via !== 'element') {
+    const formula = named.formula.split('·')[0] + (water.n ? `·${water.n === 1 ? '' : water.n}H2O` : '');
+    const r = fromWhole({ ...named, formula });
+    return { ...r, name: systematicName(analyseFormula(formula)) ?? r.name };
+  }
   const readings = readCore(water.core);
   if (readings.kind === 'found') {
     const suffix = water.n ? `·${water.n === 1 ? '' : water.n}H2O` : '';

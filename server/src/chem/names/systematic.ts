@@ -11,9 +11,9 @@
  *   ligand's formal charge is not innocent (nitrosyl): potassium hexacyanidoferrate(III);
  * - binary compounds of non-metals with multiplying prefixes (IR-5.2: dinitrogen tetraoxide, sulfur
  *   hexafluoride; "monoxide" as the allowed exception), the electropositive constituent first by the
- *   element sequence of Table VI, except that oxygen is cited after chlorine, bromine and iodine as the
- *   formulas are written (Cl2O7 dichlorine heptaoxide; Table VI would give oxygen first, "oxygen
- *   dichloride" for OCl2, and the reader accepts both orders);
+ *   element sequence of Table VI, in which oxygen comes before the halogens: OCl2 is oxygen dichloride
+ *   (an IR-5.2 example) and ClO2 dioxygen chloride, with the trade's names (chlorine dioxide) beside
+ *   them from ./common.ts; the reader takes either order;
  * - acids by their usual names (IR-8, Table IR-8.1: sulfuric acid); the hydrogen halides as compounds
  *   (hydrogen chloride; its solution is hydrochloric acid).
  * What the reading leaves open (two cations, mixed valence, an organic formula with isomers) has no name
@@ -56,10 +56,11 @@ export const MONATOMIC_ANIONS: Record<string, string> = {
 };
 
 /**
- * The element sequence of IUPAC 2005 Table VI for the non-metals, least electronegative first; the
- * constituent later in it is named last, with -ide. (Cl, Br, I before O: see the header.)
+ * The element sequence of IUPAC 2005 Table VI for the non-metals, least electronegative first (up each
+ * group: B, then Ge Si C, Sb As P N, H, Te Se S O, At I Br Cl F); the constituent later in it is named
+ * last, with -ide.
  */
-const SEQUENCE = ['Rn', 'Xe', 'Kr', 'Ar', 'Ne', 'He', 'B', 'Ge', 'Si', 'C', 'Sb', 'As', 'P', 'N', 'H', 'Te', 'Se', 'S', 'At', 'I', 'Br', 'Cl', 'O', 'F'];
+const SEQUENCE = ['Rn', 'Xe', 'Kr', 'Ar', 'Ne', 'He', 'B', 'Ge', 'Si', 'C', 'Sb', 'As', 'P', 'N', 'H', 'Te', 'Se', 'S', 'O', 'At', 'I', 'Br', 'Cl', 'F'];
 const RANK = new Map(SEQUENCE.map((s, i) => [s, i]));
 
 /** The ion name in IUPAC 2005 spelling: the "hydrogen" prefix joined to the anion (hydrogensulfate). */
@@ -118,18 +119,17 @@ export function systematicName(a: FormulaAnalysis): string | undefined {
     const complex = complexSaltName(main.items);
     if (complex) return withWater(complex, water);
   }
-  if (f.parts.length > 1 || main.multiplier !== 1) return undefined;
+  if (main.multiplier !== 1) return undefined;
   const bare = itemsText(main.items);
   if (a.charge !== 0) {
     // An ion the charge reading took as a molecule (HCO3⁻: a weak acid's anion).
-    const ion = ANION_BY_FORM.get(bare) ?? POLY_CATIONS.get(bare);
+    const ion = f.parts.length === 1 ? (ANION_BY_FORM.get(bare) ?? POLY_CATIONS.get(bare)) : undefined;
     return ion && ion.charge === a.charge ? anionName(ion.name) : undefined;
   }
+  // Acids and named molecules, with their water of crystallisation (oxalic acid dihydrate).
   const acid = acidByForm(bare);
-  if (acid) return acid.compound ?? acid.name;
-  const common = MOLECULAR_BY_FORM.get(bare);
-  if (common) return common;
-  return binaryName(main.items);
+  const molecular = acid ? (acid.compound ?? acid.name) : (MOLECULAR_BY_FORM.get(bare) ?? binaryName(main.items));
+  return molecular && (f.parts.length === 1 || molecular !== 'water') ? withWater(molecular, water) : undefined;
 }
 
 /** Molecular substances that IUPAC names outright (water, ammonia, ethanol), by written form. */

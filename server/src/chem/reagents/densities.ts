@@ -2,7 +2,7 @@
  * Densities of the liquids a formulation pours: the commercial aqueous reagents as functions of their
  * mass fraction, and the pure liquids, all at 20 °C.
  *
- * Sources (the `src` of each table; every row of a table is from its source unless the row says otherwise):
+ * Sources (the `src` of each table; every row is from its table's source unless the row names its own):
  * - CRC-CPAS: CRC Handbook of Chemistry and Physics, Section 5, "Concentrative Properties of Aqueous
  *   Solutions: Density, Refractive Index, Freezing Point Depression, and Viscosity" (density at 20 °C
  *   against mass percent of solute). The values here were RECALLED FROM MEMORY of that table, not read
@@ -33,8 +33,11 @@ export interface DensityTable {
   formula: string;
   /** Other written forms that mean this solute (`CH3CO2H` for acetic acid). */
   forms: string[];
-  /** `[mass percent, density g/mL at 20 °C]`, ascending in mass percent; 0 % is water. */
-  rows: ReadonlyArray<readonly [number, number]>;
+  /**
+   * `[mass percent, density g/mL at 20 °C, source]`, ascending in mass percent; a row without its own
+   * source is from the table's `src`. The 0 % row is water (CRC Handbook, Section 6).
+   */
+  rows: ReadonlyArray<readonly [number, number, string?]>;
   src: string;
   /** The usual commercial strengths (% by mass), for messages. */
   commercial: string;
@@ -43,6 +46,7 @@ export interface DensityTable {
 }
 
 const w = WATER_20C;
+const WATER_SRC = 'CRC Handbook, Section 6 (water at 20 °C)';
 
 export const AQUEOUS: DensityTable[] = [
   {
@@ -51,7 +55,7 @@ export const AQUEOUS: DensityTable[] = [
     formula: 'H2SO4',
     forms: ['H2SO4'],
     rows: [
-      [0, w],
+      [0, w, WATER_SRC],
       [1, 1.0051],
       [2, 1.0118],
       [5, 1.0317],
@@ -88,7 +92,7 @@ export const AQUEOUS: DensityTable[] = [
     formula: 'HCl',
     forms: ['HCl'],
     rows: [
-      [0, w],
+      [0, w, WATER_SRC],
       [1, 1.0032],
       [2, 1.0082],
       [4, 1.0181],
@@ -121,7 +125,7 @@ export const AQUEOUS: DensityTable[] = [
     formula: 'HNO3',
     forms: ['HNO3'],
     rows: [
-      [0, w],
+      [0, w, WATER_SRC],
       [1, 1.0036],
       [2, 1.0091],
       [5, 1.0256],
@@ -155,7 +159,7 @@ export const AQUEOUS: DensityTable[] = [
     formula: 'H3PO4',
     forms: ['H3PO4'],
     rows: [
-      [0, w],
+      [0, w, WATER_SRC],
       [1, 1.0038],
       [2, 1.0092],
       [5, 1.0254],
@@ -188,7 +192,7 @@ export const AQUEOUS: DensityTable[] = [
     forms: ['CH3COOH', 'CH3CO2H', 'HC2H3O2', 'C2H4O2', 'AcOH', 'HOAc'],
     // Not monotonic: the density passes a maximum near 78 % (the hydrate CH3COOH·H2O region).
     rows: [
-      [0, w],
+      [0, w, WATER_SRC],
       [1, 0.9996],
       [2, 1.0012],
       [5, 1.0055],
@@ -222,7 +226,7 @@ export const AQUEOUS: DensityTable[] = [
     formula: 'HCOOH',
     forms: ['HCOOH', 'HCO2H', 'CH2O2'],
     rows: [
-      [0, w],
+      [0, w, WATER_SRC],
       [10, 1.0246],
       [20, 1.0488],
       [30, 1.0729],
@@ -244,7 +248,7 @@ export const AQUEOUS: DensityTable[] = [
     formula: 'HF',
     forms: ['HF'],
     rows: [
-      [0, w],
+      [0, w, WATER_SRC],
       [10, 1.036],
       [20, 1.073],
       [30, 1.101],
@@ -262,7 +266,7 @@ export const AQUEOUS: DensityTable[] = [
     formula: 'NH3',
     forms: ['NH3', 'NH4OH'],
     rows: [
-      [0, w],
+      [0, w, WATER_SRC],
       [1, 0.9939],
       [2, 0.9895],
       [4, 0.9811],
@@ -290,7 +294,7 @@ export const AQUEOUS: DensityTable[] = [
     formula: 'NaOH',
     forms: ['NaOH'],
     rows: [
-      [0, w],
+      [0, w, WATER_SRC],
       [1, 1.0095],
       [2, 1.0207],
       [4, 1.0428],
@@ -321,7 +325,7 @@ export const AQUEOUS: DensityTable[] = [
     formula: 'KOH',
     forms: ['KOH'],
     rows: [
-      [0, w],
+      [0, w, WATER_SRC],
       [1, 1.0083],
       [2, 1.0175],
       [4, 1.0359],
@@ -351,7 +355,7 @@ export const AQUEOUS: DensityTable[] = [
     formula: 'H2O2',
     forms: ['H2O2'],
     rows: [
-      [0, w],
+      [0, w, WATER_SRC],
       [3, 1.0095],
       [6, 1.0205],
       [10, 1.035],

@@ -42,7 +42,7 @@ export interface DensityReading {
   /** `table` (a row), `interpolated` (between two rows), `pure` (a pure liquid), `label` (given). */
   basis: 'table' | 'interpolated' | 'pure' | 'label';
   /** The rows interpolated between. */
-  between?: [readonly [number, number], readonly [number, number]];
+  between?: [readonly [number, number, string?], readonly [number, number, string?]];
   /** Where the density comes from, as a card says it. */
   source: string;
   /** What was used, in one line: `1.8355 g/mL (96 %, 20 °C; CRC Handbook … from memory)`. */
@@ -63,7 +63,7 @@ export function densityAt(table: DensityTable, assayPercent: number): DensityRea
   }
   const upper = rows[lo];
   const source = `${table.src === 'CRC-CPAS (from memory)' ? 'CRC Handbook, concentrative properties of aqueous solutions, from memory' : table.src}`;
-  if (upper[0] === assayPercent) return reading(upper[1], assayPercent, 'table', source, undefined);
+  if (upper[0] === assayPercent) return reading(upper[1], assayPercent, 'table', upper[2] ?? source, undefined);
   const lower = rows[lo - 1];
   const t = (assayPercent - lower[0]) / (upper[0] - lower[0]);
   return reading(lower[1] + t * (upper[1] - lower[1]), assayPercent, 'interpolated', source, [lower, upper]);
