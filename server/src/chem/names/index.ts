@@ -14,7 +14,7 @@ import { acidByForm } from './acids';
 import { COMMON_NAMES } from './common';
 import { itemsText, systematicName, waterOf } from './systematic';
 
-export { readName, nameAtStart, namesByPrefix, type NameReading, type NameCandidate, type NameEntry, type NameStatus } from './read';
+export { readName, nameAtStart, namesByPrefix, clearNameCache, type NameReading, type NameCandidate, type NameEntry, type NameStatus } from './read';
 export { systematicName, complexName } from './systematic';
 export { ACIDS, acidByForm, type AcidDef } from './acids';
 export { COMMON_NAMES, type CommonName } from './common';

@@ -23,7 +23,9 @@ import { ACIDS } from './acids';
 import { COMMON_NAMES } from './common';
 import { distanceWithin } from './fuzzy';
 import { LIGANDS, type LigandDef } from './ligands';
-import { MONATOMIC_ANIONS, ONE_STATE, systematicName } from './systematic';
+import { anionName, MONATOMIC_ANIONS, ONE_STATE, systematicName } from './systematic';
+import { formulaAtoms, hillFormula } from '../formula/compute';
+import { parseFormula } from '../formula/parse';
 import { ateName, COMPLEX_PREFIX, HYDRATE_WORDS, OLD_CATION_NAMES, PREFIX, ROMAN, ROMAN_VALUE, squash } from './words';
 
 export type NameStatus = 'exact' | 'ambiguous' | 'near' | 'unknown';
@@ -200,24 +202,43 @@ for (const [n, f] of [['sulphur', 'S']] as const) addWhole(n, { name: 'sulfur', 
 // ---------------------------------------------------------------------------------------------------
 // Reading.
 
+/** Readings by squashed key, and by the text as written (a repeat skips the squashing). */
 const cache = new BoundedCache<Omit<NameReading, 'text' | 'start' | 'end'>>(20_000, 16 * 1024 * 1024);
+const byWritten = new BoundedCache<Omit<NameReading, 'text' | 'start' | 'end'>>(20_000, 8 * 1024 * 1024);
+
+/** Empty the names' cache (for cold-start measurements). */
+export function clearNameCache(): void {
+  cache.clear();
+  byWritten.clear();
+}
 
 /** Read a name as a formula. Never throws; `status` says whether a formula was found. */
 export function readName(text: string): NameReading {
   const lead = text.length - text.trimStart().length;
   const trimmed = text.trim();
   const place = { text, start: lead, end: lead + trimmed.length };
-  const key = squash(trimmed);
-  const hit = cache.get(key);
-  if (hit) return { ...place, ...hit };
-  const r = key ? readKey(key, trimmed) : unknown(trimmed, 'no name is written');
-  cache.set(detach(key), r, 512 + 4 * key.length);
-  return { ...place, ...r };
+  // As written first (no squashing on a repeat), then by the squashed key.
+  let r = byWritten.get(trimmed);
+  if (!r) {
+    const key = squash(trimmed);
+    r = cache.get(key);
+    if (!r) {
+      r = key ? readKey(key, trimmed) : unknown(trimmed, 'no name is written');
+      cache.set(detach(key), r, 512 + 4 * key.length);
+    }
+    byWritten.set(detach(trimmed), r, 256 + 2 * trimmed.length);
+  }
+  return { text: place.text, start: place.start, end: place.end, ...r };
 }
 
 type Reading = Omit<NameReading, 'text' | 'start' | 'end'>;
 
 const hillOf = (formula: string) => analyseFormula(formula).hill;
+/** The Hill formula from the parse alone (for compounds only shown, never analysed). */
+const quickHill = (formula: string) => {
+  const p = parseFormula(formula);
+  return p.formula ? hillFormula(formulaAtoms(p.formula)) : formula;
+};
 const candidate = (formula: string, name?: string): NameCandidate => ({
   name: name ?? systematicName(analyseFormula(formula)) ?? formula,
   formula,
@@ -273,12 +294,18 @@ function readKey(key: string, written: string): Reading {
     if (water.anhydrous) notes.push('anhydrous: no water of crystallisation');
     if (found.length === 1) {
       const f = found[0];
-      const lookalikes = (f.lookalikes ?? []).map((l) => candidate(l + suffix));
+      const name = systematicName(analyseFormula(f.formula)) ?? written;
+      // Named by the anion put in (cheap: no analysis of compounds merely shown).
+      const lookalikes = (f.lookalikes ?? []).map((l) => ({
+        name: name.replace(anionName(l.instead), anionName(l.anion)),
+        formula: l.formula + suffix,
+        hill: quickHill(l.formula + suffix),
+      }));
       return {
         status: 'exact',
         formula: f.formula,
         hill: hillOf(f.formula),
-        name: systematicName(analyseFormula(f.formula)) ?? written,
+        name,
         via: 'systematic',
         candidates: [],
         lookalikes,
@@ -343,8 +370,8 @@ function splitWater(key: string): { core: string; n: number; anhydrous?: boolean
 
 interface Found {
   formula: string;
-  /** Formulas (without water) of compounds whose names differ by a letter or two. */
-  lookalikes?: string[];
+  /** Compounds (formula without water) whose names differ by a letter or two: their anion and ours. */
+  lookalikes?: Array<{ formula: string; anion: string; instead: string }>;
 }
 type CoreReading = { kind: 'found'; found: Found[]; notes: string[]; why?: string } | { kind: 'error'; error: string } | { kind: 'none' };
 
@@ -389,7 +416,7 @@ function readCore(core: string): CoreReading {
             ? []
             : [...(LOOKALIKES.get(rest) ?? [])].flatMap((other) => {
                 const o = ANION_WORDS.get(other);
-                return o ? [salt(cat, o)] : [];
+                return o ? [{ formula: salt(cat, o), anion: o.name, instead: anion.name }] : [];
               });
           out.push({ formula, lookalikes });
         }
@@ -713,19 +740,33 @@ const AMOUNT = /^[-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?[a-zA-Zµ%/]*$/;
  * name. `start` and `end` are where the name stands in `line`; `status` says whether it was read.
  */
 export function nameAtStart(line: string): NameReading {
-  const words: Array<{ start: number; end: number }> = [];
-  const re = /\S+/g;
-  let m: RegExpExecArray | null;
-  while ((m = re.exec(line)) && words.length < 12) words.push({ start: m.index, end: m.index + m[0].length });
-  let stop = words.findIndex((w) => {
-    const word = line.slice(w.start, w.end);
-    return (AMOUNT.test(word) && !/^\d+-/.test(word)) || STOP_WORDS.has(word.toLowerCase());
-  });
-  if (stop < 0) stop = words.length;
-  if (stop === 0) return { ...readName(''), text: line, start: 0, end: 0 };
-  const r = readName(line.slice(words[0].start, words[stop - 1].end));
-  return { ...r, text: line, start: words[0].start, end: words[stop - 1].end };
+  // One pass over the words: the name runs from the first word to the last before an amount or keyword.
+  let first = -1;
+  let end = -1;
+  let i = 0;
+  const n = line.length;
+  while (i < n) {
+    while (i < n && isBlank(line.charCodeAt(i))) i++;
+    if (i >= n) break;
+    let j = i;
+    while (j < n && !isBlank(line.charCodeAt(j))) j++;
+    const c = line.charCodeAt(i);
+    const numeric = (c >= 48 && c <= 57) || c === 46 || c === 43 || c === 45;
+    const word = numeric || j - i <= 4 ? line.slice(i, j) : '';
+    if ((numeric && AMOUNT.test(word) && !/^\d+-/.test(word)) || (word && STOP_WORDS.has(word.toLowerCase()))) break;
+    if (first < 0) first = i;
+    end = j;
+    i = j;
+  }
+  if (first < 0) return { ...readName(''), text: line, start: 0, end: 0 };
+  const r = readName(line.slice(first, end));
+  r.text = line;
+  r.start = first;
+  r.end = end;
+  return r;
 }
+
+const isBlank = (c: number) => c === 32 || c === 9 || c === 160;
 
 export interface NameEntry {
   /** The name as shown. */

@@ -113,17 +113,18 @@ export const OLD_CATION_NAMES: Record<string, { symbol: string; charge: number }
  * elided prefixes of binary oxides (pentoxide for pentaoxide; IUPAC 2005, IR-5.2, keeps the vowel and
  * allows only "monoxide").
  */
-const SPELLINGS: Array<[RegExp, string]> = [
-  [/sulph/g, 'sulf'],
-  [/aluminum/g, 'aluminium'],
-  [/cesium/g, 'caesium'],
-  [/(tetr|pent|hex|hept|oct|non|dec)oxide/g, '$1aoxide'],
-  [/monooxide/g, 'monoxide'],
-  [/glycerine/g, 'glycerin'],
-  [/saltpeter/g, 'saltpetre'],
-  [/deioniz/g, 'deionis'],
-  [/ethylalcohol/g, 'ethanol'],
-  [/κ|kappa/g, 'k'],
+const SPELLINGS: Array<[string, RegExp, string]> = [
+  ['sulph', /sulph/g, 'sulf'],
+  ['aluminum', /aluminum/g, 'aluminium'],
+  ['cesium', /cesium/g, 'caesium'],
+  ['oxide', /(tetr|pent|hex|hept|oct|non|dec)oxide/g, '$1aoxide'],
+  ['monooxide', /monooxide/g, 'monoxide'],
+  ['glycerine', /glycerine/g, 'glycerin'],
+  ['saltpeter', /saltpeter/g, 'saltpetre'],
+  ['deioniz', /deioniz/g, 'deionis'],
+  ['ethylalcohol', /ethylalcohol/g, 'ethanol'],
+  ['κ', /κ/g, 'k'],
+  ['kappa', /kappa/g, 'k'],
 ];
 
 /**
@@ -133,6 +134,7 @@ const SPELLINGS: Array<[RegExp, string]> = [
  */
 export function squash(name: string): string {
   let s = name.toLowerCase().replace(/[\s\-‐‑‒–—_,'’′″.·]+/g, '');
-  for (const [re, to] of SPELLINGS) s = s.replace(re, to);
+  // A regular expression only where its word occurs (most names have none of them).
+  for (const [word, re, to] of SPELLINGS) if (s.includes(word)) s = s.replace(re, to);
   return s;
 }

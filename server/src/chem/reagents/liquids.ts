@@ -224,18 +224,26 @@ export function volumeFor(a: FormulaAnalysis, moles: number, assayPercent?: numb
 export function handlingCautions(a: FormulaAnalysis, assayPercent: number): string[] {
   const m = liquidOf(a);
   if (!m || m.kind !== 'aqueous') return [];
-  const id = m.table.id;
+  const threshold = m.table.id === 'hydrofluoric' ? 3 : m.table.id === 'hydrogen-peroxide' ? 8 : 10;
+  if (assayPercent < threshold) return [];
+  let lines = CAUTIONS.get(m.table.id);
+  if (!lines) CAUTIONS.set(m.table.id, (lines = cautionLines(m.table)));
+  return [...lines];
+}
+
+const CAUTIONS = new Map<string, string[]>();
+
+function cautionLines(table: DensityTable): string[] {
+  const id = table.id;
   const out: string[] = [];
   const acid = ['sulfuric', 'hydrochloric', 'nitric', 'phosphoric', 'acetic', 'formic', 'hydrofluoric'].includes(id);
   const base = id === 'sodium-hydroxide' || id === 'potassium-hydroxide' || id === 'ammonia';
   const volatile = ['hydrochloric', 'nitric', 'acetic', 'formic', 'hydrofluoric', 'ammonia'].includes(id);
-  const threshold = id === 'hydrofluoric' ? 3 : id === 'hydrogen-peroxide' ? 8 : 10;
-  if (assayPercent < threshold) return [];
   if (acid)
     out.push(
-      `Concentrated ${m.table.name}: add the acid slowly to the water, never water to the acid${id === 'sulfuric' ? ' (it heats strongly on dilution)' : ''}.`,
+      `Concentrated ${table.name}: add the acid slowly to the water, never water to the acid${id === 'sulfuric' ? ' (it heats strongly on dilution)' : ''}.`,
     );
-  if (base && id !== 'ammonia') out.push(`Concentrated ${m.table.name}: corrosive; add it slowly to the water, stirring (it heats on dilution).`);
+  if (base && id !== 'ammonia') out.push(`Concentrated ${table.name}: corrosive; add it slowly to the water, stirring (it heats on dilution).`);
   if (id === 'hydrogen-peroxide') out.push('Concentrated hydrogen peroxide: an oxidiser; keep it from organic matter and metals, and vent its container.');
   out.push('Wear eye protection and resistant gloves.');
   if (volatile) out.push('Work in a fume hood: its vapour is corrosive.');
