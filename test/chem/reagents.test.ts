@@ -74,12 +74,23 @@ describe('densities and molarities of the concentrated reagents', () => {
     expect(densityAt(acetic, 80)!.gPerML).toBeGreaterThan(densityAt(acetic, 100)!.gPerML); // CRC: 1.0700 vs 1.0498
   });
 
+  it('reads ethanol and glycerol mixed with water from their tables (CRC Handbook, from memory)', () => {
+    expect(reagentDensity(A('C2H5OH'), 95).density!.gPerML).toBeCloseTo(0.80424, 5); // alcoholometric table, 95 % w/w
+    expect(reagentDensity(A('C2H5OH'), 45).density!.gPerML).toBeCloseTo((0.93518 + 0.91384) / 2, 5); // by hand, linear
+    expect(reagentDensity(A('C3H5(OH)3'), 50).density!.gPerML).toBeCloseTo(1.1263, 4);
+    const p = pour(A('C2H5OH'), 100, 96);
+    expect('cautions' in p && p.cautions.join(' ')).toMatch(/Flammable/);
+  });
+
   it('takes a liquid with no assay as the pure substance, and asks for the assay of a solution reagent', () => {
     const s = reagentDensity(A('H2SO4'));
     expect(s.density!.assayPercent).toBe(100);
     expect(s.findings[0].message).toMatch(/pure substance/);
     expect(reagentDensity(A('C2H5OH')).density!.gPerML).toBeCloseTo(0.7893, 4); // CRC: ethanol 0.7893 g/mL at 20 °C
+    expect(reagentDensity(A('CH3COCH3')).density!.gPerML).toBeCloseTo(0.79, 2); // CRC: acetone 0.790 g/mL at 20 °C, from memory
     expect(reagentDensity(A('C3H5(OH)3')).density!.gPerML).toBeCloseTo(1.2613, 4); // CRC: glycerol 1.2613
+    expect(reagentDensity(A('C3H8O')).findings[0].message).toMatch(/isopropanol.*isomers/);
+    expect(reagentDensity(A('(CH3)2CHOH')).findings).toEqual([]);
     const hcl = reagentDensity(A('HCl'));
     expect(hcl.density).toBeUndefined();
     expect(hcl.findings[0].kind).toBe('assay-needed');
@@ -138,9 +149,9 @@ describe('amounts per volume and other units', () => {
   });
 
   it('%v/v with the density of the pure liquid, and the contraction said', () => {
-    const r = mass(70, '%v/v', { volumeL: 1 }, A('C2H5OH')); // 700 mL × 0.7893 g/mL = 552.5 g (by hand)
+    const r = mass(70, '%v/v', { volumeL: 1 }, A('C2H5OH')); // 700 mL × 0.78934 g/mL = 552.54 g (by hand)
     expect(r.volumeML).toBeCloseTo(700, 9);
-    expect(r.massG).toBeCloseTo(552.51, 2);
+    expect(r.massG).toBeCloseTo(552.54, 2);
     expect(r.findings.map((f) => f.message).join(' ')).toMatch(/contract/);
   });
 

@@ -54,6 +54,8 @@ export const COMMON_NAMES: CommonName[] = [
   { names: ['gypsum'], formula: 'CaSO4·2H2O', src: 'MI, CP' },
   { names: ['plaster of Paris'], formula: 'CaSO4·0.5H2O', src: 'MI, CP' },
   { names: ['potash', 'pearl ash'], formula: 'K2CO3', src: 'MI, CP' },
+  { names: ['muriate of potash', 'MOP'], formula: 'KCl', src: 'CP' },
+  { names: ['sulfate of potash', 'SOP'], formula: 'K2SO4', src: 'CP' },
   { names: ['trisodium phosphate', 'TSP'], formula: 'Na3PO4', src: 'CP' },
   { names: ['disodium phosphate', 'DSP'], formula: 'Na2HPO4', src: 'CP' },
   { names: ['monosodium phosphate', 'MSP'], formula: 'NaH2PO4', src: 'CP' },

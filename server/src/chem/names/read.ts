@@ -130,6 +130,8 @@ for (const [word, target] of [
   ['fluoroborate', 'tetrafluoroborate'],
   ['fluorosilicate', 'hexafluorosilicate'],
   ['edta', 'edetate'],
+  ['lauryl sulfate', 'dodecyl sulfate'],
+  ['laurylsulfate', 'dodecyl sulfate'],
 ] as const) {
   const t = ANION_WORDS.get(squash(target));
   if (t) ANION_WORDS.set(squash(word), t);

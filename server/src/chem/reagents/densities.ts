@@ -376,6 +376,58 @@ export const AQUEOUS: DensityTable[] = [
   },
 ];
 
+/**
+ * Mixtures with water of the solvents a formulation dilutes (CRC-CPAS, from memory): ethanol (the
+ * alcoholometric table) and glycerol. A solvent without an assay is the pure liquid.
+ */
+export const AQUEOUS_SOLVENTS: DensityTable[] = [
+  {
+    id: 'ethanol',
+    name: 'ethanol',
+    formula: 'C2H5OH',
+    forms: ['C2H5OH', 'CH3CH2OH', 'EtOH', 'C2H6O'],
+    rows: [
+      [0, w, WATER_SRC],
+      [10, 0.98187],
+      [20, 0.96864],
+      [30, 0.95382],
+      [40, 0.93518],
+      [50, 0.91384],
+      [60, 0.89113],
+      [70, 0.86766],
+      [80, 0.84344],
+      [90, 0.81797],
+      [95, 0.80424],
+      [100, 0.78934],
+    ],
+    src: 'CRC-CPAS (from memory)',
+    commercial: '96 % and absolute (99.5 % and more), by mass or by volume: check which the label means',
+    pureLiquid: true,
+  },
+  {
+    id: 'glycerol',
+    name: 'glycerol',
+    formula: 'C3H5(OH)3',
+    forms: ['C3H5(OH)3', 'HOCH2CH(OH)CH2OH', 'C3H8O3'],
+    rows: [
+      [0, w, WATER_SRC],
+      [10, 1.0221],
+      [20, 1.047],
+      [30, 1.0727],
+      [40, 1.0995],
+      [50, 1.1263],
+      [60, 1.1533],
+      [70, 1.18],
+      [80, 1.2085],
+      [90, 1.2347],
+      [100, 1.2613],
+    ],
+    src: 'CRC-CPAS (from memory)',
+    commercial: '99.5 %, 86–88 %',
+    pureLiquid: true,
+  },
+];
+
 export interface PureLiquid {
   id: string;
   name: string;
@@ -386,9 +438,9 @@ export interface PureLiquid {
   src: string;
 }
 
+/** Pure liquids with no water table here (ethanol and glycerol are in AQUEOUS_SOLVENTS). */
 export const PURE_LIQUIDS: PureLiquid[] = [
   { id: 'water', name: 'water', forms: ['H2O'], density: WATER_20C, src: 'CRC Handbook, Section 6' },
-  { id: 'ethanol', name: 'ethanol', forms: ['C2H5OH', 'CH3CH2OH', 'EtOH', 'C2H6O'], density: 0.7893, src: 'CRC-ORG (from memory)' },
   { id: 'methanol', name: 'methanol', forms: ['CH3OH', 'MeOH', 'CH4O'], density: 0.7914, src: 'CRC-ORG (from memory)' },
   {
     id: 'isopropanol',
@@ -397,7 +449,6 @@ export const PURE_LIQUIDS: PureLiquid[] = [
     density: 0.7855,
     src: 'CRC-ORG (from memory)',
   },
-  { id: 'glycerol', name: 'glycerol', forms: ['C3H5(OH)3', 'HOCH2CH(OH)CH2OH', 'C3H8O3'], density: 1.2613, src: 'CRC-ORG (from memory)' },
   { id: 'ethylene-glycol', name: 'ethylene glycol', forms: ['HOCH2CH2OH', 'C2H4(OH)2', '(CH2OH)2', 'C2H6O2'], density: 1.1135, src: 'CRC-ORG (from memory)' },
   { id: 'propylene-glycol', name: 'propylene glycol', forms: ['CH3CH(OH)CH2OH', 'C3H6(OH)2', 'C3H8O2'], density: 1.0361, src: 'CRC-ORG (from memory)' },
   { id: 'acetone', name: 'acetone', forms: ['(CH3)2CO', 'CH3COCH3', 'C3H6O'], density: 0.7905, src: 'CRC-ORG (from memory)' },

@@ -34,7 +34,7 @@
  * Every figure here is per call and cheap (a map lookup and a few multiplications; see the bench figures
  * in the report of this module).
  */
-export { AQUEOUS, PURE_LIQUIDS, WATER_20C, type DensityTable, type PureLiquid } from './densities';
+export { AQUEOUS, AQUEOUS_SOLVENTS, PURE_LIQUIDS, WATER_20C, type DensityTable, type PureLiquid } from './densities';
 export {
   densityAt,
   handlingCautions,

@@ -10,13 +10,13 @@
  */
 import type { FormulaAnalysis } from '../analyse';
 import { itemsText, waterOf } from '../names/systematic';
-import { AQUEOUS, PURE_LIQUIDS, WATER_20C, type DensityTable, type PureLiquid } from './densities';
+import { AQUEOUS, AQUEOUS_SOLVENTS, PURE_LIQUIDS, WATER_20C, type DensityTable, type PureLiquid } from './densities';
 import { finding, type ReagentFinding } from './findings';
 
 export type LiquidMatch = { kind: 'aqueous'; table: DensityTable } | { kind: 'pure'; liquid: PureLiquid };
 
 const BY_FORM = new Map<string, LiquidMatch>();
-for (const table of AQUEOUS) for (const f of table.forms) BY_FORM.set(f, { kind: 'aqueous', table });
+for (const table of [...AQUEOUS, ...AQUEOUS_SOLVENTS]) for (const f of table.forms) BY_FORM.set(f, { kind: 'aqueous', table });
 for (const liquid of PURE_LIQUIDS) for (const f of liquid.forms) if (!BY_FORM.has(f)) BY_FORM.set(f, { kind: 'pure', liquid });
 
 /** The written form of a formula that the tables are keyed by (one part, no water, no charge). */
@@ -92,6 +92,10 @@ export function reagentDensity(a: FormulaAnalysis, assayPercent?: number, labelD
     return { findings: [finding('assay-range', 'error', `An assay of ${assayPercent} % is outside 0–100 %.`)] };
   }
   let table: DensityReading | undefined;
+  if (match && a.atoms.C && bareForm(a) === a.hill)
+    findings.push(
+      finding('approximation', 'information', `${a.display} is read as ${liquidName(match)}: a molecular formula alone does not tell isomers apart.`),
+    );
   if (match?.kind === 'pure') {
     if (assayPercent !== undefined && assayPercent < 100 && match.liquid.id !== 'water')
       findings.push(
@@ -217,13 +221,16 @@ export function volumeFor(a: FormulaAnalysis, moles: number, assayPercent?: numb
 }
 
 /**
- * Handling cautions for a concentrated acid or base poured by volume (common practice, as the SDSs of
- * these reagents give them; the SDS and local rules decide). Concentrated: 10 % or more (3 % and more
+ * Handling cautions for a concentrated acid or base poured by volume, and for a flammable solvent
+ * (common practice, as the SDSs of these reagents give them; the SDS and local rules decide). Concentrated: 10 % or more (3 % and more
  * for hydrofluoric acid, 8 % and more for hydrogen peroxide, the GHS thresholds' order of magnitude).
  */
 export function handlingCautions(a: FormulaAnalysis, assayPercent: number): string[] {
   const m = liquidOf(a);
-  if (!m || m.kind !== 'aqueous') return [];
+  if (!m) return [];
+  const id = m.kind === 'pure' ? m.liquid.id : m.table.id;
+  if (FLAMMABLE.has(id)) return assayPercent >= 50 ? [FLAMMABLE_LINE] : [];
+  if (m.kind !== 'aqueous') return [];
   const threshold = m.table.id === 'hydrofluoric' ? 3 : m.table.id === 'hydrogen-peroxide' ? 8 : 10;
   if (assayPercent < threshold) return [];
   let lines = CAUTIONS.get(m.table.id);
@@ -232,6 +239,9 @@ export function handlingCautions(a: FormulaAnalysis, assayPercent: number): stri
 }
 
 const CAUTIONS = new Map<string, string[]>();
+/** Flammable solvents (GHS Flam. Liq. 2; common practice: their mixtures with water from about 50 %). */
+const FLAMMABLE = new Set(['ethanol', 'methanol', 'isopropanol', 'acetone']);
+const FLAMMABLE_LINE = 'Flammable liquid: no open flames or sparks near it; keep the container closed. The SDS and local rules decide.';
 
 function cautionLines(table: DensityTable): string[] {
   const id = table.id;
