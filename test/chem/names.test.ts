@@ -324,6 +324,7 @@ describe('name → formula', () => {
       ['sodium sulfote', ['Na2SO4', 'Na2SO3']],
       ['potassium nitrte', ['KNO2', 'KNO3']],
       ['sodium chloricde', ['NaCl']],
+      ['nickel sulfate hexahydrat', ['NiSO4·6H2O']], // a misspelt hydrate word is not taken either
     ];
     for (const [name, expected] of cases) {
       const r = readName(name);

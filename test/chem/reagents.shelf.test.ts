@@ -40,6 +40,16 @@ describe('the shelf', () => {
     expect(acid.line).toBe(1);
   });
 
+  it('asks for the assay of a solution reagent, and reads a formula followed by "solution"', () => {
+    const s = parseShelf('HCl jar: HCl\nBleach: bleach\nLye: NaOH solution @ 50 %\nAcid: H2SO4');
+    expect(s.findings.map((f) => [f.kind, s.entries.find((e) => e.substance.span.start === f.start)?.label])).toEqual([
+      ['assay-needed', 'HCl jar'],
+      ['assay-needed', 'Bleach'],
+    ]);
+    expect(s.entries[2].substance).toMatchObject({ formula: 'NaOH', solution: true });
+    expect(s.entries[2].assayPercent).toBe(50);
+  });
+
   it('finds an entry by its label, case and spacing ignored', () => {
     const s = parseShelf(SHELF);
     expect(shelfEntry(s, 'nickel  JAR 3')?.substance.formula).toBe('NiSO4·6H2O');

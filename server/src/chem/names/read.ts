@@ -668,15 +668,35 @@ const LOOKALIKES = new Map<string, Set<string>>();
 // ---------------------------------------------------------------------------------------------------
 // Near misses: never taken, always shown.
 
+/** A hydrate word near the end of a key (`hexahydrat`, `pentahydrte`): the key without it, and its count. */
+function nearHydrate(key: string): { core: string; n: number } | undefined {
+  for (const [word, n] of HYDRATE_BY_LENGTH)
+    for (const len of [word.length, word.length - 1, word.length + 1]) {
+      if (len >= key.length - 2) continue;
+      const tail = key.slice(key.length - len);
+      if (tail !== word && distanceWithin(tail, word, 1) <= 1) return { core: key.slice(0, key.length - len), n };
+    }
+  return undefined;
+}
+
 function nearMisses(key: string, written: string): Reading {
   const water = splitWater(key);
-  const core = water.error ? key : water.core;
-  const suffix = !water.error && water.n ? `·${water.n === 1 ? '' : water.n}H2O` : '';
+  const hydrate = !water.n && !water.anhydrous ? nearHydrate(key) : undefined;
+  const core = hydrate ? hydrate.core : water.error ? key : water.core;
+  const n = hydrate ? hydrate.n : water.error ? 0 : water.n;
+  const suffix = n ? `·${n === 1 ? '' : n}H2O` : '';
   const found = new Map<string, number>();
+  // A misspelt hydrate word counts one letter to every candidate.
+  const extra = hydrate ? 1 : 0;
   const add = (formula: string, d: number) => {
-    if (!found.has(formula) || (found.get(formula) as number) > d) found.set(formula, d);
+    if (!found.has(formula) || (found.get(formula) as number) > d + extra) found.set(formula, d + extra);
   };
   const MAX = 2;
+  // The salt read exactly but its hydrate word misspelt: one letter off.
+  if (hydrate) {
+    const exact = readCore(core);
+    if (exact.kind === 'found') for (const f of exact.found) add(f.formula + suffix, 0);
+  }
   // The cation read exactly, the anion near.
   for (let len = 1; len < core.length && len <= MAX_WORD; len++) {
     const word = CATION_WORDS.get(core.slice(0, len));

@@ -26,6 +26,7 @@ import { analyseFormula } from '../analyse';
 import { readName } from '../names/read';
 import { squash, HYDRATE_WORDS } from '../names/words';
 import { finding, type ReagentFinding } from './findings';
+import { liquidOf } from './liquids';
 
 export interface Span {
   start: number;
@@ -36,7 +37,7 @@ export interface ShelfEntry {
   label: string;
   labelSpan: Span;
   /** The substance as written, and the formula it was read as (hydrate field applied). */
-  substance: { text: string; span: Span; formula: string; hill: string; name?: string; via: 'formula' | 'name' };
+  substance: { text: string; span: Span; formula: string; hill: string; name?: string; via: 'formula' | 'name'; solution?: boolean };
   assayPercent?: number;
   densityGPerML?: number;
   lot?: string;
@@ -202,6 +203,20 @@ function parseLine(body: string, base: number, line: number, findings: ReagentFi
   }
   const substance = readSubstance(sub.text, sub.span, fields.hydrate, hydrateSpan, findings);
   if (!substance) return undefined;
+  if (assayPercent === undefined && fields.densityGPerML === undefined) {
+    const liquid = liquidOf(analyseFormula(substance.formula));
+    const needs = substance.solution || (liquid?.kind === 'aqueous' && !liquid.table.pureLiquid);
+    if (needs)
+      findings.push(
+        finding(
+          'assay-needed',
+          'warning',
+          `'${sub.text}' is sold as a solution: give its assay ('@ 37 %') so that batch lines can pour it${liquid?.kind === 'aqueous' ? ` (commercial ${liquid.table.commercial})` : ''}.`,
+          sub.span.start,
+          sub.span.end,
+        ),
+      );
+  }
   const e: ShelfEntry = { label: label.text, labelSpan: label.span, substance, span: whole.span, line };
   if (assayPercent !== undefined) e.assayPercent = assayPercent;
   for (const k of ['densityGPerML', 'lot', 'supplier', 'grade', 'note'] as const)
@@ -226,9 +241,19 @@ function readSubstance(
   let formula: string | undefined;
   let name: string | undefined;
   let via: 'formula' | 'name' = 'formula';
+  let solution = false;
   if (!looksLikeName) {
     const a = analyseFormula(text);
     if (a.ok && !a.diagnostics.some((d) => d.severity === 'error')) formula = text;
+  }
+  // A formula followed by `solution` (`NaOH solution`): the formula.
+  const solutionOf = /^(\S+)\s+solution$/i.exec(text)?.[1];
+  if (!formula && solutionOf) {
+    const a = analyseFormula(solutionOf);
+    if (a.ok && !a.diagnostics.some((d) => d.severity === 'error')) {
+      formula = solutionOf;
+      solution = true;
+    }
   }
   if (!formula) {
     const r = readName(text);
@@ -239,6 +264,7 @@ function readSubstance(
     formula = r.formula as string;
     name = r.name;
     via = 'name';
+    solution = !!r.solution;
   }
   if (hydrate !== undefined) {
     const a = analyseFormula(formula);
@@ -260,6 +286,7 @@ function readSubstance(
   }
   const out: ShelfEntry['substance'] = { text, span, formula, hill: analyseFormula(formula).hill, via };
   if (name) out.name = name;
+  if (solution) out.solution = true;
   return out;
 }
 
