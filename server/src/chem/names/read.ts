@@ -298,7 +298,9 @@ function readKey(key: string, written: string): Reading {
       const f = found[0];
       const name = systematicName(analyseFormula(f.formula)) ?? written;
       // Named by the anion put in (cheap: no analysis of compounds merely shown).
-      const lookalikes = (f.lookalikes ?? []).map((l) => ({
+      // Hydrates of the -ide lookalikes are mostly no compounds: only the oxoanions are shown for them.
+      const shown = (f.lookalikes ?? []).filter((l) => !suffix || !/ide$/.test(l.anion));
+      const lookalikes = shown.map((l) => ({
         name: name.replace(anionName(l.instead), anionName(l.anion)),
         formula: l.formula + suffix,
         hill: quickHill(l.formula + suffix),
@@ -491,7 +493,9 @@ function cationsFor(word: CationWord, marker: ReturnType<typeof readMarker>): { 
   if (ONE_STATE.has(symbol)) return { ions: [ionOf(positive[0] ?? 1)] };
   const usual = USUAL_STATE[symbol];
   if (usual) return { ions: [ionOf(usual)], note: `the name gives no oxidation state; read as ${el.name}(${ROMAN[usual]}), the usual salt` };
-  const states = positive.length ? positive : el.icsdStates.filter((s) => s > 0);
+  // The states its compounds are found in (ICSD), else the common ones: one is read, more are asked.
+  const found = el.icsdStates.filter((s) => s > 0);
+  const states = found.length ? found : positive;
   if (states.length === 1) return { ions: [ionOf(states[0])], note: `the name gives no oxidation state; read as ${el.name}(${ROMAN[states[0]]})` };
   if (!states.length) return `${el.name} has no usual cationic state`;
   return { ions: states.map(ionOf) };
