@@ -209,6 +209,8 @@ describe('formula → systematic name', () => {
     expect(nameOf(analyseFormula('SO4^2-'))).toBe('sulfate');
     expect(nameOf(analyseFormula('HCO3^-'))).toBe('hydrogencarbonate');
     expect(nameOf(analyseFormula('[Fe(CN)6]^3-'))).toBe('hexacyanidoferrate(III)');
+    expect(nameOf(analyseFormula('Hg2^2+'))).toBe('dimercury(2+)');
+    expect(nameOf(analyseFormula('NH4^+'))).toBe('ammonium');
   });
 
   it('follows Table VI for the halogen oxides and gives the trade name beside (RB IR-5.2, from memory)', () => {

@@ -152,6 +152,7 @@ function ionicName(ions: readonly IonInReading[], charge: number): string | unde
 
 function loneIonName(ion: IonInReading): string | undefined {
   if (ion.kind === 'complex') return complexName(ion.text, ion.charge);
+  if (ion.text === 'Hg2') return 'dimercury(2+)'; // IUPAC 2005, IR-5.3.2.2
   if (ion.role === 'anion') return anionOf(ion);
   if (ion.kind === 'metal' && ion.element && Number.isInteger(ion.charge)) {
     const name = element(ion.element)?.name;
