@@ -99,6 +99,47 @@ describe('names, property-based', () => {
     );
   });
 
+  it('binary compounds of non-metals and complexes read back too', () => {
+    // Non-metal pairs (IUPAC 2005, IR-5.2: multiplying prefixes), counts 1–10.
+    const pairs: Array<[string, string]> = [
+      ['N', 'O'],
+      ['S', 'F'],
+      ['P', 'Cl'],
+      ['C', 'S'],
+      ['Xe', 'F'],
+      ['Si', 'Cl'],
+      ['B', 'Br'],
+      ['I', 'F'],
+      ['Se', 'O'],
+    ];
+    const binary = fc.tuple(fc.constantFrom(...pairs), fc.integer({ min: 1, max: 10 }), fc.integer({ min: 1, max: 10 })).map(([[x, y], m, n]) => `${x}${m === 1 ? '' : m}${y}${n === 1 ? '' : n}`);
+    // Complexes (IUPAC 2005, IR-9): a central metal, ligands, counter-ions to balance.
+    const complex = fc
+      .tuple(
+        fc.constantFrom<[string, number]>(['Co', 3], ['Cr', 3], ['Ni', 2], ['Cu', 2], ['Pt', 2], ['Fe', 2], ['Fe', 3]),
+        fc.constantFrom<[string, number]>(['NH3', 0], ['H2O', 0], ['CN', -1], ['Cl', -1], ['OH', -1], ['en', 0]),
+        fc.integer({ min: 1, max: 6 }),
+      )
+      .map(([[m, q], [l, lq], n]) => {
+        const charge = q + lq * n;
+        const lig = l.length === 2 && /^[A-Z][a-z]$/.test(l) ? `${l}${n === 1 ? '' : n}` : `(${l})${n === 1 ? '' : n}`;
+        const ion = `[${m}${lig}]`;
+        return charge > 0 ? `${ion}Cl${charge === 1 ? '' : charge}` : charge < 0 ? `K${-charge === 1 ? '' : -charge}${ion}` : ion;
+      });
+    fc.assert(
+      fc.property(fc.oneof(binary, complex), (formula) => {
+        const a = analyseFormula(formula);
+        const name = nameOf(a);
+        if (name === undefined) return; // not every draw is a compound the reading names (e.g. SeO10)
+        const back = readName(name);
+        expect([formula, name, back.status, back.hill]).toEqual([formula, name, 'exact', a.hill]);
+      }),
+      { numRuns: 400 },
+    );
+    // And the draws are named often enough for the property to mean something.
+    expect(['N2O5', 'SF6', 'PCl3', '[Co(NH3)6]Cl3', 'K3[Fe(CN)6]', '[Ni(H2O)6]Cl2'].every((f) => nameOf(analyseFormula(f)))).toBe(true);
+  });
+
   it('a name read back is independent of case, spacing and hyphens', () => {
     fc.assert(
       fc.property(
