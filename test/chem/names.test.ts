@@ -12,6 +12,7 @@
 import { describe, expect, it } from 'vitest';
 import { analyseFormula } from '../../server/src/chem/analyse';
 import { nameAtStart, nameOf, namesByPrefix, namesOf, readName } from '../../server/src/chem/names';
+import { REAL } from '../fixtures/charge-sets';
 
 const hill = (f: string) => analyseFormula(f).hill;
 
@@ -251,6 +252,19 @@ describe('name → formula', () => {
       .filter(([f, , r]) => r.status !== 'exact' || r.hill !== hill(f))
       .map(([f, n, r]) => [f, n, r.status, r.formula]);
     expect(wrong).toEqual([]);
+  });
+
+  it('reads back the name of every named compound of the real-compound set (test/fixtures/charge-sets.ts)', () => {
+    const named = Object.values(REAL)
+      .flat()
+      .map((f) => [f, nameOf(analyseFormula(f))] as const)
+      .filter(([, n]) => n);
+    expect(named.length).toBeGreaterThan(350);
+    const wrong = named.filter(([f, n]) => readName(n as string).hill !== hill(f));
+    expect(wrong).toEqual([]);
+    expect(nameOf(analyseFormula('CaSi2'))).toBe('calcium disilicide'); // a Zintl phase: stoichiometric name (RB IR-5.2)
+    expect(readName('iron(3+)').formula).toBe('Fe^3+');
+    expect(readName('tetraamminecopper(II)').formula).toBe('[Cu(NH3)4]^2+');
   });
 
   it('reads the shelf names (MI, from memory; common practice)', () => {

@@ -268,6 +268,10 @@ function readKey(key: string, written: string): Reading {
     const formula = `${ion.formula}^${Math.abs(ion.charge) === 1 ? '' : Math.abs(ion.charge)}-`;
     return { status: 'exact', formula, hill: hillOf(formula), name: ion.name, via: 'ion', candidates: [], lookalikes: [], notes: [] };
   }
+  // A cation alone: iron(3+), ammonium, dimercury(2+); a complex ion alone.
+  const lone = readLoneCation(key) ?? loneComplex(key);
+  if (lone)
+    return { status: 'exact', formula: lone.formula, hill: hillOf(lone.formula), name: lone.name, via: 'ion', candidates: [], lookalikes: [], notes: [] };
   // A solution named as one: `sodium hydroxide solution`, `aqueous ammonia`.
   const bare = /^(.{3,}?)(?:solution|\(aq\))$/.exec(key)?.[1] ?? /^aqueous(.{3,})$/.exec(key)?.[1];
   if (bare) {
@@ -327,6 +331,35 @@ function readKey(key: string, written: string): Reading {
   }
   if (readings.kind === 'error') return unknown(written, readings.error);
   return nearMisses(key, written);
+}
+
+const ionFormula = (formula: string, charge: number) => `${formula}^${Math.abs(charge) === 1 ? '' : Math.abs(charge)}${charge < 0 ? '-' : '+'}`;
+
+/** A cation's name alone, with its charge number or a fixed charge: `iron(3+)`, `ammonium`, `dimercury(2+)`. */
+function readLoneCation(key: string): { formula: string; name: string } | undefined {
+  if (key === 'dimercury(2+)') return { formula: 'Hg2^2+', name: 'dimercury(2+)' };
+  for (let len = 1; len <= key.length && len <= MAX_WORD; len++) {
+    const word = CATION_WORDS.get(key.slice(0, len));
+    if (!word) continue;
+    const marker = readMarker(key, len);
+    if ((marker ? marker.end : len) !== key.length) continue;
+    if (word.ion) return marker ? undefined : { formula: ionFormula(word.ion.formula, word.ion.charge), name: key };
+    if (!marker || !word.symbol) continue;
+    const cations = cationsFor(word, marker);
+    if (typeof cations === 'string' || cations.ions.length !== 1) continue;
+    const ion = cations.ions[0];
+    return { formula: ionFormula(ion.formula, ion.charge), name: `${element(word.symbol)?.name}(${ion.charge}+)` };
+  }
+  return undefined;
+}
+
+/** A complex ion's name alone: `hexacyanidoferrate(III)`, `tetraamminecopper(II)`. */
+function loneComplex(key: string): { formula: string; name: string } | undefined {
+  for (const anionic of [true, false]) {
+    const c = readComplex(key, 0, anionic);
+    if (c && c.end === key.length && c.ion.charge !== 0) return { formula: ionFormula(c.ion.formula, c.ion.charge), name: c.ion.name };
+  }
+  return undefined;
 }
 
 function fromWhole(w: WholeName): Reading {

@@ -147,7 +147,16 @@ function ionicName(ions: readonly IonInReading[], charge: number): string | unde
   if (!cat || !an) return undefined;
   const cation = cationName(cat);
   const anion = anionOf(an);
-  return cation && anion ? `${cation} ${anion}` : undefined;
+  if (!cation || !anion) return undefined;
+  // A monatomic anion at other than its usual charge (CaSi2, a Zintl phase: not Ca2Si): the
+  // stoichiometric name with multiplying prefixes (IUPAC 2005, IR-5.2).
+  if (an.kind === 'monatomic-anion' && an.element && an.charge !== element(an.element)?.commonStates.find((s) => s < 0) && cat.kind === 'metal') {
+    const el = element(cat.element ?? '');
+    const pc = cat.count === 1 ? '' : PREFIX[cat.count];
+    const pa = an.count === 1 ? '' : PREFIX[an.count];
+    return el && pc !== undefined && pa !== undefined ? `${pc}${el.name} ${pa}${anion}` : undefined;
+  }
+  return `${cation} ${anion}`;
 }
 
 function loneIonName(ion: IonInReading): string | undefined {
