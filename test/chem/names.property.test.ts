@@ -3,6 +3,7 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { analyseFormula } from '../../server/src/chem/analyse';
 import { nameOf, readName } from '../../server/src/chem/names';
+import { squash } from '../../server/src/chem/names/words';
 
 /** Cations with their charges (IUPAC 2005, IR-5.4; the usual states of the metals, common practice). */
 const CATIONS: Array<[string, number]> = [
@@ -112,7 +113,9 @@ describe('names, property-based', () => {
       ['I', 'F'],
       ['Se', 'O'],
     ];
-    const binary = fc.tuple(fc.constantFrom(...pairs), fc.integer({ min: 1, max: 10 }), fc.integer({ min: 1, max: 10 })).map(([[x, y], m, n]) => `${x}${m === 1 ? '' : m}${y}${n === 1 ? '' : n}`);
+    const binary = fc
+      .tuple(fc.constantFrom(...pairs), fc.integer({ min: 1, max: 10 }), fc.integer({ min: 1, max: 10 }))
+      .map(([[x, y], m, n]) => `${x}${m === 1 ? '' : m}${y}${n === 1 ? '' : n}`);
     // Complexes (IUPAC 2005, IR-9): a central metal, ligands, counter-ions to balance.
     const complex = fc
       .tuple(
@@ -152,6 +155,32 @@ describe('names, property-based', () => {
         },
       ),
       { numRuns: 300 },
+    );
+  });
+
+  it('a one-letter slip in a name is never read as another compound: it is read as written, or not at all', () => {
+    const letters = 'abcdefghijklmnopqrstuvwxyz';
+    fc.assert(
+      fc.property(salts, fc.nat(), fc.constantFrom(...letters), fc.constantFrom('substitute', 'delete', 'insert'), ([c, a, water], at, letter, edit) => {
+        const formula = saltFormula(c, a, water);
+        const name = nameOf(analyseFormula(formula)) as string;
+        const i = at % name.length;
+        const slipped =
+          edit === 'substitute'
+            ? name.slice(0, i) + letter + name.slice(i + 1)
+            : edit === 'delete'
+              ? name.slice(0, i) + name.slice(i + 1)
+              : name.slice(0, i) + letter + name.slice(i);
+        const r = readName(slipped);
+        if (r.status !== 'exact') {
+          expect(r.formula).toBeUndefined();
+          return;
+        }
+        // Read exactly: then what was written is itself that compound's name (or the original's, where the
+        // slip touched only a separator), never a correction to a neighbour.
+        if (r.hill !== analyseFormula(formula).hill) expect([slipped, squash(r.name as string)]).toEqual([slipped, squash(slipped)]);
+      }),
+      { numRuns: 600 },
     );
   });
 

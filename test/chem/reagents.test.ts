@@ -125,6 +125,15 @@ describe('liquids by volume and by target', () => {
     expect(v.cautions.join(' ')).toMatch(/fume hood/);
   });
 
+  it('counts ammonia solution written NH4OH by its assay as NH3 (the trade gives it so)', () => {
+    const p = pour(A('NH4OH'), 100, 28); // 100 mL × 0.8980 g/mL × 0.28 ÷ 17.031 g/mol = 1.476 mol (by hand)
+    if (!('moles' in p)) throw new Error('not poured');
+    expect(p.moles).toBeCloseTo(1.4764, 3);
+    expect(p.findings.some((f) => /as NH₃/.test(f.message))).toBe(true);
+    const q = pour(A('NH3'), 100, 28);
+    expect('moles' in q && q.moles).toBeCloseTo(p.moles, 9);
+  });
+
   it('gives no handling caution for a dilute reagent', () => {
     const p = pour(A('HCl'), 10, 2);
     expect('cautions' in p && p.cautions).toEqual([]);

@@ -103,10 +103,17 @@ export const COMMON_NAMES: CommonName[] = [
   { names: ['aqua fortis'], formula: 'HNO3', solution: { typical: '60–70 %' }, src: 'MI' },
   { names: ['oil of vitriol'], formula: 'H2SO4', solution: { typical: '93–98 %' }, src: 'MI' },
   {
-    names: ['ammonia solution', 'ammonia water', 'aqua ammonia', 'ammonium hydroxide', 'spirit of hartshorn'],
+    names: ['ammonia solution', 'ammonia water', 'aqua ammonia', 'spirit of hartshorn'],
     formula: 'NH3',
     solution: { typical: '25–30 %' },
     note: 'the assay of ammonia solution is given as NH3',
+    src: 'MI, CP',
+  },
+  {
+    names: ['ammonium hydroxide'],
+    formula: 'NH4OH',
+    solution: { typical: '25–30 % (as NH3)' },
+    note: 'sold as ammonia solution, whose assay is given as NH3',
     src: 'MI, CP',
   },
   { names: ['hydrogen peroxide solution', 'peroxide'], formula: 'H2O2', solution: { typical: '3–35 %' }, src: 'CP' },

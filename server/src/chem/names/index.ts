@@ -54,6 +54,7 @@ export function namesOf(a: FormulaAnalysis): SubstanceNames {
       if (row.iupac || row.byForm) continue;
       const label = solutionLabel(row);
       const h = analyseFormula(row.formula).hill;
+      if (systematicName(analyseFormula(row.formula)) === row.names[0]) continue;
       byHill.set(h, [...(byHill.get(h) ?? []), label]);
     }
     hillFilled = true;

@@ -8,7 +8,7 @@
  * the hydroxides, hydrogen peroxide) needs its assay. The label's density, where given, is used instead
  * of the table's, and a difference of more than 1.5 % is reported.
  */
-import type { FormulaAnalysis } from '../analyse';
+import { analyseFormula, type FormulaAnalysis } from '../analyse';
 import { itemsText, waterOf } from '../names/systematic';
 import { AQUEOUS, AQUEOUS_SOLVENTS, PURE_LIQUIDS, WATER_20C, type DensityTable, type PureLiquid } from './densities';
 import { finding, type ReagentFinding } from './findings';
@@ -172,49 +172,74 @@ export interface Poured {
   findings: ReagentFinding[];
 }
 
+/**
+ * The molar mass the assay is counted in: the written formula's, except where the trade gives the assay
+ * as another formula (ammonia solution written NH4OH: the assay is % NH3).
+ */
+function assayBasis(a: FormulaAnalysis): { mm: number; note?: ReagentFinding } | undefined {
+  const mm = a.molarMass?.value;
+  if (!mm) return undefined;
+  const m = liquidOf(a);
+  if (m?.kind !== 'aqueous' || m.table.formula === bareForm(a)) return { mm };
+  const basis = analyseFormula(m.table.formula);
+  if (!basis.molarMass || basis.hill === a.hill) return { mm };
+  return {
+    mm: basis.molarMass.value,
+    note: finding(
+      'approximation',
+      'information',
+      `The assay of ${m.table.name} is given as ${basis.display}: the amount is counted as ${basis.display} (one ${a.display} per ${basis.display}).`,
+    ),
+  };
+}
+
+const noMolarMass = (a: FormulaAnalysis) => ({
+  findings: [finding('unknown-liquid', 'error', `${a.display} has no molar mass: its amount cannot be computed.`)],
+});
+
 /** The amount in `volumeML` of a liquid reagent as supplied (`H2SO4 10 mL @ 96%`). */
 export function pour(a: FormulaAnalysis, volumeML: number, assayPercent?: number, labelDensity?: number): Poured | { findings: ReagentFinding[] } {
-  const mm = a.molarMass?.value;
-  if (!mm) return { findings: [finding('unknown-liquid', 'error', `${a.display} has no molar mass: its amount cannot be computed.`)] };
+  const basis = assayBasis(a);
+  if (!basis) return noMolarMass(a);
   if (!(volumeML > 0)) return { findings: [finding('assay-range', 'error', `A volume must be more than zero.`)] };
   const d = reagentDensity(a, assayPercent, labelDensity);
   if (!d.density) return { findings: d.findings };
   const solutionMassG = volumeML * d.density.gPerML;
-  const massG = (solutionMassG * d.density.assayPercent) / 100;
-  const cautions = handlingCautions(a, d.density.assayPercent);
-  const findings = [...d.findings];
-  if (cautions.length) findings.push(finding('handling', 'information', cautions.join(' ')));
-  return {
-    volumeML,
-    solutionMassG,
-    massG,
-    moles: massG / mm,
-    density: d.density,
-    reagentMolarity: reagentMolarity(d.density.gPerML, d.density.assayPercent, mm),
-    cautions,
-    findings,
-  };
+  const moles = (solutionMassG * d.density.assayPercent) / 100 / basis.mm;
+  return poured(a, basis, d, volumeML, solutionMassG, moles);
 }
 
 /** The volume of a liquid reagent to pour for `moles` of the substance (`HCl 0.5 M @ 37%` in a batch). */
 export function volumeFor(a: FormulaAnalysis, moles: number, assayPercent?: number, labelDensity?: number): Poured | { findings: ReagentFinding[] } {
-  const mm = a.molarMass?.value;
-  if (!mm) return { findings: [finding('unknown-liquid', 'error', `${a.display} has no molar mass: its amount cannot be computed.`)] };
+  const basis = assayBasis(a);
+  if (!basis) return noMolarMass(a);
+  if (!(moles >= 0)) return { findings: [finding('assay-range', 'error', `An amount must be zero or more.`)] };
   const d = reagentDensity(a, assayPercent, labelDensity);
   if (!d.density) return { findings: d.findings };
-  const massG = moles * mm;
-  const solutionMassG = massG / (d.density.assayPercent / 100);
-  const volumeML = solutionMassG / d.density.gPerML;
-  const cautions = handlingCautions(a, d.density.assayPercent);
+  const solutionMassG = (moles * basis.mm) / (d.density.assayPercent / 100);
+  return poured(a, basis, d, solutionMassG / d.density.gPerML, solutionMassG, moles);
+}
+
+function poured(
+  a: FormulaAnalysis,
+  basis: { mm: number; note?: ReagentFinding },
+  d: DensityLookup,
+  volumeML: number,
+  solutionMassG: number,
+  moles: number,
+): Poured {
+  const density = d.density as DensityReading;
+  const cautions = handlingCautions(a, density.assayPercent);
   const findings = [...d.findings];
+  if (basis.note) findings.push(basis.note);
   if (cautions.length) findings.push(finding('handling', 'information', cautions.join(' ')));
   return {
     volumeML,
     solutionMassG,
-    massG,
+    massG: moles * (a.molarMass?.value as number),
     moles,
-    density: d.density,
-    reagentMolarity: reagentMolarity(d.density.gPerML, d.density.assayPercent, mm),
+    density,
+    reagentMolarity: reagentMolarity(density.gPerML, density.assayPercent, basis.mm),
     cautions,
     findings,
   };
