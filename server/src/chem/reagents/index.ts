@@ -31,8 +31,11 @@
  * Findings map to diagnostics on the line (suggested codes: `reagent-assay-needed` for assay-needed,
  * `reagent-unknown-liquid`, `reagent-basis-missing`, `reagent-dilution-impossible`, `batch-ppm-basis`,
  * `shelf-syntax`, `shelf-substance`; the `information` ones belong in the hover, not the problems list).
- * Every figure here is per call and cheap (a map lookup and a few multiplications; see the bench figures
- * in the report of this module).
+ * A name read exactly may carry `lookalikes` (sodium chlorite: not the chloride or the chlorate): show
+ * them in the line's hover. Cards take `namesOf(analysis)` (chem/names) for the trade's name beside the
+ * systematic one.
+ * Cost: bench/names-reagents.ts reads a 10,000-line sheet by names and liquids against the batch
+ * reading of the same sheet by formulas (about 1.25× with the names and densities read on top).
  */
 export { AQUEOUS, AQUEOUS_SOLVENTS, PURE_LIQUIDS, WATER_20C, type DensityTable, type PureLiquid } from './densities';
 export {
