@@ -149,6 +149,8 @@ const PAIRS: Array<[string, string]> = [
   ['Na3[Co(NO2)6]', 'sodium hexakis(nitrito-κN)cobaltate(III)'],
   ['K[Ag(CN)2]', 'potassium dicyanidoargentate(I)'],
   ['Na[Au(CN)2]', 'sodium dicyanidoaurate(I)'],
+  ['K2[Zn(OH)4]', 'potassium tetrahydroxidozincate(II)'],
+  ['K3[Cr(C2O4)3]', 'potassium trioxalatochromate(III)'], // simple ligand name: tri, not tris (RB Table IV)
   // Binary compounds of non-metals, multiplying prefixes (RB IR-5.2).
   ['CO', 'carbon monoxide'],
   ['CO2', 'carbon dioxide'],
@@ -220,6 +222,8 @@ describe('formula → systematic name', () => {
     // Either order reads back.
     expect(readName('dichlorine oxide').hill).toBe('Cl2O');
     expect(readName('oxygen dichloride').hill).toBe('Cl2O');
+    expect(readName('potassium tris(oxalato)chromate(III)').hill).toBe(hill('K3[Cr(C2O4)3]'));
+    expect(nameOf(analyseFormula('[MoCl6]^3-'))).toBe('hexachloridomolybdate(III)');
   });
 
   it('gives a charge number, not an oxidation number, where a ligand is not innocent (nitrosyl; RB IR-9.1.2.8)', () => {

@@ -58,6 +58,9 @@ const LATIN_ATE: Record<string, string> = {
   Pb: 'plumbate',
   Sn: 'stannate',
   Hg: 'mercurate',
+  // Not Latin, but not the plain rule either (IUPAC 2005, Table IX: molybdate, arsenate).
+  Mo: 'molybdate',
+  As: 'arsenate',
 };
 
 /** The "-ate" form of an element's name, for the central atom of an anionic complex. */
