@@ -2,7 +2,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { analyseFormula } from '../../server/src/chem/analyse';
-import { parseShelf, shelfEntry } from '../../server/src/chem/reagents';
+import { labelAtStart, parseShelf, shelfEntry } from '../../server/src/chem/reagents';
 
 // An invented lab's shelf.
 const SHELF = [
@@ -54,6 +54,16 @@ describe('the shelf', () => {
     const s = parseShelf(SHELF);
     expect(shelfEntry(s, 'nickel  JAR 3')?.substance.formula).toBe('NiSO4·6H2O');
     expect(shelfEntry(s, 'Acid B')).toBeUndefined();
+  });
+
+  it('finds the label a batch line begins with, and where it ends', () => {
+    const s = parseShelf(SHELF);
+    const a = labelAtStart(s, 'Acid A 10 mL');
+    expect([a?.entry.substance.formula, a?.end]).toEqual(['H2SO4', 6]);
+    const b = labelAtStart(s, '  "Nickel jar 3" 25 g');
+    expect([b?.entry.label, b?.start, b?.end]).toEqual(['Nickel jar 3', 2, 16]);
+    expect(labelAtStart(s, 'Acid B 10 mL')).toBeUndefined();
+    expect(labelAtStart(s, 'NaCl 5 g')).toBeUndefined();
   });
 
   it('reports each line it cannot read, at the offending text', () => {

@@ -10,7 +10,8 @@
  *    `nameAtStart(lineText)` (chem/names): status `exact` gives `formula` (analyse it) and `end` (where
  *    the amount starts); `ambiguous` / `near` / `unknown` skip the line with `message` as the reason (a
  *    near name is never taken). `solution` set (bleach, muriatic acid) means the line needs `@ <assay>`.
- *    A shelf label: `shelfEntry(parseShelf(body, offset), label)` gives the formula, assay and density.
+ *    A shelf label first: `labelAtStart(shelf, lineText)` (the shelf from `parseShelf(body, offset)`)
+ *    gives the entry (formula, assay, density, lot) and where the label ends.
  * 2. The amount. Units of chem/batch/units.ts stay there. For any other unit, `reagentUnit(text)` says
  *    whether it is a reagent unit; then
  *      `amountIn({ value, unit, analysis, batch: { volumeL, totalMassG, solventMassG, aqueous },
@@ -56,5 +57,5 @@ export { equivalentsOf, type EquivalentRole, type Equivalents } from './equivale
 export { dilution, type Concentration, type Dilution } from './dilution';
 export { substituteForm, type FormChange } from './forms';
 export { BALANCES, VOLUME_MEASURES, roundMass, roundVolume, scaleBatch, type Rounded, type ScaleLine, type Scaled, type ScaledLine } from './scale';
-export { parseShelf, shelfEntry, type Shelf, type ShelfEntry } from './shelf';
+export { labelAtStart, parseShelf, shelfEntry, type Shelf, type ShelfEntry } from './shelf';
 export type { ReagentFinding, ReagentFindingKind } from './findings';

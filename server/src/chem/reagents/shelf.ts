@@ -295,3 +295,28 @@ export function shelfEntry(shelf: Shelf, label: string): ShelfEntry | undefined 
   const key = squash(label);
   return shelf.entries.find((e) => squash(e.label) === key);
 }
+
+/**
+ * The shelf label a batch line begins with (`Acid A 10 mL`, `"Nickel jar 3" 25 g`): the longest label
+ * that the line's first words spell (case and spacing ignored; quotes around the label allowed), and
+ * where it ends in the line. Undefined where no label matches.
+ */
+export function labelAtStart(shelf: Shelf, line: string): { entry: ShelfEntry; start: number; end: number } | undefined {
+  const lead = line.length - line.trimStart().length;
+  const quote = line[lead] === '"' ? line.indexOf('"', lead + 1) : -1;
+  if (quote > lead) {
+    const entry = shelfEntry(shelf, line.slice(lead + 1, quote));
+    return entry ? { entry, start: lead, end: quote + 1 } : undefined;
+  }
+  // Word ends, then the longest prefix of words that is a label.
+  const ends: number[] = [];
+  const re = /\S+/g;
+  re.lastIndex = lead;
+  let m: RegExpExecArray | null;
+  while ((m = re.exec(line)) && ends.length < 8) ends.push(m.index + m[0].length);
+  for (let k = ends.length; k >= 1; k--) {
+    const entry = shelfEntry(shelf, line.slice(lead, ends[k - 1]));
+    if (entry) return { entry, start: lead, end: ends[k - 1] };
+  }
+  return undefined;
+}
