@@ -5,13 +5,24 @@
  * lifecycle (nothing before initialize, nothing after shutdown) is enforced where messages enter
  * (lifecycle.ts), so this file can assume an initialised connection. The logic lives in ../service.
  */
-import { CodeActionKind, TextDocumentSyncKind, type Connection, type InitializeParams, type InitializeResult, type WorkspaceEdit } from 'vscode-languageserver';
-import type { TextEdit } from '../service/languageService';
+import {
+  CodeActionKind,
+  DidChangeWatchedFilesNotification,
+  FileChangeType,
+  TextDocumentSyncKind,
+  type Connection,
+  type InitializeParams,
+  type InitializeResult,
+  type WorkspaceEdit,
+} from 'vscode-languageserver';
+import { SEMANTIC_TOKENS_LEGEND, type TextEdit } from '../service/languageService';
 import { SERVER_COMMANDS } from '../shared/commands';
 import { VERSION } from '../shared/version';
 import { commandHandler } from './commands';
+import { registerEditingFeatures } from './editing';
 import { registerDocumentEvents, registerFeatures } from './handlers';
 import { CollectionBudget } from './memory';
+import { NotesIndex, type FolderReader } from './notesIndex';
 import { makeRequestWrapper, oneLine } from './requests';
 import { DebouncedValidator, realTimers, type Timers } from './validator';
 import { NotesWorkspace, type Snapshot } from './workspace';
@@ -24,6 +35,8 @@ export interface ServerOptions {
   timers?: Timers;
   /** Ask the host for a garbage collection (Node with gc exposed); absent: never asked. */
   collectGarbage?: () => void;
+  /** Read the workspace folder's notes (Node); absent (the browser): the open notes are the workspace. */
+  folder?: FolderReader;
 }
 
 /** How edits are sent: versioned (`documentChanges`) where the client supports it, else plain `changes`. */
@@ -64,8 +77,19 @@ export function startServer(connection: Connection, options: ServerOptions = {})
     }
   });
 
+  const index = new NotesIndex(workspace);
+  let folders: string[] = [];
+  let watchFiles = false;
+  let refreshHints = false;
+  let refreshTokens = false;
+
   connection.onInitialize((params: InitializeParams | undefined): InitializeResult => {
     const caps = params?.capabilities ?? {};
+    const named = Array.isArray(params?.workspaceFolders) ? params.workspaceFolders.map((f) => f?.uri) : [params?.rootUri];
+    folders = named.filter((u): u is string => typeof u === 'string');
+    watchFiles = caps.workspace?.didChangeWatchedFiles?.dynamicRegistration === true;
+    refreshHints = caps.workspace?.inlayHint?.refreshSupport === true;
+    refreshTokens = caps.workspace?.semanticTokens?.refreshSupport === true;
     if (caps.workspace?.configuration) {
       workspace.fetchSettings = (uri) => connection.workspace.getConfiguration({ scopeUri: uri, section: 'ionwright' });
     }
@@ -77,17 +101,55 @@ export function startServer(connection: Connection, options: ServerOptions = {})
         codeActionProvider: { codeActionKinds: CODE_ACTION_KINDS },
         documentSymbolProvider: true,
         codeLensProvider: { resolveProvider: false },
+        completionProvider: { triggerCharacters: [' '], resolveProvider: false },
+        inlayHintProvider: { resolveProvider: false },
+        semanticTokensProvider: { legend: SEMANTIC_TOKENS_LEGEND, full: true, range: true },
+        foldingRangeProvider: true,
+        workspaceSymbolProvider: true,
+        definitionProvider: true,
         executeCommandProvider: { commands: Object.values(SERVER_COMMANDS) },
       },
       serverInfo: { name: 'ionwright', version: VERSION },
     };
   });
 
-  registerDocumentEvents(connection, workspace, validator, log);
+  registerDocumentEvents(connection, workspace, validator, log, () => {
+    if (refreshHints) void connection.languages.inlayHint.refresh().catch(() => undefined);
+    if (refreshTokens) void connection.languages.semanticTokens.refresh();
+  });
   registerFeatures(connection, workspace, shape, request);
+  registerEditingFeatures(connection, workspace, index, request);
+  connection.onInitialized(() => {
+    const folder = options.folder;
+    if (!folder) return;
+    // The folder is read in the background, one note at a time; the open notes are served meanwhile.
+    void (async () => {
+      for (const f of folders) for await (const note of folder.notes(f)) index.setFile(note.uri, note.text);
+      log(`ionwright: indexed ${index.fileCount} notes of the workspace folder.`);
+    })().catch((e) => log(`ionwright: reading the workspace folder failed: ${oneLine(e)}`));
+    if (watchFiles)
+      void connection.client
+        .register(DidChangeWatchedFilesNotification.type, { watchers: [{ globPattern: '**/*.{md,markdown,fnote}' }] })
+        .catch((e) => log(`ionwright: watching the notes files failed: ${oneLine(e)}`));
+  });
+  connection.onDidChangeWatchedFiles((params) => {
+    const folder = options.folder;
+    if (!folder) return;
+    void (async () => {
+      for (const c of params?.changes ?? []) {
+        if (typeof c?.uri !== 'string') continue;
+        if (c.type === FileChangeType.Deleted) index.deleteFile(c.uri);
+        else {
+          const text = await folder.read(c.uri);
+          if (text === undefined) index.deleteFile(c.uri);
+          else index.setFile(c.uri, text);
+        }
+      }
+    })().catch((e) => log(`ionwright: a changed notes file could not be read: ${oneLine(e)}`));
+  });
   connection.onExecuteCommand(request('executeCommand', commandHandler(connection, workspace, shape)));
 
   documents.listen(connection);
   connection.listen();
-  return { documents, validator, workspace };
+  return { documents, validator, workspace, index };
 }

@@ -60,6 +60,11 @@ export class NotesWorkspace {
     });
   }
 
+  /** The language service with the default settings (for what no one note's settings decide). */
+  get defaultService(): LanguageService {
+    return createLanguageService(this.defaults.service);
+  }
+
   /** Settings of a document as last read (defaults until read). */
   settingsOf(uri: string): ServerSettings {
     return this.current.get(uri) ?? this.defaults;
