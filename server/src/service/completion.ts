@@ -130,8 +130,26 @@ function matches(filter: string, typed: string): boolean {
   return false;
 }
 
-/** The substances in the order offered: the workspace's by use, then the tool's. */
+/** The substances in the order offered: the workspace's by use, then the tool's (memoised per vocabulary). */
+const ordered = new WeakMap<Vocabulary, Candidate[]>();
+let toolOnly: Candidate[] | undefined;
 function candidates(vocabulary: Vocabulary | undefined): Candidate[] {
+  if (!vocabulary) return (toolOnly ??= orderCandidates(undefined));
+  let c = ordered.get(vocabulary);
+  if (!c) ordered.set(vocabulary, (c = orderCandidates(vocabulary)));
+  return c;
+}
+
+/** A substance's name and molar mass as shown, computed once per analysis and number of decimals. */
+const shown = new WeakMap<FormulaAnalysis, { decimals: number; name: string | undefined; mass: string }>();
+function shownOf(a: FormulaAnalysis, settings: ServiceSettings) {
+  let s = shown.get(a);
+  if (!s || s.decimals !== settings.decimals)
+    shown.set(a, (s = { decimals: settings.decimals, name: nameOf(a), mass: `${molarMassText(a.molarMass?.value, settings)} g/mol` }));
+  return s;
+}
+
+function orderCandidates(vocabulary: Vocabulary | undefined): Candidate[] {
   const out: Candidate[] = [];
   const seen = new Set<string>();
   if (vocabulary) {
@@ -210,8 +228,7 @@ export function completion(doc: AnalysedDocument, offset: number, settings: Serv
   const typed = slot.kind === 'start' ? slot.word : slot.words;
   for (const c of candidates(vocabulary)) {
     const a = c.analysis;
-    const mass = `${molarMassText(a.molarMass?.value, settings)} g/mol`;
-    const name = nameOf(a);
+    const { mass, name } = shownOf(a, settings);
     if (slot.kind === 'start' && matches(c.text, typed))
       push({
         label: c.text,
