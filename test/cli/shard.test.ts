@@ -49,12 +49,7 @@ describe('check --shard', () => {
       const parts = Array.from({ length: n }, (_, i) => json(['check', 'notes', '--shard', `${i + 1}/${n}`], dir));
       const files = parts.map((p) => new Set(p.map((f) => f.file)));
       for (let a = 0; a < n; a++) for (let b = a + 1; b < n; b++) expect([...files[a]].filter((f) => files[b].has(f))).toEqual([]);
-      expect(
-        parts
-          .flat()
-          .map(key)
-          .sort(),
-      ).toEqual(all.map(key).sort());
+      expect(parts.flat().map(key).sort()).toEqual(all.map(key).sort());
     }
   });
 

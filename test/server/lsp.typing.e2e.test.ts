@@ -76,7 +76,10 @@ async function symbolsUntil(query: string, pred: (s: SymbolInformation[]) => boo
 beforeAll(async () => {
   folder = tempDir(join(tmpdir(), 'ionwright-ws-'));
   mkdirSync(join(folder, 'shelf'), { recursive: true });
-  writeFileSync(join(folder, 'shelf', 'rinses.md'), '# Rinses\n\n```batch\nname: Rinse B\nvolume: 1 L\nNaHCO3 2 g\n```\n\nWe keep `NaHCO3` and `NaHCO3` at hand.\n');
+  writeFileSync(
+    join(folder, 'shelf', 'rinses.md'),
+    '# Rinses\n\n```batch\nname: Rinse B\nvolume: 1 L\nNaHCO3 2 g\n```\n\nWe keep `NaHCO3` and `NaHCO3` at hand.\n',
+  );
   mkdirSync(join(folder, 'node_modules'), { recursive: true });
   writeFileSync(join(folder, 'node_modules', 'skip.md'), '```batch\nname: Not indexed\nKCl 1 g\n```\n');
   URI = pathToFileURL(join(folder, 'strike.md')).href;
@@ -186,8 +189,13 @@ describe('typing features over stdio', () => {
   });
 
   it('goes from a batch name in prose to the batch in another note', async () => {
-    const def = await conn.sendRequest(DefinitionRequest.type, { textDocument: { uri: URI }, position: { line: 2, character: lines[2].indexOf('Rinse B') + 2 } });
-    expect(def).toEqual([{ uri: pathToFileURL(join(folder, 'shelf', 'rinses.md')).href, range: { start: { line: 3, character: 6 }, end: { line: 3, character: 13 } } }]);
+    const def = await conn.sendRequest(DefinitionRequest.type, {
+      textDocument: { uri: URI },
+      position: { line: 2, character: lines[2].indexOf('Rinse B') + 2 },
+    });
+    expect(def).toEqual([
+      { uri: pathToFileURL(join(folder, 'shelf', 'rinses.md')).href, range: { start: { line: 3, character: 6 }, end: { line: 3, character: 13 } } },
+    ]);
   });
 
   it('puts two lenses on a batch; the weighing list comes back as plain text', async () => {
@@ -207,7 +215,10 @@ describe('typing features over stdio', () => {
     const t0 = Date.now();
     let hints: unknown = undefined;
     while (Date.now() - t0 < 5000) {
-      hints = await conn.sendRequest(InlayHintRequest.type, { textDocument: { uri: URI }, range: { start: { line: 0, character: 0 }, end: { line: 12, character: 0 } } });
+      hints = await conn.sendRequest(InlayHintRequest.type, {
+        textDocument: { uri: URI },
+        range: { start: { line: 0, character: 0 }, end: { line: 12, character: 0 } },
+      });
       if (hints === null) break;
       await new Promise((r) => setTimeout(r, 20));
     }

@@ -50,7 +50,13 @@ interface Report {
   nvim_diagnostics: { code: string; source: string; severity: number; text: string }[];
   hovers: { target: string; position: { line: number; character: number }; kind?: string; markdown?: string | null; range?: LspRange }[];
   server_exit?: { code: number; signal: number };
-  requests?: { method: string; target?: string; position?: { line: number; character: number }; result: any; jumped?: { buffer: string; line: number; byte_col: number } }[];
+  requests?: {
+    method: string;
+    target?: string;
+    position?: { line: number; character: number };
+    result: any;
+    jumped?: { buffer: string; line: number; byte_col: number };
+  }[];
   duration_ms: number;
 }
 

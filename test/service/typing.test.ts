@@ -119,7 +119,8 @@ describe('inlay hints', () => {
 });
 
 describe('semantic tokens', () => {
-  const text = 'Rinse with NaCl and `CuSO4·5H2O`.\n\n```reaction\n2 H2 + O2 -> 2 H2O(l)\nFe^3+ + e^- -> Fe^2+\n```\n\n```batch\nvolume: 1 L\nKCl 2 g # stock\n```\n';
+  const text =
+    'Rinse with NaCl and `CuSO4·5H2O`.\n\n```reaction\n2 H2 + O2 -> 2 H2O(l)\nFe^3+ + e^- -> Fe^2+\n```\n\n```batch\nvolume: 1 L\nKCl 2 g # stock\n```\n';
   const doc = ls.analyse(text, 'markdown');
   const lines = text.split('\n');
   const tokens = decodeTokens(ls.semanticTokens(doc).data).map((t) => [lines[t.line].slice(t.character, t.character + t.length), t.type]);
@@ -167,7 +168,23 @@ describe('semantic tokens', () => {
   });
 
   it('never overlap, never run across a line, on any text (property)', () => {
-    const piece = fc.constantFrom('NaCl', ' ', '\n', '`', '`Fe^3+`', '```reaction\n', '```batch\n', '```\n', '2 H2 + O2 -> 2 H2O', 'CuSO4·5H2O', 'volume: 1 L', '# x', 'é', '🧪', '\r\n');
+    const piece = fc.constantFrom(
+      'NaCl',
+      ' ',
+      '\n',
+      '`',
+      '`Fe^3+`',
+      '```reaction\n',
+      '```batch\n',
+      '```\n',
+      '2 H2 + O2 -> 2 H2O',
+      'CuSO4·5H2O',
+      'volume: 1 L',
+      '# x',
+      'é',
+      '🧪',
+      '\r\n',
+    );
     fc.assert(
       fc.property(fc.array(piece, { maxLength: 40 }), (parts) => {
         const t = parts.join('');
@@ -189,9 +206,25 @@ describe('semantic tokens', () => {
 
 describe('folding ranges', () => {
   it('fold batches, reaction blocks and sections with their subsections', () => {
-    const text = ['# Lab', '', '## Baths', '', '```batch', 'name: A', 'KCl 2 g', '```', '', '### Notes', 'text', '', '## Reactions', '```reaction', 'H2 + O2 -> H2O', '```', ''].join(
-      '\n',
-    );
+    const text = [
+      '# Lab',
+      '',
+      '## Baths',
+      '',
+      '```batch',
+      'name: A',
+      'KCl 2 g',
+      '```',
+      '',
+      '### Notes',
+      'text',
+      '',
+      '## Reactions',
+      '```reaction',
+      'H2 + O2 -> H2O',
+      '```',
+      '',
+    ].join('\n');
     const f = ls.foldingRanges(ls.analyse(text, 'markdown'));
     expect(f.map((r) => [r.startLine, r.endLine, r.collapsedText])).toEqual([
       [0, 15, 'Lab'],
