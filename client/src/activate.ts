@@ -10,6 +10,7 @@ import type { BaseLanguageClient, LanguageClientOptions } from 'vscode-languagec
 import type { MarkdownIt } from 'markdown-it';
 import { readPreviewOptions } from '../../server/src/service/config';
 import { ionwrightPreview, type PreviewOptions } from '../../server/src/service/preview';
+import { WORKSPACE_REQUESTS } from '../../server/src/shared/commands';
 import { CLIENT_COMMANDS, NOTES_LANGUAGES, planCommand, resultMessage, SERVER_COMMANDS, type EditorState } from './commands';
 import { ServerLifecycle } from './lifecycle';
 
@@ -26,16 +27,56 @@ function editorState(): EditorState | undefined {
   };
 }
 
-export function activateIonwright(context: vscode.ExtensionContext, makeClient: (options: LanguageClientOptions) => BaseLanguageClient) {
+/** Most notes the client lists for the server, and the largest it hands over (as the Node server reads them). */
+const MAX_NOTES = 5000;
+const MAX_NOTE_BYTES = 4 * 1024 * 1024;
+
+/**
+ * Read the workspace for a server that has no file system (the browser build): the notes files under a
+ * folder, and one note's text. The editor's file system serves virtual workspaces too.
+ */
+function answerWorkspaceRequests(client: BaseLanguageClient) {
+  client.onRequest(WORKSPACE_REQUESTS.listNotes, async (params: { folderUri?: unknown }) => {
+    if (typeof params?.folderUri !== 'string') return [];
+    const pattern = new vscode.RelativePattern(vscode.Uri.parse(params.folderUri), '**/*.{md,markdown,fnote}');
+    const found = await vscode.workspace.findFiles(pattern, '{**/node_modules/**,**/.*/**}', MAX_NOTES);
+    return found.map((u) => u.toString());
+  });
+  client.onRequest(WORKSPACE_REQUESTS.readNote, async (params: { uri?: unknown }) => {
+    if (typeof params?.uri !== 'string') return null;
+    try {
+      const uri = vscode.Uri.parse(params.uri);
+      if ((await vscode.workspace.fs.stat(uri)).size > MAX_NOTE_BYTES) return null;
+      const text = new TextDecoder().decode(await vscode.workspace.fs.readFile(uri));
+      return text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
+    } catch {
+      return null;
+    }
+  });
+}
+
+export interface HostOptions {
+  /** The server has no file system here: the client reads the workspace's notes for it. */
+  readWorkspaceForServer?: boolean;
+}
+
+export function activateIonwright(
+  context: vscode.ExtensionContext,
+  makeClient: (options: LanguageClientOptions) => BaseLanguageClient,
+  host: HostOptions = {},
+) {
   const output = vscode.window.createOutputChannel('Ionwright', { log: true });
   const clientOptions: LanguageClientOptions = {
     // The server reads nothing from disk to serve a note (the editor sends the text), so notes of any
     // scheme are served: files, untitled notes and virtual workspaces alike.
     documentSelector: NOTES_LANGUAGES.map((language) => ({ language })),
     outputChannel: output,
+    // (The server registers its own watcher of the notes files, where the editor lets it.)
     synchronize: { configurationSection: 'ionwright' },
+    ...(host.readWorkspaceForServer ? { initializationOptions: { workspaceNotes: true } } : {}),
   };
   const client = makeClient(clientOptions);
+  if (host.readWorkspaceForServer) answerWorkspaceRequests(client);
 
   // The server starts when the first note is open and stops a minute after the last one is closed.
   const lifecycle = new ServerLifecycle({

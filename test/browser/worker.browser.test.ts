@@ -145,6 +145,74 @@ describe.runIf(HAVE_BROWSER || REQUIRE_BROWSER)('the browser build of the server
   });
 });
 
+/** The worker with a host that reads the workspace for it, as the browser client does: the symbols and definitions it then gives. */
+async function workspaceAnswers(page: Page) {
+  return page.evaluate(async () => {
+    const worker = new Worker('/server.js');
+    const shelf = '# Shelf\n\n```batch\nname: Rinse B\nvolume: 1 L\nNaHCO3 2 g\n```\n';
+    const asked: string[] = [];
+    const waiting = new Map<number, (r: unknown) => void>();
+    worker.onmessage = (e: MessageEvent) => {
+      const m = e.data as { id?: number; method?: string; params?: { uri?: string; folderUri?: string }; result?: unknown };
+      if (m.method && m.id !== undefined) {
+        // A request of the server's: the workspace, read by the host.
+        asked.push(m.method);
+        let result: unknown = null;
+        if (m.method === 'ionwright/listNotes') result = m.params?.folderUri === 'file:///lab' ? ['file:///lab/shelf.md'] : [];
+        if (m.method === 'ionwright/readNote') result = m.params?.uri === 'file:///lab/shelf.md' ? shelf : null;
+        worker.postMessage({ jsonrpc: '2.0', id: m.id, result });
+      } else if (m.id !== undefined) waiting.get(m.id)?.(m.result);
+    };
+    let id = 0;
+    const request = (method: string, params: unknown) =>
+      new Promise<unknown>((resolve) => {
+        waiting.set(++id, resolve);
+        worker.postMessage({ jsonrpc: '2.0', id, method, params });
+      });
+    const notify = (method: string, params: unknown) => worker.postMessage({ jsonrpc: '2.0', method, params });
+    await request('initialize', {
+      processId: null,
+      rootUri: 'file:///lab',
+      workspaceFolders: [{ uri: 'file:///lab', name: 'lab' }],
+      capabilities: {},
+      initializationOptions: { workspaceNotes: true },
+    });
+    notify('initialized', {});
+    notify('textDocument/didOpen', { textDocument: { uri: 'file:///lab/today.md', languageId: 'markdown', version: 1, text: 'We used Rinse B.\n' } });
+    let symbols: unknown = [];
+    for (let k = 0; k < 200 && !(symbols as unknown[]).length; k++) {
+      symbols = await request('workspace/symbol', { query: 'rinse' });
+      await new Promise((r) => setTimeout(r, 10));
+    }
+    const definition = await request('textDocument/definition', { textDocument: { uri: 'file:///lab/today.md' }, position: { line: 0, character: 10 } });
+    worker.terminate();
+    return { symbols, definition, asked };
+  });
+}
+
+describe.runIf(HAVE_BROWSER || REQUIRE_BROWSER)('the browser build with a host that reads the workspace for it', () => {
+  it('indexes the notes the host lists: workspace symbols and definitions reach them', async () => {
+    const browser = await launch();
+    try {
+      const page = await browser.newPage();
+      const bundle = readFileSync(join(ROOT, 'dist/browser/server.js'), 'utf8');
+      await page.route(`${ORIGIN}/**`, (route) =>
+        new URL(route.request().url()).pathname === '/server.js'
+          ? route.fulfill({ contentType: 'text/javascript', body: bundle })
+          : route.fulfill({ contentType: 'text/html', body: '<!doctype html><title>worker host</title>' }),
+      );
+      await page.goto(`${ORIGIN}/index.html`);
+      const r = await workspaceAnswers(page);
+      expect(r.asked).toEqual(['ionwright/listNotes', 'ionwright/readNote']);
+      const range = { start: { line: 3, character: 6 }, end: { line: 3, character: 13 } };
+      expect(r.symbols).toEqual([{ name: 'Rinse B', kind: 23, location: { uri: 'file:///lab/shelf.md', range }, containerName: 'Shelf' }]);
+      expect(r.definition).toEqual([{ uri: 'file:///lab/shelf.md', range }]);
+    } finally {
+      await browser.close();
+    }
+  }, 60_000);
+});
+
 describe('the browser builds', () => {
   it('require no module at run time (the client only vscode)', () => {
     const server = readFileSync(join(ROOT, 'dist/browser/server.js'), 'utf8');

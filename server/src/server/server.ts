@@ -19,6 +19,7 @@ import { SEMANTIC_TOKENS_LEGEND, type TextEdit } from '../service/languageServic
 import { SERVER_COMMANDS } from '../shared/commands';
 import { VERSION } from '../shared/version';
 import { commandHandler } from './commands';
+import { clientFolderReader } from './clientFolder';
 import { registerEditingFeatures } from './editing';
 import { registerDocumentEvents, registerFeatures } from './handlers';
 import { CollectionBudget } from './memory';
@@ -35,7 +36,10 @@ export interface ServerOptions {
   timers?: Timers;
   /** Ask the host for a garbage collection (Node with gc exposed); absent: never asked. */
   collectGarbage?: () => void;
-  /** Read the workspace folder's notes (Node); absent (the browser): the open notes are the workspace. */
+  /**
+   * Read the workspace folder's notes (Node: folder.ts). Absent (the browser): through the client where it
+   * offers to (clientFolder.ts), else the open notes are the workspace.
+   */
   folder?: FolderReader;
 }
 
@@ -82,6 +86,7 @@ export function startServer(connection: Connection, options: ServerOptions = {})
   let watchFiles = false;
   let refreshHints = false;
   let refreshTokens = false;
+  let folder: FolderReader | undefined;
 
   connection.onInitialize((params: InitializeParams | undefined): InitializeResult => {
     const caps = params?.capabilities ?? {};
@@ -90,6 +95,8 @@ export function startServer(connection: Connection, options: ServerOptions = {})
     watchFiles = caps.workspace?.didChangeWatchedFiles?.dynamicRegistration === true;
     refreshHints = caps.workspace?.inlayHint?.refreshSupport === true;
     refreshTokens = caps.workspace?.semanticTokens?.refreshSupport === true;
+    const offered = (params?.initializationOptions as { workspaceNotes?: unknown } | undefined)?.workspaceNotes === true;
+    folder = options.folder ?? (offered ? clientFolderReader(connection) : undefined);
     if (caps.workspace?.configuration) {
       workspace.fetchSettings = (uri) => connection.workspace.getConfiguration({ scopeUri: uri, section: 'ionwright' });
     }
@@ -120,11 +127,11 @@ export function startServer(connection: Connection, options: ServerOptions = {})
   registerFeatures(connection, workspace, shape, request);
   registerEditingFeatures(connection, workspace, index, request);
   connection.onInitialized(() => {
-    const folder = options.folder;
     if (!folder) return;
     // The folder is read in the background, one note at a time; the open notes are served meanwhile.
     void (async () => {
-      for (const f of folders) for await (const note of folder.notes(f)) index.setFile(note.uri, note.text);
+      const reader = folder as FolderReader;
+      for (const f of folders) for await (const note of reader.notes(f)) index.setFile(note.uri, note.text);
       log(`ionwright: indexed ${index.fileCount} notes of the workspace folder.`);
     })().catch((e) => log(`ionwright: reading the workspace folder failed: ${oneLine(e)}`));
     if (watchFiles)
@@ -133,14 +140,13 @@ export function startServer(connection: Connection, options: ServerOptions = {})
         .catch((e) => log(`ionwright: watching the notes files failed: ${oneLine(e)}`));
   });
   connection.onDidChangeWatchedFiles((params) => {
-    const folder = options.folder;
     if (!folder) return;
     void (async () => {
       for (const c of params?.changes ?? []) {
         if (typeof c?.uri !== 'string') continue;
         if (c.type === FileChangeType.Deleted) index.deleteFile(c.uri);
         else {
-          const text = await folder.read(c.uri);
+          const text = await (folder as FolderReader).read(c.uri);
           if (text === undefined) index.deleteFile(c.uri);
           else index.setFile(c.uri, text);
         }

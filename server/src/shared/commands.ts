@@ -24,3 +24,14 @@ export const SERVER_COMMANDS = {
 
 /** The languages the server serves, as VS Code names them. */
 export const NOTES_LANGUAGES = ['markdown', 'fnote'] as const;
+
+/**
+ * Requests the server sends a client that offers to read the workspace for it (initialization option
+ * `workspaceNotes: true`; the browser client does, since the server has no file system there):
+ * `listNotes` `{folderUri}` → the URIs of the notes files under the folder; `readNote` `{uri}` → the text,
+ * or null.
+ */
+export const WORKSPACE_REQUESTS = {
+  listNotes: 'ionwright/listNotes',
+  readNote: 'ionwright/readNote',
+} as const;
