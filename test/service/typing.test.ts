@@ -6,6 +6,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { BATCH_UNITS } from '../../server/src/chem/batch/units';
+import { readSettings } from '../../server/src/service/config';
 import { createLanguageService, type NoteSummary } from '../../server/src/service/languageService';
 import { decodeTokens, SEMANTIC_TOKENS_LEGEND } from '../../server/src/service/semanticTokens';
 
@@ -90,6 +91,74 @@ describe('completion', () => {
   it('works in .fnote batch blocks', () => {
     const { doc, position } = at('batch Strike\nvolume: 2 L\nNiSO4 0.1 |\nend\n', 'fnote');
     expect(ls.completion(doc, position)!.items.map((i) => i.label)).toContain('M');
+  });
+});
+
+describe('completion on any batch line (property)', () => {
+  it('never throws, and every edit ends at the cursor on its line and starts where the typed word does', () => {
+    let answered = 0;
+    const piece = fc.constantFrom(
+      'NaCl',
+      'Na',
+      ' ',
+      '  ',
+      '5',
+      '0.1',
+      'g',
+      'M',
+      'mM',
+      'to',
+      'pH',
+      'volume:',
+      'total:',
+      'name:',
+      '#',
+      '@',
+      '99%',
+      'sodium',
+      'ch',
+      '(II)',
+      '·',
+      'é',
+      '🧪',
+      '\t',
+    );
+    fc.assert(
+      fc.property(fc.array(piece, { maxLength: 8 }), fc.nat(), (parts, cut) => {
+        const line = parts.join('');
+        const at = line.length === 0 ? 0 : cut % (line.length + 1);
+        const text = '```batch\nvolume: 1 L\n' + line + '\n```\n';
+        const doc = ls.analyse(text, 'markdown');
+        const list = ls.completion(doc, { line: 2, character: at });
+        if (list?.items.length) answered++;
+        for (const item of list?.items ?? []) {
+          const r = item.textEdit.range;
+          expect(r.end).toEqual({ line: 2, character: at });
+          expect(r.start.line).toBe(2);
+          expect(r.start.character).toBeLessThanOrEqual(at);
+          // What the edit replaces is what was typed of the item (case aside): a prefix of a word of it.
+          const typed = line.slice(r.start.character, at).toLowerCase();
+          expect(
+            item.filterText
+              .toLowerCase()
+              .split(' ')
+              .some((w, k, all) => all.slice(k).join(' ').startsWith(typed) || w.startsWith(typed)),
+          ).toBe(true);
+          expect(item.textEdit.newText.length).toBeGreaterThan(0);
+        }
+      }),
+      { numRuns: 500 },
+    );
+    // Not vacuous: many of the lines got items.
+    expect(answered).toBeGreaterThan(100);
+  });
+});
+
+describe('the inlay hints setting', () => {
+  it('is on unless ionwright.inlayHints.enabled is false', () => {
+    expect(readSettings(undefined).inlayHints).toBe(true);
+    expect(readSettings({ inlayHints: { enabled: false } }).inlayHints).toBe(false);
+    expect(readSettings({ inlayHints: { enabled: 'no' } }).inlayHints).toBe(true);
   });
 });
 
