@@ -124,7 +124,7 @@ describe('the bundled browser client (package.json browser)', () => {
     g.Worker = before;
   });
   // Activated once the desktop bundle's tests are done (the stand-in keeps one configuration listener).
-  let api: { extendMarkdownIt(md: MarkdownIt): MarkdownIt };
+  let api: { extendMarkdownIt(md: InstanceType<typeof MarkdownIt>): InstanceType<typeof MarkdownIt> };
   beforeAll(() => {
     const ext = Module.createRequire(__filename)(join(__dirname, '../../dist/browser/extension.js'));
     api = ext.activate({ subscriptions: [], extensionUri: { path: '/ext' } });

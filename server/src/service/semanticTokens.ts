@@ -94,7 +94,10 @@ function blockTokens(rel: BlockResult): Int32Array {
       if (h) pushToken(out, line.start + h[1].length, line.start + h[1].length + h[2].length, T.property);
     }
     for (const i of b.analysis.ingredients) {
-      if (i.analysis.formula) formulaTokens(i.analysis.formula, i.formulaStart, out);
+      // A line that names its substance (`sodium chloride 5 g`) has an analysis of the formula, not of the
+      // text written: the name is one token.
+      if (i.analysis.formula && i.analysis.input === i.formulaText) formulaTokens(i.analysis.formula, i.formulaStart, out);
+      else pushToken(out, i.formulaStart, i.formulaEnd, T.type);
       pushToken(out, i.amount.start, i.amount.start + i.amount.text.split(' ')[0].length, T.number);
     }
     for (const s of b.analysis.skipped)
