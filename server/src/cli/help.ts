@@ -97,7 +97,8 @@ Examples:
   ionwright check examples/rinse-trials.md --format json
   ionwright check examples/ --format sarif > ionwright.sarif
   ionwright check examples/ --jobs 2
-  ionwright check examples/ --shard 2/4 --format sarif > ionwright-2.sarif
+  ionwright check examples/ --shard 1/2 --format sarif > shard-1.sarif
+  ionwright check examples/ --shard 2/2 --format sarif > shard-2.sarif
 
 ${EXIT}`;
 
@@ -108,8 +109,11 @@ log with one run: every rule once, every result ordered by file as an unsharded 
 invocation per log (the run is successful only if every job's was). Upload that one log to a code
 scanning service. Logs not written by Ionwright are refused.
 
-Examples:
-  ionwright merge-sarif shard-*.sarif > ionwright.sarif
+Flags:
+  -h, --help   this help
+
+Examples (after the two --shard examples of 'ionwright check --help'):
+  ionwright merge-sarif shard-1.sarif shard-2.sarif > ionwright.sarif
 
 Exit status: 0 merged; 2 a file that cannot be read or is not an Ionwright SARIF 2.1.0 log (one line
 on stderr).`;
