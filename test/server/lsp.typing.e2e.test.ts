@@ -198,11 +198,14 @@ describe('typing features over stdio', () => {
     ]);
   });
 
-  it('puts two lenses on a batch; the weighing list comes back as plain text', async () => {
+  it('puts three lenses on a batch: totals, Insert table, Copy as weighing list (plain text)', async () => {
     const lenses = await conn.sendRequest(CodeLensRequest.type, { textDocument: { uri: URI } });
-    expect(lenses!.map((l) => l.command!.command)).toEqual(['ionwright.server.insertTableAt', 'ionwright.copyWeighingList']);
-    expect(lenses![1].command!.title).toBe('Copy as weighing list');
-    const text = await conn.sendRequest(ExecuteCommandRequest.type, { command: 'ionwright.server.weighingList', arguments: lenses![1].command!.arguments });
+    expect(lenses!.map((l) => [l.command!.title.replace(/^2 ingredients · .*/, 'totals'), l.command!.command])).toEqual([
+      ['totals', ''],
+      ['Insert table', 'ionwright.server.insertTableAt'],
+      ['Copy as weighing list', 'ionwright.copyWeighingList'],
+    ]);
+    const text = await conn.sendRequest(ExecuteCommandRequest.type, { command: 'ionwright.server.weighingList', arguments: lenses![2].command!.arguments });
     expect(text).toMatch(/^Strike S-1, final volume 500 mL — INCOMPLETE: 1 line not counted\n/);
     // NiCl2: 58.693 + 2 × 35.45 = 129.59 g/mol (CIAAW 2021); 0.1 mol of it is 12.96 g.
     expect(text).toMatch(/NiCl₂\s+0\.2 M\s+129\.59\s+12\.96/);

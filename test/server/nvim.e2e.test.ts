@@ -259,9 +259,10 @@ describe.skipIf(!NVIM)('Neovim built-in LSP client: completion, definition, symb
     expect(syms.map((s) => [s.name, s.location.uri])).toEqual([['Wood strike W-3', run.report!.uri]]);
   });
 
-  it('gets the two lenses above the batch', () => {
+  it('gets the three lenses above the batch', () => {
     const lenses = answer(4).result as Array<{ command: { title: string; command: string } }>;
-    expect(lenses.map((l) => l.command.command)).toEqual(['ionwright.server.insertTableAt', 'ionwright.copyWeighingList']);
+    expect(lenses.map((l) => l.command.command)).toEqual(['', 'ionwright.server.insertTableAt', 'ionwright.copyWeighingList']);
     expect(lenses[0].command.title).toMatch(/^2 ingredients · ⚠ 1 line not counted \(incomplete\) · /);
+    expect(lenses.slice(1).map((l) => l.command.title)).toEqual(['Insert table', 'Copy as weighing list']);
   });
 });

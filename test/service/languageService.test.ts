@@ -52,8 +52,12 @@ describe('createLanguageService', () => {
   it('tables, symbols, lenses, cards and batches', () => {
     const { doc, position } = at('# Bench\n\n```batch\nname: Rinse A\nvolume: 1 L\nNa|Cl 1 g\n```\n');
     expect(ls.documentSymbols(doc).map((s) => s.name)).toEqual(['Bench']);
-    // Two lenses on the batch: its totals (inserting its table) and copying it as a weighing list.
-    expect(ls.codeLenses(doc).map((l) => l.action)).toEqual(['insertTable', 'copyWeighingList']);
+    // Three lenses on the batch: its totals, inserting its table, copying it as a weighing list.
+    expect(ls.codeLenses(doc).map((l) => [l.title.replace(/^1 ingredient · .*/, 'totals'), l.action])).toEqual([
+      ['totals', 'none'],
+      ['Insert table', 'insertTable'],
+      ['Copy as weighing list', 'copyWeighingList'],
+    ]);
     expect(ls.weighingListAt(doc, { line: 2, character: 0 })).toMatch(/^Rinse A, final volume 1 L\n/);
     expect(ls.batchesJson(doc)[0]).toMatchObject({ name: 'Rinse A', volumeL: 1 });
     expect(ls.tables(doc)).toContain('Rinse A');

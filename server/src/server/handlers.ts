@@ -102,16 +102,17 @@ export function registerFeatures(connection: Connection, workspace: NotesWorkspa
     request('codeLens', (params) => {
       const snap = workspace.snapshot(uriOf(params));
       if (!snap) return null;
-      // Inserting a table is the server's command (any client can run it); copying to the clipboard is the
-      // editor's, so that lens names the client's command (VS Code; other clients can ask the server for the
-      // text with ionwright.server.weighingList).
+      // The totals lens runs nothing (an empty command: shown, not clickable). Inserting a table is the
+      // server's command (any client can run it); copying to the clipboard is the editor's, so that lens
+      // names the client's command (VS Code; other clients can ask the server for the text with
+      // ionwright.server.weighingList).
+      const command = { none: '', insertTable: SERVER_COMMANDS.insertTableAt, copyWeighingList: CLIENT_COMMANDS.copyWeighingList } as const;
       return snap.service.codeLenses(snap.doc).map((l) => ({
         range: l.range,
-        command: {
-          title: l.title,
-          command: l.action === 'insertTable' ? SERVER_COMMANDS.insertTableAt : CLIENT_COMMANDS.copyWeighingList,
-          arguments: [{ uri: snap.uri, position: l.range.start }],
-        },
+        command:
+          l.action === 'none'
+            ? { title: l.title, command: '' }
+            : { title: l.title, command: command[l.action], arguments: [{ uri: snap.uri, position: l.range.start }] },
       }));
     }),
   );

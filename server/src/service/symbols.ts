@@ -65,14 +65,11 @@ export interface CodeLens {
   title: string;
   /** Offset the lens's command acts on. */
   offset: number;
-  /** What the lens does: insert the batch's table, or copy it as a weighing list (plain text). */
-  action: 'insertTable' | 'copyWeighingList';
+  /** What the lens does: nothing (it says the totals), insert the batch's table, or copy it as a weighing list (plain text). */
+  action: 'none' | 'insertTable' | 'copyWeighingList';
 }
 
-/**
- * Two lenses per batch: its totals at a glance, whose command inserts its table, and one that copies it
- * as a weighing list.
- */
+/** Three lenses per batch: its totals at a glance, *Insert table* and *Copy as weighing list*. */
 export function codeLenses(doc: AnalysedDocument): CodeLens[] {
   return doc.batches.flatMap((b): CodeLens[] => {
     const a = b.analysis;
@@ -86,7 +83,8 @@ export function codeLenses(doc: AnalysedDocument): CodeLens[] {
     const range = doc.lines.range(b.ref.open.start, b.ref.open.end);
     const offset = b.ref.open.start;
     return [
-      { range, title: `${bits.join(' · ')} — insert table`, offset, action: 'insertTable' },
+      { range, title: bits.join(' · '), offset, action: 'none' },
+      { range, title: 'Insert table', offset, action: 'insertTable' },
       { range, title: 'Copy as weighing list', offset, action: 'copyWeighingList' },
     ];
   });
