@@ -132,7 +132,7 @@ export function startServer(connection: Connection, options: ServerOptions = {})
     void (async () => {
       const reader = folder as FolderReader;
       for (const f of folders) for await (const note of reader.notes(f)) index.setFile(note.uri, note.text);
-      log(`ionwright: indexed ${index.fileCount} notes of the workspace folder.`);
+      connection.console.info(`ionwright: indexed ${index.fileCount} notes of the workspace folder.`);
     })().catch((e) => log(`ionwright: reading the workspace folder failed: ${oneLine(e)}`));
     if (watchFiles)
       void connection.client
