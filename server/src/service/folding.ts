@@ -54,15 +54,17 @@ export function foldingRanges(doc: AnalysedDocument): FoldingRange[] {
     const endLine = lastFilledLine(doc, end, startLine);
     if (endLine > startLine) out.push({ startLine, endLine, kind: FoldingKind.Region, collapsedText: s.title });
   }
-  for (const b of doc.batches) {
-    const startLine = doc.lines.positionAt(b.ref.start).line;
-    const endLine = endLineOf(doc, b.ref.start, b.ref.end);
-    const a = b.analysis;
-    const name = a.name ? `batch ${a.name}` : 'batch';
-    if (endLine > startLine) out.push({ startLine, endLine, collapsedText: `${name} · ${plural(a.ingredients.length, 'ingredient')}` });
-  }
-  // Fenced reaction blocks: a block whose reactions come from fence lines.
+  // Batches and fenced reaction blocks, read from the blocks where they are (block-relative offsets, so
+  // that no batch is copied to absolute offsets for this).
   for (const blk of doc.blocks) {
+    for (const b of blk.rel.batches) {
+      const start = blk.start + b.ref.start;
+      const startLine = doc.lines.positionAt(start).line;
+      const endLine = endLineOf(doc, start, blk.start + b.ref.end);
+      const a = b.analysis;
+      const name = a.name ? `batch ${a.name}` : 'batch';
+      if (endLine > startLine) out.push({ startLine, endLine, collapsedText: `${name} · ${plural(a.ingredients.length, 'ingredient')}` });
+    }
     const first = blk.rel.reactions[0];
     if (!first || first.ref.source !== 'fence') continue;
     const startLine = doc.lines.positionAt(blk.start).line;

@@ -84,19 +84,22 @@ export function noteSummary(doc: AnalysedDocument, uri: string): NoteSummary {
     return ans;
   };
   const batches: NamedBatch[] = [];
-  for (const b of doc.batches) {
-    const name = b.analysis.name;
-    if (!name) continue;
-    const span = nameSpan(b);
-    const section = sectionAt(b.ref.start);
-    batches.push({
-      name,
-      uri,
-      range: doc.lines.range(b.ref.start, b.ref.end),
-      selectionRange: doc.lines.range(span.start, span.end),
-      ...(section ? { section } : {}),
-    });
-  }
+  // Read from the blocks (block-relative offsets): no batch is copied to absolute offsets for this.
+  for (const blk of doc.blocks)
+    for (const b of blk.rel.batches) {
+      const name = b.analysis.name;
+      if (!name) continue;
+      const span = nameSpan(b);
+      const at = blk.start;
+      const section = sectionAt(at + b.ref.start);
+      batches.push({
+        name,
+        uri,
+        range: doc.lines.range(at + b.ref.start, at + b.ref.end),
+        selectionRange: doc.lines.range(at + span.start, at + span.end),
+        ...(section ? { section } : {}),
+      });
+    }
   const summary: NoteSummary = { uri, batches, vocabulary: documentVocabulary(doc) };
   if (!byUri) summaries.set(doc, (byUri = new Map()));
   byUri.set(uri, summary);
