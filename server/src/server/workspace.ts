@@ -10,6 +10,8 @@ import { readSettings, type ServerSettings } from '../service/config';
 import { createLanguageService, type AnalysedDocument, type ChangeHint, type LanguageService } from '../service/languageService';
 
 export function languageOfDocument(languageId: string, uri: string): NotesLanguage | undefined {
+  // A client that opened a document under something other than a string URI gets nothing for it.
+  if (typeof uri !== 'string') return undefined;
   if (languageId === 'fnote' || uri.endsWith('.fnote')) return 'fnote';
   if (languageId === 'markdown' || uri.endsWith('.md') || uri.endsWith('.markdown')) return 'markdown';
   return undefined;
