@@ -298,7 +298,7 @@ describe('hostile requests', () => {
         }),
       );
       const logged: string[] = [];
-      conn.onNotification('window/logMessage', (m: { message: string }) => logged.push(m.message));
+      conn.onNotification('window/logMessage', (m: { message: string }) => void logged.push(m.message));
       const sample = fc.sample(fc.tuple(fc.constantFrom(...methods), params), { numRuns: 2000, seed: 1312 });
       const answers: Array<Promise<unknown>> = [];
       for (const [m, p] of sample) {

@@ -6,7 +6,7 @@
  * Only logs written by Ionwright are merged; anything else is a usage error naming the file.
  */
 import { reasonOf, UsageError, type CliIO } from './io';
-import { jsonText } from './text';
+import { jsonText, OutputWriter, writeJsonArray } from './text';
 
 interface Rule {
   id: string;
@@ -94,11 +94,30 @@ export function mergeSarif(runs: Run[]) {
   return { $schema: 'https://json.schemastore.org/sarif-2.1.0.json', version: '2.1.0' as const, runs: [run] };
 }
 
-export function cmdMergeSarif(args: string[], io: CliIO): number {
+/** Where the results go in the log's text (JSON escapes the NUL, so no path or message can be this). */
+const RESULTS_MARK = '\\u0000results';
+
+export async function cmdMergeSarif(args: string[], io: CliIO): Promise<number> {
   const files = args.filter((a) => a !== '--');
   const flag = files.find((a) => a.startsWith('-'));
   if (flag) throw new UsageError(`unknown flag '${flag}' for merge-sarif`);
   if (files.length === 0) throw new UsageError('merge-sarif needs at least one SARIF file');
-  io.out(jsonText(mergeSarif(files.flatMap((f) => readLog(io, f)))));
+  const log = mergeSarif(files.flatMap((f) => readLog(io, f)));
+  // Written result by result, as check writes its SARIF: the log is never one string.
+  const results = log.runs[0].results ?? [];
+  (log.runs[0] as { results: unknown }).results = '\u0000results';
+  const text = jsonText(log);
+  const mark = `"results": "${RESULTS_MARK}"`;
+  const at = text.indexOf(mark);
+  const lineStart = text.lastIndexOf('\n', at) + 1;
+  const w = new OutputWriter((t) => io.out(t));
+  const p = w.line(text.slice(0, lineStart - 1));
+  if (p) await p;
+  await writeJsonArray(w, results, {
+    indent: text.slice(lineStart, at),
+    open: text.slice(lineStart, at + '"results": '.length),
+    close: text.slice(at + mark.length),
+  });
+  await w.flush();
   return 0;
 }
