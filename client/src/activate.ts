@@ -32,8 +32,9 @@ const MAX_NOTES = 5000;
 const MAX_NOTE_BYTES = 4 * 1024 * 1024;
 
 /**
- * Read the workspace for a server that has no file system (the browser build): the notes files under a
- * folder, and one note's text. The editor's file system serves virtual workspaces too.
+ * Read the workspace for a server that cannot (the browser build has no file system; a virtual
+ * workspace's folders are no files on disk): the notes files under a folder, and one note's text,
+ * through the editor's file system.
  */
 function answerWorkspaceRequests(client: BaseLanguageClient) {
   client.onRequest(WORKSPACE_REQUESTS.listNotes, async (params: { folderUri?: unknown }) => {
@@ -55,16 +56,7 @@ function answerWorkspaceRequests(client: BaseLanguageClient) {
   });
 }
 
-export interface HostOptions {
-  /** The server has no file system here: the client reads the workspace's notes for it. */
-  readWorkspaceForServer?: boolean;
-}
-
-export function activateIonwright(
-  context: vscode.ExtensionContext,
-  makeClient: (options: LanguageClientOptions) => BaseLanguageClient,
-  host: HostOptions = {},
-) {
+export function activateIonwright(context: vscode.ExtensionContext, makeClient: (options: LanguageClientOptions) => BaseLanguageClient) {
   const output = vscode.window.createOutputChannel('Ionwright', { log: true });
   const clientOptions: LanguageClientOptions = {
     // The server reads nothing from disk to serve a note (the editor sends the text), so notes of any
@@ -73,10 +65,12 @@ export function activateIonwright(
     outputChannel: output,
     // (The server registers its own watcher of the notes files, where the editor lets it.)
     synchronize: { configurationSection: 'ionwright' },
-    ...(host.readWorkspaceForServer ? { initializationOptions: { workspaceNotes: true } } : {}),
+    // The client reads the workspace's notes for a server that cannot (the browser build; folders of a
+    // virtual workspace): through the editor's file system.
+    initializationOptions: { workspaceNotes: true },
   };
   const client = makeClient(clientOptions);
-  if (host.readWorkspaceForServer) answerWorkspaceRequests(client);
+  answerWorkspaceRequests(client);
 
   // The server starts when the first note is open and stops a minute after the last one is closed.
   const lifecycle = new ServerLifecycle({

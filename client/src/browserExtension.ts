@@ -14,9 +14,7 @@ declare const Worker: new (url: string) => ConstructorParameters<typeof Language
 
 export function activate(context: vscode.ExtensionContext) {
   const serverMain = vscode.Uri.joinPath(context.extensionUri, 'dist', 'browser', 'server.js');
-  return activateIonwright(context, (clientOptions) => new LanguageClient('ionwright', 'Ionwright', clientOptions, new Worker(serverMain.toString(true))), {
-    readWorkspaceForServer: true,
-  });
+  return activateIonwright(context, (clientOptions) => new LanguageClient('ionwright', 'Ionwright', clientOptions, new Worker(serverMain.toString(true))));
 }
 
 export const deactivate = deactivateIonwright;

@@ -229,3 +229,46 @@ describe('typing features over stdio', () => {
     settings = {};
   });
 });
+
+describe('the workspace of a virtual folder, read through the client', () => {
+  it('reads file: folders from disk and asks the client for the others', async () => {
+    const p = spawn('node', [SERVER, '--stdio'], { stdio: ['pipe', 'pipe', 'pipe'] });
+    p.stderr!.resume();
+    const c = createProtocolConnection(new StreamMessageReader(p.stdout!), new StreamMessageWriter(p.stdin!));
+    const asked: Array<[string, unknown]> = [];
+    c.onRequest('ionwright/listNotes', (params: { folderUri: string }) => {
+      asked.push(['ionwright/listNotes', params.folderUri]);
+      return params.folderUri === 'vscode-vfs://github/lab/notes' ? ['vscode-vfs://github/lab/notes/bath.md'] : [];
+    });
+    c.onRequest('ionwright/readNote', (params: { uri: string }) => {
+      asked.push(['ionwright/readNote', params.uri]);
+      return '```batch\nname: Remote rinse R-1\nKCl 2 g\n```\n';
+    });
+    c.listen();
+    try {
+      await c.sendRequest(InitializeRequest.type, {
+        processId: process.pid,
+        rootUri: null,
+        workspaceFolders: [
+          { uri: pathToFileURL(folder).href, name: 'lab' },
+          { uri: 'vscode-vfs://github/lab/notes', name: 'remote' },
+        ],
+        capabilities: {},
+        initializationOptions: { workspaceNotes: true },
+      });
+      await c.sendNotification(InitializedNotification.type, {});
+      let names: string[] = [];
+      for (let t0 = Date.now(); Date.now() - t0 < 10_000 && names.length < 2; await new Promise((r) => setTimeout(r, 20)))
+        names = (((await c.sendRequest(WorkspaceSymbolRequest.type, { query: '' })) ?? []) as SymbolInformation[]).map((s) => s.name);
+      expect(names.sort()).toEqual(['Remote rinse R-1', 'Rinse B']);
+      // The disk folder was read from disk: the client was asked about the virtual one only.
+      expect(asked).toEqual([
+        ['ionwright/listNotes', 'vscode-vfs://github/lab/notes'],
+        ['ionwright/readNote', 'vscode-vfs://github/lab/notes/bath.md'],
+      ]);
+    } finally {
+      c.dispose();
+      p.kill();
+    }
+  });
+});

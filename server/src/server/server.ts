@@ -37,8 +37,9 @@ export interface ServerOptions {
   /** Ask the host for a garbage collection (Node with gc exposed); absent: never asked. */
   collectGarbage?: () => void;
   /**
-   * Read the workspace folder's notes (Node: folder.ts). Absent (the browser): through the client where it
-   * offers to (clientFolder.ts), else the open notes are the workspace.
+   * Read the workspace folder's notes (Node: folder.ts, for `file:` folders). Folders it cannot read (the
+   * browser: all; virtual workspaces) are read through the client where it offers to (clientFolder.ts);
+   * else the open notes are the workspace.
    */
   folder?: FolderReader;
 }
@@ -50,6 +51,13 @@ export interface EditShape {
 }
 
 const CODE_ACTION_KINDS = [CodeActionKind.QuickFix, CodeActionKind.RefactorRewrite];
+
+/** `file:` folders through the host's own reader where it has one, everything else (and all, without one) through the client's. */
+function byScheme(local: FolderReader | undefined, viaClient: FolderReader | undefined): FolderReader | undefined {
+  if (!local || !viaClient) return local ?? viaClient;
+  const pick = (uri: string) => (uri.startsWith('file:') ? local : viaClient);
+  return { notes: (folderUri) => pick(folderUri).notes(folderUri), read: (uri) => pick(uri).read(uri) };
+}
 
 export function startServer(connection: Connection, options: ServerOptions = {}) {
   const timers = options.timers ?? realTimers;
@@ -96,7 +104,7 @@ export function startServer(connection: Connection, options: ServerOptions = {})
     refreshHints = caps.workspace?.inlayHint?.refreshSupport === true;
     refreshTokens = caps.workspace?.semanticTokens?.refreshSupport === true;
     const offered = (params?.initializationOptions as { workspaceNotes?: unknown } | undefined)?.workspaceNotes === true;
-    folder = options.folder ?? (offered ? clientFolderReader(connection) : undefined);
+    folder = byScheme(options.folder, offered ? clientFolderReader(connection) : undefined);
     if (caps.workspace?.configuration) {
       workspace.fetchSettings = (uri) => connection.workspace.getConfiguration({ scopeUri: uri, section: 'ionwright' });
     }
