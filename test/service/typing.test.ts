@@ -5,7 +5,9 @@
  */
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
+import { analyseBatch } from '../../server/src/chem/batch';
 import { BATCH_UNITS } from '../../server/src/chem/batch/units';
+import { headerKeys } from '../../server/src/service/completion';
 import { readSettings } from '../../server/src/service/config';
 import { createLanguageService, type NoteSummary } from '../../server/src/service/languageService';
 import { decodeTokens, SEMANTIC_TOKENS_LEGEND } from '../../server/src/service/semanticTokens';
@@ -29,13 +31,24 @@ const labels = (marked: string, others?: NoteSummary[]) => {
 describe('completion', () => {
   const batch = (line: string) => '# Bench\n\nWe weighed `KNO3` twice: `KNO3`.\n\n```batch\nvolume: 1 L\n' + line + '\n```\n';
 
-  it('offers the header keys not yet given, then substances, at the start of a batch line', () => {
+  it('offers the header keys not yet given that the batch reader reads, then substances, at the start of a batch line', () => {
     const l = labels(batch('|'))!;
-    expect(l.slice(0, 4)).toEqual(['name:', 'total:', 'pH:', 'temperature:']);
-    expect(l).not.toContain('volume:');
+    const keys = headerKeys().map((h) => `${h.key}:`);
+    expect(keys.slice(0, 3)).toEqual(['name:', 'volume:', 'total:']);
+    expect(l.slice(0, keys.length - 1)).toEqual(keys.filter((k) => k !== 'volume:'));
     // The note's own substance comes before the tool's tables.
-    expect(l[4]).toBe('KNO3');
+    expect(l[keys.length - 1]).toBe('KNO3');
     expect(l).toContain('NaCl');
+  });
+
+  it('offers pH: and temperature: exactly when the batch reader takes them as headers', () => {
+    for (const key of ['pH', 'temperature']) {
+      // A header line is never an ingredient, whatever its value.
+      const header =
+        analyseBatch([{ text: `${key}: 7`, start: 0 }]).ingredients.length === 0 &&
+        analyseBatch([{ text: `${key}: 7`, start: 0 }]).skipped.every((s) => s.kind === 'header');
+      expect(labels(batch('|'))!.includes(`${key}:`), key).toBe(header);
+    }
   });
 
   it('ranks the workspace notes’ substances by use and gives the molar mass as detail', () => {

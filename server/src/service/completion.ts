@@ -1,8 +1,8 @@
 /**
  * Completion inside batch blocks (LSP `textDocument/completion`):
  *
- * - at the start of a line: the header keys not yet given (`name:`, `volume:`, `total:`, `pH:`,
- *   `temperature:`), and the substances: those the workspace's notes use first (ranked by how often they
+ * - at the start of a line: the header keys not yet given (`name:`, `volume:`, `total:`, and `pH:`,
+ *   `temperature:` once the batch reader takes them), and the substances: those the workspace's notes use first (ranked by how often they
  *   are written), then those of the tool's tables; each as its formula and, where it has one, as its name
  *   (typing `sodium ch` finds NaCl). The molar mass is the item's detail; what is inserted is the formula,
  *   which every batch line reads;
@@ -15,6 +15,7 @@
  */
 import type { FormulaAnalysis } from '../chem/analyse';
 import { analyseFormula } from '../chem/analyse';
+import { analyseBatch } from '../chem/batch';
 import { BATCH_UNITS, type BatchUnit, type UnitKind, type UnitPlace } from '../chem/batch/units';
 import { SOLUBILITY } from '../chem/data/solubility';
 import { nameOf } from '../chem/names';
@@ -47,7 +48,12 @@ export interface CompletionList {
 /** Most items in one answer. */
 export const MAX_ITEMS = 100;
 
-/** The header keys a batch reads, in the order offered. */
+/**
+ * The header keys of a batch, in the order offered. A key is offered only where the batch reader reads it
+ * as a header (`headerKeys`): `pH:` and `temperature:` come with the solution stage of the batch
+ * pipeline, and are offered from the moment the reader takes them, never before (a key the reader does
+ * not know would make the line an ingredient in error).
+ */
 export const BATCH_HEADER_KEYS: ReadonlyArray<{ key: string; detail: string }> = [
   { key: 'name', detail: 'the batch’s name (workspace symbols, tables)' },
   { key: 'volume', detail: 'final volume (L, mL): concentrations, ionic strength' },
@@ -55,6 +61,15 @@ export const BATCH_HEADER_KEYS: ReadonlyArray<{ key: string; detail: string }> =
   { key: 'pH', detail: 'the pH the batch is made up to' },
   { key: 'temperature', detail: 'temperature the batch is made up at' },
 ];
+
+/** Whether the batch reader takes `<key>:` as a header: a line of it is never an ingredient, whatever its value. */
+function readsAsHeader(key: string): boolean {
+  const a = analyseBatch([{ text: `${key}: ?`, start: 0 }]);
+  return a.ingredients.length === 0 && a.skipped.every((s) => s.kind === 'header');
+}
+let readable: ReadonlyArray<{ key: string; detail: string }> | undefined;
+/** The header keys the batch reader reads (asked once). */
+export const headerKeys = () => (readable ??= BATCH_HEADER_KEYS.filter((h) => readsAsHeader(h.key)));
 
 const UNIT_DETAIL: Record<UnitKind, string> = {
   mass: 'mass weighed',
@@ -220,7 +235,7 @@ export function completion(doc: AnalysedDocument, offset: number, settings: Serv
         .filter((k): k is string => !!k),
     );
     if (batch.ref.openName) given.add('name');
-    for (const h of BATCH_HEADER_KEYS) {
+    for (const h of headerKeys()) {
       if (given.has(h.key.toLowerCase()) || !matches(h.key, slot.word)) continue;
       push({ label: `${h.key}:`, kind: CompletionKind.Property, detail: h.detail, filterText: h.key, newText: `${h.key}: ` });
     }
