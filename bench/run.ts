@@ -210,6 +210,39 @@ async function serverCase() {
     await conn.sendRequest('textDocument/hover', { textDocument: { uri }, position });
     hovers.push(now() - a);
   }
+  // Typing features on the same note, the same number of requests as the hovers: completion at the start
+  // of a batch's ingredient line (after its first two characters), inlay hints for a screenful of lines.
+  const batchLines: Array<{ line: number; character: number }> = [];
+  let inBatch = false;
+  for (let i = 0; i < lines.length; i++) {
+    if (lines[i] === '```batch') inBatch = true;
+    else if (lines[i] === '```') inBatch = false;
+    else if (inBatch && !/^(name|volume):/.test(lines[i])) batchLines.push({ line: i, character: 2 });
+  }
+  const completions: number[] = [];
+  const hintTimes: number[] = [];
+  for (let k = 0; k < positions.length; k++) {
+    const position = batchLines[Math.floor(r() * batchLines.length)];
+    let a = now();
+    await conn.sendRequest('textDocument/completion', { textDocument: { uri }, position });
+    completions.push(now() - a);
+    const line = Math.floor(r() * Math.max(1, lines.length - 60));
+    a = now();
+    await conn.sendRequest('textDocument/inlayHint', {
+      textDocument: { uri },
+      range: { start: { line, character: 0 }, end: { line: line + 60, character: 0 } },
+    });
+    hintTimes.push(now() - a);
+  }
+  // Semantic tokens of the whole note: the first request computes every block's tokens; later ones reuse them.
+  const tokenTimes: number[] = [];
+  let tokenCount = 0;
+  for (let k = 0; k < (quick ? 3 : 6); k++) {
+    const a = now();
+    const res = (await conn.sendRequest('textDocument/semanticTokens/full', { textDocument: { uri } })) as { data: number[] };
+    tokenTimes.push(now() - a);
+    tokenCount = res.data.length / 5;
+  }
   // One-character edits, each re-validated (delay 0 in the settings above).
   const edits: number[] = [];
   let version = 1;
@@ -253,6 +286,39 @@ async function serverCase() {
     target: '< 2 ms',
     met: pct(hovers, 99) < 2,
   });
+  const hoverP99 = pct(hovers, 99);
+  rows.push({
+    case: 'completion p99 in batch lines of 1 MB, via the server',
+    ours: ms(pct(completions, 99)),
+    baseline: `hover p99 ${ms(hoverP99)}`,
+    ratio: pct(completions, 99) / hoverP99,
+    target: '≤ 2× hover p99',
+    met: pct(completions, 99) <= 2 * hoverP99,
+  });
+  rows.push({
+    case: 'inlay hints p99, 60 lines of 1 MB, via the server',
+    ours: ms(pct(hintTimes, 99)),
+    baseline: `hover p99 ${ms(hoverP99)}`,
+    ratio: pct(hintTimes, 99) / hoverP99,
+    target: '≤ 2× hover p99',
+    met: pct(hintTimes, 99) <= 2 * hoverP99,
+  });
+  rows.push({
+    case: `semantic tokens, 1 MB (${tokenCount} tokens), first request`,
+    ours: ms(tokenTimes[0]),
+    baseline: `markdown-it parse ${ms(mdParse)}`,
+    ratio: tokenTimes[0] / mdParse,
+    target: '≤ 100 ms',
+    met: tokenTimes[0] <= 100,
+  });
+  rows.push({
+    case: 'semantic tokens, 1 MB, again (blocks memoised)',
+    ours: ms(median(tokenTimes.slice(1))),
+    baseline: `markdown-it parse ${ms(mdParse)}`,
+    ratio: median(tokenTimes.slice(1)) / mdParse,
+    target: '≤ 100 ms',
+    met: median(tokenTimes.slice(1)) <= 100,
+  });
   rows.push({
     case: 'one-character edit re-validated, 1 MB, via the server',
     ours: ms(median(edits)),
@@ -270,6 +336,13 @@ async function serverCase() {
     editRevalidateMedianMs: median(edits),
     editRevalidateP90Ms: pct(edits, 90),
     markdownItParseMs: mdParse,
+    completionP50Ms: median(completions),
+    completionP99Ms: pct(completions, 99),
+    inlayHintsP50Ms: median(hintTimes),
+    inlayHintsP99Ms: pct(hintTimes, 99),
+    semanticTokensFirstMs: tokenTimes[0],
+    semanticTokensAgainMs: median(tokenTimes.slice(1)),
+    semanticTokens: tokenCount,
   };
 }
 

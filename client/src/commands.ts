@@ -34,6 +34,7 @@ export function planCommand(command: string, editor: EditorState | undefined): P
 
 /** The message to show after a server command ran. */
 export function resultMessage(command: string, result: unknown): string | undefined {
+  if (command === CLIENT_COMMANDS.copyWeighingList) return typeof result === 'string' ? 'Ionwright weighing list copied as plain text.' : 'No batch here.';
   if (command === CLIENT_COMMANDS.copyCard) return typeof result === 'string' ? 'Ionwright card copied as Markdown.' : 'No formula under the cursor.';
   const r = result as { applied?: boolean; reason?: string } | null;
   if (!r) return 'Nothing to tabulate here.';

@@ -1,109 +1,19 @@
 /**
- * The VS Code client: starts the Ionwright language server over IPC, registers the commands, and extends
- * the built-in Markdown preview with Ionwright's markdown-it plugin.
+ * The VS Code client on the desktop: the Ionwright language server runs in a Node process of its own,
+ * over IPC (dist/server.js). Everything else is shared with the browser entry (activate.ts).
  */
 import * as path from 'node:path';
-import * as vscode from 'vscode';
-import { LanguageClient, TransportKind, type LanguageClientOptions, type ServerOptions } from 'vscode-languageclient/node';
-import type { MarkdownIt } from 'markdown-it';
-import { readPreviewOptions } from '../../server/src/service/config';
-import { ionwrightPreview, type PreviewOptions } from '../../server/src/service/preview';
-import { CLIENT_COMMANDS, NOTES_LANGUAGES, planCommand, resultMessage, type EditorState } from './commands';
-import { ServerLifecycle } from './lifecycle';
-
-let client: LanguageClient | undefined;
-let lifecycleOfClient: ServerLifecycle | undefined;
-
-function editorState(): EditorState | undefined {
-  const e = vscode.window.activeTextEditor;
-  if (!e) return undefined;
-  const s = e.selection;
-  return {
-    uri: e.document.uri.toString(),
-    languageId: e.document.languageId,
-    selection: { start: { line: s.start.line, character: s.start.character }, end: { line: s.end.line, character: s.end.character } },
-  };
-}
+import type * as vscode from 'vscode';
+import { LanguageClient, TransportKind, type ServerOptions } from 'vscode-languageclient/node';
+import { activateIonwright, deactivateIonwright } from './activate';
 
 export function activate(context: vscode.ExtensionContext) {
-  const output = vscode.window.createOutputChannel('Ionwright', { log: true });
   const module = context.asAbsolutePath(path.join('dist', 'server.js'));
   const serverOptions: ServerOptions = {
     run: { module, transport: TransportKind.ipc },
     debug: { module, transport: TransportKind.ipc, options: { execArgv: ['--nolazy', '--inspect=6019'] } },
   };
-  const clientOptions: LanguageClientOptions = {
-    // The server reads nothing from disk (the editor sends the text), so notes of any scheme are served:
-    // files, untitled notes and virtual workspaces alike.
-    documentSelector: NOTES_LANGUAGES.map((language) => ({ language })),
-    outputChannel: output,
-    synchronize: { configurationSection: 'ionwright' },
-  };
-  client = new LanguageClient('ionwright', 'Ionwright', serverOptions, clientOptions);
-
-  // The server starts when the first note is open and stops a minute after the last one is closed.
-  const lifecycle = new ServerLifecycle({
-    start: () => client!.start(),
-    stop: () => client!.stop(),
-    openDocuments: () => vscode.workspace.textDocuments,
-    setTimer: (fn, ms) => setTimeout(fn, ms),
-    clearTimer: (h) => clearTimeout(h as ReturnType<typeof setTimeout>),
-    log: (line) => output.info(line),
-  });
-  lifecycleOfClient = lifecycle;
-
-  const runServerCommand = (command: string) => async () => {
-    const plan = planCommand(command, editorState());
-    if (plan.kind === 'error') {
-      void vscode.window.showWarningMessage(plan.message);
-      return;
-    }
-    try {
-      await lifecycle.ensureRunning();
-      const result = await client?.sendRequest('workspace/executeCommand', { command: plan.command, arguments: plan.args });
-      if (command === CLIENT_COMMANDS.copyCard && typeof result === 'string') await vscode.env.clipboard.writeText(result);
-      const msg = resultMessage(command, result);
-      if (msg) void vscode.window.showInformationMessage(msg);
-    } catch (e) {
-      output.info(`${command} failed: ${(e as Error).message}`);
-      void vscode.window.showErrorMessage(`Ionwright: ${(e as Error).message}`);
-    }
-  };
-
-  context.subscriptions.push(
-    output,
-    vscode.commands.registerCommand(CLIENT_COMMANDS.insertTable, runServerCommand(CLIENT_COMMANDS.insertTable)),
-    vscode.commands.registerCommand(CLIENT_COMMANDS.insertSectionTable, runServerCommand(CLIENT_COMMANDS.insertSectionTable)),
-    vscode.commands.registerCommand(CLIENT_COMMANDS.copyCard, runServerCommand(CLIENT_COMMANDS.copyCard)),
-    vscode.commands.registerCommand(CLIENT_COMMANDS.restartServer, async () => {
-      output.info('Restarting the Ionwright server.');
-      if (lifecycle.isRunning) await client?.restart();
-      else await lifecycle.ensureRunning();
-    }),
-    vscode.workspace.onDidOpenTextDocument(() => void lifecycle.update()),
-    vscode.workspace.onDidCloseTextDocument(() => void lifecycle.update()),
-    vscode.commands.registerCommand(CLIENT_COMMANDS.showOutput, () => output.show(true)),
-  );
-  // The preview reads the settings once per change, not once per render.
-  let previewOptions: PreviewOptions = readPreviewOptions(vscode.workspace.getConfiguration().get('ionwright'));
-  context.subscriptions.push(
-    vscode.workspace.onDidChangeConfiguration((e) => {
-      if (!e.affectsConfiguration('ionwright')) return;
-      previewOptions = readPreviewOptions(vscode.workspace.getConfiguration().get('ionwright'));
-      void vscode.commands.executeCommand('markdown.preview.refresh');
-    }),
-  );
-
-  // Not awaited: the preview plugin must not wait for the server.
-  void lifecycle.update();
-
-  return {
-    extendMarkdownIt(md: MarkdownIt) {
-      return md.use(ionwrightPreview, () => previewOptions);
-    },
-  };
+  return activateIonwright(context, (clientOptions) => new LanguageClient('ionwright', 'Ionwright', serverOptions, clientOptions));
 }
 
-export async function deactivate() {
-  await lifecycleOfClient?.dispose();
-}
+export const deactivate = deactivateIonwright;

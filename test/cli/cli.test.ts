@@ -209,8 +209,10 @@ describe('ionwright --help and --version', () => {
     expect(all.length).toBeGreaterThanOrEqual(10);
     const scratch = mkdtempSync(join(tmpdir(), 'ionwright-help-'));
     for (const ex of all) {
-      const args = ex.args.map((a) => (a.endsWith('.html') ? join(scratch, a) : a));
+      // Pages and SARIF logs go to the scratch folder; a log an example writes is there for the next (merge-sarif).
+      const args = ex.args.map((a) => (a.endsWith('.html') || a.endsWith('.sarif') ? join(scratch, a) : a));
       const r = spawnSync('node', [CLI, ...args], { cwd: root, encoding: 'utf8', env: { ...process.env, ...ex.env } });
+      if (ex.stdoutTo?.endsWith('.sarif')) writeFileSync(join(scratch, ex.stdoutTo), r.stdout);
       expect([0, 1], `${ex.args.join(' ')}: ${r.stderr}`).toContain(r.status);
       const html = args.find((a) => a.endsWith('.html'));
       if (html) expect(readFileSync(html, 'utf8'), ex.args.join(' ')).toMatch(/^<!doctype html>/);

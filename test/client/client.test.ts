@@ -11,7 +11,8 @@ import { readSettings } from '../../server/src/service/config';
 import { DebouncedValidator, type Timers } from '../../server/src/server/validator';
 
 const pkg = JSON.parse(readFileSync(join(__dirname, '../../package.json'), 'utf8'));
-const extensionSource = readFileSync(join(__dirname, '../../client/src/extension.ts'), 'utf8');
+// The commands are registered where both entries (desktop and browser) share the activation.
+const extensionSource = readFileSync(join(__dirname, '../../client/src/activate.ts'), 'utf8');
 const settingsSource = readFileSync(join(__dirname, '../../server/src/service/config.ts'), 'utf8');
 
 describe('client commands', () => {

@@ -7,7 +7,7 @@
 import MarkdownIt from 'markdown-it';
 import Module from 'node:module';
 import { join } from 'node:path';
-import { afterAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 /** Everything the bundle touches on `vscode` at load time: namespaces and classes (stand-ins). */
 const NAMES = (
@@ -34,6 +34,14 @@ const executed: string[] = [];
 let onConfigChange: ((e: { affectsConfiguration(s: string): boolean }) => void) | undefined;
 const special: Record<string, unknown> = {
   version: '1.91.0',
+  // The browser entry finds its server's worker script under the extension's URI.
+  Uri: new Proxy(
+    {},
+    {
+      get: (_t, p) =>
+        p === 'joinPath' ? (base: { path: string }, ...parts: string[]) => ({ toString: () => [base.path, ...parts].join('/') }) : stub(`Uri.${String(p)}`),
+    },
+  ),
   workspace: new Proxy(
     {},
     {
@@ -95,5 +103,39 @@ describe('the bundled client', () => {
     const before = executed.length;
     onConfigChange?.({ affectsConfiguration: (s) => s === 'editor' });
     expect(executed.length).toBe(before);
+  });
+});
+
+describe('the bundled browser client (package.json browser)', () => {
+  // VS Code for the Web starts the server in a Web Worker made from the extension's own files.
+  const created: string[] = [];
+  const g = globalThis as { Worker?: unknown };
+  const before = g.Worker;
+  g.Worker = class {
+    constructor(url: string) {
+      created.push(url);
+    }
+    postMessage() {}
+    addEventListener() {}
+    removeEventListener() {}
+    terminate() {}
+  };
+  afterAll(() => {
+    g.Worker = before;
+  });
+  // Activated once the desktop bundle's tests are done (the stand-in keeps one configuration listener).
+  let api: { extendMarkdownIt(md: InstanceType<typeof MarkdownIt>): InstanceType<typeof MarkdownIt> };
+  beforeAll(() => {
+    const ext = Module.createRequire(__filename)(join(__dirname, '../../dist/browser/extension.js'));
+    api = ext.activate({ subscriptions: [], extensionUri: { path: '/ext' } });
+  });
+
+  it('starts the server from dist/browser/server.js in a worker', () => {
+    expect(created).toEqual(['/ext/dist/browser/server.js']);
+  });
+
+  it('returns extendMarkdownIt, which typesets formulas in the preview', () => {
+    const md = api.extendMarkdownIt(new MarkdownIt());
+    expect(md.render('`CuSO4.5H2O`')).toContain('CuSO<sub>4</sub><span class="iw-dot">·</span>5H<sub>2</sub>O');
   });
 });

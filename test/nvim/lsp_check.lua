@@ -8,13 +8,14 @@
 -- hover on the first code span holding each [hover text] (default: NaCl), shuts the server down and
 -- writes everything it saw to <out.json>. On any failure it still writes <out.json>, with an `error`
 -- field, and exits non-zero. IONWRIGHT_NVIM_TIMEOUT_MS bounds each wait (default 15000 ms); a
--- watchdog bounds the whole run.
+-- watchdog bounds the whole run. IONWRIGHT_NVIM_REQUESTS names a JSON file of further requests (see
+-- below: completion, definition, workspace symbols, code lenses).
 --
 -- Only Neovim 0.7 APIs are used (vim.lsp.start_client / buf_attach_client, not vim.lsp.start).
 
 local started = vim.loop.hrtime()
 local step_timeout = tonumber(os.getenv('IONWRIGHT_NVIM_TIMEOUT_MS') or '') or 15000
-local watchdog_ms = 3 * step_timeout + 5000
+local watchdog_ms = 6 * step_timeout + 5000
 
 -- Paths: arguments are made absolute against the current directory; the server is found from here.
 local this_file = debug.getinfo(1, 'S').source:gsub('^@', '')
@@ -302,6 +303,64 @@ local function main()
       entry.kind = type(contents) == 'table' and contents.kind or vim.NIL
       entry.markdown = type(contents) == 'table' and contents.value or contents
       entry.range = result.range or vim.NIL
+    end
+  end
+
+  -- Further requests, from the JSON file named by IONWRIGHT_NVIM_REQUESTS: a list of
+  -- {method, target, at, params}. The position is `at` UTF-16 units into the first occurrence of
+  -- `target` in the note (a plain search); `params` is merged into {textDocument, position}. Each answer
+  -- is recorded in report.requests, in order. A `jump` entry also lets Neovim jump to the first location
+  -- of the answer (vim.lsp.util.jump_to_location) and records where the cursor went.
+  report.requests = {}
+  local requests_file = os.getenv('IONWRIGHT_NVIM_REQUESTS')
+  if requests_file and requests_file ~= '' then
+    local f = io.open(requests_file, 'r')
+    if not f then
+      fail('cannot read ' .. requests_file)
+    end
+    local list = vim.fn.json_decode(f:read('*a'))
+    f:close()
+    local lines = vim.api.nvim_buf_get_lines(bufnr, 0, -1, false)
+    for _, r in ipairs(list) do
+      local entry = { method = r.method, target = r.target }
+      table.insert(report.requests, entry)
+      local params = { textDocument = { uri = uri } }
+      if r.target and r.target ~= vim.NIL then
+        local found
+        for lnum, line in ipairs(lines) do
+          local s = line:find(r.target, 1, true)
+          if s then
+            found = { line = lnum - 1, character = utf16_length(line:sub(1, s - 1)) + (r.at or 0) }
+            break
+          end
+        end
+        if not found then
+          fail('request target not found in the note: ' .. r.target)
+        end
+        params.position = found
+        entry.position = found
+      end
+      for k, v in pairs(r.params or {}) do
+        params[k] = v
+      end
+      local responses, err = vim.lsp.buf_request_sync(bufnr, r.method, params, step_timeout)
+      if not responses then
+        fail(r.method .. ' failed: ' .. tostring(err))
+      end
+      local response = responses[client_id]
+      if not response then
+        fail('no ' .. r.method .. ' response from the ionwright client')
+      end
+      if response.error then
+        fail(r.method .. ' answered with an error: ' .. vim.inspect(response.error))
+      end
+      entry.result = response.result == nil and vim.NIL or response.result
+      if r.jump and type(response.result) == 'table' and response.result[1] then
+        vim.lsp.util.jump_to_location(response.result[1], 'utf-16')
+        local cursor = vim.api.nvim_win_get_cursor(0)
+        entry.jumped = { buffer = vim.api.nvim_buf_get_name(0), line = cursor[1] - 1, byte_col = cursor[2] }
+        vim.api.nvim_set_current_buf(bufnr)
+      end
     end
   end
 

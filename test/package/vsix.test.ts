@@ -65,6 +65,8 @@ describe('the .vsix', () => {
       'dist/extension.js',
       'dist/server.js',
       'dist/cli.js',
+      'dist/browser/server.js',
+      'dist/browser/extension.js',
       'media/preview.css',
       'media/icon.png',
       'readme.md',
@@ -94,6 +96,7 @@ describe('the .vsix', () => {
   it('every file the manifest points at is in the package', () => {
     const paths = [
       manifest.main,
+      manifest.browser,
       manifest.icon,
       ...manifest.contributes['markdown.previewStyles'],
       ...manifest.contributes.grammars.map((g: { path: string }) => g.path),

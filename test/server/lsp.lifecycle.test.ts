@@ -254,6 +254,13 @@ describe('hostile requests', () => {
         'textDocument/codeAction',
         'textDocument/documentSymbol',
         'textDocument/codeLens',
+        'textDocument/completion',
+        'textDocument/inlayHint',
+        'textDocument/semanticTokens/full',
+        'textDocument/semanticTokens/range',
+        'textDocument/foldingRange',
+        'textDocument/definition',
+        'workspace/symbol',
         'workspace/executeCommand',
         'textDocument/didChange',
         'textDocument/didOpen',
@@ -280,10 +287,18 @@ describe('hostile requests', () => {
           { requiredKeys: [] },
         ),
         fc.record({
-          command: fc.constantFrom('ionwright.server.insertTable', 'ionwright.server.insertTableAt', 'ionwright.server.cardMarkdown', 'x'),
+          command: fc.constantFrom(
+            'ionwright.server.insertTable',
+            'ionwright.server.insertTableAt',
+            'ionwright.server.cardMarkdown',
+            'ionwright.server.weighingList',
+            'x',
+          ),
           arguments: fc.array(fc.jsonValue(), { maxLength: 2 }),
         }),
       );
+      const logged: string[] = [];
+      conn.onNotification('window/logMessage', (m: { message: string }) => void logged.push(m.message));
       const sample = fc.sample(fc.tuple(fc.constantFrom(...methods), params), { numRuns: 2000, seed: 1312 });
       const answers: Array<Promise<unknown>> = [];
       for (const [m, p] of sample) {
@@ -304,6 +319,8 @@ describe('hostile requests', () => {
       expect(h).toBeNull();
       expect(proc.exitCode).toBeNull();
       expect(stderr()).not.toMatch(/\n\s+at /);
+      // No handler met an exception it did not expect (those are logged as '<request> failed: …').
+      expect(logged.filter((l) => / failed: /.test(l))).toEqual([]);
     } finally {
       proc.kill();
     }

@@ -14,6 +14,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 const ROOT = join(__dirname, '../..');
 const SCRIPT = join(ROOT, 'test/nvim/lsp_check.lua');
 const NOTE = join(ROOT, 'test/fixtures/nvim-note.md');
+const TYPING_NOTE = join(ROOT, 'test/fixtures/nvim-typing-note.md');
 const SERVER = join(ROOT, 'dist/server.js');
 
 function onPath(name: string): string | undefined {
@@ -49,6 +50,13 @@ interface Report {
   nvim_diagnostics: { code: string; source: string; severity: number; text: string }[];
   hovers: { target: string; position: { line: number; character: number }; kind?: string; markdown?: string | null; range?: LspRange }[];
   server_exit?: { code: number; signal: number };
+  requests?: {
+    method: string;
+    target?: string;
+    position?: { line: number; character: number };
+    result: any;
+    jumped?: { buffer: string; line: number; byte_col: number };
+  }[];
   duration_ms: number;
 }
 
@@ -59,13 +67,14 @@ function runCheck(
   name: string,
   hoverTargets: string[],
   env: Record<string, string> = {},
+  note = NOTE,
 ): { proc: SpawnSyncReturns<string>; report: Report | undefined; ms: number } {
   const home = join(work, name);
   mkdirSync(home, { recursive: true });
   const out = join(home, 'report.json');
   const xdg = Object.fromEntries(['CONFIG', 'DATA', 'STATE', 'CACHE'].map((k) => [`XDG_${k}_HOME`, join(home, k.toLowerCase())]));
   const t0 = Date.now();
-  const proc = spawnSync(NVIM!, ['--headless', '--clean', '-u', 'NONE', '-n', '-S', SCRIPT, NOTE, out, ...hoverTargets], {
+  const proc = spawnSync(NVIM!, ['--headless', '--clean', '-u', 'NONE', '-n', '-S', SCRIPT, note, out, ...hoverTargets], {
     cwd: ROOT,
     encoding: 'utf8',
     timeout: 60_000,
@@ -189,4 +198,71 @@ describe.skipIf(!NVIM)('Neovim built-in LSP client against dist/server.js', () =
     expect(r.proc.status).not.toBe(0);
     expect(r.report?.error).toMatch(/hover target not found in the note: KMnO4/);
   }, 70_000);
+});
+
+/**
+ * The typing and navigation requests that Neovim's client (0.7+) supports itself: completion,
+ * definition (and Neovim jumping to it), workspace symbols and code lenses. (Inlay hints, semantic tokens
+ * and folding ranges come to its client in later versions; the stdio and browser tests cover them.)
+ */
+describe.skipIf(!NVIM)('Neovim built-in LSP client: completion, definition, symbols, lenses', () => {
+  const note = readFileSync(TYPING_NOTE, 'utf8');
+  let run: ReturnType<typeof runCheck>;
+  const requests = [
+    { method: 'textDocument/completion', target: 'Na', at: 2 },
+    { method: 'textDocument/completion', target: 'NiCl2·6H2O 0.25 M', at: 'NiCl2·6H2O 0.25 '.length },
+    { method: 'textDocument/definition', target: 'through Wood strike W-3', at: 'through Wo'.length, jump: true },
+    { method: 'workspace/symbol', params: { query: 'wood' } },
+    { method: 'textDocument/codeLens' },
+  ];
+
+  beforeAll(() => {
+    if (!existsSync(SERVER)) throw new Error(`${SERVER} is missing: run npm run build (npm test builds first).`);
+    work = mkdtempSync(join(tmpdir(), 'ionwright-nvim-'));
+    const file = join(work, 'requests.json');
+    writeFileSync(file, JSON.stringify(requests));
+    run = runCheck('typing', ['NiCl2·6H2O'], { IONWRIGHT_NVIM_REQUESTS: file }, TYPING_NOTE);
+    const { proc, report } = run;
+    if (proc.error || proc.status !== 0 || !report || report.error)
+      throw new Error(`lsp_check.lua failed (status ${proc.status}, ${run.ms} ms): ${report?.error ?? 'no report'}\nstderr: ${proc.stderr}`);
+  }, 70_000);
+
+  afterAll(() => {
+    if (work) rmSync(work, { recursive: true, force: true });
+  });
+
+  const answer = (k: number) => run.report!.requests![k];
+  const lineOf = (needle: string) => note.split('\n').findIndex((l) => l.includes(needle));
+
+  it('gets substances at the start of a batch line, with molar masses and edits replacing what was typed', () => {
+    const items = answer(0).result.items as Array<{ label: string; detail?: string; textEdit: { range: LspRange; newText: string } }>;
+    const nacl = items.find((i) => i.label === 'NaCl')!;
+    // CIAAW 2021: Na 22.990 + Cl 35.45 = 58.44 g/mol.
+    expect(nacl.detail).toBe('58.44 g/mol');
+    expect(nacl.textEdit).toEqual({ range: { start: { line: lineOf('Na'), character: 0 }, end: { line: lineOf('Na'), character: 2 } }, newText: 'NaCl ' });
+  });
+
+  it('gets the units an ingredient line accepts after its amount', () => {
+    const labels = (answer(1).result.items as Array<{ label: string }>).map((i) => i.label);
+    expect(labels).toEqual(expect.arrayContaining(['g', 'mg', 'mol', 'M', 'mM', 'wt%']));
+  });
+
+  it('jumps from the batch name in prose to its name: line', () => {
+    const line = lineOf('name: Wood strike W-3');
+    expect(answer(2).result).toEqual([{ uri: run.report!.uri, range: { start: { line, character: 6 }, end: { line, character: 21 } } }]);
+    // Neovim moved its cursor there (byte column 6: the line is ASCII up to the name).
+    expect(answer(2).jumped).toMatchObject({ line, byte_col: 6 });
+  });
+
+  it('finds the batch by name among the workspace symbols', () => {
+    const syms = answer(3).result as Array<{ name: string; location: { uri: string } }>;
+    expect(syms.map((s) => [s.name, s.location.uri])).toEqual([['Wood strike W-3', run.report!.uri]]);
+  });
+
+  it('gets the three lenses above the batch', () => {
+    const lenses = answer(4).result as Array<{ command: { title: string; command: string } }>;
+    expect(lenses.map((l) => l.command.command)).toEqual(['', 'ionwright.server.insertTableAt', 'ionwright.copyWeighingList']);
+    expect(lenses[0].command.title).toMatch(/^2 ingredients · ⚠ 1 line not counted \(incomplete\) · /);
+    expect(lenses.slice(1).map((l) => l.command.title)).toEqual(['Insert table', 'Copy as weighing list']);
+  });
 });

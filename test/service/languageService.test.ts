@@ -52,7 +52,13 @@ describe('createLanguageService', () => {
   it('tables, symbols, lenses, cards and batches', () => {
     const { doc, position } = at('# Bench\n\n```batch\nname: Rinse A\nvolume: 1 L\nNa|Cl 1 g\n```\n');
     expect(ls.documentSymbols(doc).map((s) => s.name)).toEqual(['Bench']);
-    expect(ls.codeLenses(doc)).toHaveLength(1);
+    // Three lenses on the batch: its totals, inserting its table, copying it as a weighing list.
+    expect(ls.codeLenses(doc).map((l) => [l.title.replace(/^1 ingredient · .*/, 'totals'), l.action])).toEqual([
+      ['totals', 'none'],
+      ['Insert table', 'insertTable'],
+      ['Copy as weighing list', 'copyWeighingList'],
+    ]);
+    expect(ls.weighingListAt(doc, { line: 2, character: 0 })).toMatch(/^Rinse A, final volume 1 L\n/);
     expect(ls.batchesJson(doc)[0]).toMatchObject({ name: 'Rinse A', volumeL: 1 });
     expect(ls.tables(doc)).toContain('Rinse A');
     expect(ls.cardMarkdownAt(doc, position)).toContain('58.44');

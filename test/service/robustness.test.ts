@@ -14,10 +14,12 @@ import { analyseDocument } from '../../server/src/service/document';
 import { hover } from '../../server/src/service/hover';
 import { codeActions } from '../../server/src/service/actions';
 import { documentTables } from '../../server/src/service/tables';
+import { createLanguageService } from '../../server/src/service/languageService';
 import { run, type CliIO } from '../../server/src/cli/main';
 import type { NotesLanguage } from '../../server/src/notes/types';
 
 const HANG = 5000;
+const ls = createLanguageService();
 const timed = <T>(fn: () => T): T => {
   const t0 = Date.now();
   const r = fn();
@@ -77,11 +79,22 @@ describe('fuzzing the notes scanner and the whole analysis', () => {
           (text) => {
             const doc = checkDocument(text, language);
             // Hovers and code actions anywhere answer without throwing.
+            const notes = [ls.noteSummary(doc, 'file:///fuzz.md')];
             for (let o = 0; o <= text.length; o += 7) {
               hover(doc, o);
               codeActions(doc, o, o);
+              // And the typing features.
+              const p = doc.lines.positionAt(o);
+              ls.completion(doc, p, notes[0].vocabulary);
+              ls.definition(doc, p, notes);
+              ls.weighingListAt(doc, p);
             }
             documentTables(doc);
+            const whole = { start: { line: 0, character: 0 }, end: doc.lines.positionAt(text.length) };
+            for (const h of ls.inlayHints(doc, whole)) expect(h.label).toMatch(/^⇒ \d/);
+            ls.semanticTokens(doc);
+            ls.foldingRanges(doc).forEach((f) => expect(f.endLine).toBeGreaterThan(f.startLine));
+            ls.workspaceSymbols(notes, 'a');
           },
         ),
         { numRuns: 1500 },

@@ -1,5 +1,6 @@
 /**
- * `ionwright check <path>... [--format text|json|sarif] [--jobs <n>|auto]`: the findings of notes files.
+ * `ionwright check <path>... [--format text|json|sarif] [--jobs <n>|auto] [--shard <i>/<n>]`: the findings
+ * of notes files (of the i-th of n parts of them with --shard: shard.ts).
  *
  * Files are read here (through `CliIO`) and analysed either in this thread or, for larger inputs, in a
  * pool of worker threads (see pool.ts); both give the same findings, printed in the sorted file order.
@@ -12,6 +13,7 @@ import { relative, resolve } from 'node:path';
 import type { LspDiagnostic } from '../service/diagnostics';
 import { emptyReport, parse, readFiles, skippedLinksLine, UsageError, type CliIO, type InputReport } from './io';
 import { checkHere, checkInWorkers, type CheckJob, type CheckOutcome } from './pool';
+import { inShard, readShard } from './shard';
 import { writeSarif } from './sarif';
 import { diagnosticJson, findingLine, OutputWriter, visibleLine, writeJsonArray } from './text';
 
@@ -79,14 +81,23 @@ export function progressLine(io: CliIO, total: number) {
 }
 
 export async function cmdCheck(args: string[], io: CliIO): Promise<number> {
-  const { values, positionals } = parse(args, { format: { type: 'string' }, jobs: { type: 'string' } });
+  const { values, positionals } = parse(args, { format: { type: 'string' }, jobs: { type: 'string' }, shard: { type: 'string' } });
   const format = values.format ?? 'text';
   if (format !== 'text' && format !== 'json' && format !== 'sarif') throw new UsageError(`unknown format '${format}' (use text, json or sarif)`);
   const setting = readJobs(values.jobs as string | undefined, io.env?.IONWRIGHT_JOBS);
   if (positionals.length === 0) throw new UsageError('check needs at least one file or folder');
 
+  const shard = values.shard !== undefined ? readShard(values.shard as string) : undefined;
+
   const report = emptyReport();
-  const jobs: CheckJob[] = readFiles(positionals, io, report);
+  const mine = (path: string) => inShard(shard, path, io.cwd);
+  let found = 0;
+  const jobs: CheckJob[] = readFiles(positionals, io, report, (path) => (found++, mine(path)));
+  // What the walk reports about a path is reported by the part the path falls in.
+  if (shard) {
+    report.problems = report.problems.filter((p) => mine(p.path));
+    report.links = report.links.filter((l) => mine(l.path));
+  }
   const problems = report.problems;
   const chars = jobs.reduce((n, job) => n + job.text.length, 0);
 
@@ -143,7 +154,8 @@ export async function cmdCheck(args: string[], io: CliIO): Promise<number> {
       }
     }
     const n = results.length;
-    w.line(`${n} file${n === 1 ? '' : 's'} checked: ${errors} error${errors === 1 ? '' : 's'}, ${warnings} warning${warnings === 1 ? '' : 's'}.`);
+    const part = shard ? ` (part ${shard.index} of ${shard.count}; ${found} file${found === 1 ? '' : 's'} found in all)` : '';
+    w.line(`${n} file${n === 1 ? '' : 's'} checked${part}: ${errors} error${errors === 1 ? '' : 's'}, ${warnings} warning${warnings === 1 ? '' : 's'}.`);
   }
   await w.flush();
   if (notice) io.err(`ionwright: note: ${notice}`);

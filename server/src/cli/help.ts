@@ -24,6 +24,7 @@ Usage: ionwright <command> [arguments] [flags]
 Commands:
   ionwright card <formula>... [--json]        the card of each formula: molar mass, ions, charge balance, bonding
   ionwright check <path>... [flags]           the findings in notes files (folders are read recursively)
+  ionwright merge-sarif <file.sarif>...       the SARIF logs of several check --shard jobs as one log
   ionwright balance "<equation>" [--json]     balance a reaction
   ionwright batch <path>... [--json]          the arithmetic of every batch block in notes files (folders too)
   ionwright table <path>...                   the Markdown tables the editor inserts, for notes files (folders too)
@@ -35,6 +36,7 @@ Flags of check:
                              json: an array of LSP diagnostics; sarif: SARIF 2.1.0 for code scanning
   --jobs <n>|auto            worker threads for many files: auto (default) uses them only for large
                              inputs on 4 or more cores, 1 checks in one thread, n > 1 up to n threads
+  --shard <i>/<n>            only the i-th of n disjoint parts of the files, split by path (CI matrices)
 Flags of card, balance and batch:
   --json                     JSON instead of text
 Everywhere:
@@ -58,7 +60,7 @@ Examples (on the demo notes in examples/):
 
 ${EXIT}`;
 
-const CHECK = `Usage: ionwright check <path>... [--format text|json|sarif] [--jobs <n>|auto]
+const CHECK = `Usage: ionwright check <path>... [--format text|json|sarif] [--jobs <n>|auto] [--shard <i>/<n>]
 
 The findings in Markdown (.md, .markdown) and notes (.fnote) files: unknown elements, unreadable
 formulas, charge imbalances, unbalanced reactions, mistakes in batch blocks. Findings come in sorted
@@ -74,6 +76,10 @@ Flags:
                      least 8 files and 2 million characters; otherwise one thread
   --jobs 1           everything in one thread
   --jobs <n>         up to n worker threads, whatever the size of the input
+  --shard <i>/<n>    only the files of the i-th of n disjoint parts (1 ≤ i ≤ n), so that n CI jobs
+                     together check every file once; a file's part depends on its path relative to
+                     the folder check runs in, so every job splits alike. Merge the jobs' SARIF
+                     logs with 'ionwright merge-sarif'
   -h, --help         this help
 
 Environment:
@@ -91,8 +97,26 @@ Examples:
   ionwright check examples/rinse-trials.md --format json
   ionwright check examples/ --format sarif > ionwright.sarif
   ionwright check examples/ --jobs 2
+  ionwright check examples/ --shard 1/2 --format sarif > shard-1.sarif
+  ionwright check examples/ --shard 2/2 --format sarif > shard-2.sarif
 
 ${EXIT}`;
+
+const MERGE_SARIF = `Usage: ionwright merge-sarif <file.sarif>...
+
+The SARIF logs written by 'ionwright check --shard <i>/<n> --format sarif' in n jobs, printed as one
+log with one run: every rule once, every result ordered by file as an unsharded check orders them, one
+invocation per log (the run is successful only if every job's was). Upload that one log to a code
+scanning service. Logs not written by Ionwright are refused.
+
+Flags:
+  -h, --help   this help
+
+Examples (after the two --shard examples of 'ionwright check --help'):
+  ionwright merge-sarif shard-1.sarif shard-2.sarif > ionwright.sarif
+
+Exit status: 0 merged; 2 a file that cannot be read or is not an Ionwright SARIF 2.1.0 log (one line
+on stderr).`;
 
 const CARD = `Usage: ionwright card <formula>... [--json]
 
@@ -193,7 +217,16 @@ Example:
 
 ${EXIT}`;
 
-export const COMMAND_HELP: Record<string, string> = { card: CARD, check: CHECK, balance: BALANCE, batch: BATCH, table: TABLE, report: REPORT, demo: DEMO };
+export const COMMAND_HELP: Record<string, string> = {
+  card: CARD,
+  check: CHECK,
+  'merge-sarif': MERGE_SARIF,
+  balance: BALANCE,
+  batch: BATCH,
+  table: TABLE,
+  report: REPORT,
+  demo: DEMO,
+};
 
 /** `--help` or `-h` among a command's arguments (before a `--` that ends the flags). */
 export function asksForHelp(args: string[]): boolean {

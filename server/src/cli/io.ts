@@ -498,10 +498,11 @@ function readNote(io: CliIO, path: string): string {
   return text;
 }
 
-/** Read the notes files the paths name; a file that cannot be read, or is not text, is reported and skipped. */
-export function readFiles(paths: string[], io: CliIO, report: InputReport): ReadFile[] {
+/** Read the notes files the paths name (those `keep` keeps); a file that cannot be read, or is not text, is reported and skipped. */
+export function readFiles(paths: string[], io: CliIO, report: InputReport, keep: (path: string) => boolean = () => true): ReadFile[] {
   const out: ReadFile[] = [];
   for (const path of collectFiles(paths, io, report)) {
+    if (!keep(path)) continue;
     try {
       out.push({ path, text: readNote(io, path) });
     } catch (e) {

@@ -9,6 +9,7 @@
  */
 import { createLanguageService } from '../service/languageService';
 import { cmdCheck } from './check';
+import { cmdMergeSarif } from './sarifMerge';
 import { extraCommands } from './commands';
 import { asksForHelp, COMMAND_HELP, OVERVIEW } from './help';
 import { EXIT_OUTPUT_CLOSED, nodeIO, OutputClosed, parse, UsageError, type CliIO } from './io';
@@ -26,7 +27,7 @@ function cmdCard(args: string[], io: CliIO): number {
   return positionals.some((p) => service.formula(p).diagnostics.some((d) => d.severity === 'error')) ? 1 : 0;
 }
 
-const builtIn: Record<string, (args: string[], io: CliIO) => number | Promise<number>> = { card: cmdCard, check: cmdCheck };
+const builtIn: Record<string, (args: string[], io: CliIO) => number | Promise<number>> = { card: cmdCard, check: cmdCheck, 'merge-sarif': cmdMergeSarif };
 
 /** The IO a command sees: what it prints made safe for a terminal. */
 function shown(io: CliIO): CliIO {

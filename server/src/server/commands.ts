@@ -57,6 +57,11 @@ export function commandHandler(connection: Connection, workspace: NotesWorkspace
           ? apply(snap, snap.service.tableEdit(snap.doc, { section: arg.position }), 'Insert Ionwright section tables')
           : apply(snap, snap.service.tableEdit(snap.doc, { at: arg.position }), 'Insert Ionwright table');
       }
+      case SERVER_COMMANDS.weighingList: {
+        if (typeof arg.uri !== 'string' || !isPosition(arg.position)) throw invalidParams('weighingList needs {uri, position}');
+        const snap = snapshotFor(arg.uri);
+        return snap ? snap.service.weighingListAt(snap.doc, arg.position) : null;
+      }
       default:
         throw new ResponseError(ErrorCodes.MethodNotFound, `unknown command ${String(params.command)}`);
     }

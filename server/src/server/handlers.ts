@@ -1,11 +1,12 @@
 /**
  * The server's handlers: the document events (open, change, close, configuration) that drive validation,
  * and the language features (hover, code actions, symbols, code lenses), each a request checked and
- * converted to LSP types here, computed by the language service.
+ * converted to LSP types here, computed by the language service (the typing and navigation features:
+ * editing.ts).
  */
 import type { CodeAction as LspCodeAction, Connection } from 'vscode-languageserver';
 import type { Range } from '../service/languageService';
-import { SERVER_COMMANDS } from '../shared/commands';
+import { CLIENT_COMMANDS, SERVER_COMMANDS } from '../shared/commands';
 import { invalidParams, isRange, oneLine, positionOf, uriOf, type makeRequestWrapper } from './requests';
 import type { EditShape } from './server';
 import type { DebouncedValidator } from './validator';
@@ -14,7 +15,14 @@ import type { NotesWorkspace, Snapshot } from './workspace';
 type RequestWrapper = ReturnType<typeof makeRequestWrapper>;
 
 /** Open, change, close and configuration: what is validated when. */
-export function registerDocumentEvents(connection: Connection, workspace: NotesWorkspace, validator: DebouncedValidator, log: (line: string) => void) {
+export function registerDocumentEvents(
+  connection: Connection,
+  workspace: NotesWorkspace,
+  validator: DebouncedValidator,
+  log: (line: string) => void,
+  /** Called once the settings of every open note were read again after a configuration change. */
+  afterConfiguration: () => void = () => undefined,
+) {
   const { documents } = workspace;
   // TextDocuments reports an open as an open and a change; the open validates at once, the change is skipped.
   const justOpened = new Set<string>();
@@ -45,6 +53,7 @@ export function registerDocumentEvents(connection: Connection, workspace: NotesW
         await workspace.refreshSettings(td.uri);
         validator.schedule(td.uri, 0);
       }
+      afterConfiguration();
     })().catch((e) => log(`ionwright: configuration failed: ${oneLine(e)}`));
   });
 }
@@ -93,9 +102,17 @@ export function registerFeatures(connection: Connection, workspace: NotesWorkspa
     request('codeLens', (params) => {
       const snap = workspace.snapshot(uriOf(params));
       if (!snap) return null;
+      // The totals lens runs nothing (an empty command: shown, not clickable). Inserting a table is the
+      // server's command (any client can run it); copying to the clipboard is the editor's, so that lens
+      // names the client's command (VS Code; other clients can ask the server for the text with
+      // ionwright.server.weighingList).
+      const command = { none: '', insertTable: SERVER_COMMANDS.insertTableAt, copyWeighingList: CLIENT_COMMANDS.copyWeighingList } as const;
       return snap.service.codeLenses(snap.doc).map((l) => ({
         range: l.range,
-        command: { title: l.title, command: SERVER_COMMANDS.insertTableAt, arguments: [{ uri: snap.uri, position: l.range.start }] },
+        command:
+          l.action === 'none'
+            ? { title: l.title, command: '' }
+            : { title: l.title, command: command[l.action], arguments: [{ uri: snap.uri, position: l.range.start }] },
       }));
     }),
   );

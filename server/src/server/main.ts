@@ -18,6 +18,7 @@ import {
   type MessageReader,
   type MessageWriter,
 } from 'vscode-languageserver/node';
+import { nodeFolderReader } from './folder';
 import { lifecycleGate } from './lifecycle';
 import { startServer } from './server';
 
@@ -78,4 +79,4 @@ console.info = console.log;
 console.warn = (...args: unknown[]) => connection.console.warn(args.map(String).join(' '));
 console.error = (...args: unknown[]) => connection.console.error(args.map(String).join(' '));
 
-startServer(connection, { collectGarbage: collector() });
+startServer(connection, { collectGarbage: collector(), folder: nodeFolderReader });

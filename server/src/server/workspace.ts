@@ -10,6 +10,8 @@ import { readSettings, type ServerSettings } from '../service/config';
 import { createLanguageService, type AnalysedDocument, type ChangeHint, type LanguageService } from '../service/languageService';
 
 export function languageOfDocument(languageId: string, uri: string): NotesLanguage | undefined {
+  // A client that opened a document under something other than a string URI gets nothing for it.
+  if (typeof uri !== 'string') return undefined;
   if (languageId === 'fnote' || uri.endsWith('.fnote')) return 'fnote';
   if (languageId === 'markdown' || uri.endsWith('.md') || uri.endsWith('.markdown')) return 'markdown';
   return undefined;
@@ -58,6 +60,11 @@ export class NotesWorkspace {
         return TextDocument.update(doc, changes, version);
       },
     });
+  }
+
+  /** The language service with the default settings (for what no one note's settings decide). */
+  get defaultService(): LanguageService {
+    return createLanguageService(this.defaults.service);
   }
 
   /** Settings of a document as last read (defaults until read). */

@@ -11,6 +11,8 @@ export interface ServerSettings {
   service: ServiceSettings;
   /** Delay before a changed document is validated, ms. */
   validationDelayMs: number;
+  /** Whether the computed amounts are shown beside batch lines (`inlayHints.enabled`). */
+  inlayHints: boolean;
 }
 
 const cache = new Map<string, ServiceSettings>();
@@ -29,6 +31,7 @@ export function readSettings(raw: unknown): ServerSettings {
   const bond = (r.bond && typeof r.bond === 'object' ? r.bond : {}) as Record<string, unknown>;
   const lattice = (r.lattice && typeof r.lattice === 'object' ? r.lattice : {}) as Record<string, unknown>;
   const validation = (r.validation && typeof r.validation === 'object' ? r.validation : {}) as Record<string, unknown>;
+  const hints = (r.inlayHints && typeof r.inlayHints === 'object' ? r.inlayHints : {}) as Record<string, unknown>;
   const d = DEFAULT_SETTINGS;
   let nonpolarBelow = num(bond.nonpolarBelow, 0, 4, d.chem.nonpolarBelow);
   let ionicAbove = num(bond.ionicAbove, 0, 4, d.chem.ionicAbove);
@@ -49,7 +52,11 @@ export function readSettings(raw: unknown): ServerSettings {
     chem: sameChem ? d.chem : chem,
   };
   const same = service.prose === d.prose && service.decimals === d.decimals && service.energyUnit === d.energyUnit && service.chem === d.chem;
-  return { service: same ? d : intern(service), validationDelayMs: Math.round(num(validation.delayMs, 0, 5000, 150)) };
+  return {
+    service: same ? d : intern(service),
+    validationDelayMs: Math.round(num(validation.delayMs, 0, 5000, 150)),
+    inlayHints: typeof hints.enabled === 'boolean' ? hints.enabled : true,
+  };
 }
 
 /** `ionwright.*` configuration → the options of the Markdown preview plugin (`preview.typesetFormulas`). */

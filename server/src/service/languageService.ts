@@ -21,8 +21,34 @@ import type { Position, Range } from './positions';
 import { DEFAULT_SETTINGS, type ServiceSettings } from './settings';
 import { codeLenses, documentSymbols, type CodeLens, type DocumentSymbol } from './symbols';
 import { batchTable, batchText, documentTables } from './tables';
+import { completion, type CompletionList } from './completion';
+import { foldingRanges, type FoldingRange } from './folding';
+import { inlayHints, type InlayHint } from './inlayHints';
+import { definition, noteSummary, workspaceSymbols, type Location, type NoteSummary, type WorkspaceSymbol } from './navigation';
+import { SEMANTIC_TOKENS_LEGEND, semanticTokens } from './semanticTokens';
+import { documentVocabulary, mergeVocabularies, type Vocabulary } from './vocabulary';
 
-export type { AnalysedDocument, ChangeHint, CodeAction, CodeLens, DocumentSymbol, EditOutcome, HoverResult, LspDiagnostic, Position, Range, TextEdit };
+export type {
+  AnalysedDocument,
+  ChangeHint,
+  CodeAction,
+  CodeLens,
+  CompletionList,
+  DocumentSymbol,
+  EditOutcome,
+  FoldingRange,
+  HoverResult,
+  InlayHint,
+  Location,
+  LspDiagnostic,
+  NoteSummary,
+  Position,
+  Range,
+  TextEdit,
+  Vocabulary,
+  WorkspaceSymbol,
+};
+export { SEMANTIC_TOKENS_LEGEND };
 
 /** Where a table is wanted: at the cursor (its batch or paragraph), for a selection, or for the section. */
 export type TableScope = { at: Position } | { selection: Range } | { section: Position };
@@ -58,6 +84,27 @@ export interface LanguageService {
   cardText(formula: string): string;
   cardMarkdown(formula: string): string;
   reaction(text: string): ReactionAnalysis;
+  /**
+   * Completion in a batch block: header keys, substances (those the notes use, ranked by use — this note's
+   * and `others`, the other notes' vocabulary — then the tool's tables), units after an amount, `pH` after
+   * `to `.
+   */
+  completion(doc: AnalysedDocument, position: Position, others?: Vocabulary): CompletionList | null;
+  /** The vocabularies of several notes as one (counts added). */
+  mergeVocabularies(list: readonly Vocabulary[]): Vocabulary;
+  /** The computed amounts beside the batch lines within `range`. */
+  inlayHints(doc: AnalysedDocument, range: Range): InlayHint[];
+  /** Semantic tokens (legend: SEMANTIC_TOKENS_LEGEND) of the note, or of `range`. */
+  semanticTokens(doc: AnalysedDocument, range?: Range): { data: number[] };
+  foldingRanges(doc: AnalysedDocument): FoldingRange[];
+  /** A note's named batches and vocabulary, for the workspace's index. */
+  noteSummary(doc: AnalysedDocument, uri: string): NoteSummary;
+  /** The batches of the notes whose names match the query. */
+  workspaceSymbols(notes: Iterable<NoteSummary>, query: string): WorkspaceSymbol[];
+  /** Where what is under the cursor is defined (a batch's name → the batch), in the notes given (this one's included). */
+  definition(doc: AnalysedDocument, position: Position, notes: readonly NoteSummary[]): Location[];
+  /** The batch at the cursor as a weighing list (plain text a technician can print), or null. */
+  weighingListAt(doc: AnalysedDocument, position: Position): string | null;
 }
 
 const services = new WeakMap<ServiceSettings, LanguageService>();
@@ -109,6 +156,21 @@ export function createLanguageService(settings: ServiceSettings = DEFAULT_SETTIN
     cardText: (text) => cardText(analyseFormula(text.trim(), settings.chem), settings),
     cardMarkdown: (text) => formulaCardMarkdown(analyseFormula(text.trim(), settings.chem), settings),
     reaction: (text) => analyseReaction(text.trim()),
+    completion: (doc, position, others) => {
+      const own = documentVocabulary(doc);
+      return completion(doc, offset(doc, position), settings, others && others.size ? mergeVocabularies([own, others]) : own);
+    },
+    mergeVocabularies: (list) => mergeVocabularies(list),
+    inlayHints: (doc, range) => inlayHints(doc, offset(doc, range.start), offset(doc, range.end), settings),
+    semanticTokens: (doc, range) => semanticTokens(doc, range ? { start: offset(doc, range.start), end: offset(doc, range.end) } : undefined),
+    foldingRanges: (doc) => foldingRanges(doc),
+    noteSummary: (doc, uri) => noteSummary(doc, uri),
+    workspaceSymbols: (notes, query) => workspaceSymbols(notes, query),
+    definition: (doc, position, notes) => definition({ doc, offset: offset(doc, position), notes }),
+    weighingListAt: (doc, position) => {
+      const t = targetAt(doc, offset(doc, position));
+      return t && (t.kind === 'batch-line' || t.kind === 'batch-header') ? batchText(t.occ.analysis, settings) : null;
+    },
   };
   services.set(settings, service);
   return service;

@@ -65,11 +65,13 @@ export interface CodeLens {
   title: string;
   /** Offset the lens's command acts on. */
   offset: number;
+  /** What the lens does: nothing (it says the totals), insert the batch's table, or copy it as a weighing list (plain text). */
+  action: 'none' | 'insertTable' | 'copyWeighingList';
 }
 
-/** One lens per batch: its totals at a glance; the command inserts its table. */
+/** Three lenses per batch: its totals at a glance, *Insert table* and *Copy as weighing list*. */
 export function codeLenses(doc: AnalysedDocument): CodeLens[] {
-  return doc.batches.map((b) => {
+  return doc.batches.flatMap((b): CodeLens[] => {
     const a = b.analysis;
     const bits = [plural(a.ingredients.length, 'ingredient')];
     if (a.skipped.length) bits.push(`⚠ ${notCountedText(a)} (incomplete)`);
@@ -78,6 +80,12 @@ export function codeLenses(doc: AnalysedDocument): CodeLens[] {
     const warnings = batchWarnings(a).length;
     if (warnings) bits.push(`⚠ ${plural(warnings, 'warning')}`);
     if (a.cautions.length) bits.push('⚠ cautions');
-    return { range: doc.lines.range(b.ref.open.start, b.ref.open.end), title: `${bits.join(' · ')} — insert table`, offset: b.ref.open.start };
+    const range = doc.lines.range(b.ref.open.start, b.ref.open.end);
+    const offset = b.ref.open.start;
+    return [
+      { range, title: bits.join(' · '), offset, action: 'none' },
+      { range, title: 'Insert table', offset, action: 'insertTable' },
+      { range, title: 'Copy as weighing list', offset, action: 'copyWeighingList' },
+    ];
   });
 }

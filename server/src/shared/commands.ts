@@ -9,6 +9,8 @@ export const CLIENT_COMMANDS = {
   copyCard: 'ionwright.copyCard',
   restartServer: 'ionwright.restartServer',
   showOutput: 'ionwright.showOutput',
+  /** The code lens above a batch: copy it as a weighing list (arguments: `{uri, position}`). */
+  copyWeighingList: 'ionwright.copyWeighingList',
 } as const;
 
 export const SERVER_COMMANDS = {
@@ -16,7 +18,20 @@ export const SERVER_COMMANDS = {
   insertSectionTable: 'ionwright.server.insertSectionTable',
   insertTableAt: 'ionwright.server.insertTableAt',
   cardMarkdown: 'ionwright.server.cardMarkdown',
+  /** The batch at `{uri, position}` as a weighing list (plain text), or null. */
+  weighingList: 'ionwright.server.weighingList',
 } as const;
 
 /** The languages the server serves, as VS Code names them. */
 export const NOTES_LANGUAGES = ['markdown', 'fnote'] as const;
+
+/**
+ * Requests the server sends a client that offers to read the workspace for it (initialization option
+ * `workspaceNotes: true`; the browser client does, since the server has no file system there):
+ * `listNotes` `{folderUri}` → the URIs of the notes files under the folder; `readNote` `{uri}` → the text,
+ * or null.
+ */
+export const WORKSPACE_REQUESTS = {
+  listNotes: 'ionwright/listNotes',
+  readNote: 'ionwright/readNote',
+} as const;
