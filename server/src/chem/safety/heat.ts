@@ -1,0 +1,495 @@
+/**
+ * The heat of making up a batch, and the temperature change it brings.
+ *
+ *   ΔH = Σ dissolution or dilution of each ingredient + the neutralisation between them
+ *   ΔT = −ΔH / (m·cp)
+ *
+ * - Dissolution: the enthalpy of solution at infinite dilution (data/solution.ts); for a hydrate with no
+ *   row of its own, the anhydrous salt's value plus the median step per water of crystallisation of the
+ *   table's hydrate pairs (an estimate); for a salt with no row, the Born–Haber estimate U + Σ ΔhydH of its
+ *   ions (the card's lattice energy, data/hydration.ts; an estimate, its measured error printed).
+ * - Dilution of the concentrated acids and bases (H2SO4, HCl, HNO3, NaOH): their integral enthalpy of
+ *   solution from the water they bring (n₀ mol per mol) to the water of the batch (n₁): ΔH(n₁) − ΔH(n₀)
+ *   (data/dilution.ts). Each is diluted as if alone in the batch's water.
+ * - Neutralisation: the acid–base species of the mixed batch against those of each ingredient alone in
+ *   the same water (ph.ts, ideal solution), each change of protonation times its ionisation enthalpy
+ *   (data/acids.ts), and the water formed or ionised times 55.84 kJ/mol.
+ * - m·cp: the batch's water at 4.184 J/(g·K) (CRC Handbook, "Properties of water", 25 °C) and its dissolved
+ *   substances at 1.0 J/(g·K) for solids (common practice; salts 0.7–1.2) or their own heat capacity for
+ *   liquids. No heat is lost to the vessel or the air, and the batch is stirred: a well-stirred batch
+ *   made up quickly comes close to it; one made up slowly loses part of the heat as it goes.
+ *
+ * Tolerance (stated, checked in the test suite on NaOH, NH4NO3, CaCl2 and H2SO4 make-ups against hand
+ * calculations from the handbook values): about ±10 % for batches up to about 2 M, from the
+ * infinite-dilution enthalpies and the heat capacity model; more for concentrated ones.
+ */
+import { analysisDerivedCache } from '../cache';
+import { mainPart, keyOfFormula, substanceKey } from './substance';
+import { type BatchState, type IngredientState, WATER_MOLAR_MASS, estimateVolumeL } from './context';
+import { DILUTION_CURVES, integralEnthalpy, type DilutionCurve } from './data/dilution';
+import { HYDRATION_KJ, HYDRATION_SOURCE } from './data/hydration';
+import { SOLUTION_ENTHALPIES, type SolutionEnthalpyRow } from './data/solution';
+import { ACID_SYSTEMS, WATER_IONISATION_KJ, PKW } from './data/acids';
+import { acidBaseShare, addShare, emptyAmounts, fractions, solvePH, type AcidBaseAmounts } from './ph';
+import type { FormulaAnalysis } from '../analyse';
+import { SOLUBILITY } from '../data/solubility';
+import { analyseFormula } from '../analyse';
+import type { HeatReading, HeatStep, SafetyOptions } from './types';
+
+export const WATER_CP = 4.184;
+export const SOLID_CP = 1.0;
+export const DEFAULT_HEAT_THRESHOLD_K = 15;
+const DEFAULT_START_C = 20;
+
+// ── table indexes (fixed tables: built on first use, never evicted) ──
+
+let solutionIndex: Map<string, SolutionEnthalpyRow> | null = null;
+function solutionRow(key: string): SolutionEnthalpyRow | undefined {
+  if (!solutionIndex) {
+    solutionIndex = new Map();
+    for (const row of SOLUTION_ENTHALPIES) {
+      const k = keyOfFormula(row.formula);
+      if (k && !solutionIndex.has(k)) solutionIndex.set(k, row);
+    }
+  }
+  return solutionIndex.get(key);
+}
+
+let curveIndex: Map<string, DilutionCurve> | null = null;
+function dilutionCurve(hill: string): DilutionCurve | undefined {
+  if (!curveIndex) {
+    curveIndex = new Map();
+    for (const c of DILUTION_CURVES) {
+      const k = keyOfFormula(c.formula);
+      if (k) curveIndex.set(k, c);
+    }
+  }
+  return curveIndex.get(hill);
+}
+
+/** The table's hydrate pairs: the median change of ΔsolH per water of crystallisation, and its range. */
+export interface HydrateStep {
+  kJPerWater: number;
+  min: number;
+  max: number;
+  pairs: number;
+}
+let hydrateStepMemo: HydrateStep | null = null;
+export function hydrateStep(): HydrateStep {
+  if (hydrateStepMemo) return hydrateStepMemo;
+  const steps: number[] = [];
+  for (const row of SOLUTION_ENTHALPIES) {
+    const a = analyseFormula(row.formula);
+    const m = mainPart(a);
+    if (!m || !m.water) continue;
+    const anh = solutionRow(m.hill);
+    if (anh) steps.push((row.kJPerMol - anh.kJPerMol) / m.water);
+  }
+  steps.sort((x, y) => x - y);
+  const mid = steps.length % 2 ? steps[(steps.length - 1) / 2] : (steps[steps.length / 2 - 1] + steps[steps.length / 2]) / 2;
+  hydrateStepMemo = { kJPerWater: mid, min: steps[0], max: steps[steps.length - 1], pairs: steps.length };
+  return hydrateStepMemo;
+}
+
+// ── Born–Haber estimate: lattice energy + hydration of the ions ──
+
+export interface LatticeHydration {
+  latticeKJ: number;
+  latticeMethod: string;
+  hydrationKJ: number;
+  /** U + Σ ΔhydH, kJ/mol of the anhydrous salt. */
+  kJPerMol: number;
+}
+
+/** The key of an ion in the hydration table. */
+function ionKey(ion: { kind: string; element?: string; ionName?: string; charge: number }): string | undefined {
+  if ((ion.kind === 'metal' || ion.kind === 'monatomic-anion') && ion.element) {
+    const z = Math.abs(ion.charge);
+    return `${ion.element}${z > 1 ? z : ''}${ion.charge > 0 ? '+' : '-'}`;
+  }
+  return ion.ionName;
+}
+
+const latticeMemo = analysisDerivedCache<LatticeHydration | { none: true }>(20_000, 2 * 1024 * 1024);
+
+/** U + Σ ΔhydH for an ionic salt whose ions are all in the hydration table and that has a lattice energy; null otherwise. */
+export function latticeHydration(a: FormulaAnalysis): LatticeHydration | null {
+  const hit = latticeMemo.get(a.input);
+  if (hit) return 'none' in hit ? null : hit;
+  const r = computeLatticeHydration(a);
+  latticeMemo.set(a.input, r ?? { none: true }, 160);
+  return r;
+}
+
+/** Cations whose salts the ionic lattice models describe poorly (covalent character: d¹⁰ and 6s² ions). */
+const COVALENT_CATIONS = new Set(['Cu+', 'Ag+', 'Tl+', 'Hg2+', 'Sn2+', 'Pb2+']);
+
+function computeLatticeHydration(a: FormulaAnalysis): LatticeHydration | null {
+  const c = a.charges;
+  if (!a.ok || !c || c.basis !== 'ionic' || !c.balanced || !c.ions || a.charge !== 0) return null;
+  let hydration = 0;
+  for (const ion of c.ions) {
+    if (ion.role === 'neutral') continue;
+    if (ion.role === 'cation' && COVALENT_CATIONS.has(ionKey(ion) ?? '')) return null;
+    const k = ionKey(ion);
+    const h = k ? HYDRATION_KJ[k] : undefined;
+    if (h === undefined) return null;
+    hydration += h * ion.count;
+  }
+  const lat = a.lattice;
+  if (!lat || lat.covalency) return null;
+  return { latticeKJ: lat.kJPerMol, latticeMethod: lat.method, hydrationKJ: hydration, kJPerMol: lat.kJPerMol + hydration };
+}
+
+/** How far the Born–Haber estimate runs from the table, over the table's anhydrous salts it can estimate. */
+export interface EstimateAccuracy {
+  n: number;
+  medianAbsKJ: number;
+  /** Share of those salts where the estimate gets the sign (warms or cools) right. */
+  signRight: number;
+}
+let accuracyMemo: EstimateAccuracy | null = null;
+export function estimateAccuracy(): EstimateAccuracy {
+  if (accuracyMemo) return accuracyMemo;
+  const errs: number[] = [];
+  let right = 0;
+  for (const row of SOLUTION_ENTHALPIES) {
+    const a = analyseFormula(row.formula);
+    const m = mainPart(a);
+    if (!m || m.water) continue;
+    const est = latticeHydration(a);
+    if (!est) continue;
+    errs.push(Math.abs(est.kJPerMol - row.kJPerMol));
+    if (Math.sign(est.kJPerMol) === Math.sign(row.kJPerMol) || Math.abs(row.kJPerMol) < 5) right++;
+  }
+  errs.sort((x, y) => x - y);
+  const mid = errs.length ? (errs.length % 2 ? errs[(errs.length - 1) / 2] : (errs[errs.length / 2 - 1] + errs[errs.length / 2]) / 2) : NaN;
+  accuracyMemo = { n: errs.length, medianAbsKJ: mid, signRight: errs.length ? right / errs.length : NaN };
+  return accuracyMemo;
+}
+
+// ── per-mole enthalpy of solution of one substance (also for cards) ──
+
+export interface SolutionEnthalpy {
+  /** kJ per mole of the substance as written, at infinite dilution. */
+  kJPerMol: number;
+  /** `table` (a row of its own), `hydrate-estimate` (the anhydrous row and the hydrate step), `lattice-estimate` (U + Σ ΔhydH). */
+  basis: 'table' | 'hydrate-estimate' | 'lattice-estimate';
+  method: string;
+  source: string;
+  /** Why it warms or cools the water, where the lattice energy and the ions' hydration are known. */
+  why?: string;
+}
+
+const fmt = (x: number, digits = 3) => {
+  const r = Number(x.toPrecision(digits));
+  const s = Math.abs(r) >= 1000 ? Math.round(r).toString() : r.toString();
+  return s.replace('-', '−');
+};
+const signed = (x: number) => (x > 0 ? `+${fmt(x)}` : fmt(x));
+
+/** The enthalpy of solution of a substance at infinite dilution, from the table or an estimate; null where neither is possible. */
+export function enthalpyOfSolution(a: FormulaAnalysis): SolutionEnthalpy | null {
+  const main = mainPart(a);
+  if (!main || !a.ok) return null;
+  const row = solutionRow(substanceKey(main));
+  const lh = latticeHydration(a);
+  if (row)
+    return {
+      kJPerMol: row.kJPerMol,
+      basis: 'table',
+      method: `enthalpy of solution at infinite dilution ${signed(row.kJPerMol)} kJ/mol`,
+      source: row.source,
+      why: whyText(lh, row.kJPerMol),
+    };
+  const step = hydrateStep();
+  if (main.water) {
+    const anh = solutionRow(main.hill);
+    if (anh) {
+      const v = anh.kJPerMol + main.water * step.kJPerWater;
+      return {
+        kJPerMol: v,
+        basis: 'hydrate-estimate',
+        method: `estimate: the anhydrous salt's ${signed(anh.kJPerMol)} kJ/mol plus ${main.water} × ${fmt(step.kJPerWater)} kJ/mol per water of crystallisation (the median of the table's ${step.pairs} hydrate pairs, range ${fmt(step.min)}–${fmt(step.max)})`,
+        source: anh.source,
+        why: whyText(lh, anh.kJPerMol),
+      };
+    }
+  }
+  if (lh) {
+    const acc = estimateAccuracy();
+    const v = lh.kJPerMol + main.water * step.kJPerWater;
+    const hydrate = main.water ? ` plus ${main.water} × ${fmt(step.kJPerWater)} kJ/mol for the water of crystallisation` : '';
+    return {
+      kJPerMol: v,
+      basis: 'lattice-estimate',
+      method: `estimate: lattice energy ${fmt(lh.latticeKJ)} kJ/mol (${lh.latticeMethod}) and hydration of the ions ${fmt(lh.hydrationKJ)} kJ/mol${hydrate}; on the ${acc.n} salts of the table this estimate is off by a median ${fmt(acc.medianAbsKJ, 2)} kJ/mol`,
+      source: HYDRATION_SOURCE,
+      why: whyText(lh, lh.kJPerMol),
+    };
+  }
+  return null;
+}
+
+/** Differences of the two large terms that explain a tabulated value: within this of it (kJ/mol). */
+const WHY_WITHIN_KJ = 20;
+
+function whyText(lh: LatticeHydration | null, value: number): string | undefined {
+  if (!lh || Math.abs(lh.kJPerMol - value) > WHY_WITHIN_KJ) return undefined;
+  const verdict =
+    value > 2
+      ? 'breaking up the crystal costs more than the hydration of its ions gives back, so it cools the water'
+      : value < -2
+        ? 'the hydration of its ions gives back more than breaking up the crystal costs, so it warms the water'
+        : 'the two nearly balance, so it dissolves with little heat';
+  return `Breaking up the crystal takes about ${fmt(lh.latticeKJ)} kJ/mol (lattice energy, ${lh.latticeMethod}); hydrating its ions gives back about ${fmt(-lh.hydrationKJ)} kJ/mol: ${verdict}.`;
+}
+
+// ── the batch ──
+
+/** Below this solubility (g per 100 g water) a substance is taken as not dissolving (common practice: "sparingly soluble"). */
+const SPARINGLY_SOLUBLE_BELOW = 1;
+let solubilityIndex: Map<string, number> | null = null;
+/** The solubility of a sparingly soluble substance (g/100 g water, chem/data/solubility.ts), or null. */
+function sparinglySoluble(hill: string): number | null {
+  if (!solubilityIndex) {
+    solubilityIndex = new Map();
+    for (const row of SOLUBILITY) {
+      const k = keyOfFormula(row.formula);
+      if (k) solubilityIndex.set(k, row.gPer100gWater);
+    }
+  }
+  const g = solubilityIndex.get(hill);
+  return g !== undefined && g < SPARINGLY_SOLUBLE_BELOW ? g : null;
+}
+
+/** The heat of making up a batch; null where no ingredient's heat is known. */
+export function heatOfMakingUp(state: BatchState, options: SafetyOptions = {}, startC = DEFAULT_START_C): HeatReading | null {
+  const threshold = options.heatThresholdK ?? DEFAULT_HEAT_THRESHOLD_K;
+  const steps: HeatStep[] = [];
+  const notes: string[] = [...state.notes];
+  for (const it of state.items) {
+    if (it.isWater || it.moles === null || it.moles === 0) continue;
+    steps.push(dissolution(it, state));
+  }
+  const neut = neutralisation(state);
+  if (neut) steps.push(...neut.steps);
+  if (neut?.note) notes.push(neut.note);
+  const counted = steps.filter((s) => s.kind !== 'not-counted');
+  if (!counted.length) return null;
+  const kJ = counted.reduce((s, x) => s + x.kJ, 0);
+  for (const s of steps) if (s.kind === 'not-counted') notes.push(`${s.ingredient}: ${s.method}.`);
+  let heatCapacity: number | null = null;
+  let solutionMassG: number | null = null;
+  if (state.waterG !== null && state.waterG > 0) {
+    heatCapacity = state.waterG * WATER_CP;
+    solutionMassG = state.waterG;
+    for (const it of state.items) {
+      if (it.isWater || it.anhydrousG === null) continue;
+      heatCapacity += it.anhydrousG * (it.liquid?.cp ?? SOLID_CP);
+      solutionMassG += it.anhydrousG;
+    }
+  } else
+    notes.push(
+      state.aqueous
+        ? 'The batch water is not known: no temperature change is estimated.'
+        : 'No final volume or water is given: the heat is for dissolving into a large amount of water, and no temperature change is estimated.',
+    );
+  const rise = heatCapacity ? (-kJ * 1000) / heatCapacity : null;
+  const finalC = rise === null ? null : startC + rise;
+  const exceeds = rise !== null && Math.abs(rise) > threshold;
+  if (state.waterFrom === 'volume') notes.push('The batch water is estimated from the final volume less the volume the dissolved substances take up.');
+  if (counted.some((s) => s.kind === 'solution' || s.kind === 'estimate'))
+    notes.push('Enthalpies of solution are at infinite dilution; at working strength they differ by a few kJ/mol (up to about 10 for 2:2 salts).');
+  notes.push('No heat is lost to the vessel or the air: a batch made up slowly warms less, over a longer time.');
+  const cp = heatCapacity && solutionMassG ? heatCapacity / solutionMassG : null;
+  const method =
+    rise === null
+      ? `ΔH of making up from ${methodParts(counted)}; no temperature change without the batch's water`
+      : `ΔH of making up from ${methodParts(counted)}; ΔT = −ΔH/(m·cp) with m = ${fmt(solutionMassG ?? 0)} g, cp = ${fmt(cp ?? 0, 3)} J/(g·K) (water 4.184, dissolved solids 1.0), no heat lost — an estimate`;
+  return {
+    kJ,
+    temperatureRiseK: rise,
+    method,
+    steps,
+    heatCapacityJPerK: heatCapacity,
+    solutionMassG,
+    startC,
+    finalC,
+    thresholdK: threshold,
+    exceeds,
+    advice: exceeds && rise !== null ? advice(counted, rise, finalC ?? startC, state) : [],
+    notes,
+  };
+}
+
+function methodParts(steps: HeatStep[]): string {
+  const kinds = new Set(steps.map((s) => s.kind));
+  const parts: string[] = [];
+  if (kinds.has('solution')) parts.push('enthalpies of solution (CRC/NBS tables)');
+  if (kinds.has('estimate')) parts.push('estimated enthalpies of solution');
+  if (kinds.has('dilution')) parts.push('integral heats of dilution (NBS)');
+  if (kinds.has('neutralisation')) parts.push('the heat of neutralisation (ideal pH model)');
+  return parts.join(', ');
+}
+
+const CAUSTIC_HILLS = new Set(['HNaO', 'HKO', 'HLiO', 'CaO', 'Na2O', 'K2O']);
+
+function dissolution(it: IngredientState, state: BatchState): HeatStep {
+  const base = { ingredient: it.display, index: it.index };
+  const main = it.main;
+  const moles = it.moles as number;
+  if (!main) return { ...base, kind: 'not-counted', kJ: 0, method: 'not read as a formula: not counted' };
+  const totalWaterMol = state.waterG !== null ? state.waterG / WATER_MOLAR_MASS : Infinity;
+  const curve = !main.water ? dilutionCurve(main.hill) : undefined;
+  if (curve) {
+    const n0 = it.waterG / WATER_MOLAR_MASS / moles;
+    const n1 = totalWaterMol / moles;
+    const h0 = integralEnthalpy(curve, n0);
+    const h1 = integralEnthalpy(curve, n1);
+    const from = n0 > 0 ? `from ${fmt(n0)} (as supplied)` : `from the pure ${curve.pure}`;
+    const to = Number.isFinite(n1) ? `to ${fmt(n1)} mol H₂O per mol` : 'to infinite dilution';
+    return {
+      ...base,
+      kind: n0 > 0 ? 'dilution' : 'solution',
+      kJ: moles * (h1 - h0),
+      kJPerMol: h1 - h0,
+      method: `integral heat of solution ${from} ${to}: ΔH(n₁) − ΔH(n₀) = ${fmt(h1)} − (${fmt(h0)}) kJ/mol`,
+      source: curve.source,
+    };
+  }
+  if (it.aqueousReagent)
+    return {
+      ...base,
+      kind: 'not-counted',
+      kJ: 0,
+      method: 'supplied as a solution; its heat of dilution is not tabulated and is taken as zero (usually small, except for strong acids and bases)',
+    };
+  if (it.liquid && !it.liquid.aqueous && Number.isFinite(totalWaterMol)) {
+    const x = moles / (moles + totalWaterMol);
+    if (x > 0.1)
+      return {
+        ...base,
+        kind: 'not-counted',
+        kJ: 0,
+        method: `a co-solvent (mole fraction ${fmt(x, 2)}): its heat of mixing with water is not modelled at this strength (small for these liquids, under about 1 kJ per mole of mixture)`,
+      };
+  }
+  const sol = enthalpyOfSolution(it.ing.analysis);
+  if (!sol) return { ...base, kind: 'not-counted', kJ: 0, method: 'no enthalpy of solution known: not counted' };
+  const solubility = sparinglySoluble(main.hill);
+  if (solubility !== null)
+    return {
+      ...base,
+      kind: 'not-counted',
+      kJ: 0,
+      method: `sparingly soluble (${fmt(solubility, 2)} g per 100 g water): it does not dissolve, and its heat of solution is not counted`,
+    };
+  return {
+    ...base,
+    kind: sol.basis === 'table' ? 'solution' : 'estimate',
+    kJ: moles * sol.kJPerMol,
+    kJPerMol: sol.kJPerMol,
+    method: sol.method,
+    source: sol.source,
+    ...(sol.why ? { why: sol.why } : {}),
+  };
+}
+
+/** The neutralisation between ingredients: the batch's acid–base species against each ingredient's alone, in the same volume. */
+function neutralisation(state: BatchState): { steps: HeatStep[]; note?: string } | null {
+  const v = estimateVolumeL(state.volumeL, state.waterG);
+  if (!v || !state.aqueous) return null;
+  const actives: Array<{ it: IngredientState; amounts: AcidBaseAmounts; pH: number }> = [];
+  for (const it of state.items) {
+    if (it.isWater || !it.moles) continue;
+    const share = acidBaseShare(it.ing.analysis);
+    if (!share.active) continue;
+    const amounts = emptyAmounts();
+    addShare(amounts, share, it.moles);
+    const pH = solvePH(amounts, v);
+    if (pH !== null) actives.push({ it, amounts, pH });
+  }
+  if (actives.length < 2 || !actives.some((x) => x.pH < 6.5) || !actives.some((x) => x.pH > 7.5)) return null;
+  const total = emptyAmounts();
+  for (const x of actives) {
+    total.fixed += x.amounts.fixed;
+    for (const [id, mol] of x.amounts.systems) total.systems.set(id, (total.systems.get(id) ?? 0) + mol);
+  }
+  const pHFinal = solvePH(total, v);
+  if (pHFinal === null) return null;
+  let kJ = 0;
+  const unknown = new Set<string>();
+  const deprotonated = (id: string, mol: number, pH: number) => {
+    const f = fractions(ACID_SYSTEMS[id], pH);
+    const d: number[] = [];
+    for (let k = 0; k < f.length - 1; k++) {
+      let s = 0;
+      for (let i = k + 1; i < f.length; i++) s += f[i];
+      d.push(mol * s);
+    }
+    return d;
+  };
+  const ids = new Set<string>();
+  for (const x of actives) for (const id of x.amounts.systems.keys()) ids.add(id);
+  for (const id of ids) {
+    const sys = ACID_SYSTEMS[id];
+    const fin = deprotonated(id, total.systems.get(id) ?? 0, pHFinal);
+    const ref = new Array(fin.length).fill(0);
+    for (const x of actives) {
+      const mol = x.amounts.systems.get(id);
+      if (!mol) continue;
+      deprotonated(id, mol, x.pH).forEach((d, k) => (ref[k] += d));
+    }
+    for (let k = 0; k < fin.length; k++) {
+      const change = fin[k] - ref[k];
+      const dH = sys.dH[k];
+      if (dH === null) {
+        if (Math.abs(change) > 1e-6) unknown.add(sys.name);
+        continue;
+      }
+      kJ += change * dH;
+    }
+  }
+  const oh = (pH: number) => Math.pow(10, pH - PKW) * v;
+  const dOH = oh(pHFinal) - actives.reduce((s, x) => s + oh(x.pH), 0);
+  kJ += dOH * WATER_IONISATION_KJ;
+  if (Math.abs(kJ) < 0.05) return null;
+  const acids = actives.filter((x) => x.pH < 6.5).map((x) => x.it.display);
+  const bases = actives.filter((x) => x.pH > 7.5).map((x) => x.it.display);
+  const step: HeatStep = {
+    kind: 'neutralisation',
+    ingredient: null,
+    index: null,
+    kJ,
+    method: `neutralisation of ${acids.join(', ')} by ${bases.join(', ')}: the species at the batch's estimated pH ${pHFinal.toFixed(1)} against each alone, with the ionisation enthalpies of each step and 55.84 kJ/mol for water (ideal solution)`,
+    source: 'Goldberg et al., J. Phys. Chem. Ref. Data 31 (2002) 231; NBS tables (Wagman et al. 1982); from memory',
+  };
+  return { steps: [step], note: unknown.size ? `Ionisation enthalpies not known (counted as zero): ${[...unknown].join(', ')}.` : undefined };
+}
+
+const ACID_ADVICE = 'Add the acid to the water slowly, with stirring and cooling — never water to acid: the acid meeting a little water boils and spatters';
+const CAUSTIC_ADVICE =
+  'Dissolve the caustic in portions into cold water, with stirring, letting the batch cool between portions; caustic left to sit in a lump heats locally and spatters';
+const NEUTRAL_ADVICE = 'Add the acid or the base slowly, with stirring and cooling: neutralising them heats the batch';
+const SALT_ADVICE = 'Add it in portions with stirring, and let the batch settle to temperature between portions';
+
+function advice(steps: HeatStep[], rise: number, finalC: number, state: BatchState): string[] {
+  if (rise < 0)
+    return [
+      `The batch cools by about ${fmt(-rise, 2)} K as it is made up: let it come back to working temperature before use or adjustment; salts near their solubility may crystallise while it is cold`,
+    ];
+  const out: string[] = [];
+  const hottest = steps.reduce((best, s) => (s.kJ < best.kJ ? s : best), steps[0]);
+  const it = hottest.index !== null ? state.items[hottest.index] : null;
+  const hill = it?.main?.hill ?? '';
+  if (hottest.kind === 'neutralisation') out.push(NEUTRAL_ADVICE);
+  else if (it && it.members.some((m) => m.group === 'strong-acid' || m.group === 'acid')) out.push(ACID_ADVICE);
+  else if (CAUSTIC_HILLS.has(hill)) out.push(CAUSTIC_ADVICE);
+  else out.push(SALT_ADVICE);
+  out.push(
+    `Use a vessel rated for at least ${Math.ceil(finalC / 5) * 5} °C: many plastic tanks and carboys are rated to about 60 °C, and glass should be borosilicate`,
+  );
+  if (finalC >= 100) out.push('The estimate passes 100 °C: the batch would boil and spatter. Make it up more dilute, or in stages with cooling');
+  return out;
+}
