@@ -624,7 +624,7 @@ const ORDINARY: Case[] = [
   {
     name: 'hand rub (WHO formulation 1)',
     lines: [
-      ['C2H5OH', 800, 'g', 0.96],
+      ['C2H5OH', 672, 'g', 0.94],
       ['C3H8O3', 18, 'g', 0.98],
       ['H2O2', 42, 'g', 0.03],
     ],

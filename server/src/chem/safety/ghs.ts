@@ -214,8 +214,9 @@ function family(a: FormulaAnalysis): Entry[] {
   if (ionic && atoms.Pb) out.push(h('lead compound (as the lead compounds entry)', 'H302 H332 H360Df H373 H400 H410'));
   if (ionic && atoms.Hg) out.push(h('mercury compound (as the inorganic mercury compounds entry)', 'H300 H310 H330 H373 H400 H410'));
   if (ionic && atoms.B && atoms.O && !atoms.F) out.push(h('borate (as boric acid and the borates)', 'H360FD'));
-  if (ionic && atoms.F && a.charges?.ions?.some((i) => i.kind === 'monatomic-anion' && i.element === 'F'))
-    out.push(h('fluoride salt (as sodium fluoride)', 'H301'));
+  const ions = a.charges?.ions ?? [];
+  const soluble = ions.filter((i) => i.role === 'cation').every((i) => i.ionName === 'ammonium' || ['Li', 'Na', 'K', 'Rb', 'Cs'].includes(i.element ?? ''));
+  if (ionic && soluble && ions.some((i) => i.kind === 'monatomic-anion' && i.element === 'F')) out.push(h('soluble fluoride (as sodium fluoride)', 'H301'));
   return out;
 }
 
@@ -299,7 +300,9 @@ export function ghsFor(a: FormulaAnalysis): GhsReading | null {
 function compute(a: FormulaAnalysis): GhsReading | null {
   const main = mainPart(a);
   if (!main || !a.ok) return null;
-  const own = BY_HILL[main.hill];
+  let own: Entry | undefined = BY_HILL[main.hill];
+  // An entry for the anhydrous form only (aluminium chloride) does not fit its hydrate.
+  if (own && main.water && /anhydrous/.test(own.substance)) own = undefined;
   const entries = own ? [own] : family(a);
   if (!entries.length) return null;
   const codes: string[] = [];
