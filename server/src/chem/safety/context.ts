@@ -12,6 +12,7 @@ import { acidBaseShare, addShare, emptyAmounts, solvePH } from './ph';
 import { reactiveGroups, type GroupMember } from './groups';
 import { mainPart, type MainPart } from './substance';
 import type { SafetyBatch, SafetyIngredient } from './types';
+import type { FormulaAnalysis } from '../analyse';
 
 export const WATER_MOLAR_MASS = 18.015;
 const WATER_DENSITY = 0.997;
@@ -96,7 +97,10 @@ export interface BatchState {
   /** Estimated mass of the batch, g. */
   massG: number | null;
   aqueous: boolean;
-  pH: { value: number; from: 'solution' | 'estimate' } | null;
+  /** The batch's pH: the solution chemistry's, or (computed on first use) the estimate here; null for a dry blend. */
+  readonly pH: { value: number; from: 'solution' | 'estimate' } | null;
+  /** The pH if it was given or has been estimated by now (the reading reports only what it used). */
+  pHIfUsed(): { value: number; from: 'solution' | 'estimate' } | null;
   notes: string[];
 }
 
@@ -135,23 +139,39 @@ export function batchState(batch: SafetyBatch): BatchState {
     massG = m > 0 ? m : null;
   }
   const aqueous = waterG !== null && waterG > 0;
-  let pH: BatchState['pH'] = null;
-  if (batch.pH != null && Number.isFinite(batch.pH)) pH = { value: batch.pH, from: 'solution' };
-  else if (aqueous) {
-    const v = estimateVolumeL(volumeL, waterG);
-    const amounts = emptyAmounts();
-    let any = false;
-    for (const it of items) {
-      if (it.moles === null || it.isWater) continue;
-      const share = acidBaseShare(it.ing.analysis);
-      if (!share.active) continue;
-      any = true;
-      addShare(amounts, share, it.moles);
-    }
-    const value = any && v ? solvePH(amounts, v) : any ? null : 7;
-    if (value !== null) pH = { value, from: 'estimate' };
+  const given = batch.pH != null && Number.isFinite(batch.pH) ? { value: batch.pH, from: 'solution' as const } : null;
+  // The estimate is made only when something asks for it (an acid-sensitive pair, a neutralisation).
+  let estimate: BatchState['pH'] | undefined = given ? given : undefined;
+  const state: BatchState = {
+    items,
+    volumeL,
+    waterG,
+    waterFrom,
+    massG,
+    aqueous,
+    get pH() {
+      if (estimate === undefined) estimate = aqueous ? estimatePH(items, estimateVolumeL(volumeL, waterG)) : null;
+      return estimate;
+    },
+    pHIfUsed: () => estimate ?? null,
+    notes,
+  };
+  return state;
+}
+
+function estimatePH(items: readonly IngredientState[], v: number | null): BatchState['pH'] {
+  if (!v) return null;
+  const amounts = emptyAmounts();
+  let any = false;
+  for (const it of items) {
+    if (it.moles === null || it.isWater) continue;
+    const share = acidBaseShare(it.ing.analysis);
+    if (!share.active) continue;
+    any = true;
+    addShare(amounts, share, it.moles);
   }
-  return { items, volumeL, waterG, waterFrom, massG, aqueous, pH, notes };
+  const value = any ? solvePH(amounts, v) : 7;
+  return value === null ? null : { value, from: 'estimate' };
 }
 
 /** The volume to take concentrations over: the final volume, or the water's. */
@@ -164,11 +184,37 @@ function specificVolume(it: IngredientState): number {
   return it.ing.analysis.charges?.basis === 'ionic' ? IONIC_SOLID_ML_PER_G : MOLECULAR_SOLID_ML_PER_G;
 }
 
+/** What an ingredient's state needs of its analysis alone, once per analysis (analyses are shared and read-only). */
+interface Static {
+  main: MainPart | null;
+  members: GroupMember[];
+  isWater: boolean;
+  liquid: LiquidProps | undefined;
+  caustic: boolean;
+}
+const statics = new WeakMap<FormulaAnalysis, Static>();
+
+function staticOf(a: FormulaAnalysis): Static {
+  let s = statics.get(a);
+  if (!s) {
+    const main = mainPart(a);
+    s = {
+      main,
+      members: reactiveGroups(a),
+      isWater: !!main && main.hill === 'H2O' && main.adducts.length === 0 && a.charge === 0,
+      liquid: main && !main.water && a.charge === 0 ? LIQUIDS[main.hill] : undefined,
+      caustic: !!main && CAUSTICS.has(main.hill) && !main.water,
+    };
+    statics.set(a, s);
+  }
+  return s;
+}
+
 function ingredientState(ing: SafetyIngredient, index: number): IngredientState {
   const a = ing.analysis;
-  const main = mainPart(a);
-  const members = reactiveGroups(a, ing.name);
-  const isWater = !!main && main.hill === 'H2O' && main.adducts.length === 0 && a.charge === 0;
+  const st = staticOf(a);
+  const { main, isWater, liquid } = st;
+  const members = ing.name ? reactiveGroups(a, ing.name) : st.members;
   const M = a.molarMass?.value ?? null;
   const assay = ing.assay && ing.assay > 0 && ing.assay <= 1 ? ing.assay : 1;
   let moles = ing.moles !== null && Number.isFinite(ing.moles) && ing.moles >= 0 ? ing.moles : null;
@@ -176,9 +222,7 @@ function ingredientState(ing: SafetyIngredient, index: number): IngredientState 
   if (moles === null && reagentG !== null && M) moles = (reagentG * assay) / M;
   const pureG = moles !== null && M ? moles * M : reagentG !== null ? reagentG * assay : null;
   if (reagentG === null && pureG !== null) reagentG = pureG / assay;
-  const liquid = main && !main.water && a.charge === 0 ? LIQUIDS[main.hill] : undefined;
-  const aqueousReagent =
-    assay < 1 && (main && CAUSTICS.has(main.hill) && !main.water ? assay <= 0.9 : (liquid?.aqueous ?? false) || (ing.volumeML != null && ing.volumeML > 0));
+  const aqueousReagent = assay < 1 && (st.caustic ? assay <= 0.9 : (liquid?.aqueous ?? false) || (ing.volumeML != null && ing.volumeML > 0));
   const hydrateG = main && moles !== null ? moles * main.water * WATER_MOLAR_MASS : 0;
   const solutionWater = aqueousReagent && reagentG !== null && pureG !== null ? Math.max(0, reagentG - pureG) : 0;
   const anhydrousG = pureG === null ? null : Math.max(0, pureG - hydrateG);

@@ -178,14 +178,21 @@ const FUMING_HALIDES = new Set(['AlCl3', 'AlBr3', 'TiCl4', 'SnCl4', 'ZrCl4', 'Sb
 /** Strong bases by cation (hydroxides, oxides, alkoxides of these). */
 const STRONG_BASE_CATIONS = new Set(['Li', 'Na', 'K', 'Rb', 'Cs', 'Ca', 'Sr', 'Ba']);
 
-const memo = analysisDerivedCache<GroupMember[]>(50_000, 16 * 1024 * 1024);
+const memo = analysisDerivedCache<GroupMember[]>(20_000, 4 * 1024 * 1024);
+const byAnalysis = new WeakMap<FormulaAnalysis, GroupMember[]>();
 
 /**
  * The reactive groups of a substance. `name` is the name the line gave, where it was named: read only when
  * the formula places the substance in no group. Memoised; treat the result as read-only.
  */
 export function reactiveGroups(a: FormulaAnalysis, name?: string): GroupMember[] {
-  const key = name ? `${a.input}\u0000${name}` : a.input;
+  if (!name) {
+    // Per analysis (analyses are shared and read-only): the hot path of every batch.
+    let own = byAnalysis.get(a);
+    if (!own) byAnalysis.set(a, (own = classify(a)));
+    return own;
+  }
+  const key = `${a.input}\u0000${name}`;
   let hit = memo.get(key);
   if (!hit) {
     hit = classify(a);

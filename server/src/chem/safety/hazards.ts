@@ -6,7 +6,7 @@
  */
 import { nameOf } from '../names';
 import type { BatchState, IngredientState } from './context';
-import type { GroupMember } from './groups';
+import type { GroupMember, ReactiveGroup } from './groups';
 import { PAIR_RULES, WATER_PRODUCTS, type PairRule, type Side } from './rules';
 import type { Hazard } from './types';
 
@@ -50,12 +50,35 @@ const capital = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
 const list = (xs: string[]) => (xs.length <= 1 ? xs.join('') : `${xs.slice(0, -1).join(', ')} and ${xs[xs.length - 1]}`);
 const fmtPH = (x: number) => x.toFixed(1);
 
+/** One bit per reactive group, for a quick test of which rules a batch can meet. */
+const GROUP_BIT = new Map<ReactiveGroup, number>();
+const bitOf = (g: ReactiveGroup) => {
+  let b = GROUP_BIT.get(g);
+  if (b === undefined) GROUP_BIT.set(g, (b = 1 << GROUP_BIT.size));
+  return b;
+};
+const sideMask = (groups: readonly ReactiveGroup[]) => groups.reduce((m, g) => m | bitOf(g), 0);
+/** Per rule: the groups of side a, and of side b where b must be present (not where the pH alone can stand in for the acid). */
+const RULE_MASKS = PAIR_RULES.map((r) => ({ a: sideMask(r.a.groups), b: r.b && r.when?.acidBelowPH === undefined ? sideMask(r.b.groups) : 0 }));
+const memberMasks = new WeakMap<readonly GroupMember[], number>();
+function maskOf(members: readonly GroupMember[]): number {
+  let m = memberMasks.get(members);
+  if (m === undefined) memberMasks.set(members, (m = members.reduce((x, g) => x | bitOf(g.group), 0)));
+  return m;
+}
+
 /** The hazards of a batch, in the order of the lines they belong on. */
 export function findHazards(state: BatchState): Hazard[] {
   const out: Hazard[] = [];
+  let present = 0;
+  for (const it of state.items) present |= maskOf(it.members);
+  if (present === 0) return out;
   const items = state.items.filter((it) => it.members.length > 0);
-  if (items.length === 0) return out;
-  for (const rule of PAIR_RULES) {
+  for (let k = 0; k < PAIR_RULES.length; k++) {
+    // Most batches hold few reactive groups: skip the rules whose sides they cannot meet.
+    const mask = RULE_MASKS[k];
+    if (!(mask.a & present) || (mask.b && !(mask.b & present))) continue;
+    const rule = PAIR_RULES[k];
     const as: Array<[IngredientState, GroupMember]> = [];
     for (const it of items) {
       const m = matching(it, rule.a);

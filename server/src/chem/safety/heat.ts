@@ -29,8 +29,8 @@ import { type BatchState, type IngredientState, WATER_MOLAR_MASS, estimateVolume
 import { DILUTION_CURVES, integralEnthalpy, type DilutionCurve } from './data/dilution';
 import { HYDRATION_KJ, HYDRATION_SOURCE } from './data/hydration';
 import { SOLUTION_ENTHALPIES, type SolutionEnthalpyRow } from './data/solution';
-import { ACID_SYSTEMS, WATER_IONISATION_KJ, PKW } from './data/acids';
-import { acidBaseShare, addShare, emptyAmounts, fractions, solvePH, type AcidBaseAmounts } from './ph';
+import { ACID_SYSTEMS, WATER_IONISATION_KJ, PKW, type AcidSystem } from './data/acids';
+import { acidBaseShare, addShare, emptyAmounts, pHBand, solvePH, type AcidBaseAmounts } from './ph';
 import type { FormulaAnalysis } from '../analyse';
 import { SOLUBILITY } from '../data/solubility';
 import { analyseFormula } from '../analyse';
@@ -188,20 +188,49 @@ const fmt = (x: number, digits = 3) => {
 };
 const signed = (x: number) => (x > 0 ? `+${fmt(x)}` : fmt(x));
 
-/** The enthalpy of solution of a substance at infinite dilution, from the table or an estimate; null where neither is possible. */
+const valueMemo = analysisDerivedCache<SolutionEnthalpy | { none: true }>(20_000, 8 * 1024 * 1024);
+const cardMemo = analysisDerivedCache<SolutionEnthalpy | { none: true }>(5_000, 4 * 1024 * 1024);
+
+/**
+ * The enthalpy of solution of a substance at infinite dilution, from the table or an estimate, with why it
+ * warms or cools the water (which needs the card's lattice energy); null where neither is possible.
+ * Memoised; read-only.
+ */
 export function enthalpyOfSolution(a: FormulaAnalysis): SolutionEnthalpy | null {
+  const hit = cardMemo.get(a.input);
+  if (hit) return 'none' in hit ? null : hit;
+  const v = solutionValue(a);
+  let r: SolutionEnthalpy | null = v;
+  if (v) {
+    const main = mainPart(a);
+    const ref =
+      v.basis === 'lattice-estimate'
+        ? v.kJPerMol - (main?.water ?? 0) * hydrateStep().kJPerWater
+        : v.basis === 'hydrate-estimate'
+          ? (solutionRow(main?.hill ?? '')?.kJPerMol ?? v.kJPerMol)
+          : v.kJPerMol;
+    const why = main?.water && v.basis === 'table' ? undefined : whyText(latticeHydration(a), ref);
+    r = why ? { ...v, why } : v;
+  }
+  cardMemo.set(a.input, r ?? { none: true }, r ? 256 + 2 * (r.method.length + (r.why?.length ?? 0)) : 32);
+  return r;
+}
+
+/** The value alone, for the batch (no lattice energy unless the estimate needs it). Memoised; read-only. */
+export function solutionValue(a: FormulaAnalysis): SolutionEnthalpy | null {
+  const hit = valueMemo.get(a.input);
+  if (hit) return 'none' in hit ? null : hit;
+  const r = computeValue(a);
+  valueMemo.set(a.input, r ?? { none: true }, r ? 256 + 2 * r.method.length : 32);
+  return r;
+}
+
+function computeValue(a: FormulaAnalysis): SolutionEnthalpy | null {
   const main = mainPart(a);
   if (!main || !a.ok) return null;
   const row = solutionRow(substanceKey(main));
-  const lh = latticeHydration(a);
   if (row)
-    return {
-      kJPerMol: row.kJPerMol,
-      basis: 'table',
-      method: `enthalpy of solution at infinite dilution ${signed(row.kJPerMol)} kJ/mol`,
-      source: row.source,
-      why: whyText(lh, row.kJPerMol),
-    };
+    return { kJPerMol: row.kJPerMol, basis: 'table', method: `enthalpy of solution at infinite dilution ${signed(row.kJPerMol)} kJ/mol`, source: row.source };
   const step = hydrateStep();
   if (main.water) {
     const anh = solutionRow(main.hill);
@@ -212,10 +241,10 @@ export function enthalpyOfSolution(a: FormulaAnalysis): SolutionEnthalpy | null 
         basis: 'hydrate-estimate',
         method: `estimate: the anhydrous salt's ${signed(anh.kJPerMol)} kJ/mol plus ${main.water} × ${fmt(step.kJPerWater)} kJ/mol per water of crystallisation (the median of the table's ${step.pairs} hydrate pairs, range ${fmt(step.min)}–${fmt(step.max)})`,
         source: anh.source,
-        why: whyText(lh, anh.kJPerMol),
       };
     }
   }
+  const lh = latticeHydration(a);
   if (lh) {
     const acc = estimateAccuracy();
     const v = lh.kJPerMol + main.water * step.kJPerWater;
@@ -225,7 +254,6 @@ export function enthalpyOfSolution(a: FormulaAnalysis): SolutionEnthalpy | null 
       basis: 'lattice-estimate',
       method: `estimate: lattice energy ${fmt(lh.latticeKJ)} kJ/mol (${lh.latticeMethod}) and hydration of the ions ${fmt(lh.hydrationKJ)} kJ/mol${hydrate}; on the ${acc.n} salts of the table this estimate is off by a median ${fmt(acc.medianAbsKJ, 2)} kJ/mol`,
       source: HYDRATION_SOURCE,
-      why: whyText(lh, lh.kJPerMol),
     };
   }
   return null;
@@ -303,14 +331,18 @@ export function heatOfMakingUp(state: BatchState, options: SafetyOptions = {}, s
     notes.push('Enthalpies of solution are at infinite dilution; at working strength they differ by a few kJ/mol (up to about 10 for 2:2 salts).');
   notes.push('No heat is lost to the vessel or the air: a batch made up slowly warms less, over a longer time.');
   const cp = heatCapacity && solutionMassG ? heatCapacity / solutionMassG : null;
-  const method =
-    rise === null
-      ? `ΔH of making up from ${methodParts(counted)}; no temperature change without the batch's water`
-      : `ΔH of making up from ${methodParts(counted)}; ΔT = −ΔH/(m·cp) with m = ${fmt(solutionMassG ?? 0)} g, cp = ${fmt(cp ?? 0, 3)} J/(g·K) (water 4.184, dissolved solids 1.0), no heat lost — an estimate`;
+  const parts = methodParts(counted);
+  let method: string | undefined;
   return {
     kJ,
     temperatureRiseK: rise,
-    method,
+    // Written when read (the check reads only `exceeds`); a getter is enumerable, so JSON has it.
+    get method() {
+      return (method ??=
+        rise === null
+          ? `ΔH of making up from ${parts}; no temperature change without the batch's water`
+          : `ΔH of making up from ${parts}; ΔT = −ΔH/(m·cp) with m = ${fmt(solutionMassG ?? 0)} g, cp = ${fmt(cp ?? 0, 3)} J/(g·K) (water 4.184, dissolved solids 1.0), no heat lost — an estimate`);
+    },
     steps,
     heatCapacityJPerK: heatCapacity,
     solutionMassG,
@@ -323,23 +355,47 @@ export function heatOfMakingUp(state: BatchState, options: SafetyOptions = {}, s
   };
 }
 
+const PART_TEXT: ReadonlyArray<readonly [HeatStep['kind'], string]> = [
+  ['solution', 'enthalpies of solution (CRC/NBS tables)'],
+  ['estimate', 'estimated enthalpies of solution'],
+  ['dilution', 'integral heats of dilution (NBS)'],
+  ['neutralisation', 'the heat of neutralisation (ideal pH model)'],
+];
+const partsMemo = new Map<number, string>();
+
+/** The kinds of step counted, in words (one text per combination, kept). */
 function methodParts(steps: HeatStep[]): string {
-  const kinds = new Set(steps.map((s) => s.kind));
-  const parts: string[] = [];
-  if (kinds.has('solution')) parts.push('enthalpies of solution (CRC/NBS tables)');
-  if (kinds.has('estimate')) parts.push('estimated enthalpies of solution');
-  if (kinds.has('dilution')) parts.push('integral heats of dilution (NBS)');
-  if (kinds.has('neutralisation')) parts.push('the heat of neutralisation (ideal pH model)');
-  return parts.join(', ');
+  let mask = 0;
+  for (const st of steps) for (let k = 0; k < PART_TEXT.length; k++) if (PART_TEXT[k][0] === st.kind) mask |= 1 << k;
+  let text = partsMemo.get(mask);
+  if (text === undefined) {
+    text = PART_TEXT.filter((_, k) => mask & (1 << k))
+      .map(([, t]) => t)
+      .join(', ');
+    partsMemo.set(mask, text);
+  }
+  return text;
 }
 
 const CAUSTIC_HILLS = new Set(['HNaO', 'HKO', 'HLiO', 'CaO', 'Na2O', 'K2O']);
 
+/** A step object of one shape (no spreads: this runs for every ingredient of every batch). */
+function step(it: IngredientState, kind: HeatStep['kind'], kJ: number, method: string, kJPerMol?: number, source?: string): HeatStep {
+  const s: HeatStep = { kind, ingredient: it.display, index: it.index, kJ, method };
+  if (kJPerMol !== undefined) s.kJPerMol = kJPerMol;
+  if (source !== undefined) s.source = source;
+  return s;
+}
+
+const NOT_READ = 'not read as a formula: not counted';
+const SUPPLIED_AS_SOLUTION =
+  'supplied as a solution; its heat of dilution is not tabulated and is taken as zero (usually small, except for strong acids and bases)';
+const NO_ENTHALPY = 'no enthalpy of solution known: not counted';
+
 function dissolution(it: IngredientState, state: BatchState): HeatStep {
-  const base = { ingredient: it.display, index: it.index };
   const main = it.main;
   const moles = it.moles as number;
-  if (!main) return { ...base, kind: 'not-counted', kJ: 0, method: 'not read as a formula: not counted' };
+  if (!main) return step(it, 'not-counted', 0, NOT_READ);
   const totalWaterMol = state.waterG !== null ? state.waterG / WATER_MOLAR_MASS : Infinity;
   const curve = !main.water ? dilutionCurve(main.hill) : undefined;
   if (curve) {
@@ -347,109 +403,95 @@ function dissolution(it: IngredientState, state: BatchState): HeatStep {
     const n1 = totalWaterMol / moles;
     const h0 = integralEnthalpy(curve, n0);
     const h1 = integralEnthalpy(curve, n1);
-    const from = n0 > 0 ? `from ${fmt(n0)} (as supplied)` : `from the pure ${curve.pure}`;
-    const to = Number.isFinite(n1) ? `to ${fmt(n1)} mol H₂O per mol` : 'to infinite dilution';
-    return {
-      ...base,
+    let method: string | undefined;
+    const s: HeatStep = {
       kind: n0 > 0 ? 'dilution' : 'solution',
+      ingredient: it.display,
+      index: it.index,
       kJ: moles * (h1 - h0),
+      get method() {
+        const from = n0 > 0 ? `from ${fmt(n0)} (as supplied)` : `from the pure ${curve.pure}`;
+        const to = Number.isFinite(n1) ? `to ${fmt(n1)} mol H₂O per mol` : 'to infinite dilution';
+        return (method ??= `integral heat of solution ${from} ${to}: ΔH(n₁) − ΔH(n₀) = ${fmt(h1)} − (${fmt(h0)}) kJ/mol`);
+      },
       kJPerMol: h1 - h0,
-      method: `integral heat of solution ${from} ${to}: ΔH(n₁) − ΔH(n₀) = ${fmt(h1)} − (${fmt(h0)}) kJ/mol`,
       source: curve.source,
     };
+    return s;
   }
-  if (it.aqueousReagent)
-    return {
-      ...base,
-      kind: 'not-counted',
-      kJ: 0,
-      method: 'supplied as a solution; its heat of dilution is not tabulated and is taken as zero (usually small, except for strong acids and bases)',
-    };
+  if (it.aqueousReagent) return step(it, 'not-counted', 0, SUPPLIED_AS_SOLUTION);
   if (it.liquid && !it.liquid.aqueous && Number.isFinite(totalWaterMol)) {
     const x = moles / (moles + totalWaterMol);
     if (x > 0.1)
-      return {
-        ...base,
-        kind: 'not-counted',
-        kJ: 0,
-        method: `a co-solvent (mole fraction ${fmt(x, 2)}): its heat of mixing with water is not modelled at this strength (small for these liquids, under about 1 kJ per mole of mixture)`,
-      };
+      return step(
+        it,
+        'not-counted',
+        0,
+        `a co-solvent (mole fraction ${fmt(x, 2)}): its heat of mixing with water is not modelled at this strength (small for these liquids, under about 1 kJ per mole of mixture)`,
+      );
   }
-  const sol = enthalpyOfSolution(it.ing.analysis);
-  if (!sol) return { ...base, kind: 'not-counted', kJ: 0, method: 'no enthalpy of solution known: not counted' };
+  const sol = solutionValue(it.ing.analysis);
+  if (!sol) return step(it, 'not-counted', 0, NO_ENTHALPY);
   const solubility = sparinglySoluble(main.hill);
   if (solubility !== null)
-    return {
-      ...base,
-      kind: 'not-counted',
-      kJ: 0,
-      method: `sparingly soluble (${fmt(solubility, 2)} g per 100 g water): it does not dissolve, and its heat of solution is not counted`,
-    };
-  return {
-    ...base,
-    kind: sol.basis === 'table' ? 'solution' : 'estimate',
-    kJ: moles * sol.kJPerMol,
-    kJPerMol: sol.kJPerMol,
-    method: sol.method,
-    source: sol.source,
-    ...(sol.why ? { why: sol.why } : {}),
-  };
+    return step(
+      it,
+      'not-counted',
+      0,
+      `sparingly soluble (${fmt(solubility, 2)} g per 100 g water): it does not dissolve, and its heat of solution is not counted`,
+    );
+  return step(it, sol.basis === 'table' ? 'solution' : 'estimate', moles * sol.kJPerMol, sol.method, sol.kJPerMol, sol.source);
 }
 
 /** The neutralisation between ingredients: the batch's acid–base species against each ingredient's alone, in the same volume. */
 function neutralisation(state: BatchState): { steps: HeatStep[]; note?: string } | null {
   const v = estimateVolumeL(state.volumeL, state.waterG);
   if (!v || !state.aqueous) return null;
-  const actives: Array<{ it: IngredientState; amounts: AcidBaseAmounts; pH: number }> = [];
+  const candidates: Array<{ it: IngredientState; amounts: AcidBaseAmounts }> = [];
+  let acid = false;
+  let base = false;
   for (const it of state.items) {
     if (it.isWater || !it.moles) continue;
     const share = acidBaseShare(it.ing.analysis);
     if (!share.active) continue;
     const amounts = emptyAmounts();
     addShare(amounts, share, it.moles);
-    const pH = solvePH(amounts, v);
-    if (pH !== null) actives.push({ it, amounts, pH });
+    const band = pHBand(amounts, v, 6.5, 7.5);
+    acid ||= band < 0;
+    base ||= band > 0;
+    candidates.push({ it, amounts });
   }
-  if (actives.length < 2 || !actives.some((x) => x.pH < 6.5) || !actives.some((x) => x.pH > 7.5)) return null;
+  // An acid meets a base only where one ingredient alone is acid and another alone is basic.
+  if (!acid || !base) return null;
+  const actives: Array<{ it: IngredientState; amounts: AcidBaseAmounts; pH: number }> = [];
+  for (const c of candidates) {
+    const pH = solvePH(c.amounts, v);
+    if (pH !== null) actives.push({ it: c.it, amounts: c.amounts, pH });
+  }
   const total = emptyAmounts();
   for (const x of actives) {
     total.fixed += x.amounts.fixed;
     for (const [id, mol] of x.amounts.systems) total.systems.set(id, (total.systems.get(id) ?? 0) + mol);
   }
-  const pHFinal = solvePH(total, v);
+  // The batch's own estimate is the same computation; the solution chemistry's pH is not (activities), so the
+  // species before and after are both taken from the ideal model.
+  const est = state.pH;
+  const pHFinal = est?.from === 'estimate' ? est.value : solvePH(total, v);
   if (pHFinal === null) return null;
   let kJ = 0;
   const unknown = new Set<string>();
-  const deprotonated = (id: string, mol: number, pH: number) => {
-    const f = fractions(ACID_SYSTEMS[id], pH);
-    const d: number[] = [];
-    for (let k = 0; k < f.length - 1; k++) {
-      let s = 0;
-      for (let i = k + 1; i < f.length; i++) s += f[i];
-      d.push(mol * s);
-    }
-    return d;
-  };
-  const ids = new Set<string>();
-  for (const x of actives) for (const id of x.amounts.systems.keys()) ids.add(id);
-  for (const id of ids) {
+  for (const [id, molTotal] of total.systems) {
     const sys = ACID_SYSTEMS[id];
-    const fin = deprotonated(id, total.systems.get(id) ?? 0, pHFinal);
-    const ref = new Array(fin.length).fill(0);
+    let h = systemEnthalpy(sys, molTotal, pHFinal);
+    let lost = lastLost;
     for (const x of actives) {
       const mol = x.amounts.systems.get(id);
       if (!mol) continue;
-      deprotonated(id, mol, x.pH).forEach((d, k) => (ref[k] += d));
+      h -= systemEnthalpy(sys, mol, x.pH);
+      lost -= lastLost;
     }
-    for (let k = 0; k < fin.length; k++) {
-      const change = fin[k] - ref[k];
-      const dH = sys.dH[k];
-      if (dH === null) {
-        if (Math.abs(change) > 1e-6) unknown.add(sys.name);
-        continue;
-      }
-      kJ += change * dH;
-    }
+    kJ += h;
+    if (Math.abs(lost) > 1e-6 && sys.dH.some((d) => d === null)) unknown.add(sys.name);
   }
   const oh = (pH: number) => Math.pow(10, pH - PKW) * v;
   const dOH = oh(pHFinal) - actives.reduce((s, x) => s + oh(x.pH), 0);
@@ -466,6 +508,32 @@ function neutralisation(state: BatchState): { steps: HeatStep[]; note?: string }
     source: 'Goldberg et al., J. Phys. Chem. Ref. Data 31 (2002) 231; NBS tables (Wagman et al. 1982); from memory',
   };
   return { steps: [step], note: unknown.size ? `Ionisation enthalpies not known (counted as zero): ${[...unknown].join(', ')}.` : undefined };
+}
+
+/** Protons lost (mol) in the last `systemEnthalpy` call. */
+let lastLost = 0;
+
+/**
+ * The ionisation enthalpy held by `mol` of a system at a pH, kJ, from its most protonated form:
+ * mol × Σᵢ αᵢ × (ΔionH₁ + … + ΔionHᵢ), with the species weighted tᵢ = Π Kaⱼ/[H⁺] (no allocation). A step of
+ * unknown enthalpy counts as zero. The protons lost, mol × Σᵢ i αᵢ, are left in `lastLost`.
+ */
+function systemEnthalpy(sys: AcidSystem, mol: number, pH: number): number {
+  const invH = Math.pow(10, pH);
+  let t = 1;
+  let sum = 1;
+  let cum = 0;
+  let hsum = 0;
+  let isum = 0;
+  for (let i = 0; i < sys.pKa.length; i++) {
+    t *= Math.pow(10, -sys.pKa[i]) * invH;
+    cum += sys.dH[i] ?? 0;
+    sum += t;
+    hsum += t * cum;
+    isum += t * (i + 1);
+  }
+  lastLost = (mol * isum) / sum;
+  return (mol * hsum) / sum;
 }
 
 const ACID_ADVICE = 'Add the acid to the water slowly, with stirring and cooling — never water to acid: the acid meeting a little water boils and spatters';

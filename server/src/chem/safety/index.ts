@@ -58,11 +58,9 @@ export const SAFETY_NOTICE =
 /** The safety reading of one batch: hazards and heat. */
 export function readBatchSafety(batch: SafetyBatch, options: SafetyOptions = {}): SafetyReading {
   const state = batchState(batch);
-  return {
-    hazards: findHazards(state),
-    heat: heatOfMakingUp(state, options, batch.temperatureC ?? 20),
-    pH: state.pH,
-  };
+  const hazards = findHazards(state);
+  const heat = heatOfMakingUp(state, options, batch.temperatureC ?? 20);
+  return { hazards, heat, pH: state.pHIfUsed() };
 }
 
 /** Only the hazards of a batch. */

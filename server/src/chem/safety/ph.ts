@@ -16,7 +16,6 @@
  * precipitation are not modelled.
  */
 import type { FormulaAnalysis } from '../analyse';
-import { analysisDerivedCache } from '../cache';
 import { ACID_SYSTEMS, ANION_SYSTEMS, MOLECULAR_ACID_BASE, PKW, type AcidSystem } from './data/acids';
 import { mainPart } from './substance';
 
@@ -33,15 +32,13 @@ const BASIC_ANIONS = new Set(['hydroxide', 'methoxide', 'ethoxide', 'propoxide',
 const BASIC_MONATOMIC = new Set(['O', 'H', 'N', 'C', 'P']);
 
 const NONE: AcidBaseShare = Object.freeze({ fixed: 0, systems: [], active: false });
-const memo = analysisDerivedCache<AcidBaseShare>(20_000, 4 * 1024 * 1024);
+/** Per analysis (analyses are shared and read-only, so the answer never changes). */
+const memo = new WeakMap<FormulaAnalysis, AcidBaseShare>();
 
-/** The acid–base share of a substance, from its reading (memoised by formula text; read-only). */
+/** The acid–base share of a substance, from its reading (memoised; read-only). */
 export function acidBaseShare(a: FormulaAnalysis): AcidBaseShare {
-  let hit = memo.get(a.input);
-  if (!hit) {
-    hit = compute(a);
-    memo.set(a.input, hit, 96 + 48 * hit.systems.length);
-  }
+  let hit = memo.get(a);
+  if (!hit) memo.set(a, (hit = compute(a)));
   return hit;
 }
 
@@ -119,42 +116,132 @@ export function fractions(sys: AcidSystem, pH: number): number[] {
   return w.map((x) => x / sum);
 }
 
-/** Mean charge of a system's species at a pH. */
-function meanCharge(sys: AcidSystem, pH: number): number {
-  const f = fractions(sys, pH);
-  let z = 0;
-  for (let i = 0; i < f.length; i++) z += f[i] * (sys.z0 - i);
-  return z;
+/** Acid dissociation constants of each system, computed once. */
+const KA = new Map<string, Float64Array>();
+function kaOf(sys: AcidSystem): Float64Array {
+  let k = KA.get(sys.id);
+  if (!k) KA.set(sys.id, (k = Float64Array.from(sys.pKa, (p) => Math.pow(10, -p))));
+  return k;
 }
 
 const LOW = -3;
 const HIGH = 17;
+const KW = Math.pow(10, -PKW);
+
+/** dq/dpH of the last `balanceAt` call (kept outside the return value: no allocation in the solver). */
+let lastSlope = 0;
+const LN10 = Math.LN10;
 
 /**
- * The pH at which the charge balance of the amounts in `volumeL` litres closes (ideal solution, 25 °C),
- * by bisection to 10⁻⁶ pH units; null for a non-positive volume.
+ * The charge balance of a solution at a pH (mol/L of charge): positive below the root, falling with pH.
+ * The species of a system are weighted tᵢ = Π Kaⱼ/[H⁺] (t₀ = 1), computed without allocation. Its slope,
+ * −ln 10 · ([H⁺] + [OH⁻] + Σ C · Var(protons lost)), is left in `lastSlope` for Newton's method.
  */
-export function solvePH(amounts: AcidBaseAmounts, volumeL: number): number | null {
+function balanceAt(pH: number, fixed: number, conc: Float64Array, z0: Int32Array, ka: readonly Float64Array[]): number {
+  const h = Math.pow(10, -pH);
+  const invH = 1 / h;
+  const oh = KW * invH;
+  let q = h - oh + fixed;
+  let spread = h + oh;
+  for (let s = 0; s < conc.length; s++) {
+    const k = ka[s];
+    let t = 1;
+    let sum = 1;
+    let m1 = 0;
+    let m2 = 0;
+    for (let i = 0; i < k.length; i++) {
+      t *= k[i] * invH;
+      sum += t;
+      m1 += t * (i + 1);
+      m2 += t * (i + 1) * (i + 1);
+    }
+    const mean = m1 / sum;
+    q += conc[s] * (z0[s] - mean);
+    spread += conc[s] * (m2 / sum - mean * mean);
+  }
+  lastSlope = -LN10 * spread;
+  return q;
+}
+
+/** A solution's systems as arrays for the solver (concentrations in mol/L). */
+export interface CompiledSolution {
+  fixed: number;
+  conc: Float64Array;
+  z0: Int32Array;
+  ka: Float64Array[];
+}
+
+/** The systems of a solution as arrays for the solver. */
+export function compile(amounts: AcidBaseAmounts, volumeL: number): CompiledSolution {
+  const n = amounts.systems.size;
+  const conc = new Float64Array(n);
+  const z0 = new Int32Array(n);
+  const ka: Float64Array[] = [];
+  let k = 0;
+  for (const [id, mol] of amounts.systems) {
+    const sys = ACID_SYSTEMS[id];
+    conc[k] = mol > 0 ? mol / volumeL : 0;
+    z0[k] = sys.z0;
+    ka.push(kaOf(sys));
+    k++;
+  }
+  return { fixed: amounts.fixed / volumeL, conc, z0, ka };
+}
+
+/**
+ * The pH at which the charge balance of the amounts in `volumeL` litres closes (ideal solution, 25 °C):
+ * Newton's method kept inside a bracket that bisection narrows whenever a step would leave it (the
+ * balance falls monotonically, so the root is unique), to 10⁻⁷ pH units; null for a non-positive volume.
+ */
+export function solvePH(amounts: AcidBaseAmounts | CompiledSolution, volumeL: number): number | null {
   if (!(volumeL > 0)) return null;
-  const fixed = amounts.fixed / volumeL;
-  const sys: Array<[AcidSystem, number]> = [];
-  for (const [id, mol] of amounts.systems) if (mol > 0) sys.push([ACID_SYSTEMS[id], mol / volumeL]);
-  const balance = (pH: number) => {
-    const h = Math.pow(10, -pH);
-    let q = h - Math.pow(10, pH - PKW) + fixed;
-    for (const [s, c] of sys) q += c * meanCharge(s, pH);
-    return q;
-  };
+  const { fixed, conc, z0, ka } = 'conc' in amounts ? amounts : compile(amounts, volumeL);
   let lo = LOW;
   let hi = HIGH;
-  if (balance(lo) <= 0) return lo;
-  if (balance(hi) >= 0) return hi;
-  while (hi - lo > 1e-6) {
-    const mid = 0.5 * (lo + hi);
-    if (balance(mid) > 0) lo = mid;
-    else hi = mid;
+  if (balanceAt(lo, fixed, conc, z0, ka) <= 0) return lo;
+  if (balanceAt(hi, fixed, conc, z0, ka) >= 0) return hi;
+  let x = 7;
+  for (let iter = 0; iter < 100; iter++) {
+    const f = balanceAt(x, fixed, conc, z0, ka);
+    if (f > 0) lo = x;
+    else if (f < 0) hi = x;
+    else return x;
+    let next = x - f / lastSlope;
+    if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
+    if (Math.abs(next - x) < 1e-7 || hi - lo < 1e-7) return next;
+    x = next;
   }
-  return 0.5 * (lo + hi);
+  return x;
+}
+
+const SCRATCH: CompiledSolution = { fixed: 0, conc: new Float64Array(0), z0: new Int32Array(0), ka: [] };
+
+/**
+ * Whether a solution's pH lies below (−1), within (0) or above (+1) the band [lo, hi], without solving
+ * for it (two evaluations of the balance, in scratch arrays: nothing is allocated for most calls).
+ */
+export function pHBand(amounts: AcidBaseAmounts, volumeL: number, lo: number, hi: number): -1 | 0 | 1 {
+  const n = amounts.systems.size;
+  if (SCRATCH.conc.length < n) {
+    SCRATCH.conc = new Float64Array(2 * n);
+    SCRATCH.z0 = new Int32Array(2 * n);
+  }
+  const conc = SCRATCH.conc.subarray(0, n);
+  const z0 = SCRATCH.z0.subarray(0, n);
+  const ka = SCRATCH.ka;
+  ka.length = 0;
+  let k = 0;
+  for (const [id, mol] of amounts.systems) {
+    const sys = ACID_SYSTEMS[id];
+    conc[k] = mol > 0 ? mol / volumeL : 0;
+    z0[k] = sys.z0;
+    ka.push(kaOf(sys));
+    k++;
+  }
+  const fixed = amounts.fixed / volumeL;
+  if (balanceAt(lo, fixed, conc, z0, ka) < 0) return -1;
+  if (balanceAt(hi, fixed, conc, z0, ka) > 0) return 1;
+  return 0;
 }
 
 /** The share of a system in its protonated form below step `k` (the acid HA of step k) at a pH. */

@@ -76,8 +76,6 @@ export interface HeatStep {
   /** How it was obtained, in one line. */
   method: string;
   source?: string;
-  /** Why the salt warms or cools the water (lattice energy against hydration of its ions), where known. */
-  why?: string;
 }
 
 export interface HeatReading {
@@ -106,6 +104,6 @@ export interface HeatReading {
 export interface SafetyReading {
   hazards: Hazard[];
   heat: HeatReading | null;
-  /** The pH the reading used: the solution chemistry's, or its own estimate (ideal solution), or none. */
+  /** The pH the reading used: the solution chemistry's, or its own estimate (ideal solution); null where it needed none (no acid-sensitive substance, no neutralisation) or the batch is dry. */
   pH: { value: number; from: 'solution' | 'estimate' } | null;
 }
