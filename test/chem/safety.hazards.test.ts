@@ -1097,3 +1097,17 @@ describe('never a crash', () => {
     );
   });
 });
+
+describe('acid salts by the protons they still carry (CRC pKa values)', () => {
+  const acidPKa = (f: string) => reactiveGroups(analyseFormula(f)).find((g) => g.group === 'acid')?.pKa;
+  it('per unit of their system', () => {
+    expect(acidPKa('NaHSO4')).toBe(1.99);
+    expect(acidPKa('NaH2PO4')).toBe(7.2);
+    expect(acidPKa('Na2HPO4')).toBeUndefined(); // pKa 12.35: not an acid here
+    expect(acidPKa('NaHCO3')).toBeUndefined(); // pKa 10.33
+    expect(acidPKa('Na2S2O5')).toBe(7.17); // two HSO3⁻ units
+    expect(acidPKa('K2Cr2O7')).toBe(6.51); // two HCrO4⁻ units
+    expect(acidPKa('KHF2')).toBe(3.17); // HF + F⁻
+    expect(acidPKa('Na2B4O7')).toBeUndefined(); // boric acid pKa 9.24
+  });
+});

@@ -600,6 +600,28 @@ describe('temperature rises of common make-ups (tolerance 10 %)', () => {
     expect(h.steps.find((s) => s.ingredient === 'C₂H₅OH')?.kind).toBe('not-counted');
   });
 
+  it('above its solubility only what dissolves is counted (Na2CO3 30.7 g per 100 g water, CRC, from memory)', () => {
+    const h = rise([['Na2CO3', 500, 'g']], 1);
+    const s = h.steps[0];
+    expect(s.method).toMatch(/above its solubility/);
+    const water = h.solutionMassG! - 500;
+    expect(s.kJ).toBeCloseTo(((0.307 * water) / 105.99) * -26.7, 1);
+  });
+
+  it('a batch with a final volume is a solution even where its solids overfill it: no dry-blend rules', () => {
+    const r = readBatchSafety(
+      mix(
+        [
+          ['KNO3', 3000, 'g'],
+          ['C12H22O11', 2000, 'g'],
+        ],
+        { volumeL: 1 },
+      ),
+    );
+    expect(r.hazards).toEqual([]);
+    expect(r.heat?.temperatureRiseK ?? null).toBeNull();
+  });
+
   it('nothing known: no heat at all', () => {
     expect(batchHeat(mix([['TiO2', 10, 'g']], { volumeL: 1 }))).toBeNull();
   });

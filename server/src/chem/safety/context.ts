@@ -8,7 +8,7 @@
  * an estimate, common practice). Without a volume, the water is what the lines list (H2O lines, the water
  * of aqueous reagents and hydrates); none means a dry blend.
  */
-import { acidBaseShare, addShare, emptyAmounts, solvePH } from './ph';
+import { acidBaseShare, solveParts, type Part } from './ph';
 import { reactiveGroups, type GroupMember } from './groups';
 import { mainPart, type MainPart } from './substance';
 import type { SafetyBatch, SafetyIngredient } from './types';
@@ -138,7 +138,8 @@ export function batchState(batch: SafetyBatch): BatchState {
     for (const it of items) m += it.reagentG ?? 0;
     massG = m > 0 ? m : null;
   }
-  const aqueous = waterG !== null && waterG > 0;
+  // A batch with a final volume is a solution, even where its water could not be estimated.
+  const aqueous = volumeL !== null || (waterG !== null && waterG > 0);
   const given = batch.pH != null && Number.isFinite(batch.pH) ? { value: batch.pH, from: 'solution' as const } : null;
   // The estimate is made only when something asks for it (an acid-sensitive pair, a neutralisation).
   let estimate: BatchState['pH'] | undefined = given ? given : undefined;
@@ -161,16 +162,13 @@ export function batchState(batch: SafetyBatch): BatchState {
 
 function estimatePH(items: readonly IngredientState[], v: number | null): BatchState['pH'] {
   if (!v) return null;
-  const amounts = emptyAmounts();
-  let any = false;
+  const parts: Part[] = [];
   for (const it of items) {
     if (it.moles === null || it.isWater) continue;
     const share = acidBaseShare(it.ing.analysis);
-    if (!share.active) continue;
-    any = true;
-    addShare(amounts, share, it.moles);
+    if (share.active) parts.push({ share, moles: it.moles });
   }
-  const value = any ? solvePH(amounts, v) : 7;
+  const value = parts.length ? solveParts(parts, v) : 7;
   return value === null ? null : { value, from: 'estimate' };
 }
 

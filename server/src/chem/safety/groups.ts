@@ -280,9 +280,9 @@ function ionic(ions: readonly IonInReading[], hill: string, a: FormulaAnalysis, 
     if (!sys) continue;
     const s = ACID_SYSTEMS[sys[0]];
     // The protons the anion still carries: an acid if its next proton has pKa below 8.
-    const level = protonsCarried(an);
+    const level = protonsCarried(an) / sys[1];
     if (level > 0) {
-      const step = s.pKa.length - level;
+      const step = s.pKa.length - Math.ceil(level - 1e-9);
       const pKa = s.pKa[step];
       if (pKa !== undefined && pKa < 8) out.push({ group: 'acid', what: an.ionName ?? 'acid salt', pKa });
     }
@@ -374,7 +374,7 @@ function ionic(ions: readonly IonInReading[], hill: string, a: FormulaAnalysis, 
 const main = (a: FormulaAnalysis) => mainPart(a);
 const mainWater = (a: FormulaAnalysis) => mainPart(a)?.water ?? 0;
 
-/** Protons an anion still carries that it can give up (HSO₄⁻ 1, H₂PO₄⁻ 2, HCO₃⁻ 1, SO₄²⁻ 0), from its charge and its system. */
+/** Protons an anion still carries that it can give up (HSO₄⁻ 1, H₂PO₄⁻ 2, HCO₃⁻ 1, SO₄²⁻ 0; S₂O₅²⁻ 2 over its two sulfite units), from its charge and its system. */
 function protonsCarried(an: IonInReading): number {
   const sys = an.ionName ? ANION_SYSTEMS[an.ionName] : undefined;
   if (!sys) return 0;

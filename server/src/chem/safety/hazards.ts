@@ -112,7 +112,8 @@ export function findHazards(state: BatchState): Hazard[] {
       if (when.acidBelowPH !== undefined && state.pH) {
         // The batch's pH decides: above the threshold the acid-sensitive substance is safe in this batch.
         if (state.pH.value >= when.acidBelowPH) continue;
-        if (!partners.length && rule.b?.groups.some((g) => g === 'acid' || g === 'strong-acid')) {
+        // Where any acid will do, the pH alone decides; a rule for strong acids only needs one in the batch.
+        if (!partners.length && rule.b?.groups.includes('acid')) {
           out.push(pairHazard(rule, a, am, pHPartners(a, items), state));
           continue;
         }

@@ -30,7 +30,7 @@ import { DILUTION_CURVES, integralEnthalpy, type DilutionCurve } from './data/di
 import { HYDRATION_KJ, HYDRATION_SOURCE } from './data/hydration';
 import { SOLUTION_ENTHALPIES, type SolutionEnthalpyRow } from './data/solution';
 import { ACID_SYSTEMS, WATER_IONISATION_KJ, PKW, type AcidSystem } from './data/acids';
-import { acidBaseShare, addShare, emptyAmounts, pHBand, solvePH, type AcidBaseAmounts } from './ph';
+import { acidBaseShare, bandOne, solveOne, solveParts, type Part } from './ph';
 import type { FormulaAnalysis } from '../analyse';
 import { SOLUBILITY } from '../data/solubility';
 import { analyseFormula } from '../analyse';
@@ -278,8 +278,8 @@ function whyText(lh: LatticeHydration | null, value: number): string | undefined
 /** Below this solubility (g per 100 g water) a substance is taken as not dissolving (common practice: "sparingly soluble"). */
 const SPARINGLY_SOLUBLE_BELOW = 1;
 let solubilityIndex: Map<string, number> | null = null;
-/** The solubility of a sparingly soluble substance (g/100 g water, chem/data/solubility.ts), or null. */
-function sparinglySoluble(hill: string): number | null {
+/** The solubility of a substance by the key of its anhydrous form (g/100 g water, chem/data/solubility.ts), where tabulated. */
+function solubilityOf(hill: string): number | undefined {
   if (!solubilityIndex) {
     solubilityIndex = new Map();
     for (const row of SOLUBILITY) {
@@ -287,26 +287,29 @@ function sparinglySoluble(hill: string): number | null {
       if (k) solubilityIndex.set(k, row.gPer100gWater);
     }
   }
-  const g = solubilityIndex.get(hill);
-  return g !== undefined && g < SPARINGLY_SOLUBLE_BELOW ? g : null;
+  return solubilityIndex.get(hill);
 }
 
 /** The heat of making up a batch; null where no ingredient's heat is known. */
 export function heatOfMakingUp(state: BatchState, options: SafetyOptions = {}, startC = DEFAULT_START_C): HeatReading | null {
   const threshold = options.heatThresholdK ?? DEFAULT_HEAT_THRESHOLD_K;
   const steps: HeatStep[] = [];
-  const notes: string[] = [...state.notes];
   for (const it of state.items) {
     if (it.isWater || it.moles === null || it.moles === 0) continue;
     steps.push(dissolution(it, state));
   }
   const neut = neutralisation(state);
-  if (neut) steps.push(...neut.steps);
-  if (neut?.note) notes.push(neut.note);
-  const counted = steps.filter((s) => s.kind !== 'not-counted');
-  if (!counted.length) return null;
-  const kJ = counted.reduce((s, x) => s + x.kJ, 0);
-  for (const s of steps) if (s.kind === 'not-counted') notes.push(`${s.ingredient}: ${s.method}.`);
+  if (neut) steps.push(neut.step);
+  let kJ = 0;
+  let anyCounted = false;
+  let anySolution = false;
+  for (const st of steps) {
+    if (st.kind === 'not-counted') continue;
+    anyCounted = true;
+    anySolution ||= st.kind === 'solution' || st.kind === 'estimate';
+    kJ += st.kJ;
+  }
+  if (!anyCounted) return null;
   let heatCapacity: number | null = null;
   let solutionMassG: number | null = null;
   if (state.waterG !== null && state.waterG > 0) {
@@ -317,27 +320,21 @@ export function heatOfMakingUp(state: BatchState, options: SafetyOptions = {}, s
       heatCapacity += it.anhydrousG * (it.liquid?.cp ?? SOLID_CP);
       solutionMassG += it.anhydrousG;
     }
-  } else
-    notes.push(
-      state.aqueous
-        ? 'The batch water is not known: no temperature change is estimated.'
-        : 'No final volume or water is given: the heat is for dissolving into a large amount of water, and no temperature change is estimated.',
-    );
+  }
   const rise = heatCapacity ? (-kJ * 1000) / heatCapacity : null;
   const finalC = rise === null ? null : startC + rise;
   const exceeds = rise !== null && Math.abs(rise) > threshold;
-  if (state.waterFrom === 'volume') notes.push('The batch water is estimated from the final volume less the volume the dissolved substances take up.');
-  if (counted.some((s) => s.kind === 'solution' || s.kind === 'estimate'))
-    notes.push('Enthalpies of solution are at infinite dilution; at working strength they differ by a few kJ/mol (up to about 10 for 2:2 salts).');
-  notes.push('No heat is lost to the vessel or the air: a batch made up slowly warms less, over a longer time.');
   const cp = heatCapacity && solutionMassG ? heatCapacity / solutionMassG : null;
-  const parts = methodParts(counted);
+  // The texts are written when read (the check reads only `exceeds`, and the advice where it exceeds);
+  // getters are enumerable, so JSON has them.
   let method: string | undefined;
+  let notes: string[] | undefined;
+  let adv: string[] | undefined;
   return {
     kJ,
     temperatureRiseK: rise,
-    // Written when read (the check reads only `exceeds`); a getter is enumerable, so JSON has it.
     get method() {
+      const parts = methodParts(steps);
       return (method ??=
         rise === null
           ? `ΔH of making up from ${parts}; no temperature change without the batch's water`
@@ -350,8 +347,26 @@ export function heatOfMakingUp(state: BatchState, options: SafetyOptions = {}, s
     finalC,
     thresholdK: threshold,
     exceeds,
-    advice: exceeds && rise !== null ? advice(counted, rise, finalC ?? startC, state) : [],
-    notes,
+    get advice() {
+      return (adv ??= exceeds && rise !== null ? advice(steps, rise, finalC ?? startC, state) : []);
+    },
+    get notes() {
+      if (notes) return notes;
+      notes = [...state.notes];
+      if (neut?.note) notes.push(neut.note);
+      for (const st of steps) if (st.kind === 'not-counted') notes.push(`${st.ingredient}: ${st.method}.`);
+      if (heatCapacity === null)
+        notes.push(
+          state.aqueous
+            ? 'The batch water is not known: no temperature change is estimated.'
+            : 'No final volume or water is given: the heat is for dissolving into a large amount of water, and no temperature change is estimated.',
+        );
+      if (state.waterFrom === 'volume') notes.push('The batch water is estimated from the final volume less the volume the dissolved substances take up.');
+      if (anySolution)
+        notes.push('Enthalpies of solution are at infinite dilution; at working strength they differ by a few kJ/mol (up to about 10 for 2:2 salts).');
+      notes.push('No heat is lost to the vessel or the air: a batch made up slowly warms less, over a longer time.');
+      return notes;
+    },
   };
 }
 
@@ -432,83 +447,109 @@ function dissolution(it: IngredientState, state: BatchState): HeatStep {
   }
   const sol = solutionValue(it.ing.analysis);
   if (!sol) return step(it, 'not-counted', 0, NO_ENTHALPY);
-  const solubility = sparinglySoluble(main.hill);
-  if (solubility !== null)
+  const solubility = solubilityOf(main.hill);
+  if (solubility !== undefined && solubility < SPARINGLY_SOLUBLE_BELOW)
     return step(
       it,
       'not-counted',
       0,
       `sparingly soluble (${fmt(solubility, 2)} g per 100 g water): it does not dissolve, and its heat of solution is not counted`,
     );
-  return step(it, sol.basis === 'table' ? 'solution' : 'estimate', moles * sol.kJPerMol, sol.method, sol.kJPerMol, sol.source);
+  const kind = sol.basis === 'table' ? 'solution' : 'estimate';
+  if (solubility !== undefined && state.waterG !== null && it.anhydrousG) {
+    // What is above its solubility does not dissolve: the grams of this substance on all lines against it.
+    let total = 0;
+    for (const x of state.items) if (x.main?.hill === main.hill) total += x.anhydrousG ?? 0;
+    const share = Math.min(1, (solubility * state.waterG) / 100 / total);
+    if (share < 1)
+      return step(
+        it,
+        kind,
+        moles * share * sol.kJPerMol,
+        `${sol.method}; above its solubility (${fmt(solubility)} g per 100 g water, CRC, from memory) only ${fmt(share * 100, 2)} % dissolves and is counted`,
+        sol.kJPerMol,
+        sol.source,
+      );
+  }
+  return step(it, kind, moles * sol.kJPerMol, sol.method, sol.kJPerMol, sol.source);
 }
 
 /** The neutralisation between ingredients: the batch's acid–base species against each ingredient's alone, in the same volume. */
-function neutralisation(state: BatchState): { steps: HeatStep[]; note?: string } | null {
+function neutralisation(state: BatchState): { step: HeatStep; note?: string } | null {
   const v = estimateVolumeL(state.volumeL, state.waterG);
   if (!v || !state.aqueous) return null;
-  const candidates: Array<{ it: IngredientState; amounts: AcidBaseAmounts }> = [];
+  const candidates: Array<{ it: IngredientState; part: Part; band: -1 | 0 | 1 }> = [];
   let acid = false;
   let base = false;
   for (const it of state.items) {
     if (it.isWater || !it.moles) continue;
     const share = acidBaseShare(it.ing.analysis);
     if (!share.active) continue;
-    const amounts = emptyAmounts();
-    addShare(amounts, share, it.moles);
-    const band = pHBand(amounts, v, 6.5, 7.5);
+    const band = bandOne(share, it.moles, v, 6.5, 7.5);
     acid ||= band < 0;
     base ||= band > 0;
-    candidates.push({ it, amounts });
+    candidates.push({ it, part: { share, moles: it.moles }, band });
   }
   // An acid meets a base only where one ingredient alone is acid and another alone is basic.
   if (!acid || !base) return null;
-  const actives: Array<{ it: IngredientState; amounts: AcidBaseAmounts; pH: number }> = [];
+  const actives: Array<{ it: IngredientState; part: Part; pH: number }> = [];
   for (const c of candidates) {
-    const pH = solvePH(c.amounts, v);
-    if (pH !== null) actives.push({ it: c.it, amounts: c.amounts, pH });
-  }
-  const total = emptyAmounts();
-  for (const x of actives) {
-    total.fixed += x.amounts.fixed;
-    for (const [id, mol] of x.amounts.systems) total.systems.set(id, (total.systems.get(id) ?? 0) + mol);
+    // A substance that alone stays within pH 6.5–7.5 is taken at pH 7 (its species barely differ there).
+    const pH = c.band === 0 ? 7 : solveOne(c.part.share, c.part.moles, v);
+    if (pH !== null) actives.push({ it: c.it, part: c.part, pH });
   }
   // The batch's own estimate is the same computation; the solution chemistry's pH is not (activities), so the
   // species before and after are both taken from the ideal model.
   const est = state.pH;
-  const pHFinal = est?.from === 'estimate' ? est.value : solvePH(total, v);
+  const pHFinal =
+    est?.from === 'estimate'
+      ? est.value
+      : solveParts(
+          actives.map((x) => x.part),
+          v,
+        );
   if (pHFinal === null) return null;
+  // Each system's enthalpy is linear in its amount at a given pH: the batch's is the sum of the parts' at its pH.
   let kJ = 0;
-  const unknown = new Set<string>();
-  for (const [id, molTotal] of total.systems) {
-    const sys = ACID_SYSTEMS[id];
-    let h = systemEnthalpy(sys, molTotal, pHFinal);
-    let lost = lastLost;
-    for (const x of actives) {
-      const mol = x.amounts.systems.get(id);
-      if (!mol) continue;
+  let unknown: Set<string> | null = null;
+  let ohBefore = 0;
+  for (const x of actives) {
+    ohBefore += Math.pow(10, x.pH - PKW) * v;
+    for (const [id, units] of x.part.share.systems) {
+      const sys = ACID_SYSTEMS[id];
+      const mol = units * x.part.moles;
+      let h = systemEnthalpy(sys, mol, pHFinal);
+      let lost = lastLost;
       h -= systemEnthalpy(sys, mol, x.pH);
       lost -= lastLost;
+      kJ += h;
+      if (Math.abs(lost) > 1e-6 && UNKNOWN_STEPS.has(id)) (unknown ??= new Set()).add(sys.name);
     }
-    kJ += h;
-    if (Math.abs(lost) > 1e-6 && sys.dH.some((d) => d === null)) unknown.add(sys.name);
   }
-  const oh = (pH: number) => Math.pow(10, pH - PKW) * v;
-  const dOH = oh(pHFinal) - actives.reduce((s, x) => s + oh(x.pH), 0);
-  kJ += dOH * WATER_IONISATION_KJ;
+  kJ += (Math.pow(10, pHFinal - PKW) * v - ohBefore) * WATER_IONISATION_KJ;
   if (Math.abs(kJ) < 0.05) return null;
-  const acids = actives.filter((x) => x.pH < 6.5).map((x) => x.it.display);
-  const bases = actives.filter((x) => x.pH > 7.5).map((x) => x.it.display);
+  let method: string | undefined;
   const step: HeatStep = {
     kind: 'neutralisation',
     ingredient: null,
     index: null,
     kJ,
-    method: `neutralisation of ${acids.join(', ')} by ${bases.join(', ')}: the species at the batch's estimated pH ${pHFinal.toFixed(1)} against each alone, with the ionisation enthalpies of each step and 55.84 kJ/mol for water (ideal solution)`,
+    get method() {
+      const acids = actives.filter((x) => x.pH < 6.5).map((x) => x.it.display);
+      const bases = actives.filter((x) => x.pH > 7.5).map((x) => x.it.display);
+      return (method ??= `neutralisation of ${acids.join(', ')} by ${bases.join(', ')}: the species at the batch's estimated pH ${pHFinal.toFixed(1)} against each alone, with the ionisation enthalpies of each step and 55.84 kJ/mol for water (ideal solution)`);
+    },
     source: 'Goldberg et al., J. Phys. Chem. Ref. Data 31 (2002) 231; NBS tables (Wagman et al. 1982); from memory',
   };
-  return { steps: [step], note: unknown.size ? `Ionisation enthalpies not known (counted as zero): ${[...unknown].join(', ')}.` : undefined };
+  return { step, note: unknown ? `Ionisation enthalpies not known (counted as zero): ${[...unknown].join(', ')}.` : undefined };
 }
+
+/** Systems with a step of unknown ionisation enthalpy. */
+const UNKNOWN_STEPS = new Set(
+  Object.values(ACID_SYSTEMS)
+    .filter((sys) => sys.dH.some((d) => d === null))
+    .map((sys) => sys.id),
+);
 
 /** Protons lost (mol) in the last `systemEnthalpy` call. */
 let lastLost = 0;

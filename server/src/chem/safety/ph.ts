@@ -106,16 +106,6 @@ export function addShare(into: AcidBaseAmounts, share: AcidBaseShare, moles: num
   for (const [id, units] of share.systems) into.systems.set(id, (into.systems.get(id) ?? 0) + units * moles);
 }
 
-/** Fractions α₀…αₙ of a system's species at a pH (α₀ the most protonated). */
-export function fractions(sys: AcidSystem, pH: number): number[] {
-  const logs = [0];
-  for (let i = 0; i < sys.pKa.length; i++) logs.push(logs[i] + pH - sys.pKa[i]);
-  const top = Math.max(...logs);
-  const w = logs.map((x) => Math.pow(10, x - top));
-  const sum = w.reduce((s, x) => s + x, 0);
-  return w.map((x) => x / sum);
-}
-
 /** Acid dissociation constants of each system, computed once. */
 const KA = new Map<string, Float64Array>();
 function kaOf(sys: AcidSystem): Float64Array {
@@ -127,24 +117,82 @@ function kaOf(sys: AcidSystem): Float64Array {
 const LOW = -3;
 const HIGH = 17;
 const KW = Math.pow(10, -PKW);
-
-/** dq/dpH of the last `balanceAt` call (kept outside the return value: no allocation in the solver). */
-let lastSlope = 0;
 const LN10 = Math.LN10;
 
+/** An ingredient's acid–base share and its amount, as the solver takes them. */
+export interface Part {
+  share: AcidBaseShare;
+  moles: number;
+}
+
+// The solution being solved, in scratch arrays: the solver allocates nothing (it runs for most batches).
+let conc = new Float64Array(16);
+let z0s = new Int32Array(16);
+const kas: Float64Array[] = [];
+const ids: string[] = [];
+let count = 0;
+let fixedConc = 0;
+
+function load(parts: readonly Part[], volumeL: number): void {
+  count = 0;
+  fixedConc = 0;
+  ids.length = 0;
+  for (const p of parts) add(p.share, p.moles);
+  for (let k = 0; k < count; k++) conc[k] /= volumeL;
+  fixedConc /= volumeL;
+}
+
+function loadOne(share: AcidBaseShare, moles: number, volumeL: number): void {
+  count = 0;
+  fixedConc = 0;
+  ids.length = 0;
+  add(share, moles);
+  for (let k = 0; k < count; k++) conc[k] /= volumeL;
+  fixedConc /= volumeL;
+}
+
+function add(share: AcidBaseShare, moles: number): void {
+  {
+    fixedConc += share.fixed * moles;
+    for (const [id, units] of share.systems) {
+      let k = ids.indexOf(id);
+      if (k < 0) {
+        k = count++;
+        if (k >= conc.length) {
+          const c = new Float64Array(2 * conc.length);
+          c.set(conc);
+          conc = c;
+          const z = new Int32Array(2 * z0s.length);
+          z.set(z0s);
+          z0s = z;
+        }
+        const sys = ACID_SYSTEMS[id];
+        ids[k] = id;
+        z0s[k] = sys.z0;
+        kas[k] = kaOf(sys);
+        conc[k] = 0;
+      }
+      conc[k] += units * moles;
+    }
+  }
+}
+
+/** dq/dpH of the last `balanceAt` call. */
+let lastSlope = 0;
+
 /**
- * The charge balance of a solution at a pH (mol/L of charge): positive below the root, falling with pH.
- * The species of a system are weighted tᵢ = Π Kaⱼ/[H⁺] (t₀ = 1), computed without allocation. Its slope,
- * −ln 10 · ([H⁺] + [OH⁻] + Σ C · Var(protons lost)), is left in `lastSlope` for Newton's method.
+ * The charge balance of the loaded solution at a pH (mol/L of charge): positive below the root, falling
+ * with pH. The species of a system are weighted tᵢ = Π Kaⱼ/[H⁺] (t₀ = 1). Its slope, −ln 10 · ([H⁺] +
+ * [OH⁻] + Σ C · Var(protons lost)), is left in `lastSlope` for Newton's method.
  */
-function balanceAt(pH: number, fixed: number, conc: Float64Array, z0: Int32Array, ka: readonly Float64Array[]): number {
+function balanceAt(pH: number): number {
   const h = Math.pow(10, -pH);
   const invH = 1 / h;
   const oh = KW * invH;
-  let q = h - oh + fixed;
+  let q = h - oh + fixedConc;
   let spread = h + oh;
-  for (let s = 0; s < conc.length; s++) {
-    const k = ka[s];
+  for (let s = 0; s < count; s++) {
+    const k = kas[s];
     let t = 1;
     let sum = 1;
     let m1 = 0;
@@ -156,53 +204,48 @@ function balanceAt(pH: number, fixed: number, conc: Float64Array, z0: Int32Array
       m2 += t * (i + 1) * (i + 1);
     }
     const mean = m1 / sum;
-    q += conc[s] * (z0[s] - mean);
+    q += conc[s] * (z0s[s] - mean);
     spread += conc[s] * (m2 / sum - mean * mean);
   }
   lastSlope = -LN10 * spread;
   return q;
 }
 
-/** A solution's systems as arrays for the solver (concentrations in mol/L). */
-export interface CompiledSolution {
-  fixed: number;
-  conc: Float64Array;
-  z0: Int32Array;
-  ka: Float64Array[];
-}
-
-/** The systems of a solution as arrays for the solver. */
-export function compile(amounts: AcidBaseAmounts, volumeL: number): CompiledSolution {
-  const n = amounts.systems.size;
-  const conc = new Float64Array(n);
-  const z0 = new Int32Array(n);
-  const ka: Float64Array[] = [];
-  let k = 0;
-  for (const [id, mol] of amounts.systems) {
-    const sys = ACID_SYSTEMS[id];
-    conc[k] = mol > 0 ? mol / volumeL : 0;
-    z0[k] = sys.z0;
-    ka.push(kaOf(sys));
-    k++;
-  }
-  return { fixed: amounts.fixed / volumeL, conc, z0, ka };
-}
-
 /**
- * The pH at which the charge balance of the amounts in `volumeL` litres closes (ideal solution, 25 °C):
+ * The pH at which the charge balance of the parts in `volumeL` litres closes (ideal solution, 25 °C):
  * Newton's method kept inside a bracket that bisection narrows whenever a step would leave it (the
- * balance falls monotonically, so the root is unique), to 10⁻⁷ pH units; null for a non-positive volume.
+ * balance falls monotonically, so the root is unique; one beyond −3 or 17 gives the bound), to 10⁻⁷
+ * pH units; null for a non-positive volume.
  */
-export function solvePH(amounts: AcidBaseAmounts | CompiledSolution, volumeL: number): number | null {
+export function solveParts(parts: readonly Part[], volumeL: number): number | null {
   if (!(volumeL > 0)) return null;
-  const { fixed, conc, z0, ka } = 'conc' in amounts ? amounts : compile(amounts, volumeL);
+  load(parts, volumeL);
+  return solveLoaded();
+}
+
+/** The pH of one substance alone in `volumeL` litres (see `solveParts`). */
+export function solveOne(share: AcidBaseShare, moles: number, volumeL: number): number | null {
+  if (!(volumeL > 0)) return null;
+  loadOne(share, moles, volumeL);
+  return solveLoaded();
+}
+
+/** Whether one substance alone in `volumeL` litres lies below (−1), within (0) or above (+1) the pH band [lo, hi]. */
+export function bandOne(share: AcidBaseShare, moles: number, volumeL: number, lo: number, hi: number): -1 | 0 | 1 {
+  loadOne(share, moles, volumeL);
+  if (balanceAt(lo) < 0) return -1;
+  if (balanceAt(hi) > 0) return 1;
+  return 0;
+}
+
+function solveLoaded(): number {
   let lo = LOW;
   let hi = HIGH;
-  if (balanceAt(lo, fixed, conc, z0, ka) <= 0) return lo;
-  if (balanceAt(hi, fixed, conc, z0, ka) >= 0) return hi;
-  let x = 7;
+  // A first guess from the strong part alone: the excess of fixed charge as H⁺ or OH⁻.
+  let x = fixedConc < -1e-7 ? -Math.log10(-fixedConc) : fixedConc > 1e-7 ? PKW + Math.log10(fixedConc) : 7;
+  if (!(x > lo && x < hi)) x = 7;
   for (let iter = 0; iter < 100; iter++) {
-    const f = balanceAt(x, fixed, conc, z0, ka);
+    const f = balanceAt(x);
     if (f > 0) lo = x;
     else if (f < 0) hi = x;
     else return x;
@@ -214,40 +257,7 @@ export function solvePH(amounts: AcidBaseAmounts | CompiledSolution, volumeL: nu
   return x;
 }
 
-const SCRATCH: CompiledSolution = { fixed: 0, conc: new Float64Array(0), z0: new Int32Array(0), ka: [] };
-
-/**
- * Whether a solution's pH lies below (−1), within (0) or above (+1) the band [lo, hi], without solving
- * for it (two evaluations of the balance, in scratch arrays: nothing is allocated for most calls).
- */
-export function pHBand(amounts: AcidBaseAmounts, volumeL: number, lo: number, hi: number): -1 | 0 | 1 {
-  const n = amounts.systems.size;
-  if (SCRATCH.conc.length < n) {
-    SCRATCH.conc = new Float64Array(2 * n);
-    SCRATCH.z0 = new Int32Array(2 * n);
-  }
-  const conc = SCRATCH.conc.subarray(0, n);
-  const z0 = SCRATCH.z0.subarray(0, n);
-  const ka = SCRATCH.ka;
-  ka.length = 0;
-  let k = 0;
-  for (const [id, mol] of amounts.systems) {
-    const sys = ACID_SYSTEMS[id];
-    conc[k] = mol > 0 ? mol / volumeL : 0;
-    z0[k] = sys.z0;
-    ka.push(kaOf(sys));
-    k++;
-  }
-  const fixed = amounts.fixed / volumeL;
-  if (balanceAt(lo, fixed, conc, z0, ka) < 0) return -1;
-  if (balanceAt(hi, fixed, conc, z0, ka) > 0) return 1;
-  return 0;
-}
-
-/** The share of a system in its protonated form below step `k` (the acid HA of step k) at a pH. */
-export function protonatedShare(sysId: string, pH: number, step = 0): number {
-  const f = fractions(ACID_SYSTEMS[sysId], pH);
-  let s = 0;
-  for (let i = 0; i <= step; i++) s += f[i];
-  return s;
+/** The pH of summed amounts (see `solveParts`). */
+export function solvePH(amounts: AcidBaseAmounts, volumeL: number): number | null {
+  return solveParts([{ share: { fixed: amounts.fixed, systems: [...amounts.systems], active: true }, moles: 1 }], volumeL);
 }
