@@ -672,3 +672,27 @@ describe('heat of neutralisation', () => {
     expect(Math.abs(n?.kJ ?? 0)).toBeLessThan(0.1);
   });
 });
+
+describe('the reading as data', () => {
+  it('JSON and structured clone carry the texts written on first read', () => {
+    const r = readBatchSafety(
+      mix(
+        [
+          ['H2SO4', 98.08 / 0.96, 'g', 0.96],
+          ['NaOH', 20, 'g'],
+          ['TiO2', 1, 'g'],
+        ],
+        { volumeL: 1 },
+      ),
+    );
+    const json = JSON.parse(JSON.stringify(r));
+    expect(json.heat.method).toMatch(/^ΔH of making up from/);
+    expect(json.heat.advice.length).toBeGreaterThan(0);
+    expect(json.heat.notes.join(' ')).toMatch(/TiO₂: no enthalpy of solution known/);
+    expect(json.heat.steps.find((s: { kind: string }) => s.kind === 'dilution').method).toMatch(/integral heat of solution/);
+    expect(json.heat.steps.find((s: { kind: string }) => s.kind === 'neutralisation').method).toMatch(/neutralisation of H₂SO₄ by NaOH/);
+    const clone = structuredClone(r);
+    expect(clone.heat!.method).toBe(r.heat!.method);
+    expect(clone.heat!.notes).toEqual(r.heat!.notes);
+  });
+});

@@ -10,7 +10,8 @@
  *
  *   [H⁺] − Kw/[H⁺] + Σ fixed charge / V + Σ_systems C · z̄(pH) = 0,
  *
- * found by bisection (the left side falls monotonically with pH). A strong base leaves only its cation
+ * found by Newton's method inside a bracket (the left side falls monotonically with pH, so the root is
+ * unique; a step that would leave the bracket bisects it instead). A strong base leaves only its cation
  * (hydroxide, oxide, alkoxide and hydride anions become OH⁻, which the balance finds by itself); a strong
  * acid leaves only its anion. This is a nominal estimate, labelled as such: activities, complexation and
  * precipitation are not modelled.

@@ -18,6 +18,11 @@
  * - `bothConcentrated`: both sides as supplied are concentrated (an acid of 30 % or more, a solid base or
  *   one of 30 % or more): their meeting, not the batch, is the danger.
  * - `water`: side b is the batch's water (an aqueous batch).
+ *
+ * Left out on purpose (the cautions of the card cover them, or they are the point of the recipe): carbon
+ * dioxide from carbonates with acids (foaming; pressure in a closed vessel), hydrofluoric acid from
+ * fluorides with strong acids (pickling and conversion baths hold it by design), and the dilution of a
+ * single concentrated acid or base (the heat reading, heat.ts, gives its temperature rise and advice).
  */
 import type { ReactiveGroup } from './groups';
 
