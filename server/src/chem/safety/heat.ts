@@ -67,9 +67,16 @@ function dilutionCurve(hill: string): DilutionCurve | undefined {
   return curveIndex.get(hill);
 }
 
-/** The table's hydrate pairs: the median change of ΔsolH per water of crystallisation, and its range. */
+const median = (xs: readonly number[]): number => {
+  const s = [...xs].sort((a, b) => a - b);
+  return s.length === 0 ? NaN : s.length % 2 ? s[(s.length - 1) / 2] : (s[s.length / 2 - 1] + s[s.length / 2]) / 2;
+};
+
+/** The table's hydrate pairs: the median change of ΔsolH per water of crystallisation, its spread and range. */
 export interface HydrateStep {
   kJPerWater: number;
+  /** Median absolute deviation of the pairs from the median, per water: the typical error of using it. */
+  madKJ: number;
   min: number;
   max: number;
   pairs: number;
@@ -85,9 +92,14 @@ export function hydrateStep(): HydrateStep {
     const anh = solutionRow(m.hill);
     if (anh) steps.push((row.kJPerMol - anh.kJPerMol) / m.water);
   }
-  steps.sort((x, y) => x - y);
-  const mid = steps.length % 2 ? steps[(steps.length - 1) / 2] : (steps[steps.length / 2 - 1] + steps[steps.length / 2]) / 2;
-  hydrateStepMemo = { kJPerWater: mid, min: steps[0], max: steps[steps.length - 1], pairs: steps.length };
+  const mid = median(steps);
+  hydrateStepMemo = {
+    kJPerWater: mid,
+    madKJ: median(steps.map((x) => Math.abs(x - mid))),
+    min: Math.min(...steps),
+    max: Math.max(...steps),
+    pairs: steps.length,
+  };
   return hydrateStepMemo;
 }
 
@@ -147,11 +159,14 @@ export interface EstimateAccuracy {
   medianAbsKJ: number;
   /** Share of those salts where the estimate gets the sign (warms or cools) right. */
   signRight: number;
+  /** The same by the lattice-energy method the card used (Born–Haber cycle, Kapustinskii equation…). */
+  byMethod: Readonly<Record<string, { n: number; medianAbsKJ: number }>>;
 }
 let accuracyMemo: EstimateAccuracy | null = null;
 export function estimateAccuracy(): EstimateAccuracy {
   if (accuracyMemo) return accuracyMemo;
   const errs: number[] = [];
+  const by = new Map<string, number[]>();
   let right = 0;
   for (const row of SOLUTION_ENTHALPIES) {
     const a = analyseFormula(row.formula);
@@ -159,12 +174,16 @@ export function estimateAccuracy(): EstimateAccuracy {
     if (!m || m.water) continue;
     const est = latticeHydration(a);
     if (!est) continue;
-    errs.push(Math.abs(est.kJPerMol - row.kJPerMol));
+    const err = Math.abs(est.kJPerMol - row.kJPerMol);
+    errs.push(err);
+    const list = by.get(est.latticeMethod) ?? [];
+    list.push(err);
+    by.set(est.latticeMethod, list);
     if (Math.sign(est.kJPerMol) === Math.sign(row.kJPerMol) || Math.abs(row.kJPerMol) < 5) right++;
   }
-  errs.sort((x, y) => x - y);
-  const mid = errs.length ? (errs.length % 2 ? errs[(errs.length - 1) / 2] : (errs[errs.length / 2 - 1] + errs[errs.length / 2]) / 2) : NaN;
-  accuracyMemo = { n: errs.length, medianAbsKJ: mid, signRight: errs.length ? right / errs.length : NaN };
+  const byMethod: Record<string, { n: number; medianAbsKJ: number }> = {};
+  for (const [method, list] of by) byMethod[method] = { n: list.length, medianAbsKJ: median(list) };
+  accuracyMemo = { n: errs.length, medianAbsKJ: median(errs), signRight: errs.length ? right / errs.length : NaN, byMethod };
   return accuracyMemo;
 }
 
@@ -177,6 +196,8 @@ export interface SolutionEnthalpy {
   basis: 'table' | 'hydrate-estimate' | 'lattice-estimate';
   method: string;
   source: string;
+  /** For an estimate: its typical error, kJ/mol (measured on the table). */
+  typicalErrorKJ?: number;
   /** Why it warms or cools the water, where the lattice energy and the ions' hydration are known. */
   why?: string;
 }
@@ -239,6 +260,7 @@ function computeValue(a: FormulaAnalysis): SolutionEnthalpy | null {
       return {
         kJPerMol: v,
         basis: 'hydrate-estimate',
+        typicalErrorKJ: main.water * step.madKJ,
         method: `estimate: the anhydrous salt's ${signed(anh.kJPerMol)} kJ/mol plus ${main.water} × ${fmt(step.kJPerWater)} kJ/mol per water of crystallisation (the median of the table's ${step.pairs} hydrate pairs, range ${fmt(step.min)}–${fmt(step.max)})`,
         source: anh.source,
       };
@@ -247,12 +269,15 @@ function computeValue(a: FormulaAnalysis): SolutionEnthalpy | null {
   const lh = latticeHydration(a);
   if (lh) {
     const acc = estimateAccuracy();
+    const own = acc.byMethod[lh.latticeMethod] ?? { n: acc.n, medianAbsKJ: acc.medianAbsKJ };
     const v = lh.kJPerMol + main.water * step.kJPerWater;
     const hydrate = main.water ? ` plus ${main.water} × ${fmt(step.kJPerWater)} kJ/mol for the water of crystallisation` : '';
+    const model = lh.latticeMethod.replace(/ (equation|cycle)$/, '');
     return {
       kJPerMol: v,
       basis: 'lattice-estimate',
-      method: `estimate: lattice energy ${fmt(lh.latticeKJ)} kJ/mol (${lh.latticeMethod}) and hydration of the ions ${fmt(lh.hydrationKJ)} kJ/mol${hydrate}; on the ${acc.n} salts of the table this estimate is off by a median ${fmt(acc.medianAbsKJ, 2)} kJ/mol`,
+      typicalErrorKJ: own.medianAbsKJ + main.water * step.madKJ,
+      method: `estimate: lattice energy ${fmt(lh.latticeKJ)} kJ/mol (${lh.latticeMethod}) and hydration of the ions ${fmt(lh.hydrationKJ)} kJ/mol${hydrate}; with a ${model} lattice energy this estimate is off by a median ${fmt(own.medianAbsKJ, 2)} kJ/mol on the ${own.n} salts of the table that have one`,
       source: HYDRATION_SOURCE,
     };
   }
@@ -323,7 +348,11 @@ export function heatOfMakingUp(state: BatchState, options: SafetyOptions = {}, s
   }
   const rise = heatCapacity ? (-kJ * 1000) / heatCapacity : null;
   const finalC = rise === null ? null : startC + rise;
-  const exceeds = rise !== null && Math.abs(rise) > threshold;
+  // A warning only where the rise passes the threshold even at the near end of its estimated steps' typical error.
+  let uncertaintyKJ = 0;
+  for (const st of steps) uncertaintyKJ += st.uncertaintyKJ ?? 0;
+  const uncertaintyK = heatCapacity ? (uncertaintyKJ * 1000) / heatCapacity : 0;
+  const exceeds = rise !== null && Math.abs(rise) - uncertaintyK > threshold;
   const cp = heatCapacity && solutionMassG ? heatCapacity / solutionMassG : null;
   // The texts are written when read (the check reads only `exceeds`, and the advice where it exceeds);
   // getters are enumerable, so JSON has them.
@@ -341,6 +370,7 @@ export function heatOfMakingUp(state: BatchState, options: SafetyOptions = {}, s
           : `ΔH of making up from ${parts}; ΔT = −ΔH/(m·cp) with m = ${fmt(solutionMassG ?? 0)} g, cp = ${fmt(cp ?? 0, 3)} J/(g·K) (water 4.184, dissolved solids 1.0), no heat lost — an estimate`);
     },
     steps,
+    uncertaintyK,
     heatCapacityJPerK: heatCapacity,
     solutionMassG,
     startC,
@@ -364,6 +394,10 @@ export function heatOfMakingUp(state: BatchState, options: SafetyOptions = {}, s
       if (state.waterFrom === 'volume') notes.push('The batch water is estimated from the final volume less the volume the dissolved substances take up.');
       if (anySolution)
         notes.push('Enthalpies of solution are at infinite dilution; at working strength they differ by a few kJ/mol (up to about 10 for 2:2 salts).');
+      if (uncertaintyK > 0)
+        notes.push(
+          `The estimated enthalpies of solution carry a typical error of about ${fmt(uncertaintyK, 2)} K on the temperature change; the warning allows for it.`,
+        );
       notes.push('No heat is lost to the vessel or the air: a batch made up slowly warms less, over a longer time.');
       return notes;
     },
@@ -462,16 +496,26 @@ function dissolution(it: IngredientState, state: BatchState): HeatStep {
     for (const x of state.items) if (x.main?.hill === main.hill) total += x.anhydrousG ?? 0;
     const share = Math.min(1, (solubility * state.waterG) / 100 / total);
     if (share < 1)
-      return step(
-        it,
-        kind,
-        moles * share * sol.kJPerMol,
-        `${sol.method}; above its solubility (${fmt(solubility)} g per 100 g water, CRC, from memory) only ${fmt(share * 100, 2)} % dissolves and is counted`,
-        sol.kJPerMol,
-        sol.source,
+      return withError(
+        step(
+          it,
+          kind,
+          moles * share * sol.kJPerMol,
+          `${sol.method}; above its solubility (${fmt(solubility)} g per 100 g water, CRC, from memory) only ${fmt(share * 100, 2)} % dissolves and is counted`,
+          sol.kJPerMol,
+          sol.source,
+        ),
+        moles * share,
+        sol,
       );
   }
-  return step(it, kind, moles * sol.kJPerMol, sol.method, sol.kJPerMol, sol.source);
+  return withError(step(it, kind, moles * sol.kJPerMol, sol.method, sol.kJPerMol, sol.source), moles, sol);
+}
+
+/** An estimate's step carries its typical error, kJ. */
+function withError(s: HeatStep, molesCounted: number, sol: SolutionEnthalpy): HeatStep {
+  if (sol.typicalErrorKJ) s.uncertaintyKJ = molesCounted * sol.typicalErrorKJ;
+  return s;
 }
 
 /** The neutralisation between ingredients: the batch's acid–base species against each ingredient's alone, in the same volume. */

@@ -76,6 +76,8 @@ export interface HeatStep {
   /** How it was obtained, in one line. */
   method: string;
   source?: string;
+  /** For an estimated enthalpy of solution: its typical error over this step, kJ. */
+  uncertaintyKJ?: number;
 }
 
 export interface HeatReading {
@@ -86,6 +88,8 @@ export interface HeatReading {
   /** How the figure was obtained, in one line. */
   method: string;
   steps: HeatStep[];
+  /** The typical error of the estimated steps on ΔT, K (0 where every step is tabulated); `exceeds` allows for it. */
+  uncertaintyK: number;
   /** m·cp used, J/K, and its parts. */
   heatCapacityJPerK: number | null;
   solutionMassG: number | null;
@@ -93,7 +97,7 @@ export interface HeatReading {
   startC: number;
   finalC: number | null;
   thresholdK: number;
-  /** |ΔT| above the threshold: the pipeline raises `batch-heat`. */
+  /** |ΔT| above the threshold by more than `uncertaintyK`: the pipeline raises `batch-heat`. */
   exceeds: boolean;
   /** The advice of the trade, where it exceeds. */
   advice: string[];
