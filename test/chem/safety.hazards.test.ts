@@ -1111,3 +1111,20 @@ describe('acid salts by the protons they still carry (CRC pKa values)', () => {
     expect(acidPKa('Na2B4O7')).toBeUndefined(); // boric acid pKa 9.24
   });
 });
+
+describe('lines the amounts stage did not count', () => {
+  it('still carry their hazards; an acid or base of unknown amount leaves the pH unknown', () => {
+    const b = mix(
+      [
+        ['NaOCl', 50, 'g', 0.12],
+        ['HCl', 10, 'g', 0.37],
+      ],
+      { volumeL: 1 },
+    );
+    b.ingredients[1].moles = null;
+    b.ingredients[1].massG = null;
+    const r = readBatchSafety(b);
+    expect(r.pH).toBeNull();
+    expect(r.hazards.map((h) => h.kind)).toContain('chlorine');
+  });
+});

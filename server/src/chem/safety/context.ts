@@ -164,9 +164,12 @@ function estimatePH(items: readonly IngredientState[], v: number | null): BatchS
   if (!v) return null;
   const parts: Part[] = [];
   for (const it of items) {
-    if (it.moles === null || it.isWater) continue;
+    if (it.isWater) continue;
     const share = acidBaseShare(it.ing.analysis);
-    if (share.active) parts.push({ share, moles: it.moles });
+    if (!share.active) continue;
+    // An acid or base of unknown amount (a line not counted) leaves the pH unknown: the pair alone decides.
+    if (it.moles === null) return null;
+    parts.push({ share, moles: it.moles });
   }
   const value = parts.length ? solveParts(parts, v) : 7;
   return value === null ? null : { value, from: 'estimate' };
