@@ -7,7 +7,11 @@
  * - Dissolution: the enthalpy of solution at infinite dilution (data/solution.ts); for a hydrate with no
  *   row of its own, the anhydrous salt's value plus the median step per water of crystallisation of the
  *   table's hydrate pairs (an estimate); for a salt with no row, the Born–Haber estimate U + Σ ΔhydH of its
- *   ions (the card's lattice energy, data/hydration.ts; an estimate, its measured error printed).
+ *   ions (the card's lattice energy, data/hydration.ts; an estimate, its error measured on the table per
+ *   lattice method and printed). Above its solubility (chem/data/solubility.ts) only what dissolves counts;
+ *   a sparingly soluble solid, nothing.
+ * - The warning (`exceeds`): |ΔT| above the threshold by more than the typical error of the estimated
+ *   steps, so that a rough estimate alone does not raise it.
  * - Dilution of the concentrated acids and bases (H2SO4, HCl, HNO3, NaOH): their integral enthalpy of
  *   solution from the water they bring (n₀ mol per mol) to the water of the batch (n₁): ΔH(n₁) − ΔH(n₀)
  *   (data/dilution.ts). Each is diluted as if alone in the batch's water.
