@@ -103,8 +103,7 @@ export const PAIR_RULES: readonly PairRule[] = Object.freeze<PairRule[]>([
     when: { acidBelowPH: 7 },
     kind: 'chlorine',
     harmClass: 'toxic gas',
-    product:
-      'chlorine gas (Cl₂): below about pH 5 most of the chlorine goes to Cl₂, and between pH 5 and 7 hypochlorous acid gives it off where the acid is poured in',
+    product: 'chlorine gas (Cl₂) (below about pH 5 most of the chlorine; between pH 5 and 7 where the acid is poured in)',
     harm: 'a toxic gas that burns the eyes, throat and lungs; a few breaths in a small room do harm',
     advice: 'Never acidify bleach: keep hypochlorite and acids (descalers, vinegar, acid cleaners) in separate batches and containers',
     source: `${BRETHERICK('"Sodium hypochlorite: acids" and "Chlorine"')}; ${PRUDENT}`,
