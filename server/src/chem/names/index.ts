@@ -27,6 +27,16 @@ export function nameOf(a: FormulaAnalysis): string | undefined {
   return systematicName(a);
 }
 
+/**
+ * The name of the substance as it is in a water batch: an acid whose name is that of its solution goes by
+ * it (HCl in water is hydrochloric acid, not hydrogen chloride; IUPAC 2005, IR-8.1); anything else as
+ * `nameOf`.
+ */
+export function aqueousNameOf(a: FormulaAnalysis): string | undefined {
+  const acid = a.ok && a.formula && a.formula.parts.length === 1 && a.charge === 0 ? acidByForm(a.ascii) : undefined;
+  return acid?.compound ? acid.name : nameOf(a);
+}
+
 export interface SubstanceNames {
   /** The systematic name (as `nameOf`), or undefined. */
   systematic: string | undefined;

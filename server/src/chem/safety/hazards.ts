@@ -4,7 +4,7 @@
  * concentrations. One hazard per rule and first substance, naming every partner it has in the batch; it
  * belongs on the later line of those it names.
  */
-import { nameOf } from '../names';
+import { aqueousNameOf } from '../names';
 import type { BatchState, IngredientState } from './context';
 import type { GroupMember, ReactiveGroup } from './groups';
 import { PAIR_RULES, WATER_PRODUCTS, type PairRule, type Side } from './rules';
@@ -42,7 +42,7 @@ function suppliedConcentrated(it: IngredientState): boolean {
 
 /** The name of an ingredient in a message: its name (as given, or the systematic one) and its formula. */
 function label(it: IngredientState, m: GroupMember | undefined): string {
-  const name = it.ing.name ?? nameOf(it.ing.analysis) ?? m?.what;
+  const name = it.ing.name ?? aqueousNameOf(it.ing.analysis) ?? m?.what;
   return name && name !== it.display ? `${name} (${it.display})` : it.display;
 }
 
