@@ -33,10 +33,24 @@ function massWords(g: number): string {
   return `${(g * 1e6).toPrecision(2)} µg`;
 }
 
+let enabled = true;
+
+/**
+ * Switch the equilibrium off or on (the benchmark measures `check` with and without it in the same run;
+ * off, a batch has no solution, and `to pH` and buffer lines are not counted).
+ */
+export function setSolutionStage(on: boolean): void {
+  enabled = on;
+}
+
 /** The solution stage: fills in the pending lines of `amounts` (or moves them to `skipped`), then solves the batch. */
 export function solutionStage(amounts: BatchAmounts, headers: BatchHeaders, settings: ChemSettings, openLine: { start: number; end: number }): SolutionStage {
   const diagnostics: ChemDiagnostic[] = [];
   const V = headers.volumeL;
+  if (!enabled) {
+    for (const c of [...amounts.counted.filter((x) => x.pending)]) amounts.counted.splice(amounts.counted.indexOf(c), 1);
+    return { solution: null, noSolution: 'the equilibrium is switched off', diagnostics };
+  }
   if (V === null) {
     if (headers.pH)
       diagnostics.push(

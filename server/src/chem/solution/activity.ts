@@ -49,6 +49,13 @@ export function daviesFactor(I: number, A: number): number {
   return A * (s / (1 + s) - 0.3 * i);
 }
 
+/** d(daviesFactor)/dI (0 above the cap, where the coefficients are held). */
+export function daviesSlope(I: number, A: number): number {
+  if (I >= DAVIES_CAP_M) return 0;
+  const s = Math.sqrt(Math.max(I, 1e-12));
+  return A * (1 / (2 * s * (1 + s) * (1 + s)) - 0.3);
+}
+
 /** log10 γ of an ion of charge z by Davies. */
 export const daviesLogGamma = (z: number, I: number, A: number) => -z * z * daviesFactor(I, A);
 

@@ -9,18 +9,16 @@
  */
 import type { FormulaAnalysis } from '../analyse';
 import { analyseFormula } from '../analyse';
-import { displayFormula, formatCharge, subscriptDigits } from '../formula/compute';
-import { parseFormula } from '../formula/parse';
 import { BoundedCache } from '../cache';
 import { T25 } from './activity';
 import { pairFormulas, type BufferSystem } from './buffers';
+import { labelDisplay } from './labels';
 import { readIngredient, type IngredientReading } from './reading';
 import { brent } from './roots';
 import { bufferCapacity, solveEquilibrium, type Equilibrium } from './solver';
 import { systemFor, type ComponentSpec } from './system';
 import { ACID_SYSTEMS } from './tables/acids';
 import { PROTON } from './tables/ions';
-import { citation } from './tables/sources';
 import type { BatchSolution, BufferDesign, IngredientInModel, SolidSaturation, SolutionSpecies, SolvedAmount } from './types';
 
 /** A recipe in mol: what each component of the model gets from the ingredients. */
@@ -65,19 +63,6 @@ const NOTES = {
   model: 'Davies activity coefficients (valid to I ≈ 0.5 M); closed to air (no CO₂ exchanged); no redox; 25 °C constants unless a temperature is given.',
   estimate: 'pH and precipitation are estimates of an ideal model: measure the pH of the made-up batch.',
 };
-
-/** The label of a species in Unicode: `HPO₄²⁻`, `Cu(NH₃)₄²⁺`, `CaSO₄(aq)`. */
-export function labelDisplay(label: string): string {
-  const m = /^(.*)\^(\d*)([+-])$/.exec(label);
-  if (!m) return subscriptDigits(label);
-  const q = (m[2] ? Number(m[2]) : 1) * (m[3] === '+' ? 1 : -1);
-  return subscriptDigits(m[1]) + formatCharge(q, true);
-}
-
-function formulaDisplay(f: string): string {
-  const p = parseFormula(f);
-  return p.ok && p.formula ? displayFormula(p.formula, true) : subscriptDigits(f);
-}
 
 const solidMass = new Map<string, number>();
 function molarMassOf(formula: string): number {
@@ -141,7 +126,7 @@ function describe(eq: Equilibrium, recipe: Recipe, volumeL: number, temperatureC
     const c = Math.pow(10, eq.logC[i]);
     return {
       label: s.label,
-      display: labelDisplay(s.label),
+      display: s.display,
       charge: s.charge,
       concentrationM: c,
       activity: c * Math.pow(10, eq.logGamma[i]),
@@ -151,11 +136,11 @@ function describe(eq: Equilibrium, recipe: Recipe, volumeL: number, temperatureC
   species.sort((a, b) => b.concentrationM - a.concentrationM);
   const saturation: SolidSaturation[] = sys.solids.map((s, k) => ({
     solid: s.model.row.formula,
-    display: formulaDisplay(s.model.row.formula),
+    display: s.model.display,
     name: s.model.row.name,
     saturationIndex: eq.si[k],
     logKsp: s.model.row.logKsp,
-    source: citation(s.model.row),
+    source: s.model.citation,
     ...(s.model.row.note ? { note: s.model.row.note } : {}),
   }));
   saturation.sort((a, b) => b.saturationIndex - a.saturationIndex);
@@ -169,7 +154,7 @@ function describe(eq: Equilibrium, recipe: Recipe, volumeL: number, temperatureC
         const row = system.solids[p.solid].model.row;
         return {
           solid: row.formula,
-          display: formulaDisplay(row.formula),
+          display: system.solids[p.solid].model.display,
           name: row.name,
           molPerL: p.molPerL,
           massG: p.molPerL * volumeL * molarMassOf(row.formula),
@@ -378,4 +363,4 @@ export function designBuffer(
   };
 }
 
-export { T25 };
+export { T25, labelDisplay };

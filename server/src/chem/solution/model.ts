@@ -13,7 +13,8 @@ import { ACID_SYSTEMS, WATER, type AcidSystem } from './tables/acids';
 import { COMPLEXES } from './tables/complexes';
 import { METAL_IONS, PROTON, STRONG_ANIONS, type FreeIon } from './tables/ions';
 import { SOLIDS, type SolidRow } from './tables/solids';
-import type { Sourced } from './tables/sources';
+import { citation, type Sourced } from './tables/sources';
+import { formulaDisplay } from './labels';
 
 /** A temperature-dependent log K: L0 + vantHoff(L1, H1, T); `partial` where some term has no ΔH°. */
 export interface LogK {
@@ -61,6 +62,9 @@ export interface ModelSpecies {
 
 export interface ModelSolid {
   row: SolidRow;
+  /** The formula in Unicode, and the row's citation. */
+  display: string;
+  citation: string;
   /** Dissolution into components; log K of the dissolution written in them. */
   stoich: ReadonlyMap<string, number>;
   k: LogK;
@@ -196,6 +200,8 @@ export const MODEL_SOLIDS: readonly ModelSolid[] = SOLIDS.map((row) => {
   if (r.charge !== 0) throw new Error(`solution tables: ${row.formula} dissolves into a net charge ${r.charge}`);
   return {
     row,
+    display: formulaDisplay(row.formula),
+    citation: citation(row),
     stoich: r.stoich,
     k: sumK([
       [constant(row.logKsp, row.dH), 1],

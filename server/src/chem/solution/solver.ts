@@ -22,7 +22,7 @@
  * Bounded: at most `maxIterations` Newton steps per solve and 12 changes of the set of solids; a solve
  * that does not meet the tolerance says so (`converged: false`).
  */
-import { daviesFactor, DAVIES_LIMIT_M, debyeHuckelA, LN10 } from './activity';
+import { daviesFactor, daviesSlope, DAVIES_LIMIT_M, debyeHuckelA, LN10 } from './activity';
 import type { TableauSystem } from './system';
 
 export interface SolveOptions {
@@ -87,6 +87,9 @@ class Work {
   X2: Float64Array;
   dX: Float64Array;
   p2: Float64Array;
+  solidCoupling: Float64Array;
+  Y: Float64Array;
+  Y2: Float64Array;
   constructor(ns: number, nc: number, nsolid: number) {
     const n = nc + nsolid;
     this.c = new Float64Array(ns);
@@ -99,20 +102,30 @@ class Work {
     this.X2 = new Float64Array(nc);
     this.dX = new Float64Array(n);
     this.p2 = new Float64Array(nsolid);
+    this.solidCoupling = new Float64Array(nsolid * nc);
+    this.Y = new Float64Array(nc);
+    this.Y2 = new Float64Array(nc);
   }
+}
+
+/** One scratch space, grown as needed (a solve does not re-enter itself): no allocation per solve. */
+let scratch = new Work(64, 16, 16);
+function workFor(ns: number, nc: number, nsolid: number): Work {
+  const w = scratch;
+  if (w.c.length < ns || w.X2.length < nc || w.p2.length < nsolid || w.R.length < nc + nsolid)
+    scratch = new Work(Math.max(ns, w.c.length), Math.max(nc, w.X2.length), Math.max(nsolid, w.p2.length));
+  return scratch;
 }
 
 /** Species concentrations from X at the coefficients in `w.lg` (logC and c). */
 function species(sys: TableauSystem, X: Float64Array, w: Work): void {
-  const { ns, nc, A, logK } = sys;
+  const { ns, nc, logK, rowPtr, col, val } = sys;
   const lg = w.lg;
+  const Y = w.Y;
+  for (let j = 0; j < nc; j++) Y[j] = X[j] + lg[j];
   for (let i = 0; i < ns; i++) {
     let s = logK[i] - lg[i];
-    const row = i * nc;
-    for (let j = 0; j < nc; j++) {
-      const a = A[row + j];
-      if (a !== 0) s += a * (X[j] + lg[j]);
-    }
+    for (let k = rowPtr[i], e = rowPtr[i + 1]; k < e; k++) s += val[k] * Y[col[k]];
     // Beyond 10^±300 the number is no concentration; clamp so that sums stay finite.
     if (s > 300) s = 300;
     else if (s < -300) s = -300;
@@ -138,29 +151,33 @@ function setGamma(sys: TableauSystem, I: number, A: number, w: Work): void {
  * their scales; the largest scaled residual.
  */
 function residuals(sys: TableauSystem, T: Float64Array, w: Work, u0: number, active: readonly number[], p: Float64Array): number {
-  const { ns, nc, A } = sys;
+  const { ns, nc, rowPtr, col, val } = sys;
+  const R = w.R;
+  const S = w.S;
+  for (let j = 0; j < nc; j++) {
+    R[j] = -T[j];
+    S[j] = Math.abs(T[j]);
+  }
+  for (let i = 0; i < ns; i++) {
+    const c = w.c[i];
+    for (let k = rowPtr[i], e = rowPtr[i + 1]; k < e; k++) {
+      const v = val[k] * c;
+      R[col[k]] += v;
+      S[col[k]] += Math.abs(v);
+    }
+  }
+  for (let k = 0; k < active.length; k++) {
+    const b = sys.solids[active[k]].b;
+    for (let j = 0; j < nc; j++)
+      if (b[j] !== 0) {
+        R[j] += b[j] * p[k];
+        S[j] += Math.abs(b[j] * p[k]);
+      }
+  }
   let worst = 0;
   for (let j = u0; j < nc; j++) {
-    let r = -T[j];
-    let s = Math.abs(T[j]);
-    for (let i = 0; i < ns; i++) {
-      const a = A[i * nc + j];
-      if (a !== 0) {
-        const v = a * w.c[i];
-        r += v;
-        s += Math.abs(v);
-      }
-    }
-    for (let k = 0; k < active.length; k++) {
-      const b = sys.solids[active[k]].b[j];
-      if (b !== 0) {
-        r += b * p[k];
-        s += Math.abs(b * p[k]);
-      }
-    }
-    w.R[j] = r;
-    w.S[j] = s > 1e-300 ? s : 1e-300;
-    const e = Math.abs(r) / w.S[j];
+    if (!(S[j] > 1e-300)) S[j] = 1e-300;
+    const e = Math.abs(R[j]) / S[j];
     if (e > worst) worst = e;
   }
   return worst;
@@ -219,27 +236,29 @@ function gauss(M: Float64Array, rhs: Float64Array, n: number): boolean {
  * The Newton step over the unknowns (components from u0, then the active solids), symmetrically scaled by
  * the Jacobian's diagonal; into w.dX. False where the system is singular (solids that cannot coexist).
  */
-function newtonStep(sys: TableauSystem, X: Float64Array, w: Work, u0: number, active: readonly number[]): boolean {
-  const { ns, nc, A } = sys;
+function newtonStep(sys: TableauSystem, X: Float64Array, w: Work, u0: number, active: readonly number[], fPrime: number): boolean {
+  const { ns, nc } = sys;
   const nu = nc - u0;
   const n = nu + active.length;
   const M = w.M;
   M.fill(0, 0, n * n);
+  const { rowPtr, col, val } = sys;
   for (let i = 0; i < ns; i++) {
     const ci = w.c[i] * LN10;
     if (ci === 0) continue;
-    const row = i * nc;
-    for (let a = u0; a < nc; a++) {
-      const aa = A[row + a];
-      if (aa === 0) continue;
-      const f = aa * ci;
-      for (let b = a; b < nc; b++) {
-        const ab = A[row + b];
-        if (ab !== 0) M[(a - u0) * n + (b - u0)] += f * ab;
+    const e = rowPtr[i + 1];
+    for (let k = rowPtr[i]; k < e; k++) {
+      const a = col[k];
+      if (a < u0) continue;
+      const f = val[k] * ci;
+      for (let l = k; l < e; l++) {
+        const b = col[l];
+        M[(a - u0) * n + (b - u0)] += f * val[l];
       }
     }
   }
   for (let a = 0; a < nu; a++) for (let b = 0; b < a; b++) M[a * n + b] = M[b * n + a];
+  if (fPrime !== 0) couple(sys, w, u0, active, fPrime, n);
   // Scale the component block to unit diagonal: y = D^½ ΔX.
   const d = w.S; // reuse: scales per unknown component (S is recomputed by residuals before it is read again)
   for (let a = 0; a < nu; a++) d[a] = 1 / Math.sqrt(Math.max(M[a * n + a], 1e-300));
@@ -249,7 +268,7 @@ function newtonStep(sys: TableauSystem, X: Float64Array, w: Work, u0: number, ac
     for (let a = 0; a < nu; a++) {
       const v = bv[a + u0] * d[a];
       M[a * n + nu + k] = v;
-      M[(nu + k) * n + a] = v;
+      M[(nu + k) * n + a] = v + (fPrime !== 0 ? w.solidCoupling[k * nu + a] * d[a] : 0);
     }
   }
   for (let a = 0; a < nu; a++) w.rhs[a] = -w.R[a + u0] * d[a];
@@ -263,6 +282,53 @@ function newtonStep(sys: TableauSystem, X: Float64Array, w: Work, u0: number, ac
   for (let a = 0; a < nu; a++) w.dX[a] = w.rhs[a] * d[a];
   for (let k = 0; k < active.length; k++) w.dX[nu + k] = w.rhs[nu + k];
   return true;
+}
+
+/**
+ * The activity coefficients' part of the Jacobian (near the solution): with the Davies factor f(I),
+ * log γ_i = −z_i² f, so ∂ log c_i/∂I = −f′ s_i (s_i = Σ_j a_ij z_j² − z_i²) and I = ½ Σ z_i² c_i depends on X
+ * through every c_i: dI/dX_k = ½ ln10 Σ_i z_i² a_ik c_i / (1 − ½ Σ_i z_i² ∂c_i/∂I). The mass balances gain
+ * u_j · dI/dX_k (u_j = Σ_i a_ij ∂c_i/∂I), the solids' rows w_s · dI/dX_k (w_s = −f′ Σ_j b_sj z_j²): Newton
+ * converges quadratically with the coefficients instead of at the rate of their fixed-point iteration.
+ */
+function couple(sys: TableauSystem, w: Work, u0: number, active: readonly number[], fPrime: number, n: number): void {
+  const { ns, nc, z2, zShift } = sys;
+  const M = w.M;
+  const nu = nc - u0;
+  let selfTerm = 0;
+  const u = w.X2; // scratch (the line search writes X2 only after the step is solved)
+  u.fill(0);
+  const v = w.rhs;
+  v.fill(0, 0, nu);
+  const { rowPtr, col, val } = sys;
+  for (let i = 0; i < ns; i++) {
+    const c = w.c[i];
+    if (c === 0) continue;
+    const dcdI = -c * LN10 * fPrime * zShift[i];
+    selfTerm += 0.5 * z2[i] * dcdI;
+    for (let k = rowPtr[i], e = rowPtr[i + 1]; k < e; k++) {
+      const j = col[k];
+      if (j < u0) continue;
+      u[j] += val[k] * dcdI;
+      v[j - u0] += 0.5 * LN10 * z2[i] * val[k] * c;
+    }
+  }
+  const denom = 1 - selfTerm;
+  if (!(Math.abs(denom) > 1e-12)) return;
+  for (let b = 0; b < nu; b++) v[b] /= denom;
+  for (let a = 0; a < nu; a++) {
+    const ua = u[a + u0];
+    if (ua === 0) continue;
+    for (let b = 0; b < nu; b++) M[a * n + b] += ua * v[b];
+  }
+  for (let k = 0; k < active.length; k++) {
+    const bv = sys.solids[active[k]].b;
+    let ws = 0;
+    for (let j = 0; j < nc; j++) ws += bv[j] * z2[j];
+    ws *= -fPrime;
+    // The solid rows are filled after scaling (newtonStep); keep the unscaled coupling in place for it.
+    for (let b = 0; b < nu; b++) w.solidCoupling[k * nu + b] = ws * v[b];
+  }
 }
 
 /** A start: every component free at its total, H⁺ at pH 7 (or the pH held). */
@@ -281,25 +347,21 @@ function initialX(sys: TableauSystem, T: Float64Array, fixedLogH: number | undef
  * would otherwise start Newton many decades from the answer.
  */
 function warmUp(sys: TableauSystem, T: Float64Array, X: Float64Array, w: Work, u0: number): void {
-  const { ns, nc, A } = sys;
+  const { ns, nc, rowPtr, col, val } = sys;
+  const sum = w.Y2;
   for (let round = 0; round < 6; round++) {
     species(sys, X, w);
-    for (let j = 1; j < nc; j++) {
-      if (!(T[j] > 0)) continue;
-      let sum = 0;
-      for (let i = 0; i < ns; i++) {
-        const a = A[i * nc + j];
-        if (a > 0) sum += a * w.c[i];
-      }
-      if (sum > 0) X[j] += Math.log10(T[j] / sum);
-    }
+    sum.fill(0, 0, nc);
+    for (let i = 0; i < ns; i++) for (let k = rowPtr[i], e = rowPtr[i + 1]; k < e; k++) if (val[k] > 0) sum[col[k]] += val[k] * w.c[i];
+    for (let j = 1; j < nc; j++) if (T[j] > 0 && sum[j] > 0) X[j] += Math.log10(T[j] / sum[j]);
     if (u0 === 1) continue;
     species(sys, X, w);
     let r = -T[0];
     let d = 0;
     for (let i = 0; i < ns; i++) {
-      const a = A[i * nc];
-      if (a !== 0) {
+      const k = rowPtr[i];
+      if (k < rowPtr[i + 1] && col[k] === 0) {
+        const a = val[k];
         r += a * w.c[i];
         d += a * a * w.c[i];
       }
@@ -334,15 +396,34 @@ function iterate(
   let lastI = -1;
   let residual = Infinity;
   let previous = Infinity;
+  // Once the residual grows from one step to the next, the coefficients and the concentrations are chasing
+  // each other: the coefficients are then held until the mass balances are within 1 %.
+  let hold = false;
+  let holds = 0;
   for (let it = 0; it < o.maxIterations; it++) {
     species(sys, X, w);
     let moved = false;
-    if (o.davies && !o.heldGamma) {
-      const I = ionicStrength(sys, w.c);
-      moved = !(Math.abs(I - lastI) <= 1e-12 * I + 1e-20);
-      if (moved) {
-        lastI = I;
-        setGamma(sys, I, o.A, w);
+    if (hold && previous < 1e-2) hold = false;
+    if (o.davies && !o.heldGamma && !hold) {
+      // The coefficients brought to the ionic strength of the species they give (a few rounds of the
+      // fixed point at this X), so that Newton sees consistent residuals.
+      // Newton on the one equation I = I(c(X, I)): quadratic where the plain fixed point converges only at
+      // the rate ½ Σ z² ∂c/∂I.
+      for (let round = 0; round < 6; round++) {
+        const I = ionicStrength(sys, w.c);
+        // A relative change of 1e-10 in I moves log γ by less than 1e-10: the coefficients stand.
+        if (Math.abs(I - lastI) <= 1e-10 * I + 1e-20) break;
+        moved = true;
+        let next = I;
+        if (lastI > 0) {
+          const fp = daviesSlope(lastI, o.A);
+          let self = 0;
+          for (let i = 0; i < sys.ns; i++) self -= 0.5 * sys.z2[i] * w.c[i] * LN10 * fp * sys.zShift[i];
+          if (1 - self > 0.05) next = lastI + (I - lastI) / (1 - self);
+          if (!(next > 0)) next = I;
+        }
+        lastI = next;
+        setGamma(sys, next, o.A, w);
         species(sys, X, w);
       }
     }
@@ -354,16 +435,40 @@ function iterate(
       for (let j = 0; j < nc; j++) if (s.b[j] !== 0) v += s.b[j] * (X[j] + w.lg[j]);
       q = Math.max(q, Math.abs(v));
     }
+    if ((globalThis as { DEBUG?: boolean }).DEBUG)
+      console.log(
+        'it',
+        it,
+        active,
+        residual.toExponential(2),
+        q.toExponential(2),
+        moved,
+        Array.from(X)
+          .map((x) => x.toFixed(3))
+          .join(' '),
+        Array.from(p)
+          .map((x) => x.toExponential(3))
+          .join(' '),
+      );
     // Converged: the tolerance met, or rounding reached below the acceptance level (no more progress).
     if (q < 1e-11 && !moved && (residual < TOL || (residual < ACCEPT && residual >= 0.5 * previous)))
       return { converged: true, iterations: it, residual, singular: false };
+    if (residual > previous && it > 0 && o.davies && !o.heldGamma) {
+      // The second time: a cycle of the coefficients; the nested iteration takes over (solveEquilibrium).
+      if (++holds > 1) return { converged: false, iterations: it, residual, singular: false };
+      hold = true;
+    }
     previous = residual;
-    if (!newtonStep(sys, X, w, o.u0, active)) return { converged: false, iterations: it, residual, singular: true };
+    // Within 0.1 % the step is Newton's on the whole system (coefficients included), taken in full; further
+    // out it is the convex problem's at the present coefficients, with the line search.
+    const near = residual < 1e-3;
+    const fPrime = o.davies && !o.heldGamma && near ? daviesSlope(lastI, o.A) : 0;
+    if (!newtonStep(sys, X, w, o.u0, active, fPrime)) return { converged: false, iterations: it, residual, singular: true };
     let big = 0;
     for (let a = 0; a < nu; a++) big = Math.max(big, Math.abs(w.dX[a]));
     let alpha = big > MAX_STEP ? MAX_STEP / big : 1;
-    if (residual < 1e-6) {
-      // Near the solution Newton converges quadratically, and G no longer changes by more than its rounding:
+    if (near) {
+      // Near the solution Newton converges quadratically (and G changes by little more than its rounding):
       // the full step.
       for (let a = 0; a < nu; a++) X[a + o.u0] += alpha * w.dX[a];
       for (let k = 0; k < active.length; k++) p[k] += alpha * w.dX[nu + k];
@@ -381,13 +486,20 @@ function iterate(
       }
       for (let a = 0; a < nu; a++) X[a + o.u0] += alpha * w.dX[a];
     } else {
-      // With solids: backtracking on the scaled residual norm.
-      const phi0 = merit(sys, T, X, p, active, w, o.u0);
-      for (let tries = 0; tries < 30; tries++) {
+      // With solids: the same backtracking on G over the surface where the solids are saturated (the step
+      // keeps to it, B ΔX = −Q): G's gradient is the mass balances without the solids' terms.
+      let slope = 0;
+      for (let a = 0; a < nu; a++) {
+        let g = w.R[a + o.u0];
+        for (let k = 0; k < active.length; k++) g -= sys.solids[active[k]].b[a + o.u0] * p[k];
+        slope += g * w.dX[a];
+      }
+      const g0 = objectiveNoTouch(sys, T, X, w, o.u0);
+      for (let tries = 0; tries < 40; tries++) {
         for (let j = 0; j < nc; j++) w.X2[j] = X[j];
         for (let a = 0; a < nu; a++) w.X2[a + o.u0] += alpha * w.dX[a];
-        for (let k = 0; k < active.length; k++) w.p2[k] = p[k] + alpha * w.dX[nu + k];
-        if (merit(sys, T, w.X2, w.p2, active, w, o.u0) <= phi0 * (1 - 1e-4 * alpha)) break;
+        const g = objective(sys, T, w.X2, w, o.u0);
+        if (g <= g0 + 1e-4 * alpha * slope || !(slope < 0)) break;
         alpha *= 0.5;
       }
       for (let a = 0; a < nu; a++) X[a + o.u0] += alpha * w.dX[a];
@@ -401,6 +513,49 @@ function iterate(
   return { converged: residual < ACCEPT, iterations: o.maxIterations, residual, singular: false };
 }
 
+/**
+ * The fallback where the coefficients and the concentrations do not settle together (a cycle, at high ionic
+ * strength or across the coefficients' cap): the mass balances solved at fixed coefficients (the convex
+ * problem, which always converges), the ionic strength then moved by a safeguarded secant on
+ * g(I) = I(c(I)) − I, bracketed as it goes.
+ */
+function iterateNested(
+  sys: TableauSystem,
+  T: Float64Array,
+  X: Float64Array,
+  p: Float64Array,
+  active: readonly number[],
+  w: Work,
+  o: { u0: number; davies: boolean; A: number; heldGamma: boolean; maxIterations: number },
+): Inner {
+  const held = { ...o, heldGamma: true, maxIterations: 100 };
+  species(sys, X, w);
+  let I = ionicStrength(sys, w.c);
+  let lo = 0;
+  let hi = Infinity;
+  let prev: { I: number; g: number } | null = null;
+  let iterations = 0;
+  let last: Inner = { converged: false, iterations: 0, residual: Infinity, singular: false };
+  for (let outer = 0; outer < 40; outer++) {
+    setGamma(sys, I, o.A, w);
+    last = iterate(sys, T, X, p, active, w, held);
+    iterations += last.iterations;
+    if (!last.converged) return { ...last, iterations };
+    species(sys, X, w);
+    const Ic = ionicStrength(sys, w.c);
+    const g = Ic - I;
+    if (Math.abs(g) <= 1e-10 * I + 1e-20) return { ...last, iterations };
+    if (g > 0) lo = Math.max(lo, I);
+    else hi = Math.min(hi, I);
+    let next = Ic;
+    if (prev && prev.g !== g) next = I - (g * (I - prev.I)) / (g - prev.g);
+    if (!(next > lo && next < hi)) next = Number.isFinite(hi) ? 0.5 * (lo + hi) : Ic;
+    prev = { I, g };
+    I = next;
+  }
+  return { ...last, converged: false, iterations };
+}
+
 /** G at X without disturbing the species computed for X (they are recomputed by the caller's next step). */
 function objectiveNoTouch(sys: TableauSystem, T: Float64Array, X: Float64Array, w: Work, u0: number): number {
   let g = 0;
@@ -408,20 +563,6 @@ function objectiveNoTouch(sys: TableauSystem, T: Float64Array, X: Float64Array, 
   g /= LN10;
   for (let j = u0; j < sys.nc; j++) g -= T[j] * X[j];
   return g;
-}
-
-function merit(sys: TableauSystem, T: Float64Array, X: Float64Array, p: Float64Array, active: readonly number[], w: Work, u0: number): number {
-  species(sys, X, w);
-  residuals(sys, T, w, u0, active, p);
-  let phi = 0;
-  for (let j = u0; j < sys.nc; j++) phi += (w.R[j] / w.S[j]) ** 2;
-  for (let k = 0; k < active.length; k++) {
-    const s = sys.solids[active[k]];
-    let v = -s.logK;
-    for (let j = 0; j < sys.nc; j++) if (s.b[j] !== 0) v += s.b[j] * (X[j] + w.lg[j]);
-    phi += v * v;
-  }
-  return phi;
 }
 
 function saturation(sys: TableauSystem, X: Float64Array, lg: Float64Array, out: Float64Array): void {
@@ -440,10 +581,11 @@ export function solveEquilibrium(sys: TableauSystem, T: Float64Array, options: S
   const activity = options.activity ?? 'davies';
   const davies = activity === 'davies';
   const A = debyeHuckelA(sys.T - 273.15);
-  const w = new Work(sys.ns, sys.nc, sys.solids.length);
+  const w = workFor(sys.ns, sys.nc, sys.solids.length);
   const u0 = options.fixedPH === undefined ? 0 : 1;
   const heldGamma = options.logGamma !== undefined;
   if (options.logGamma) w.lg.set(options.logGamma);
+  else w.lg.fill(0);
   const maxIterations = options.maxIterations ?? 200;
   const X = options.start ? Float64Array.from(options.start) : initialX(sys, T, undefined);
   // The pH held is of the activity: X_H = −pH − log γ(H⁺), brought up to date with γ.
@@ -465,7 +607,11 @@ export function solveEquilibrium(sys: TableauSystem, T: Float64Array, options: S
       const again = iterate(sys, T, X, none, [], w, o);
       inner = { ...again, iterations: inner.iterations + again.iterations };
     }
-  } else inner = iterate(sys, T, X, none, [], w, o);
+  } else inner = iterate(sys, T, X, none, [], w, { ...o, maxIterations: Math.min(maxIterations, 40) });
+  if (!inner.converged && davies && !heldGamma && !inner.singular) {
+    const nested = iterateNested(sys, T, X, none, [], w, o);
+    inner = { ...nested, iterations: inner.iterations + nested.iterations };
+  }
   let iterations = inner.iterations;
   let converged = inner.converged;
   let residual = inner.residual;
@@ -488,8 +634,8 @@ export function solveEquilibrium(sys: TableauSystem, T: Float64Array, options: S
     converged,
     iterations,
     X,
-    logC: Float64Array.from(w.logC),
-    logGamma: Float64Array.from(w.lg),
+    logC: w.logC.slice(0, sys.ns),
+    logGamma: w.lg.slice(0, sys.ns),
     I,
     pH: -(X[0] + w.lg[0]),
     si,
@@ -499,6 +645,35 @@ export function solveEquilibrium(sys: TableauSystem, T: Float64Array, options: S
     outOfRange: davies && I > DAVIES_LIMIT_M,
   };
   return eq;
+}
+
+/**
+ * X moved the least distance onto the surface where the solids of `active` are saturated (B X = κ):
+ * X −= Bᵀ (B Bᵀ)⁻¹ Q, over the unknown components. False where the solids cannot all be saturated at once.
+ */
+function project(sys: TableauSystem, X: Float64Array, lg: Float64Array, active: readonly number[], u0: number): boolean {
+  const k = active.length;
+  const BB = new Float64Array(k * k);
+  const q = new Float64Array(k);
+  for (let a = 0; a < k; a++) {
+    const ba = sys.solids[active[a]];
+    let v = -ba.logK;
+    for (let j = 0; j < sys.nc; j++) if (ba.b[j] !== 0) v += ba.b[j] * (X[j] + lg[j]);
+    q[a] = v;
+    for (let b = 0; b < k; b++) {
+      const bb = sys.solids[active[b]].b;
+      let sum = 0;
+      for (let j = u0; j < sys.nc; j++) sum += ba.b[j] * bb[j];
+      BB[a * k + b] = sum;
+    }
+  }
+  if (!gauss(BB, q, k)) return false;
+  for (let j = u0; j < sys.nc; j++) {
+    let d = 0;
+    for (let a = 0; a < k; a++) d += sys.solids[active[a]].b[j] * q[a];
+    X[j] -= d;
+  }
+  return true;
 }
 
 /** The active-set loop: solids added while oversaturated, dropped when their amount turns negative. */
@@ -518,7 +693,7 @@ function precipitateSolids(
   let iterations = 0;
   let residual = homogeneousResidual;
   const X0 = Float64Array.from(X);
-  const lg0 = Float64Array.from(w.lg);
+  const lg0 = w.lg.slice(0, sys.ns);
   for (let pass = 0; pass < 12; pass++) {
     // The most oversaturated solid not yet present joins.
     let best = -1;
@@ -528,7 +703,15 @@ function precipitateSolids(
     const p = new Float64Array(trial.length);
     amounts.forEach((v, k) => (p[k] = v));
     const Xt = Float64Array.from(X);
-    const r = iterate(sys, T, Xt, p, trial, w, o);
+    if (!project(sys, Xt, w.lg, trial, o.u0)) {
+      refused.add(best);
+      continue;
+    }
+    let r = iterate(sys, T, Xt, p, trial, w, { ...o, maxIterations: Math.min(o.maxIterations, 40) });
+    if (!r.converged && !r.singular && o.davies && !o.heldGamma) {
+      const nested = iterateNested(sys, T, Xt, p, trial, w, o);
+      r = { ...nested, iterations: r.iterations + nested.iterations };
+    }
     iterations += r.iterations;
     if (r.singular || !r.converged) {
       refused.add(best);

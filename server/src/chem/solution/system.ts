@@ -8,10 +8,13 @@
  */
 import { BoundedCache } from '../cache';
 import { COMPONENTS, FORMED_SPECIES, logKAt, MODEL_SOLIDS, type ModelSolid, type ModelSpecies, type SpeciesKind } from './model';
+import { labelDisplay } from './labels';
 import { PROTON } from './tables/ions';
 
 export interface SystemSpecies {
   label: string;
+  /** The label in Unicode. */
+  display: string;
   charge: number;
   kind: SpeciesKind | 'inert';
   /** The table's species (absent for an inert component). */
@@ -40,6 +43,12 @@ export interface TableauSystem {
   logK: Float64Array;
   charge: Float64Array;
   z2: Float64Array;
+  /** Σ_j a_ij z_j² − z_i²: how log c_i moves with the Davies factor (−∂ log c_i / ∂f). */
+  zShift: Float64Array;
+  /** The stoichiometry's nonzero entries by row (compressed rows): species i has col/val[rowPtr[i] … rowPtr[i+1]). */
+  rowPtr: Int32Array;
+  col: Int32Array;
+  val: Float64Array;
   solids: SystemSolid[];
   /** Labels of the constants used at their 25 °C value although T differs (no ΔH° tabulated). */
   at25: string[];
@@ -52,6 +61,52 @@ export interface ComponentSpec {
 }
 
 const cache = new BoundedCache<TableauSystem>(2000, 24 * 1024 * 1024);
+
+/** A species or solid of the model flattened for compiling: its components as arrays, its 25 °C log K. */
+interface Flat {
+  species: ModelSpecies;
+  keys: string[];
+  coefs: number[];
+  logK25: number;
+  display: string;
+  order: number;
+}
+interface FlatSolid {
+  solid: ModelSolid;
+  keys: string[];
+  coefs: number[];
+  logK25: number;
+}
+
+/** Indexed by each component they contain besides H⁺ (OH⁻, of H⁺ alone, under H⁺). */
+function indexBy<F extends { keys: string[] }>(list: F[]): Map<string, F[]> {
+  const out = new Map<string, F[]>();
+  for (const f of list) {
+    const keys = f.keys.filter((c) => c !== PROTON.label);
+    for (const c of keys.length ? keys : [PROTON.label]) {
+      const at = out.get(c);
+      if (at) at.push(f);
+      else out.set(c, [f]);
+    }
+  }
+  return out;
+}
+
+const BY_COMPONENT = indexBy(
+  FORMED_SPECIES.map((s, order) => ({
+    species: s,
+    keys: [...s.stoich.keys()],
+    coefs: [...s.stoich.values()],
+    logK25: logKAt(s.k, 298.15),
+    display: labelDisplay(s.label),
+    order,
+  })),
+);
+const SOLIDS_BY_COMPONENT = indexBy(
+  MODEL_SOLIDS.map((m) => ({ solid: m, keys: [...m.stoich.keys()], coefs: [...m.stoich.values()], logK25: logKAt(m.k, 298.15) })),
+);
+const SOLID_ORDER = new Map<ModelSolid, number>(MODEL_SOLIDS.map((m, k) => [m, k]));
+const COMPONENT_DISPLAY = new Map<string, string>([...COMPONENTS.keys()].map((c) => [c, labelDisplay(c)]));
 
 /** Forget the compiled systems (benchmarks of a cold start). */
 export function clearSystemCache() {
@@ -75,44 +130,74 @@ function compile(key: string, comps: ComponentSpec[], T: number): TableauSystem 
   const nc = comps.length;
   const species: SystemSpecies[] = comps.map((c) => {
     const known = COMPONENTS.get(c.label);
-    return known ? { label: c.label, charge: known.charge, kind: 'component' } : { label: c.label, charge: c.charge, kind: 'inert' };
+    return known
+      ? { label: c.label, display: COMPONENT_DISPLAY.get(c.label) as string, charge: known.charge, kind: 'component' }
+      : { label: c.label, display: labelDisplay(c.label), charge: c.charge, kind: 'inert' };
   });
-  const formed: ModelSpecies[] = [];
-  for (const s of FORMED_SPECIES) {
-    let inside = true;
-    for (const c of s.stoich.keys())
-      if (!index.has(c)) {
-        inside = false;
-        break;
-      }
-    if (inside) formed.push(s);
-  }
-  for (const s of formed) species.push({ label: s.label, charge: s.charge, kind: s.kind, model: s });
+  // The species formed of these components only: those of each component, checked once each.
+  const formed: Flat[] = [];
+  const seen = new Set<Flat>();
+  for (const c of comps)
+    for (const f of BY_COMPONENT.get(c.label) ?? []) {
+      if (seen.has(f)) continue;
+      seen.add(f);
+      if (f.keys.every((k) => index.has(k))) formed.push(f);
+    }
+  formed.sort((a, b) => a.order - b.order);
+  for (const f of formed) species.push({ label: f.species.label, display: f.display, charge: f.species.charge, kind: f.species.kind, model: f.species });
   const ns = species.length;
   const A = new Float64Array(ns * nc);
   const logK = new Float64Array(ns);
   const charge = new Float64Array(ns);
   const z2 = new Float64Array(ns);
-  const at25 = new Set<string>();
+  const at25: string[] = [];
   const off25 = Math.abs(T - 298.15) > 0.05;
-  for (let j = 0; j < nc; j++) A[j * nc + j] = 1;
-  species.forEach((s, i) => {
-    charge[i] = s.charge;
-    z2[i] = s.charge * s.charge;
-    if (!s.model) return;
-    for (const [c, a] of s.model.stoich) A[i * nc + (index.get(c) as number)] = a;
-    logK[i] = logKAt(s.model.k, T);
-    if (off25 && s.model.k.partial) at25.add(s.label);
+  for (let j = 0; j < nc; j++) {
+    A[j * nc + j] = 1;
+    charge[j] = species[j].charge;
+    z2[j] = charge[j] * charge[j];
+  }
+  formed.forEach((f, k) => {
+    const i = nc + k;
+    charge[i] = f.species.charge;
+    z2[i] = charge[i] * charge[i];
+    for (let t = 0; t < f.keys.length; t++) A[i * nc + (index.get(f.keys[t]) as number)] = f.coefs[t];
+    logK[i] = off25 ? logKAt(f.species.k, T) : f.logK25;
+    if (off25 && f.species.k.partial) at25.push(f.species.label);
   });
   const solids: SystemSolid[] = [];
-  for (const m of MODEL_SOLIDS) {
-    let inside = true;
-    for (const c of m.stoich.keys()) if (!index.has(c)) inside = false;
-    if (!inside) continue;
-    const b = new Float64Array(nc);
-    for (const [c, a] of m.stoich) b[index.get(c) as number] = a;
-    solids.push({ model: m, b, logK: logKAt(m.k, T) });
-    if (off25 && m.k.partial) at25.add(m.row.formula);
+  const seenSolid = new Set<FlatSolid>();
+  for (const c of comps)
+    for (const f of SOLIDS_BY_COMPONENT.get(c.label) ?? []) {
+      if (seenSolid.has(f)) continue;
+      seenSolid.add(f);
+      if (!f.keys.every((k) => index.has(k))) continue;
+      const b = new Float64Array(nc);
+      for (let t = 0; t < f.keys.length; t++) b[index.get(f.keys[t]) as number] = f.coefs[t];
+      solids.push({ model: f.solid, b, logK: off25 ? logKAt(f.solid.k, T) : f.logK25 });
+      if (off25 && f.solid.k.partial) at25.push(f.solid.row.formula);
+    }
+  solids.sort((a, b) => (SOLID_ORDER.get(a.model) as number) - (SOLID_ORDER.get(b.model) as number));
+  const zShift = new Float64Array(ns);
+  for (let i = 0; i < ns; i++) {
+    let v = -z2[i];
+    for (let j = 0; j < nc; j++) v += A[i * nc + j] * z2[j];
+    zShift[i] = v;
   }
-  return { key, T, components: comps.map((c) => c.label), nc, species, ns, A, logK, charge, z2, solids, at25: [...at25] };
+  const rowPtr = new Int32Array(ns + 1);
+  let nnz = 0;
+  for (let i = 0; i < ns; i++) for (let j = 0; j < nc; j++) if (A[i * nc + j] !== 0) nnz++;
+  const col = new Int32Array(nnz);
+  const val = new Float64Array(nnz);
+  nnz = 0;
+  for (let i = 0; i < ns; i++) {
+    rowPtr[i] = nnz;
+    for (let j = 0; j < nc; j++)
+      if (A[i * nc + j] !== 0) {
+        col[nnz] = j;
+        val[nnz++] = A[i * nc + j];
+      }
+  }
+  rowPtr[ns] = nnz;
+  return { key, T, components: comps.map((c) => c.label), nc, species, ns, A, logK, charge, z2, zShift, rowPtr, col, val, solids, at25 };
 }
