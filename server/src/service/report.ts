@@ -17,6 +17,9 @@ import type { AnalysedDocument } from './document';
 import { formulaText } from './format';
 import { Html, html, join, trusted } from './html';
 import { batchHtml, ionwrightPreview, reactionBlockHtml, silentState, type PreviewOptions } from './preview';
+import { speciesDistribution } from '../chem/solution/distribution';
+import type { BatchOccurrence } from './document';
+import { saturationChart, speciesChart } from './speciesChart';
 
 export interface ReportOptions {
   /** Shown as the page title, usually the file's path. */
@@ -104,6 +107,24 @@ export function latticePoints(formulas: readonly FormulaAnalysis[]): LatticePoin
   return points;
 }
 
+/** A batch's species distribution over pH and its saturation indices, where it has an equilibrium. */
+function equilibriumCharts(b: BatchOccurrence, k: number): Html[] {
+  const s = b.analysis.solution;
+  if (!s || !s.converged) return [];
+  const name = b.analysis.name ?? `batch ${k + 1}`;
+  const d = speciesDistribution(s.equilibrium);
+  const out: Html[] = [];
+  // The svgs are built by speciesChart.ts, which escapes its own text.
+  out.push(
+    html`<figure class="iw-chart">${trusted(speciesChart(d, { id: `iw-species-${k}`, title: `${name}: species over pH` }))}<figcaption>Share of each component's total in each species between pH 0 and 14, the batch's totals and activity coefficients held (an estimate of the model; the dashed line is the batch's own pH).</figcaption></figure>`,
+  );
+  if (s.saturation.length)
+    out.push(
+      html`<figure class="iw-chart">${trusted(saturationChart(s.saturation, { id: `iw-saturation-${k}`, title: `${name}: saturation indices` }))}<figcaption>log10(IAP/Ksp) of each solid the batch's components can form, as made up; above zero it would come out at equilibrium.</figcaption></figure>`,
+    );
+  return out;
+}
+
 /** The whole page: what goes to the bench first (batches and their cautions), then the findings, the reactions, the formulas with bonding and lattice energy, the chart, and the notes. */
 export function reportHtml(doc: AnalysedDocument, options: ReportOptions): string {
   const o: PreviewOptions = { typesetFormulas: true, settings: doc.settings, weighedColumn: true };
@@ -132,7 +153,7 @@ export function reportHtml(doc: AnalysedDocument, options: ReportOptions): strin
   parts.push(html`<section class="iw-bench" aria-labelledby="batches"><h2 id="batches">Batches: what to weigh and pour</h2>`);
   if (doc.batches.length) {
     parts.push(
-      html`<p class="iw-caveat iw-bench-note" role="note">Figures assume full dissociation of strong electrolytes; weak acids and bases stay undissociated, and activities and non-ideal mixing are not modelled. Check each mass against the notes before weighing.</p>`,
+      html`<p class="iw-caveat iw-bench-note" role="note">Masses and concentrations are arithmetic on the notes; the nominal ions assume full dissociation of strong electrolytes. The pH, species and saturation indices are estimates of an equilibrium model (Davies activities, closed to air, no redox): measure the pH of the made-up batch. Check each mass against the notes before weighing.</p>`,
     );
     for (const b of doc.batches) {
       const cls = b.analysis.skipped.length ? 'iw-batch iw-batch-incomplete' : 'iw-batch';
@@ -145,6 +166,7 @@ export function reportHtml(doc: AnalysedDocument, options: ReportOptions): strin
           (d) => lineText(d.start),
         )}<p class="iw-by">Block at line ${lineOf(b.ref.start)}.</p></figure>`,
       );
+      parts.push(...equilibriumCharts(b, doc.batches.indexOf(b)));
     }
   } else parts.push(html`<p>No batch blocks in these notes.</p>`);
   if (cautions.length) {

@@ -166,7 +166,8 @@ export function solutionStage(amounts: BatchAmounts, headers: BatchHeaders, sett
   if (weighed >= V * 1000) {
     return { solution: null, noSolution: 'the ingredients weigh more than the water of the final volume: not a dilute aqueous solution', diagnostics };
   }
-  const solution = batchSolution({ volumeL: V, temperatureC: T, ingredients: fixed });
+  // In the order of the counted lines (the outputs pair each ingredient with how the model read it).
+  const solution = batchSolution({ volumeL: V, temperatureC: T, ingredients: amounts.counted.map((c) => ({ analysis: c.line.analysis, moles: c.moles })) });
   diagnostics.push(...findings(solution, headers, settings, openLine));
   return { solution, diagnostics };
 }
