@@ -25,7 +25,9 @@ export const siText = (si: number) => `${si >= 0 ? '+' : MINUS}${Math.abs(si).to
 /** Buffer capacity in mol/(L·pH), or mmol where it is small. */
 export function capacityText(beta: number | null): string {
   if (beta === null || !Number.isFinite(beta)) return '—';
-  return beta >= 0.1 ? `${sig(beta, 2)} mol/(L·pH)` : `${sig(beta * 1e3, 2)} mmol/(L·pH)`;
+  if (beta >= 0.1) return `${sig(beta, 2)} mol/(L·pH)`;
+  if (beta >= 1e-4) return `${sig(beta * 1e3, 2)} mmol/(L·pH)`;
+  return `${sig(beta * 1e6, 2)} µmol/(L·pH) (unbuffered)`;
 }
 
 /** Whether a solid is oversaturated, near saturation (within one log unit) or well under. */

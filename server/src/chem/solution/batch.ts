@@ -240,7 +240,7 @@ export function solveForPH(
   if (Math.abs(p0.pH - targetPH) < 1e-9) return { moles: 0, pH: p0.pH };
   if (rises !== targetPH > p0.pH)
     return {
-      error: `${who} ${rises ? 'raises' : 'lowers'} the pH, and the batch without it is already at pH ${fixed2(p0.pH)}, ${rises ? 'above' : 'below'} ${fixed2(targetPH)}: an ${rises ? 'acid' : 'base'} is needed.`,
+      error: `${who} ${rises ? 'raises' : 'lowers'} the pH, and the batch without it is already at pH ${fixed2(p0.pH)}, ${rises ? 'above' : 'below'} ${fixed2(targetPH)}: ${rises ? 'an acid' : 'a base'} is needed.`,
     };
   // Bracket over decades of the amount per litre.
   const f = (logN: number) => pHWith(base, reading, Math.pow(10, logN) * volumeL, volumeL, T, activity).pH - targetPH;

@@ -172,6 +172,9 @@ function byComposition(atoms: AtomCounts, charge: number): IngredientReading | n
     return result(metals, [q], atoms, []);
   }
   for (const anions of decompositions(rest)) {
+    // Without a metal, two ions both more than once is a molecule read twice over (C6H12O6 is no 2 H⁺ + 2
+    // lactate), and so are protons with more than one anion unit.
+    if (metals.length === 0 && anions.length === 2 && anions[1].count > 1 && (anions[0].count > 1 || anions[0].form.label === H)) continue;
     const anionCharge = anions.reduce((s, p) => s + p.count * p.form.charge, 0);
     const need = charge - anionCharge;
     const combo = metalCharges(metals, atoms, need);
@@ -260,7 +263,12 @@ function result(metals: string[], charges: number[], atoms: AtomCounts, anions: 
 /** By the nominal ions: each ion read on its own where the tables know it, else inert. */
 function nominal(a: FormulaAnalysis): IngredientReading {
   const d = electrolyteIons(a);
-  if (d.ions.length === 0) return { shares: [], as: [], inert: [], leftOut: d.undissociated ?? 'not dissolved' };
+  if (d.ions.length === 0) {
+    const why = d.undissociated?.startsWith('molecular')
+      ? 'a molecule the equilibrium tables do not know: left out, it moves no pH in the model'
+      : (d.undissociated ?? 'not dissolved');
+    return { shares: [], as: [], inert: [], leftOut: why };
+  }
   const shares = new Map<string, ComponentShare>();
   const as: string[] = [];
   const inert: string[] = [];

@@ -528,7 +528,7 @@ function iterateNested(
   w: Work,
   o: { u0: number; davies: boolean; A: number; heldGamma: boolean; maxIterations: number },
 ): Inner {
-  const held = { ...o, heldGamma: true, maxIterations: 100 };
+  const held = { ...o, heldGamma: true, maxIterations: Math.min(100, o.maxIterations) };
   species(sys, X, w);
   let I = ionicStrength(sys, w.c);
   let lo = 0;
@@ -625,6 +625,8 @@ export function solveEquilibrium(sys: TableauSystem, T: Float64Array, options: S
     residual = r.residual;
     precipitates = r.precipitates;
     hold(X);
+    // The indices where the solids have come out (0 for those present).
+    saturation(sys, X, w.lg, si);
   }
   species(sys, X, w);
   const I = ionicStrength(sys, w.c);
