@@ -31,7 +31,7 @@ import { checkBatch, type BatchChecks } from './checks';
 import { mixIons, type BatchMix } from './mix';
 import { readLines, type BatchHeaders } from './read';
 import { solutionStage, type SolutionStage } from './solution';
-import type { BatchAnalysis, BatchLine, Ingredient } from './types';
+import type { BatchAnalysis, BatchLine, BatchSolution, Ingredient } from './types';
 
 export type {
   AmountUnit,
@@ -127,10 +127,11 @@ function assemble(
   const notes = [solution.solution ? NOMINAL_NOTE : MODEL_NOTE];
   if (headers.volumeL === null && ingredients.length) notes.push('No final volume given: concentrations, ionic strength and pH are not computed.');
   else if (!solution.solution && solution.noSolution) notes.push(`No equilibrium: ${solution.noSolution}.`);
+  const lazy = typeof solution.solution === 'function' ? solution.solution : null;
   diagnostics.sort((x, y) => x.start - y.start);
   const { name, volumeL, totalMassG } = headers;
   const { ions, ionicStrengthM, netChargeEqPerL } = mix;
-  return {
+  const out: BatchAnalysis = {
     name,
     volumeL,
     totalMassG,
@@ -145,7 +146,13 @@ function assemble(
     notes,
     temperatureC: headers.temperatureC,
     statedPH: headers.pH?.value ?? null,
-    solution: solution.solution,
+    solution: lazy ? null : (solution.solution as BatchSolution | null),
     ...(solution.noSolution ? { noSolution: solution.noSolution } : {}),
   };
+  if (lazy) {
+    // Made on first read, then kept (an analysis is shared and read-only otherwise).
+    let made: BatchSolution | undefined;
+    Object.defineProperty(out, 'solution', { enumerable: true, configurable: true, get: () => (made ??= lazy()) });
+  }
+  return out;
 }

@@ -12,14 +12,16 @@
 import { analyseFormula } from '../analyse';
 import type { ChemDiagnostic } from '../diagnostic';
 import { DEFAULT_PH_TOLERANCE, type ChemSettings } from '../settings';
-import { batchSolution, designBuffer, solveForPH, type SolutionIngredient } from '../solution/batch';
+import { batchSolution, componentsOf, designBuffer, oversaturated, solveForPH, type SolutionIngredient } from '../solution/batch';
+import { formsASolid } from '../solution/system';
 import type { BatchSolution } from '../solution/types';
 import { reasonOf, skippedLine, type BatchAmounts, type CountedLine } from './amounts';
 import type { BatchHeaders, BufferLine, IngredientLine } from './read';
 import { finding } from './tokens';
 
 export interface SolutionStage {
-  solution: BatchSolution | null;
+  /** The solution, or where it cannot lead to a finding, how to make it when it is first read. */
+  solution: BatchSolution | null | (() => BatchSolution);
   noSolution?: string;
   diagnostics: ChemDiagnostic[];
 }
@@ -167,7 +169,11 @@ export function solutionStage(amounts: BatchAmounts, headers: BatchHeaders, sett
     return { solution: null, noSolution: 'the ingredients weigh more than the water of the final volume: not a dilute aqueous solution', diagnostics };
   }
   // In the order of the counted lines (the outputs pair each ingredient with how the model read it).
-  const solution = batchSolution({ volumeL: V, temperatureC: T, ingredients: amounts.counted.map((c) => ({ analysis: c.line.analysis, moles: c.moles })) });
+  const request = { volumeL: V, temperatureC: T, ingredients: amounts.counted.map((c) => ({ analysis: c.line.analysis, moles: c.moles })) };
+  // Without a stated pH, a line solved or a solid its components can form, the equilibrium can raise no
+  // finding but its own convergence: it is solved when something first reads it (a hover, a table, JSON).
+  if (!headers.pH && solvable.length === 0 && !formsASolid(componentsOf(request.ingredients))) return { solution: () => batchSolution(request), diagnostics };
+  const solution = batchSolution(request);
   diagnostics.push(...findings(solution, headers, settings, openLine));
   return { solution, diagnostics };
 }
@@ -186,8 +192,7 @@ function findings(s: BatchSolution, headers: BatchHeaders, settings: ChemSetting
     );
     return out;
   }
-  for (const sat of s.saturation) {
-    if (!(sat.saturationIndex > 0)) break;
+  for (const sat of oversaturated(s)) {
     const p = s.precipitates.find((x) => x.solid === sat.solid);
     const amount = p
       ? `about ${massWords(p.massG)} would come out at equilibrium${s.afterPrecipitation ? ` (the pH then ${pHText(s.afterPrecipitation.pH)})` : ''}`

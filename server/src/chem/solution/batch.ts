@@ -81,7 +81,7 @@ function solve(recipe: Recipe, volumeL: number, T: number, activity: 'davies' | 
 }
 
 /** Results by the recipe's content: the same batch elsewhere in the notes, or typed again, is not solved again. */
-const results = new BoundedCache<BatchSolution>(2000, 16 * 1024 * 1024);
+const results = new BoundedCache<Solved>(2000, 16 * 1024 * 1024);
 
 export function clearSolutionCache() {
   results.clear();
@@ -93,25 +93,31 @@ function recipeKey(recipe: Recipe, volumeL: number, T: number, activity: string)
   return `${T}|${activity}|${parts.sort().join(',')}`;
 }
 
+/** The components a batch's ingredients give (H⁺ left out): what decides which solids it can form. */
+export function componentsOf(ingredients: readonly SolutionIngredient[]): Set<string> {
+  const out = new Set<string>();
+  for (const i of ingredients)
+    if (i.moles > 0) for (const s of readIngredient(i.analysis).shares) if (s.label !== PROTON.label && s.count > 0) out.add(s.label);
+  return out;
+}
+
 /** The solution of a batch whose every amount is known. */
 export function batchSolution(req: SolutionRequest): BatchSolution {
   const T = req.temperatureC + 273.15;
   const activity = req.activity ?? 'davies';
   const recipe = new Recipe();
-  const ingredients: IngredientInModel[] = [];
-  const inert = new Set<string>();
+  const readings: Array<{ display: string; reading: IngredientReading }> = [];
   for (const i of req.ingredients) {
     const r = readIngredient(i.analysis);
     recipe.add(r, i.moles);
-    ingredients.push({ formula: i.analysis.display, as: r.as.map(countedLabel).join(' + '), ...(r.leftOut ? { leftOut: r.leftOut } : {}) });
-    for (const x of r.inert) inert.add(x);
+    readings.push({ display: i.analysis.display, reading: r });
   }
   const key = recipeKey(recipe, req.volumeL, T, activity);
   const hit = results.get(key);
-  if (hit) return { ...hit, ingredients };
+  if (hit) return hit.withReadings(readings);
   const eq = solve(recipe, req.volumeL, T, activity);
-  const out = describe(eq, recipe, req.volumeL, req.temperatureC, ingredients, [...inert]);
-  results.set(key, out, 600 + 120 * out.species.length + 200 * out.saturation.length);
+  const out = new Solved(eq, recipe, req.volumeL, req.temperatureC, readings);
+  results.set(key, out, 800 + 200 * eq.system.ns);
   return out;
 }
 
@@ -120,77 +126,153 @@ const countedLabel = (t: string) => {
   return m ? `${m[1]} ${labelDisplay(m[2])}` : labelDisplay(t);
 };
 
-function describe(eq: Equilibrium, recipe: Recipe, volumeL: number, temperatureC: number, ingredients: IngredientInModel[], inert: string[]): BatchSolution {
-  const sys = eq.system;
-  const species: SolutionSpecies[] = sys.species.map((s, i) => {
-    const c = Math.pow(10, eq.logC[i]);
-    return {
-      label: s.label,
-      display: s.display,
-      charge: s.charge,
-      concentrationM: c,
-      activity: c * Math.pow(10, eq.logGamma[i]),
-      ...(s.model?.name ? { name: s.model.name } : {}),
-    };
-  });
-  species.sort((a, b) => b.concentrationM - a.concentrationM);
-  const saturation: SolidSaturation[] = sys.solids.map((s, k) => ({
-    solid: s.model.row.formula,
-    display: s.model.display,
-    name: s.model.row.name,
-    saturationIndex: eq.si[k],
-    logKsp: s.model.row.logKsp,
-    source: s.model.citation,
-    ...(s.model.row.note ? { note: s.model.row.note } : {}),
-  }));
-  saturation.sort((a, b) => b.saturationIndex - a.saturationIndex);
-  let precipitates: BatchSolution['precipitates'] = [];
-  let afterPrecipitation: BatchSolution['afterPrecipitation'] = null;
-  if (eq.converged && saturation.some((s) => s.saturationIndex > 1e-6)) {
-    const { system, totals } = recipe.tableau(volumeL, sys.T);
-    const after = solveEquilibrium(system, totals, { activity: eq.activity, precipitate: true, start: eq.X });
-    if (after.converged && after.precipitates.length) {
-      precipitates = after.precipitates.map((p) => {
-        const row = system.solids[p.solid].model.row;
-        return {
-          solid: row.formula,
-          display: system.solids[p.solid].model.display,
-          name: row.name,
-          molPerL: p.molPerL,
-          massG: p.molPerL * volumeL * molarMassOf(row.formula),
-        };
-      });
-      afterPrecipitation = { pH: after.pH, ionicStrengthM: after.I };
+/**
+ * A batch's equilibrium, described on demand: the lists of species and solids, the buffer capacity and the
+ * notes are made when first read (the check of a folder reads only the findings); what would come out is
+ * solved at once where a solid is oversaturated, since the findings say it.
+ */
+class Solved implements BatchSolution {
+  readonly temperatureC: number;
+  readonly pH: number;
+  readonly ionicStrengthM: number;
+  readonly activityModel: 'Davies' | 'ideal';
+  readonly converged: boolean;
+  readonly iterations: number;
+  readonly outOfRange: boolean;
+  readonly at25: string[];
+  readonly precipitates: BatchSolution['precipitates'] = [];
+  readonly afterPrecipitation: BatchSolution['afterPrecipitation'] = null;
+  private made: {
+    species?: SolutionSpecies[];
+    saturation?: SolidSaturation[];
+    capacity?: number | null;
+    notes?: string[];
+    ingredients?: IngredientInModel[];
+    inert?: string[];
+  } = {};
+
+  constructor(
+    readonly equilibrium: Equilibrium,
+    private readonly recipe: Recipe,
+    private readonly volumeL: number,
+    temperatureC: number,
+    private readonly readings: ReadonlyArray<{ display: string; reading: IngredientReading }>,
+  ) {
+    const eq = equilibrium;
+    this.temperatureC = temperatureC;
+    this.pH = eq.pH;
+    this.ionicStrengthM = eq.I;
+    this.activityModel = eq.activity === 'davies' ? 'Davies' : 'ideal';
+    this.converged = eq.converged;
+    this.iterations = eq.iterations;
+    this.outOfRange = eq.outOfRange;
+    this.at25 = eq.system.at25;
+    if (eq.converged && eq.si.some((x) => x > 1e-6)) {
+      const { system, totals } = recipe.tableau(volumeL, eq.system.T);
+      // To 1e-8 of the balances: what comes out is a rough mass in the findings, and this is the costly solve.
+      const after = solveEquilibrium(system, totals, { activity: eq.activity, precipitate: true, start: eq.X, tolerance: 1e-8 });
+      if (after.converged && after.precipitates.length) {
+        this.precipitates = after.precipitates.map((p) => {
+          const row = system.solids[p.solid].model.row;
+          return {
+            solid: row.formula,
+            display: system.solids[p.solid].model.display,
+            name: row.name,
+            molPerL: p.molPerL,
+            massG: p.molPerL * volumeL * molarMassOf(row.formula),
+          };
+        });
+        this.afterPrecipitation = { pH: after.pH, ionicStrengthM: after.I };
+      }
     }
   }
-  const notes = [NOTES.model, NOTES.estimate];
-  if (eq.outOfRange)
-    notes.unshift(`I = ${eq.I.toPrecision(2)} M is above the Davies equation's range (about 0.5 M): the activities, pH and saturation indices are rough.`);
-  if (Math.abs(temperatureC - 25) > 0.05 && sys.at25.length)
-    notes.push(
-      `At ${temperatureC} °C; no enthalpy is tabulated for ${sys.at25.length} of the constants used (${sys.at25.slice(0, 4).map(labelDisplay).join(', ')}${sys.at25.length > 4 ? ', …' : ''}): their 25 °C values are used.`,
-    );
-  for (const s of new Set(sys.species.map((x) => x.model?.system).filter((x): x is NonNullable<typeof x> => !!x && !!x.note))) notes.push(s.note as string);
-  if (inert.length) notes.push(`Not in the equilibrium tables, counted as ions that form nothing: ${inert.map(labelDisplay).join(', ')}.`);
-  return {
-    temperatureC,
-    pH: eq.pH,
-    ionicStrengthM: eq.I,
-    activityModel: eq.activity === 'davies' ? 'Davies' : 'ideal',
-    converged: eq.converged,
-    iterations: eq.iterations,
-    species,
-    saturation,
-    bufferCapacity: eq.converged ? bufferCapacity(eq) : null,
-    precipitates,
-    afterPrecipitation,
-    outOfRange: eq.outOfRange,
-    at25: sys.at25,
-    ingredients,
-    inert,
-    notes,
-    equilibrium: eq,
-  };
+
+  /** The same solution, for a batch whose ingredients are written otherwise (a composition met before). */
+  withReadings(readings: ReadonlyArray<{ display: string; reading: IngredientReading }>): Solved {
+    const copy = Object.create(Solved.prototype) as Solved;
+    Object.assign(copy, this, { readings, made: { species: this.made.species, saturation: this.made.saturation, capacity: this.made.capacity } });
+    return copy;
+  }
+
+  get species(): SolutionSpecies[] {
+    if (this.made.species) return this.made.species;
+    const eq = this.equilibrium;
+    const list = eq.system.species.map((s, i) => {
+      const c = Math.pow(10, eq.logC[i]);
+      const out: SolutionSpecies = { label: s.label, display: s.display, charge: s.charge, concentrationM: c, activity: c * Math.pow(10, eq.logGamma[i]) };
+      if (s.model?.name) out.name = s.model.name;
+      return out;
+    });
+    list.sort((a, b) => b.concentrationM - a.concentrationM);
+    return (this.made.species = list);
+  }
+
+  get saturation(): SolidSaturation[] {
+    if (this.made.saturation) return this.made.saturation;
+    const eq = this.equilibrium;
+    const list = eq.system.solids.map((s, k) => {
+      const out: SolidSaturation = {
+        solid: s.model.row.formula,
+        display: s.model.display,
+        name: s.model.row.name,
+        saturationIndex: eq.si[k],
+        logKsp: s.model.row.logKsp,
+        source: s.model.citation,
+      };
+      if (s.model.row.note) out.note = s.model.row.note;
+      return out;
+    });
+    list.sort((a, b) => b.saturationIndex - a.saturationIndex);
+    return (this.made.saturation = list);
+  }
+
+  get bufferCapacity(): number | null {
+    if (this.made.capacity === undefined) this.made.capacity = this.converged ? bufferCapacity(this.equilibrium) : null;
+    return this.made.capacity;
+  }
+
+  get ingredients(): IngredientInModel[] {
+    return (this.made.ingredients ??= this.readings.map(({ display, reading: r }) => {
+      const out: IngredientInModel = { formula: display, as: r.as.map(countedLabel).join(' + ') };
+      if (r.leftOut) out.leftOut = r.leftOut;
+      return out;
+    }));
+  }
+
+  get inert(): string[] {
+    return (this.made.inert ??= [...new Set(this.readings.flatMap((x) => x.reading.inert))]);
+  }
+
+  get notes(): string[] {
+    if (this.made.notes) return this.made.notes;
+    const eq = this.equilibrium;
+    const sys = eq.system;
+    const notes = [NOTES.model, NOTES.estimate];
+    if (eq.outOfRange)
+      notes.unshift(`I = ${eq.I.toPrecision(2)} M is above the Davies equation's range (about 0.5 M): the activities, pH and saturation indices are rough.`);
+    if (Math.abs(this.temperatureC - 25) > 0.05 && sys.at25.length)
+      notes.push(
+        `At ${this.temperatureC} °C; no enthalpy is tabulated for ${sys.at25.length} of the constants used (${sys.at25.slice(0, 4).map(labelDisplay).join(', ')}${sys.at25.length > 4 ? ', …' : ''}): their 25 °C values are used.`,
+      );
+    for (const n of new Set(sys.species.map((x) => x.model?.system?.note).filter((x): x is string => !!x))) notes.push(n);
+    if (this.inert.length) notes.push(`Not in the equilibrium tables, counted as ions that form nothing: ${this.inert.map(labelDisplay).join(', ')}.`);
+    return (this.made.notes = notes);
+  }
+
+  /** The oversaturated solids, most first, without making the whole list. */
+  oversaturated(): Array<{ solid: string; display: string; name: string; saturationIndex: number }> {
+    const eq = this.equilibrium;
+    const out: Array<{ solid: string; display: string; name: string; saturationIndex: number }> = [];
+    eq.system.solids.forEach((s, k) => {
+      if (eq.si[k] > 0) out.push({ solid: s.model.row.formula, display: s.model.display, name: s.model.row.name, saturationIndex: eq.si[k] });
+    });
+    return out.sort((a, b) => b.saturationIndex - a.saturationIndex);
+  }
+}
+
+/** The oversaturated solids of a solution, most first. */
+export function oversaturated(s: BatchSolution): Array<{ solid: string; display: string; name: string; saturationIndex: number }> {
+  return s instanceof Solved ? s.oversaturated() : s.saturation.filter((x) => x.saturationIndex > 0);
 }
 
 // ── solving for an amount ──────────────────────────────────────────────────

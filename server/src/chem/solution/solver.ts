@@ -37,6 +37,8 @@ export interface SolveOptions {
   /** Hold the activity coefficients at these (per species, log10) instead of computing them. */
   logGamma?: Float64Array;
   maxIterations?: number;
+  /** Largest scaled residual accepted (default 1e-13: the balances to rounding). */
+  tolerance?: number;
 }
 
 export interface Precipitate {
@@ -73,6 +75,8 @@ export interface Equilibrium {
 
 const TOL = 1e-13;
 const ACCEPT = 1e-10;
+/** Loosest tolerance a caller may ask for. */
+const LOOSEST = 1e-6;
 const MAX_STEP = 4;
 
 /** Scratch space for one solve (no allocation inside the iterations). */
@@ -349,7 +353,7 @@ function initialX(sys: TableauSystem, T: Float64Array, fixedLogH: number | undef
 function warmUp(sys: TableauSystem, T: Float64Array, X: Float64Array, w: Work, u0: number): void {
   const { ns, nc, rowPtr, col, val } = sys;
   const sum = w.Y2;
-  for (let round = 0; round < 6; round++) {
+  for (let round = 0; round < 4; round++) {
     species(sys, X, w);
     sum.fill(0, 0, nc);
     for (let i = 0; i < ns; i++) for (let k = rowPtr[i], e = rowPtr[i + 1]; k < e; k++) if (val[k] > 0) sum[col[k]] += val[k] * w.c[i];
@@ -371,6 +375,16 @@ function warmUp(sys: TableauSystem, T: Float64Array, X: Float64Array, w: Work, u
   }
 }
 
+interface Opts {
+  u0: number;
+  davies: boolean;
+  A: number;
+  heldGamma: boolean;
+  maxIterations: number;
+  /** Scaled residual at which the iterations stop. */
+  tol: number;
+}
+
 interface Inner {
   converged: boolean;
   iterations: number;
@@ -382,15 +396,7 @@ interface Inner {
  * Newton iterations for the unknowns with the solids in `active` present (amounts `p`), the activity
  * coefficients brought up to date each step (unless held). X and p are updated in place.
  */
-function iterate(
-  sys: TableauSystem,
-  T: Float64Array,
-  X: Float64Array,
-  p: Float64Array,
-  active: readonly number[],
-  w: Work,
-  o: { u0: number; davies: boolean; A: number; heldGamma: boolean; maxIterations: number },
-): Inner {
+function iterate(sys: TableauSystem, T: Float64Array, X: Float64Array, p: Float64Array, active: readonly number[], w: Work, o: Opts): Inner {
   const { nc } = sys;
   const nu = nc - o.u0;
   let lastI = -1;
@@ -409,7 +415,9 @@ function iterate(
       // fixed point at this X), so that Newton sees consistent residuals.
       // Newton on the one equation I = I(c(X, I)): quadratic where the plain fixed point converges only at
       // the rate ½ Σ z² ∂c/∂I.
-      for (let round = 0; round < 6; round++) {
+      // Far from the solution one round is enough (the concentrations move more than γ does); near it, a few.
+      const rounds = previous < 1e-3 ? 4 : 1;
+      for (let round = 0; round < rounds; round++) {
         const I = ionicStrength(sys, w.c);
         // A relative change of 1e-10 in I moves log γ by less than 1e-10: the coefficients stand.
         if (Math.abs(I - lastI) <= 1e-10 * I + 1e-20) break;
@@ -451,7 +459,7 @@ function iterate(
           .join(' '),
       );
     // Converged: the tolerance met, or rounding reached below the acceptance level (no more progress).
-    if (q < 1e-11 && !moved && (residual < TOL || (residual < ACCEPT && residual >= 0.5 * previous)))
+    if (q < 1e-11 && !moved && (residual < o.tol || (residual < ACCEPT && residual >= 0.5 * previous)))
       return { converged: true, iterations: it, residual, singular: false };
     if (residual > previous && it > 0 && o.davies && !o.heldGamma) {
       // The second time: a cycle of the coefficients; the nested iteration takes over (solveEquilibrium).
@@ -510,7 +518,7 @@ function iterate(
       residual = residuals(sys, T, w, o.u0, active, p);
     }
   }
-  return { converged: residual < ACCEPT, iterations: o.maxIterations, residual, singular: false };
+  return { converged: residual < Math.max(ACCEPT, o.tol), iterations: o.maxIterations, residual, singular: false };
 }
 
 /**
@@ -519,15 +527,7 @@ function iterate(
  * problem, which always converges), the ionic strength then moved by a safeguarded secant on
  * g(I) = I(c(I)) − I, bracketed as it goes.
  */
-function iterateNested(
-  sys: TableauSystem,
-  T: Float64Array,
-  X: Float64Array,
-  p: Float64Array,
-  active: readonly number[],
-  w: Work,
-  o: { u0: number; davies: boolean; A: number; heldGamma: boolean; maxIterations: number },
-): Inner {
+function iterateNested(sys: TableauSystem, T: Float64Array, X: Float64Array, p: Float64Array, active: readonly number[], w: Work, o: Opts): Inner {
   const held = { ...o, heldGamma: true, maxIterations: Math.min(100, o.maxIterations) };
   species(sys, X, w);
   let I = ionicStrength(sys, w.c);
@@ -593,7 +593,7 @@ export function solveEquilibrium(sys: TableauSystem, T: Float64Array, options: S
     if (options.fixedPH !== undefined) x[0] = -options.fixedPH - w.lg[0];
   };
   hold(X);
-  const o = { u0, davies, A, heldGamma, maxIterations };
+  const o: Opts = { u0, davies, A, heldGamma, maxIterations, tol: Math.min(LOOSEST, Math.max(TOL, options.tolerance ?? TOL)) };
   const none = new Float64Array(0);
   if (!options.start) warmUp(sys, T, X, w, u0);
   let inner: Inner;
@@ -684,7 +684,7 @@ function precipitateSolids(
   T: Float64Array,
   X: Float64Array,
   w: Work,
-  o: { u0: number; davies: boolean; A: number; heldGamma: boolean; maxIterations: number },
+  o: Opts,
   homogeneousSI: Float64Array,
   homogeneousResidual: number,
 ): { converged: boolean; iterations: number; residual: number; precipitates: Precipitate[] } {
@@ -747,7 +747,7 @@ function precipitateSolids(
     w.lg.set(lg0);
     residual = homogeneousResidual;
   }
-  return { converged: residual < ACCEPT, iterations, residual, precipitates: active.map((solid, k) => ({ solid, molPerL: amounts[k] })) };
+  return { converged: residual < Math.max(ACCEPT, o.tol), iterations, residual, precipitates: active.map((solid, k) => ({ solid, molPerL: amounts[k] })) };
 }
 
 /**

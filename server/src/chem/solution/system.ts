@@ -68,7 +68,8 @@ interface Flat {
   keys: string[];
   coefs: number[];
   logK25: number;
-  display: string;
+  /** The system's entry for it (shared by every system it is in: read-only). */
+  entry: SystemSpecies;
   order: number;
 }
 interface FlatSolid {
@@ -98,7 +99,7 @@ const BY_COMPONENT = indexBy(
     keys: [...s.stoich.keys()],
     coefs: [...s.stoich.values()],
     logK25: logKAt(s.k, 298.15),
-    display: labelDisplay(s.label),
+    entry: { label: s.label, display: labelDisplay(s.label), charge: s.charge, kind: s.kind, model: s },
     order,
   })),
 );
@@ -106,7 +107,15 @@ const SOLIDS_BY_COMPONENT = indexBy(
   MODEL_SOLIDS.map((m) => ({ solid: m, keys: [...m.stoich.keys()], coefs: [...m.stoich.values()], logK25: logKAt(m.k, 298.15) })),
 );
 const SOLID_ORDER = new Map<ModelSolid, number>(MODEL_SOLIDS.map((m, k) => [m, k]));
-const COMPONENT_DISPLAY = new Map<string, string>([...COMPONENTS.keys()].map((c) => [c, labelDisplay(c)]));
+const COMPONENT_ENTRY = new Map<string, SystemSpecies>(
+  [...COMPONENTS.values()].map((c) => [c.label, { label: c.label, display: labelDisplay(c.label), charge: c.charge, kind: 'component' }]),
+);
+
+/** Whether any solid of the table dissolves into these components only (without compiling the system). */
+export function formsASolid(labels: ReadonlySet<string>): boolean {
+  for (const c of labels) for (const f of SOLIDS_BY_COMPONENT.get(c) ?? []) if (f.keys.every((k) => k === PROTON.label || labels.has(k))) return true;
+  return false;
+}
 
 /** Forget the compiled systems (benchmarks of a cold start). */
 export function clearSystemCache() {
@@ -128,12 +137,9 @@ function compile(key: string, comps: ComponentSpec[], T: number): TableauSystem 
   const index = new Map<string, number>();
   comps.forEach((c, j) => index.set(c.label, j));
   const nc = comps.length;
-  const species: SystemSpecies[] = comps.map((c) => {
-    const known = COMPONENTS.get(c.label);
-    return known
-      ? { label: c.label, display: COMPONENT_DISPLAY.get(c.label) as string, charge: known.charge, kind: 'component' }
-      : { label: c.label, display: labelDisplay(c.label), charge: c.charge, kind: 'inert' };
-  });
+  const species: SystemSpecies[] = comps.map(
+    (c) => COMPONENT_ENTRY.get(c.label) ?? { label: c.label, display: labelDisplay(c.label), charge: c.charge, kind: 'inert' },
+  );
   // The species formed of these components only: those of each component, checked once each.
   const formed: Flat[] = [];
   const seen = new Set<Flat>();
@@ -144,7 +150,7 @@ function compile(key: string, comps: ComponentSpec[], T: number): TableauSystem 
       if (f.keys.every((k) => index.has(k))) formed.push(f);
     }
   formed.sort((a, b) => a.order - b.order);
-  for (const f of formed) species.push({ label: f.species.label, display: f.display, charge: f.species.charge, kind: f.species.kind, model: f.species });
+  for (const f of formed) species.push(f.entry);
   const ns = species.length;
   const A = new Float64Array(ns * nc);
   const logK = new Float64Array(ns);
