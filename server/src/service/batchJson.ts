@@ -70,7 +70,10 @@ export function batchJson(doc: AnalysedDocument, b: BatchOccurrence) {
               role: i.buffer.role,
               totalM: i.buffer.design.totalM,
               pH: i.buffer.design.pH === undefined ? null : round(i.buffer.design.pH, 4),
-              ratio: round(i.buffer.design.ratio, 6),
+              // The buffering step's base : acid concentration ratio as designed, and Henderson–Hasselbalch's for it.
+              forms: i.buffer.design.forms,
+              pKa: i.buffer.design.pKa,
+              ratio: Number.isFinite(i.buffer.design.ratio) ? round(i.buffer.design.ratio, 6) : null,
               idealRatio: i.buffer.design.idealRatio === null ? null : round(i.buffer.design.idealRatio, 6),
             },
           }

@@ -5,6 +5,7 @@
  * stage (chem/solution); nothing here computes chemistry.
  */
 import type { BatchAnalysis, BatchSolution, Ingredient, SolidSaturation, SolutionSpecies } from '../chem/batch';
+import { labelDisplay } from '../chem/solution/labels';
 import { MINUS, sig } from './format';
 
 /** A concentration in the unit a chemist reads it in: `0.137 M`, `10.1 mM`, `2.4 µM`, `3.1×10⁻¹² M`. */
@@ -74,9 +75,9 @@ export function solvedText(i: Ingredient): string | undefined {
   if (i.solvedFor) return `amount solved for pH ${pHText(i.solvedFor.targetPH)} with the equilibrium model (reached ${pHText(i.solvedFor.pH)})`;
   if (i.buffer) {
     const d = i.buffer.design;
-    const hh =
-      d.idealRatio !== null && d.pKa !== null ? `; Henderson–Hasselbalch at pKa ${d.pKa.toFixed(2)} (I = 0) would give ${sig(d.idealRatio, 3)} : 1` : '';
-    return `${d.system} buffer ${sig(d.totalM, 3)} M at pH ${pHText(d.pH)}: base : acid ${sig(d.ratio, 3)} : 1 with activities${hh}`;
+    if (!d.forms || d.pKa === null || d.idealRatio === null) return `${d.system} buffer ${sig(d.totalM, 3)} M at pH ${pHText(d.pH)}`;
+    const [a, b] = d.forms.map(labelDisplay);
+    return `${d.system} buffer ${sig(d.totalM, 3)} M at pH ${pHText(d.pH)}: ${b} : ${a} ${sig(d.ratio, 3)} : 1 with activities; Henderson–Hasselbalch at pKa ${d.pKa.toFixed(2)} (I = 0) would give ${sig(d.idealRatio, 3)} : 1`;
   }
   return undefined;
 }

@@ -118,6 +118,8 @@ export function solutionNotes(b: BatchAnalysis, s: BatchSolution): string[] {
     if (t) out.push(`${i.buffer ? '' : `${i.formula}: `}${t}.`);
   }
   out.push(limitsLine(s));
+  // The model's own notes that the line of limits does not already say (temperature, what is left out).
+  for (const n of s.notes) if (!/^(Davies activity coefficients|pH and precipitation are estimates|I = )/.test(n)) out.push(n);
   return out;
 }
 

@@ -164,6 +164,7 @@ export function solutionStage(amounts: BatchAmounts, headers: BatchHeaders, sett
     }
     amounts.counted.sort((x, y) => x.line.lineStart - y.line.lineStart);
   });
+  if (amounts.counted.length === 0) return { solution: null, noSolution: 'no ingredient is counted', diagnostics };
   const weighed = amounts.counted.reduce((s, c) => s + c.massG, 0);
   if (weighed >= V * 1000) {
     return { solution: null, noSolution: 'the ingredients weigh more than the water of the final volume: not a dilute aqueous solution', diagnostics };
@@ -174,11 +175,17 @@ export function solutionStage(amounts: BatchAmounts, headers: BatchHeaders, sett
   // finding but its own convergence: it is solved when something first reads it (a hover, a table, JSON).
   if (!headers.pH && solvable.length === 0 && !formsASolid(componentsOf(request.ingredients))) return { solution: () => batchSolution(request), diagnostics };
   const solution = batchSolution(request);
-  diagnostics.push(...findings(solution, headers, settings, openLine));
+  diagnostics.push(...findings(solution, headers, settings, openLine, amounts.skipped.length));
   return { solution, diagnostics };
 }
 
-function findings(s: BatchSolution, headers: BatchHeaders, settings: ChemSettings, openLine: { start: number; end: number }): ChemDiagnostic[] {
+function findings(
+  s: BatchSolution,
+  headers: BatchHeaders,
+  settings: ChemSettings,
+  openLine: { start: number; end: number },
+  notCounted: number,
+): ChemDiagnostic[] {
   const out: ChemDiagnostic[] = [];
   if (!s.converged) {
     out.push(
@@ -215,7 +222,7 @@ function findings(s: BatchSolution, headers: BatchHeaders, settings: ChemSetting
         'batch-ph',
         headers.pH.start,
         headers.pH.end,
-        `The computed pH is ${pHText(s.pH)}, ${Math.abs(d).toFixed(2)} ${d > 0 ? 'above' : 'below'} the ${pHText(headers.pH.value)} stated (tolerance ${tolerance}); an estimate: measure it.`,
+        `The computed pH is ${pHText(s.pH)}, ${Math.abs(d).toFixed(2)} ${d > 0 ? 'above' : 'below'} the ${pHText(headers.pH.value)} stated (tolerance ${tolerance})${notCounted ? `, with ${notCounted === 1 ? '1 line' : `${notCounted} lines`} of the batch not counted` : ''}; an estimate: measure it.`,
         'warning',
       ),
     );

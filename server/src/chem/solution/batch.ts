@@ -349,9 +349,6 @@ export function solveForPH(
   return { moles: Math.pow(10, root.x) * volumeL, pH: root.fx + targetPH };
 }
 
-/** pKa values (I = 0) of a system, by id. */
-const pKaOf = (id: string) => ACID_SYSTEMS.find((s) => s.id === id)?.pKa ?? [];
-
 /** The basis units of the system one formula unit of `reading` carries. */
 function systemUnits(reading: IngredientReading, id: string): number {
   const s = ACID_SYSTEMS.find((x) => x.id === id);
@@ -426,21 +423,34 @@ export function designBuffer(
   const g = (s: number) => c.pH(s) - targetPH;
   const root = brent(g, 0, 1, c.lo - targetPH, c.hi - targetPH, 1e-12, 80);
   const [na, nb] = c.amounts(root.x);
-  // Henderson–Hasselbalch's ratio from the nearest pKa (I = 0), for comparison.
-  const pKa = pKaOf(buffer.system);
-  const nearest = pKa.length ? pKa.reduce((m, p) => (Math.abs(p - targetPH) < Math.abs(m - targetPH) ? p : m)) : null;
-  // System units in the acid and the base form: a titrant converts as many units as its moles.
-  const acidUnits = c.acid.k === 0 ? na : c.base.k === 0 ? N - nb : na * c.acid.k;
-  const baseUnits = c.acid.k === 0 ? N - na : c.base.k === 0 ? nb : nb * c.base.k;
+  // The step that buffers: the pKa (I = 0) nearest the target. Its two forms' concentrations in the batch
+  // made up, against Henderson–Hasselbalch's ideal ratio 10^(pH − pKa), show what the activities do.
+  const sys = ACID_SYSTEMS.find((x) => x.id === buffer.system);
+  const pKa = sys?.pKa ?? [];
+  const step = pKa.length ? pKa.reduce((m, p, k) => (Math.abs(p - targetPH) < Math.abs(pKa[m] - targetPH) ? k : m), 0) : -1;
+  let ratio = NaN;
+  if (sys && step >= 0) {
+    const r = base.clone();
+    if (na > 0) r.add(c.acid.reading, na);
+    if (nb > 0) r.add(c.base.reading, nb);
+    const eq = solve(r, volumeL, T, activity);
+    const conc = (label: string) => {
+      const i = eq.system.species.findIndex((x) => x.label === label);
+      return i < 0 ? 0 : Math.pow(10, eq.logC[i]);
+    };
+    ratio = conc(sys.forms[step + 1].label) / conc(sys.forms[step].label);
+  }
+  const nearest = step >= 0 ? pKa[step] : null;
   return {
     system: buffer.names[0],
     totalM,
     pH: root.fx + targetPH,
     acid: { formula: c.acid.formula, moles: na },
     base: { formula: c.base.formula, moles: nb },
-    ratio: acidUnits > 0 ? baseUnits / acidUnits : Infinity,
+    ratio,
     idealRatio: nearest === null ? null : Math.pow(10, targetPH - nearest),
     pKa: nearest,
+    forms: sys && step >= 0 ? [sys.forms[step].label, sys.forms[step + 1].label] : null,
     weak: nearest !== null && Math.abs(targetPH - nearest) > 1,
   };
 }

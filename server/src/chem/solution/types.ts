@@ -84,11 +84,15 @@ export interface BufferDesign {
   pH: number;
   acid: { formula: string; moles: number };
   base: { formula: string; moles: number };
-  /** The base : acid ratio of the design (of the forms' system units), and Henderson–Hasselbalch's ideal one. */
+  /**
+   * The buffering step's base : acid concentration ratio in the batch as designed (its two species, `forms`),
+   * and Henderson–Hasselbalch's ideal ratio 10^(pH − pKa) for the same step.
+   */
   ratio: number;
   idealRatio: number | null;
-  /** The step's pKa (I = 0) the ideal ratio is taken from. */
+  /** The step's pKa (I = 0), the one nearest the target, and its acid and base species. */
   pKa: number | null;
+  forms: [string, string] | null;
   /** More than 1 pH unit from that pKa: little capacity. */
   weak: boolean;
 }
