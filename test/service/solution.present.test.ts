@@ -10,6 +10,7 @@ import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { speciesDistribution } from '../../server/src/chem/solution/distribution';
+import { readSettings } from '../../server/src/service/config';
 import { createLanguageService } from '../../server/src/service/languageService';
 import { ionwrightPreview } from '../../server/src/service/preview';
 import { reportHtml } from '../../server/src/service/report';
@@ -162,5 +163,24 @@ describe('the report charts', () => {
     const texts = all(svg, (e) => e.name === 'text').map((e) => e.text);
     expect(texts.some((t) => /^\+3\.\d\d over$/.test(t))).toBe(true);
     expect(texts.some((t) => /^−\d+\.\d\d under/.test(t))).toBe(true);
+  });
+});
+
+describe('the setting ionwright.batch.phTolerance', () => {
+  const note = '```batch\nvolume: 1 L\npH: 6.5\nKH2PO4 10 mM\nNa2HPO4 10 mM\n```\n';
+  const codes = (settings: ReturnType<typeof readSettings>) => {
+    const s = createLanguageService(settings.service);
+    return s.diagnostics(s.analyse(note, 'markdown')).map((d) => d.code);
+  };
+
+  it('is read and checked: 0.3 unless given, a value outside 0.01–3 falls back to it', () => {
+    expect(readSettings(undefined).service.chem.phTolerance).toBe(0.3);
+    expect(readSettings({ batch: { phTolerance: 1 } }).service.chem.phTolerance).toBe(1);
+    expect(readSettings({ batch: { phTolerance: 9 } }).service.chem.phTolerance).toBe(0.3);
+  });
+
+  it('decides the batch-ph warning: the 1:1 phosphate at about pH 6.9 is 0.4 above a stated 6.5', () => {
+    expect(codes(readSettings(undefined))).toEqual(['batch-ph']);
+    expect(codes(readSettings({ batch: { phTolerance: 1 } }))).toEqual([]);
   });
 });

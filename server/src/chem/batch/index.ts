@@ -100,7 +100,8 @@ function assemble(
     const { line } = c;
     const d = mix.dissociations[k];
     const solubility = checks.solubility[k];
-    return {
+    // One object shape, the optional fields assigned after: no object spreads in this loop (a hot one).
+    const out: Ingredient = {
       formulaText: line.formula.text,
       formula: line.analysis.display,
       analysis: line.analysis,
@@ -117,12 +118,13 @@ function assemble(
       massFraction: c.massFraction,
       fractionOfTotal: c.fractionOfTotal,
       ions: d.ions,
-      ...(d.undissociated ? { undissociated: d.undissociated } : {}),
       cautions: checks.cautions[k],
-      ...(solubility ? { solubility } : {}),
-      ...(c.solvedFor ? { solvedFor: c.solvedFor } : {}),
-      ...(c.buffer ? { buffer: c.buffer } : {}),
     };
+    if (d.undissociated) out.undissociated = d.undissociated;
+    if (solubility) out.solubility = solubility;
+    if (c.solvedFor) out.solvedFor = c.solvedFor;
+    if (c.buffer) out.buffer = c.buffer;
+    return out;
   });
   const notes = [solution.solution ? NOMINAL_NOTE : MODEL_NOTE];
   if (headers.volumeL === null && ingredients.length) notes.push('No final volume given: concentrations, ionic strength and pH are not computed.');

@@ -357,9 +357,9 @@ function warmUp(sys: TableauSystem, T: Float64Array, X: Float64Array, w: Work, u
     species(sys, X, w);
     sum.fill(0, 0, nc);
     for (let i = 0; i < ns; i++) for (let k = rowPtr[i], e = rowPtr[i + 1]; k < e; k++) if (val[k] > 0) sum[col[k]] += val[k] * w.c[i];
+    // The proton step from the same concentrations as the others' (one evaluation a round).
     for (let j = 1; j < nc; j++) if (T[j] > 0 && sum[j] > 0) X[j] += Math.log10(T[j] / sum[j]);
     if (u0 === 1) continue;
-    species(sys, X, w);
     let r = -T[0];
     let d = 0;
     for (let i = 0; i < ns; i++) {
@@ -406,8 +406,11 @@ function iterate(sys: TableauSystem, T: Float64Array, X: Float64Array, p: Float6
   // each other: the coefficients are then held until the mass balances are within 1 %.
   let hold = false;
   let holds = 0;
+  // Whether w holds the species of X at the present coefficients (the line search's last try was taken).
+  let fresh = false;
   for (let it = 0; it < o.maxIterations; it++) {
-    species(sys, X, w);
+    if (!fresh) species(sys, X, w);
+    fresh = false;
     let moved = false;
     if (hold && previous < 1e-2) hold = false;
     if (o.davies && !o.heldGamma && !hold) {
@@ -443,21 +446,6 @@ function iterate(sys: TableauSystem, T: Float64Array, X: Float64Array, p: Float6
       for (let j = 0; j < nc; j++) if (s.b[j] !== 0) v += s.b[j] * (X[j] + w.lg[j]);
       q = Math.max(q, Math.abs(v));
     }
-    if ((globalThis as { DEBUG?: boolean }).DEBUG)
-      console.log(
-        'it',
-        it,
-        active,
-        residual.toExponential(2),
-        q.toExponential(2),
-        moved,
-        Array.from(X)
-          .map((x) => x.toFixed(3))
-          .join(' '),
-        Array.from(p)
-          .map((x) => x.toExponential(3))
-          .join(' '),
-      );
     // Converged: the tolerance met, or rounding reached below the acceptance level (no more progress).
     if (q < 1e-11 && !moved && (residual < o.tol || (residual < ACCEPT && residual >= 0.5 * previous)))
       return { converged: true, iterations: it, residual, singular: false };
@@ -489,7 +477,10 @@ function iterate(sys: TableauSystem, T: Float64Array, X: Float64Array, p: Float6
         for (let j = 0; j < nc; j++) w.X2[j] = X[j];
         for (let a = 0; a < nu; a++) w.X2[a + o.u0] += alpha * w.dX[a];
         const g = objective(sys, T, w.X2, w, o.u0);
-        if (g <= g0 + 1e-4 * alpha * slope || !(slope < 0)) break;
+        if (g <= g0 + 1e-4 * alpha * slope || !(slope < 0)) {
+          fresh = true;
+          break;
+        }
         alpha *= 0.5;
       }
       for (let a = 0; a < nu; a++) X[a + o.u0] += alpha * w.dX[a];
@@ -507,7 +498,10 @@ function iterate(sys: TableauSystem, T: Float64Array, X: Float64Array, p: Float6
         for (let j = 0; j < nc; j++) w.X2[j] = X[j];
         for (let a = 0; a < nu; a++) w.X2[a + o.u0] += alpha * w.dX[a];
         const g = objective(sys, T, w.X2, w, o.u0);
-        if (g <= g0 + 1e-4 * alpha * slope || !(slope < 0)) break;
+        if (g <= g0 + 1e-4 * alpha * slope || !(slope < 0)) {
+          fresh = true;
+          break;
+        }
         alpha *= 0.5;
       }
       for (let a = 0; a < nu; a++) X[a + o.u0] += alpha * w.dX[a];

@@ -62,59 +62,65 @@ export interface ComponentSpec {
 
 const cache = new BoundedCache<TableauSystem>(2000, 24 * 1024 * 1024);
 
-/** A species or solid of the model flattened for compiling: its components as arrays, its 25 °C log K. */
+/** A species or solid of the model flattened for compiling: its components as arrays and as bits, its 25 °C log K. */
 interface Flat {
   species: ModelSpecies;
   keys: string[];
   coefs: number[];
+  lo: number;
+  hi: number;
   logK25: number;
   /** The system's entry for it (shared by every system it is in: read-only). */
   entry: SystemSpecies;
-  order: number;
 }
 interface FlatSolid {
   solid: ModelSolid;
   keys: string[];
   coefs: number[];
+  lo: number;
+  hi: number;
   logK25: number;
 }
 
-/** Indexed by each component they contain besides H⁺ (OH⁻, of H⁺ alone, under H⁺). */
-function indexBy<F extends { keys: string[] }>(list: F[]): Map<string, F[]> {
-  const out = new Map<string, F[]>();
-  for (const f of list) {
-    const keys = f.keys.filter((c) => c !== PROTON.label);
-    for (const c of keys.length ? keys : [PROTON.label]) {
-      const at = out.get(c);
-      if (at) at.push(f);
-      else out.set(c, [f]);
-    }
+/** One bit per component the tables know (H⁺ none: every system has it), 30 to a word. */
+const BIT = new Map<string, number>();
+for (const c of COMPONENTS.keys()) if (c !== PROTON.label) BIT.set(c, BIT.size);
+if (BIT.size > 60) throw new Error('solution tables: more components than the bit sets hold');
+function bits(keys: readonly string[]): { lo: number; hi: number } {
+  let lo = 0;
+  let hi = 0;
+  for (const k of keys) {
+    const b = BIT.get(k);
+    if (b === undefined) continue;
+    if (b < 30) lo |= 1 << b;
+    else hi |= 1 << (b - 30);
   }
-  return out;
+  return { lo, hi };
 }
 
-const BY_COMPONENT = indexBy(
-  FORMED_SPECIES.map((s, order) => ({
+const FLATS: Flat[] = FORMED_SPECIES.map((s) => {
+  const keys = [...s.stoich.keys()];
+  return {
     species: s,
-    keys: [...s.stoich.keys()],
+    keys,
     coefs: [...s.stoich.values()],
+    ...bits(keys),
     logK25: logKAt(s.k, 298.15),
     entry: { label: s.label, display: labelDisplay(s.label), charge: s.charge, kind: s.kind, model: s },
-    order,
-  })),
-);
-const SOLIDS_BY_COMPONENT = indexBy(
-  MODEL_SOLIDS.map((m) => ({ solid: m, keys: [...m.stoich.keys()], coefs: [...m.stoich.values()], logK25: logKAt(m.k, 298.15) })),
-);
-const SOLID_ORDER = new Map<ModelSolid, number>(MODEL_SOLIDS.map((m, k) => [m, k]));
+  };
+});
+const FLAT_SOLIDS: FlatSolid[] = MODEL_SOLIDS.map((m) => {
+  const keys = [...m.stoich.keys()];
+  return { solid: m, keys, coefs: [...m.stoich.values()], ...bits(keys), logK25: logKAt(m.k, 298.15) };
+});
 const COMPONENT_ENTRY = new Map<string, SystemSpecies>(
   [...COMPONENTS.values()].map((c) => [c.label, { label: c.label, display: labelDisplay(c.label), charge: c.charge, kind: 'component' }]),
 );
 
 /** Whether any solid of the table dissolves into these components only (without compiling the system). */
 export function formsASolid(labels: ReadonlySet<string>): boolean {
-  for (const c of labels) for (const f of SOLIDS_BY_COMPONENT.get(c) ?? []) if (f.keys.every((k) => k === PROTON.label || labels.has(k))) return true;
-  return false;
+  const { lo, hi } = bits([...labels]);
+  return FLAT_SOLIDS.some((f) => (f.lo & ~lo) === 0 && (f.hi & ~hi) === 0);
 }
 
 /** Forget the compiled systems (benchmarks of a cold start). */
@@ -140,16 +146,17 @@ function compile(key: string, comps: ComponentSpec[], T: number): TableauSystem 
   const species: SystemSpecies[] = comps.map(
     (c) => COMPONENT_ENTRY.get(c.label) ?? { label: c.label, display: labelDisplay(c.label), charge: c.charge, kind: 'inert' },
   );
-  // The species formed of these components only: those of each component, checked once each.
+  // The species formed of these components only: a species's components as bits, a subset test each.
+  let lo = 0;
+  let hi = 0;
+  for (const c of comps) {
+    const bit = BIT.get(c.label);
+    if (bit === undefined) continue;
+    if (bit < 30) lo |= 1 << bit;
+    else hi |= 1 << (bit - 30);
+  }
   const formed: Flat[] = [];
-  const seen = new Set<Flat>();
-  for (const c of comps)
-    for (const f of BY_COMPONENT.get(c.label) ?? []) {
-      if (seen.has(f)) continue;
-      seen.add(f);
-      if (f.keys.every((k) => index.has(k))) formed.push(f);
-    }
-  formed.sort((a, b) => a.order - b.order);
+  for (const f of FLATS) if ((f.lo & ~lo) === 0 && (f.hi & ~hi) === 0) formed.push(f);
   for (const f of formed) species.push(f.entry);
   const ns = species.length;
   const A = new Float64Array(ns * nc);
@@ -172,18 +179,13 @@ function compile(key: string, comps: ComponentSpec[], T: number): TableauSystem 
     if (off25 && f.species.k.partial) at25.push(f.species.label);
   });
   const solids: SystemSolid[] = [];
-  const seenSolid = new Set<FlatSolid>();
-  for (const c of comps)
-    for (const f of SOLIDS_BY_COMPONENT.get(c.label) ?? []) {
-      if (seenSolid.has(f)) continue;
-      seenSolid.add(f);
-      if (!f.keys.every((k) => index.has(k))) continue;
-      const b = new Float64Array(nc);
-      for (let t = 0; t < f.keys.length; t++) b[index.get(f.keys[t]) as number] = f.coefs[t];
-      solids.push({ model: f.solid, b, logK: off25 ? logKAt(f.solid.k, T) : f.logK25 });
-      if (off25 && f.solid.k.partial) at25.push(f.solid.row.formula);
-    }
-  solids.sort((a, b) => (SOLID_ORDER.get(a.model) as number) - (SOLID_ORDER.get(b.model) as number));
+  for (const f of FLAT_SOLIDS) {
+    if ((f.lo & ~lo) !== 0 || (f.hi & ~hi) !== 0) continue;
+    const b = new Float64Array(nc);
+    for (let t = 0; t < f.keys.length; t++) b[index.get(f.keys[t]) as number] = f.coefs[t];
+    solids.push({ model: f.solid, b, logK: off25 ? logKAt(f.solid.k, T) : f.logK25 });
+    if (off25 && f.solid.k.partial) at25.push(f.solid.row.formula);
+  }
   const zShift = new Float64Array(ns);
   for (let i = 0; i < ns; i++) {
     let v = -z2[i];
