@@ -127,7 +127,7 @@ describe('the report charts', () => {
   const $ = load(html);
 
   it('one species chart per batch with an equilibrium and one saturation chart per batch with solids, self-contained', () => {
-    const svgs = $('figure.iw-chart svg.iw-eqchart');
+    const svgs = $('figure.iw-eqfigure svg.iw-eqchart');
     // Saline phosphate has no solid of the table (sodium, potassium and phosphate form none); the scale trial has two.
     expect(svgs.length).toBe(2 + 1);
     expect(html).not.toMatch(/<script|url\(/i);

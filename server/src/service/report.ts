@@ -45,9 +45,9 @@ h2 { font-size: 1.2em; margin: 1.8em 0 0.5em; padding-bottom: 0.2em; border-bott
 .iw-counts li { border: 1px solid var(--iw-border); border-radius: 3px; padding: 0.25em 0.7em; background: var(--iw-surface); }
 .iw-counts strong { font-size: 1.15em; }
 .iw-caveat { border-left: 4px solid var(--iw-warning); padding: 0.4em 0.8em; background: var(--iw-surface); margin: 1em 0; }
-figure.iw-chart { margin: 0.5em 0; color: var(--iw-fg); }
-figure.iw-chart svg { max-width: 100%; height: auto; }
-figure.iw-chart figcaption { color: var(--iw-muted); font-size: 0.9em; }
+figure.iw-chart, figure.iw-eqfigure { margin: 0.5em 0; color: var(--iw-fg); }
+figure.iw-chart svg, figure.iw-eqfigure svg { max-width: 100%; height: auto; }
+figure.iw-chart figcaption, figure.iw-eqfigure figcaption { color: var(--iw-muted); font-size: 0.9em; }
 table.iw-findings-table td:first-child { white-space: nowrap; font-variant-numeric: tabular-nums; }
 .iw-rendered { border: 1px solid var(--iw-border); border-radius: 3px; padding: 0 1em; }
 footer { margin-top: 2.5em; color: var(--iw-muted); font-size: 0.88em; }
@@ -63,7 +63,7 @@ section.iw-bench h2:first-child { margin-top: 1.2em; }
   .iw-caveat { border-left: 2px solid #000; background: none; }
   h2 { break-after: avoid; }
   #findings { break-before: page; }
-  figure.iw-chart { break-inside: avoid; }
+  figure.iw-chart, figure.iw-eqfigure { break-inside: avoid; }
   footer { color: #000; }
 }
 `;
@@ -116,11 +116,11 @@ function equilibriumCharts(b: BatchOccurrence, k: number): Html[] {
   const out: Html[] = [];
   // The svgs are built by speciesChart.ts, which escapes its own text.
   out.push(
-    html`<figure class="iw-chart">${trusted(speciesChart(d, { id: `iw-species-${k}`, title: `${name}: species over pH` }))}<figcaption>Share of each component's total in each species between pH 0 and 14, the batch's totals and activity coefficients held (an estimate of the model; the dashed line is the batch's own pH).</figcaption></figure>`,
+    html`<figure class="iw-eqfigure">${trusted(speciesChart(d, { id: `iw-species-${k}`, title: `${name}: species over pH` }))}<figcaption>Share of each component's total in each species between pH 0 and 14, the batch's totals and activity coefficients held (an estimate of the model; the dashed line is the batch's own pH).</figcaption></figure>`,
   );
   if (s.saturation.length)
     out.push(
-      html`<figure class="iw-chart">${trusted(saturationChart(s.saturation, { id: `iw-saturation-${k}`, title: `${name}: saturation indices` }))}<figcaption>log10(IAP/Ksp) of each solid the batch's components can form, as made up; above zero it would come out at equilibrium.</figcaption></figure>`,
+      html`<figure class="iw-eqfigure">${trusted(saturationChart(s.saturation, { id: `iw-saturation-${k}`, title: `${name}: saturation indices` }))}<figcaption>log10(IAP/Ksp) of each solid the batch's components can form, as made up; above zero it would come out at equilibrium.</figcaption></figure>`,
     );
   return out;
 }

@@ -10,7 +10,6 @@
 import type { FormulaAnalysis } from '../analyse';
 import { analyseFormula } from '../analyse';
 import { BoundedCache } from '../cache';
-import { T25 } from './activity';
 import { pairFormulas, type BufferSystem } from './buffers';
 import { labelDisplay } from './labels';
 import { readIngredient, type IngredientReading } from './reading';
@@ -75,9 +74,9 @@ function molarMassOf(formula: string): number {
 }
 
 /** The equilibrium of a recipe, as made up. */
-function solve(recipe: Recipe, volumeL: number, T: number, activity: 'davies' | 'ideal', precipitate = false, start?: Float64Array): Equilibrium {
+function solve(recipe: Recipe, volumeL: number, T: number, activity: 'davies' | 'ideal'): Equilibrium {
   const { system, totals } = recipe.tableau(volumeL, T);
-  return solveEquilibrium(system, totals, { activity, precipitate, ...(start && start.length === system.nc ? { start } : {}) });
+  return solveEquilibrium(system, totals, { activity });
 }
 
 /** Results by the recipe's content: the same batch elsewhere in the notes, or typed again, is not solved again. */
@@ -455,4 +454,4 @@ export function designBuffer(
   };
 }
 
-export { T25, labelDisplay };
+export { labelDisplay };
