@@ -23,6 +23,9 @@ import { clearProseCache } from '../server/src/notes/prose';
 import { documentDiagnostics } from '../server/src/service/diagnostics';
 import { analyseDocument, updateDocument } from '../server/src/service/document';
 import { DEFAULT_SETTINGS, type ServiceSettings } from '../server/src/service/settings';
+import { setSolutionStage } from '../server/src/chem/batch/solution';
+import { batchSolution, clearSolutionCache } from '../server/src/chem/solution/batch';
+import { clearSystemCache } from '../server/src/chem/solution/system';
 import { generateNotes, rng } from './generate';
 import { pause, startSession } from './lsp-session';
 import { REAL, MISWRITTEN } from '../test/fixtures/charge-sets';
@@ -57,6 +60,9 @@ function coldSettings(): ServiceSettings {
   clearProseCache();
   // The preview's caches are kept per settings content, so a new settings object alone finds them warm.
   clearPreviewCache();
+  // The equilibrium's caches: compiled tableaux by component set, solutions by composition.
+  clearSystemCache();
+  clearSolutionCache();
   return { ...DEFAULT_SETTINGS, chem: { ...DEFAULT_SETTINGS.chem } };
 }
 
@@ -132,6 +138,84 @@ for (const size of quick ? [100_000, 1_000_000, 2_600_000] : [100_000, 1_000_000
     met: safety / check <= 0.05,
   });
   figures.safety = { batches: inputs.length, safetyMs: safety, checkMs: check, perBatchUs: (safety * 1000) / inputs.length, ratio: safety / check };
+}
+
+// ── 1c. the equilibrium: one batch's speciation, and what the stage adds to `check` ──
+{
+  // A 10-component batch (H⁺, Ni²⁺, Zn²⁺, Na⁺, K⁺, SO₄²⁻, Cl⁻, B(OH)₄⁻, citrate, NH₃) of an invented plating line.
+  const lines = [
+    'volume: 1 L',
+    'NiSO4·6H2O 180 g',
+    'NiCl2·6H2O 30 g',
+    'ZnSO4·7H2O 2 g',
+    'H3BO3 30 g',
+    'Na3C6H5O7·2H2O 20 g',
+    'NH4Cl 10 g',
+    'KCl 5 g',
+    'NaOH 2 g',
+  ];
+  let at = 0;
+  const block = lines.map((text) => ({ text, start: (at += text.length + 1) - text.length - 1 }));
+  const b = analyseBatch(block);
+  const ingredients = b.ingredients.map((i) => ({ analysis: i.analysis, moles: i.moles as number }));
+  const components = b.solution!.equilibrium.system.nc;
+  const solveOnce = () => {
+    clearSolutionCache();
+    batchSolution({ volumeL: 1, temperatureC: 25, ingredients });
+  };
+  const reps = quick ? 200 : 1000;
+  const times: number[] = [];
+  for (let i = 0; i < 50; i++) solveOnce();
+  for (let i = 0; i < reps; i++) {
+    const t0 = now();
+    solveOnce();
+    times.push(now() - t0);
+  }
+  setSolutionStage(false);
+  const nominal = timeIt(() => analyseBatch(block), quick ? 200 : 1000, 50);
+  setSolutionStage(true);
+  const speciation = median(times);
+  rows.push({
+    case: `speciation of a ${components}-component batch (median)`,
+    ours: ms(speciation),
+    baseline: `its nominal arithmetic ${ms(nominal)}`,
+    ratio: speciation / nominal,
+    target: '≤ 1 ms',
+    met: speciation <= 1,
+  });
+  // `check` of the bench notebook with and without the equilibrium, each against markdown-it in the same run.
+  const text = generateNotes(2_600_000);
+  const reps2 = quick ? 5 : 9;
+  const base = timeIt(() => md.parse(text, {}), reps2);
+  const withStage = timeIt(() => documentDiagnostics(analyseDocument(text, 'markdown', coldSettings())), reps2);
+  setSolutionStage(false);
+  const without = timeIt(() => documentDiagnostics(analyseDocument(text, 'markdown', coldSettings())), reps2);
+  setSolutionStage(true);
+  rows.push({
+    case: 'check, 2.6 MB (cold), without the equilibrium',
+    ours: ms(without),
+    baseline: `markdown-it parse ${ms(base)}`,
+    ratio: without / base,
+    target: '(before)',
+    met: true,
+  });
+  rows.push({
+    case: 'check, 2.6 MB (cold), with the equilibrium',
+    ours: ms(withStage),
+    baseline: `markdown-it parse ${ms(base)}`,
+    ratio: withStage / base,
+    target: `≤ ${(without / base).toFixed(2)}× (before)`,
+    met: withStage / base <= (without / base) * 1.02,
+  });
+  figures.solution = {
+    components,
+    speciationMedianMs: speciation,
+    speciationP90Ms: pct(times, 90),
+    nominalMs: nominal,
+    checkWithMs: withStage,
+    checkWithoutMs: without,
+    markdownItMs: base,
+  };
 }
 
 // ── 2. formula parse + molar mass vs mf-parser ───────────────────────────

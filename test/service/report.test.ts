@@ -44,7 +44,7 @@ describe('the HTML report', () => {
   it('charts one point per salt with a lattice energy, labelled with its formula', () => {
     const points = latticePoints([...new Map(doc.formulas.map((f) => [f.analysis.ascii, f.analysis])).values()].filter((a) => a.ok));
     expect(points.length).toBeGreaterThanOrEqual(3);
-    const svg = $('figure.iw-chart svg').first();
+    const svg = $('figure.iw-chart svg.iw-lattice').first();
     expect(svg.length).toBe(1);
     const text = svg.text();
     for (const p of points.filter((p) => p.inverseR0 !== null)) expect(text).toContain(p.label);

@@ -88,8 +88,10 @@ describe('hover', () => {
   it('on a batch header: the whole batch summary', () => {
     const md = hoverAt('```ba|tch\nname: Rinse\nvolume: 1 L\nNaCl 5.844 g\nKCl 0.7455 g\n```\n')!;
     expect(md).toMatch(/^\*\*Rinse\*\* · 2 ingredients/);
-    expect(md).toContain('Ionic strength');
-    expect(md).toContain('weak acids and bases are treated as undissociated');
+    // The pH first (neutral salts of strong acids and bases in water: pH 7.00 at 25 °C, pKw 13.995 — CRC Handbook "Ion product of water").
+    expect(md.split('\n')[2]).toMatch(/^\*\*pH 7\.00 \(equilibrium estimate\)\*\*/);
+    expect(md).toContain('Nominal ionic strength');
+    expect(md).toContain('The ions and ionic strength above are nominal');
   });
 
   it('on an equation: balanced or not, and the balanced form', () => {

@@ -97,8 +97,32 @@ const CATALOGUE = {
   'batch-precipitation': {
     severity: 'warning',
     raisedBy: ['chem/solution'],
-    reserved: true,
     description: 'A sparingly soluble solid oversaturated in the batch at equilibrium.',
+  },
+  'batch-ph': {
+    severity: 'warning',
+    raisedBy: ['chem/solution'],
+    description: "A batch whose computed pH differs from its 'pH:' header by more than the setting (or that has no final volume to compute it).",
+  },
+  'batch-ph-target': {
+    severity: 'error',
+    raisedBy: ['chem/solution'],
+    description: "A 'to pH' line whose ingredient cannot bring the batch to that pH (not an acid or base, the wrong one, or not enough of it).",
+  },
+  'batch-buffer': {
+    severity: 'error',
+    raisedBy: ['chem/batch', 'chem/solution'],
+    description: 'A buffer line that cannot be read or made: an unknown system, a missing total or pH, a pH the system cannot reach.',
+  },
+  'batch-buffer-range': {
+    severity: 'warning',
+    raisedBy: ['chem/solution'],
+    description: "A buffer made more than one pH unit from its system's pKa, where it has little capacity.",
+  },
+  'batch-equilibrium': {
+    severity: 'warning',
+    raisedBy: ['chem/solution'],
+    description: 'A batch whose equilibrium the solver did not converge on: no pH or species are given.',
   },
   'batch-incompatible': {
     severity: 'warning',

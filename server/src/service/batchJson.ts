@@ -1,9 +1,39 @@
 /** The contract's JSON for a batch block (`ionwright batch --json`). */
+import type { BatchSolution } from '../chem/batch';
 import { round } from './card';
 import { toLsp } from './diagnostics';
 import type { AnalysedDocument, BatchOccurrence } from './document';
 
 const r = (x: number | null, p = 9) => (x === null ? null : round(x, p));
+/** Concentrations span many decades: significant figures, not decimals. */
+const sigs = (x: number) => (x === 0 || !Number.isFinite(x) ? x : Number(x.toPrecision(6)));
+
+/** The contract's `solution`: the equilibrium of the made-up batch (null without one). */
+export function solutionJson(s: BatchSolution | null) {
+  if (!s) return null;
+  return {
+    temperatureC: s.temperatureC,
+    pH: s.converged ? round(s.pH, 4) : null,
+    ionicStrengthM: s.converged ? sigs(s.ionicStrengthM) : null,
+    activityModel: s.activityModel,
+    converged: s.converged,
+    iterations: s.iterations,
+    species: s.converged
+      ? s.species.map((x) => ({ formula: x.label, display: x.display, charge: x.charge, concentrationM: sigs(x.concentrationM), activity: sigs(x.activity) }))
+      : [],
+    saturation: s.converged
+      ? s.saturation.map((x) => ({ solid: x.solid, name: x.name, saturationIndex: round(x.saturationIndex, 3), logKsp: x.logKsp, source: x.source }))
+      : [],
+    /** dC(base)/dpH, mol/(L·pH). */
+    bufferCapacity: s.bufferCapacity === null ? null : sigs(s.bufferCapacity),
+    /** What would come out at equilibrium, and the pH then. */
+    precipitates: s.precipitates.map((p) => ({ solid: p.solid, name: p.name, molPerL: sigs(p.molPerL), massG: sigs(p.massG) })),
+    afterPrecipitation: s.afterPrecipitation ? { pH: round(s.afterPrecipitation.pH, 4), ionicStrengthM: sigs(s.afterPrecipitation.ionicStrengthM) } : null,
+    outOfRange: s.outOfRange,
+    ingredients: s.ingredients.map((i) => ({ formula: i.formula, as: i.as, ...(i.leftOut ? { leftOut: i.leftOut } : {}) })),
+    notes: s.notes,
+  };
+}
 
 export function batchJson(doc: AnalysedDocument, b: BatchOccurrence) {
   const a = b.analysis;
@@ -32,6 +62,22 @@ export function batchJson(doc: AnalysedDocument, b: BatchOccurrence) {
       ions: i.ions.map((x) => ({ ion: x.key, count: x.count, charge: x.charge })),
       ...(i.undissociated ? { undissociated: i.undissociated } : {}),
       cautions: i.cautions.map((c) => c.text),
+      ...(i.solvedFor ? { solvedFor: { pH: i.solvedFor.targetPH, reached: round(i.solvedFor.pH, 4) } } : {}),
+      ...(i.buffer
+        ? {
+            buffer: {
+              system: i.buffer.design.system,
+              role: i.buffer.role,
+              totalM: i.buffer.design.totalM,
+              pH: i.buffer.design.pH === undefined ? null : round(i.buffer.design.pH, 4),
+              // The buffering step's base : acid concentration ratio as designed, and Henderson–Hasselbalch's for it.
+              forms: i.buffer.design.forms,
+              pKa: i.buffer.design.pKa,
+              ratio: Number.isFinite(i.buffer.design.ratio) ? round(i.buffer.design.ratio, 6) : null,
+              idealRatio: i.buffer.design.idealRatio === null ? null : round(i.buffer.design.idealRatio, 6),
+            },
+          }
+        : {}),
       ...(i.solubility
         ? {
             solubility: {
@@ -59,6 +105,9 @@ export function batchJson(doc: AnalysedDocument, b: BatchOccurrence) {
     /** Estimated water in the batch, g: final volume × 1 g/mL less the dissolved mass (null without a volume). */
     waterEstimateG: r(a.waterG, 6),
     netChargeEqPerL: r(a.netChargeEqPerL),
+    temperatureC: a.temperatureC,
+    statedPH: a.statedPH,
+    solution: solutionJson(a.solution),
     notes: a.notes,
     cautions: a.cautions.map((c) => c.text),
     diagnostics: a.diagnostics.map((d) => toLsp(doc.lines, d)),

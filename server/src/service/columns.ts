@@ -7,13 +7,14 @@
  * Tables: formulas, a batch's ingredients (every line, counted or not), a batch's ions, findings.
  */
 import type { FormulaAnalysis } from '../chem/analyse';
-import type { BatchAnalysis, BatchIon, Ingredient, SkippedLine } from '../chem/batch';
+import type { BatchAnalysis, BatchIon, Ingredient, SkippedLine, SolidSaturation, SolutionSpecies } from '../chem/batch';
 import { cautionsFor } from '../chem/cautions';
 import type { LspDiagnostic } from './diagnostics';
 import { chargeNumber, DASH, energy, molarMassText, oxidationText, percent, shortMethod, sig } from './format';
 import { formulaText } from './format';
 import { html, type Html, type HtmlValue, join, toHtml } from './html';
 import type { ServiceSettings } from './settings';
+import { saturationWord, siText } from './solution';
 import { formulaSpan, typesetDisplay } from './typeset';
 
 export type Align = 'left' | 'right';
@@ -208,6 +209,35 @@ export const ION_COLUMNS: Columns<BatchIon> = [
   { key: 'ion', head: 'Ion', align: 'left', text: (x) => x.ion, html: (x) => typesetDisplay(x.ion) },
   { key: 'charge', head: 'Charge', align: 'right', text: (x) => chargeNumber(x.charge) },
   { key: 'concentration', head: 'Concentration (M)', align: 'right', text: (x) => sig(x.concentrationM) },
+];
+
+// ── the equilibrium ───────────────────────────────────────────────────────
+
+/** The species of a batch's equilibrium: each species, its charge, its concentration and its activity. */
+export const SPECIES_COLUMNS: Columns<SolutionSpecies> = [
+  { key: 'species', head: 'Species', align: 'left', text: (x) => x.display, html: (x) => typesetDisplay(x.display) },
+  { key: 'charge', head: 'Charge', align: 'right', text: (x) => chargeNumber(x.charge) },
+  { key: 'concentration', head: 'Concentration (M)', align: 'right', text: (x) => sig(x.concentrationM, 3) },
+  { key: 'activity', head: 'Activity', align: 'right', text: (x) => sig(x.activity, 3) },
+];
+
+/** The solids a batch can form: the solid, its saturation index log(IAP/Ksp), what that means. */
+export const SATURATION_COLUMNS: Columns<SolidSaturation> = [
+  {
+    key: 'solid',
+    head: 'Solid',
+    align: 'left',
+    text: (x) => `${x.display} (${x.name})`,
+    html: (x) => html`${typesetDisplay(x.display)} <span class="iw-by">${x.name}</span>`,
+  },
+  { key: 'si', head: 'Saturation index', short: 'SI', align: 'right', text: (x) => siText(x.saturationIndex) },
+  {
+    key: 'state',
+    head: 'State',
+    align: 'left',
+    text: (x) => saturationWord(x.saturationIndex),
+    html: (x) => (x.saturationIndex > 0 ? html`<span class="iw-warning">${saturationWord(x.saturationIndex)}</span>` : saturationWord(x.saturationIndex)),
+  },
 ];
 
 // ── findings ──────────────────────────────────────────────────────────────

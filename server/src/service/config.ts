@@ -32,6 +32,7 @@ export function readSettings(raw: unknown): ServerSettings {
   const lattice = (r.lattice && typeof r.lattice === 'object' ? r.lattice : {}) as Record<string, unknown>;
   const validation = (r.validation && typeof r.validation === 'object' ? r.validation : {}) as Record<string, unknown>;
   const hints = (r.inlayHints && typeof r.inlayHints === 'object' ? r.inlayHints : {}) as Record<string, unknown>;
+  const batch = (r.batch && typeof r.batch === 'object' ? r.batch : {}) as Record<string, unknown>;
   const d = DEFAULT_SETTINGS;
   let nonpolarBelow = num(bond.nonpolarBelow, 0, 4, d.chem.nonpolarBelow);
   let ionicAbove = num(bond.ionicAbove, 0, 4, d.chem.ionicAbove);
@@ -43,8 +44,13 @@ export function readSettings(raw: unknown): ServerSettings {
     nonpolarBelow,
     ionicAbove,
     latticePreference: oneOf(lattice.method, ['best', 'kapustinskii', 'born-lande', 'born-mayer', 'born-haber'] as const, d.chem.latticePreference),
+    phTolerance: num(batch.phTolerance, 0.01, 3, d.chem.phTolerance as number),
   };
-  const sameChem = chem.nonpolarBelow === d.chem.nonpolarBelow && chem.ionicAbove === d.chem.ionicAbove && chem.latticePreference === d.chem.latticePreference;
+  const sameChem =
+    chem.nonpolarBelow === d.chem.nonpolarBelow &&
+    chem.ionicAbove === d.chem.ionicAbove &&
+    chem.latticePreference === d.chem.latticePreference &&
+    chem.phTolerance === d.chem.phTolerance;
   const service: ServiceSettings = {
     prose: oneOf(r.proseDetection, ['off', 'conservative', 'eager'] as const, d.prose),
     decimals: Math.round(num(r.decimalPlaces, 0, 6, d.decimals)),

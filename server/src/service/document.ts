@@ -98,7 +98,7 @@ function analyseItems(items: readonly NoteItem[], language: NotesLanguage, setti
       reactions.push({ ref: item, analysis });
       for (const d of analysis.diagnostics) diagnostics.push(shiftDiagnostic(d, item.start));
     } else {
-      const analysis = analyseBatch(item.lines, item.openName?.text ?? null, settings.chem);
+      const analysis = analyseBatch(item.lines, item.openName?.text ?? null, settings.chem, item.open);
       batches.push({ ref: item, analysis });
       diagnostics.push(...analysis.diagnostics);
       if (!item.closed) {

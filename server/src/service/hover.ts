@@ -14,6 +14,7 @@ import { chargeWords, energy, formulaText, massText, molarMassText, oxidationTex
 import { targetAt } from './lookup';
 import type { Range } from './positions';
 import type { ServiceSettings } from './settings';
+import { capacityText, concText, limitsLine, majorSpecies, nearSaturation, pHLine, precipitateText, siText, solvedText } from './solution';
 import { amountText, batchWarnings, codeSpan, countsText, escapeMarkdown, fractionText, notCountedText, weighedMass } from './tables';
 
 export interface HoverResult {
@@ -161,7 +162,26 @@ export function perLitre(i: Ingredient, volumeL: number | null): { salt: number;
   return { salt: (i.moles * i.molarMass) / volumeL, metals };
 }
 
+/** A buffer line's hover: both forms to weigh, then the design. */
+function bufferMarkdown(i: Ingredient, b: BatchAnalysis, s: ServiceSettings): string {
+  const design = (i.buffer as NonNullable<Ingredient['buffer']>).design;
+  const forms = b.ingredients.filter((x) => x.buffer?.design === design);
+  const lines = [`**${esc(design.system)} buffer** · ${sig(design.totalM, 3)} M to pH ${design.pH.toFixed(2)}`, ''];
+  for (const f of forms)
+    lines.push(
+      `${f.buffer?.role === 'acid' ? 'Acid form' : 'Base form'} **${esc(f.formula)}**: weigh **${massText(f.massG)}** · ${sig(f.moles)} mol · ${molarMassText(f.molarMass, s)} g/mol`,
+      '',
+    );
+  const solved = solvedText(i);
+  if (solved) lines.push(esc(solved), '');
+  if (b.solution) lines.push(`_${esc(limitsLine(b.solution))}_`, '');
+  const cautions = forms.flatMap((f) => f.cautions);
+  if (cautions.length) lines.push(...cautionBlock(cautions));
+  return lines.join('\n').trimEnd();
+}
+
 function ingredientMarkdown(i: Ingredient, b: BatchAnalysis, s: ServiceSettings): string {
+  if (i.buffer) return bufferMarkdown(i, b, s);
   const name = nameOf(i.analysis);
   const lines = [`**${esc(i.formula)}**${name ? ` · ${esc(name)}` : ''} · ${esc(amountText(i))}`, ''];
   const bits = [`weigh **${massText(i.massG)}**`, `${sig(i.moles)} mol`];
@@ -169,6 +189,8 @@ function ingredientMarkdown(i: Ingredient, b: BatchAnalysis, s: ServiceSettings)
   if (i.massFraction !== null) bits.push(`${fractionText(i.massFraction)} of the weighed mass`);
   if (i.fractionOfTotal !== null && b.totalMassG !== null) bits.push(`${fractionText(i.fractionOfTotal)} of the total ${sig(b.totalMassG)} g`);
   lines.push(bits.join(' · '), '');
+  const solved = solvedText(i);
+  if (solved) lines.push(esc(solved), '');
   const pl = perLitre(i, b.volumeL);
   if (pl) {
     // The metal only where it says something the salt does not (not for a metal weighed as the element).
@@ -181,6 +203,8 @@ function ingredientMarkdown(i: Ingredient, b: BatchAnalysis, s: ServiceSettings)
       : `Not split into ions (${i.undissociated ?? 'undissociated'})`,
     '',
   );
+  const inModel = b.solution?.ingredients[b.ingredients.indexOf(i)];
+  if (inModel) lines.push(inModel.leftOut ? `Not in the equilibrium: ${esc(inModel.leftOut)}` : `In the equilibrium as ${esc(inModel.as)}`, '');
   lines.push(
     `Molar mass ${molarMassText(i.molarMass, s)} g/mol${i.analysis.formula && i.analysis.formula.parts.length > 1 ? ' (hydrate water included)' : ''}`,
   );
@@ -211,12 +235,48 @@ function skippedMarkdown(l: SkippedLine, s: ServiceSettings): string {
   return lines.join('\n').trimEnd();
 }
 
+/**
+ * The equilibrium of a batch for its hover: the pH first, then the major species, the buffer capacity and
+ * the ionic strength of the equilibrium, the solids near or over saturation, and the model's limits in one
+ * line.
+ */
+function solutionMarkdown(b: BatchAnalysis): string[] {
+  const s = b.solution;
+  if (!s) return b.volumeL !== null && b.noSolution ? [`_No equilibrium: ${esc(b.noSolution)}._`, ''] : [];
+  if (!s.converged) return [`⚠ The equilibrium did not converge (${s.iterations} iterations): no pH is given.`, ''];
+  const out = [`**${esc(pHLine(b, s))}** · buffer capacity ${capacityText(s.bufferCapacity)} · I = ${sig(s.ionicStrengthM, 3)} M at equilibrium`, ''];
+  const { major, more } = majorSpecies(s);
+  if (major.length)
+    out.push(`Species: ${major.map((x) => `${esc(x.display)} ${concText(x.concentrationM)}`).join(' · ')}${more ? ` · ${more} minor` : ''}`, '');
+  const near = nearSaturation(s);
+  if (near.length)
+    out.push(
+      `Saturation: ${near
+        .map((x) => {
+          const what =
+            x.saturationIndex > 0
+              ? `⚠ ${esc(x.display)} (${esc(x.name)}) SI ${siText(x.saturationIndex)}`
+              : `${esc(x.display)} SI ${siText(x.saturationIndex)}`;
+          const p = x.saturationIndex > 0 ? precipitateText(s, x) : undefined;
+          return p ? `${what}, ${p}` : what;
+        })
+        .join(' · ')}`,
+      '',
+    );
+  else if (s.saturation.length)
+    out.push(`No solid of the table near saturation (highest: ${esc(s.saturation[0].display)} SI ${siText(s.saturation[0].saturationIndex)}).`, '');
+  out.push(`_${esc(limitsLine(s))}_`, '');
+  return out;
+}
+
 export function batchSummaryMarkdown(b: BatchAnalysis, s: ServiceSettings): string {
   const lines = [
     `**${esc(b.name ?? 'Batch')}** · ${esc(countsText(b))} · ${sig(weighedMass(b))} g to weigh${b.volumeL !== null ? ` · ${volumeText(b.volumeL)}` : ''}${b.totalMassG !== null ? ` · total ${sig(b.totalMassG)} g` : ''}`,
     '',
   ];
-  if (b.ionicStrengthM !== null) lines.push(`Ionic strength **${sig(b.ionicStrengthM)} M** · net charge ${sig(b.netChargeEqPerL ?? 0, 2)} eq/L`, '');
+  lines.push(...solutionMarkdown(b));
+  if (b.ionicStrengthM !== null)
+    lines.push(`Nominal ionic strength ${sig(b.ionicStrengthM)} M (full dissociation) · net charge ${sig(b.netChargeEqPerL ?? 0, 2)} eq/L`, '');
   if (b.ions.length) lines.push(b.ions.map((x) => `${x.ion} ${sig(x.concentrationM)} M`).join(' · '), '');
   lines.push(markdownTable(pick(batchColumns(b, s), COMPACT_BATCH), countedRows(b), { short: true }));
   if (b.skipped.length)

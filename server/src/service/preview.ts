@@ -21,12 +21,12 @@ import type { ChemDiagnostic } from '../chem/diagnostic';
 import { analyseReaction, findArrow, type ReactionAnalysis } from '../chem/equation';
 import type { FormulaRef } from '../notes/types';
 import { scanProse } from '../notes/prose';
-import { batchColumns, batchRows, htmlTable, ION_COLUMNS, type BatchRow } from './columns';
+import { batchColumns, batchRows, htmlTable, ION_COLUMNS, SATURATION_COLUMNS, SPECIES_COLUMNS, type BatchRow } from './columns';
 import { analyseDocument, type BlockResult } from './document';
 import { plural, sig, volumeText } from './format';
 import { Html, html, join, toHtml, trusted } from './html';
 import { DEFAULT_SETTINGS, type ServiceSettings } from './settings';
-import { notCountedText, undissociatedOf } from './tables';
+import { notCountedText, solutionNotes, solutionSummary, tabledSpecies, undissociatedOf } from './tables';
 import { formulaSpan, formulaTitle, typesetDisplay, typesetEquation } from './typeset';
 import { CachesBySettings, detach } from '../chem/cache';
 
@@ -264,6 +264,16 @@ function batchHtmlUncached(
       html`<p class="iw-summary">Ionic strength <var>I</var> = ½ Σ <var>c</var><sub><var>i</var></sub><var>z</var><sub><var>i</var></sub><sup>2</sup> = <strong>${sig(b.ionicStrengthM)} M</strong>; net charge ${sig(b.netChargeEqPerL ?? 0, 2)} eq/L.</p>`,
     );
   }
+  const sol = b.solution;
+  if (sol && sol.converged) {
+    const { listed, rest } = tabledSpecies(sol);
+    parts.push(html`<p class="iw-summary iw-solution"><strong>Solution at equilibrium</strong>: ${solutionSummary(b, sol)}</p>`);
+    parts.push(htmlTable(SPECIES_COLUMNS, listed, { cls: 'iw-species' }));
+    if (rest) parts.push(html`<p class="iw-note">${rest} more species below 1 µM.</p>`);
+    if (sol.saturation.length)
+      parts.push(htmlTable(SATURATION_COLUMNS, sol.saturation, { cls: 'iw-saturation', rowClass: (x) => (x.saturationIndex > 0 ? 'iw-over' : undefined) }));
+    for (const n of solutionNotes(b, sol)) parts.push(html`<p class="iw-note">${n}</p>`);
+  } else if (sol) parts.push(html`<p class="iw-note">The equilibrium did not converge: no pH is given.</p>`);
   const undissociated = undissociatedOf(b).map((i) => typesetDisplay(i.formula));
   if (undissociated.length) parts.push(html`<p class="iw-note">Not split into ions: ${join(undissociated, ', ')}.</p>`);
   for (const n of b.notes) parts.push(html`<p class="iw-note">${n}</p>`);

@@ -17,6 +17,9 @@ import type { AnalysedDocument } from './document';
 import { formulaText } from './format';
 import { Html, html, join, trusted } from './html';
 import { batchHtml, ionwrightPreview, reactionBlockHtml, silentState, type PreviewOptions } from './preview';
+import { speciesDistribution } from '../chem/solution/distribution';
+import type { BatchOccurrence } from './document';
+import { saturationChart, speciesChart } from './speciesChart';
 
 export interface ReportOptions {
   /** Shown as the page title, usually the file's path. */
@@ -42,9 +45,9 @@ h2 { font-size: 1.2em; margin: 1.8em 0 0.5em; padding-bottom: 0.2em; border-bott
 .iw-counts li { border: 1px solid var(--iw-border); border-radius: 3px; padding: 0.25em 0.7em; background: var(--iw-surface); }
 .iw-counts strong { font-size: 1.15em; }
 .iw-caveat { border-left: 4px solid var(--iw-warning); padding: 0.4em 0.8em; background: var(--iw-surface); margin: 1em 0; }
-figure.iw-chart { margin: 0.5em 0; color: var(--iw-fg); }
-figure.iw-chart svg { max-width: 100%; height: auto; }
-figure.iw-chart figcaption { color: var(--iw-muted); font-size: 0.9em; }
+figure.iw-chart, figure.iw-eqfigure { margin: 0.5em 0; color: var(--iw-fg); }
+figure.iw-chart svg, figure.iw-eqfigure svg { max-width: 100%; height: auto; }
+figure.iw-chart figcaption, figure.iw-eqfigure figcaption { color: var(--iw-muted); font-size: 0.9em; }
 table.iw-findings-table td:first-child { white-space: nowrap; font-variant-numeric: tabular-nums; }
 .iw-rendered { border: 1px solid var(--iw-border); border-radius: 3px; padding: 0 1em; }
 footer { margin-top: 2.5em; color: var(--iw-muted); font-size: 0.88em; }
@@ -60,7 +63,7 @@ section.iw-bench h2:first-child { margin-top: 1.2em; }
   .iw-caveat { border-left: 2px solid #000; background: none; }
   h2 { break-after: avoid; }
   #findings { break-before: page; }
-  figure.iw-chart { break-inside: avoid; }
+  figure.iw-chart, figure.iw-eqfigure { break-inside: avoid; }
   footer { color: #000; }
 }
 `;
@@ -104,6 +107,24 @@ export function latticePoints(formulas: readonly FormulaAnalysis[]): LatticePoin
   return points;
 }
 
+/** A batch's species distribution over pH and its saturation indices, where it has an equilibrium. */
+function equilibriumCharts(b: BatchOccurrence, k: number): Html[] {
+  const s = b.analysis.solution;
+  if (!s || !s.converged) return [];
+  const name = b.analysis.name ?? `batch ${k + 1}`;
+  const d = speciesDistribution(s.equilibrium);
+  const out: Html[] = [];
+  // The svgs are built by speciesChart.ts, which escapes its own text.
+  out.push(
+    html`<figure class="iw-eqfigure">${trusted(speciesChart(d, { id: `iw-species-${k}`, title: `${name}: species over pH` }))}<figcaption>Share of each component's total in each species between pH 0 and 14, the batch's totals and activity coefficients held (an estimate of the model; the dashed line is the batch's own pH).</figcaption></figure>`,
+  );
+  if (s.saturation.length)
+    out.push(
+      html`<figure class="iw-eqfigure">${trusted(saturationChart(s.saturation, { id: `iw-saturation-${k}`, title: `${name}: saturation indices` }))}<figcaption>log10(IAP/Ksp) of each solid the batch's components can form, as made up; above zero it would come out at equilibrium.</figcaption></figure>`,
+    );
+  return out;
+}
+
 /** The whole page: what goes to the bench first (batches and their cautions), then the findings, the reactions, the formulas with bonding and lattice energy, the chart, and the notes. */
 export function reportHtml(doc: AnalysedDocument, options: ReportOptions): string {
   const o: PreviewOptions = { typesetFormulas: true, settings: doc.settings, weighedColumn: true };
@@ -132,7 +153,7 @@ export function reportHtml(doc: AnalysedDocument, options: ReportOptions): strin
   parts.push(html`<section class="iw-bench" aria-labelledby="batches"><h2 id="batches">Batches: what to weigh and pour</h2>`);
   if (doc.batches.length) {
     parts.push(
-      html`<p class="iw-caveat iw-bench-note" role="note">Figures assume full dissociation of strong electrolytes; weak acids and bases stay undissociated, and activities and non-ideal mixing are not modelled. Check each mass against the notes before weighing.</p>`,
+      html`<p class="iw-caveat iw-bench-note" role="note">Masses and concentrations are arithmetic on the notes; the nominal ions assume full dissociation of strong electrolytes. The pH, species and saturation indices are estimates of an equilibrium model (Davies activities, closed to air, no redox): measure the pH of the made-up batch. Check each mass against the notes before weighing.</p>`,
     );
     for (const b of doc.batches) {
       const cls = b.analysis.skipped.length ? 'iw-batch iw-batch-incomplete' : 'iw-batch';
@@ -145,6 +166,7 @@ export function reportHtml(doc: AnalysedDocument, options: ReportOptions): strin
           (d) => lineText(d.start),
         )}<p class="iw-by">Block at line ${lineOf(b.ref.start)}.</p></figure>`,
       );
+      parts.push(...equilibriumCharts(b, doc.batches.indexOf(b)));
     }
   } else parts.push(html`<p>No batch blocks in these notes.</p>`);
   if (cautions.length) {

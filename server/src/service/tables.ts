@@ -4,13 +4,26 @@
  * The columns are defined once in columns.ts; the same definitions give the preview's and the report's
  * HTML and the plain text (`batchText`).
  */
-import type { BatchAnalysis } from '../chem/batch';
+import type { BatchAnalysis, BatchSolution } from '../chem/batch';
 import { CAUTION_FOOTNOTE } from '../chem/cautions';
 import type { FormulaAnalysis } from '../chem/analyse';
-import { amountText, batchColumns, batchRows, countedRows, formulaColumns, ION_COLUMNS, markdownRow, markdownTable, textTable } from './columns';
+import {
+  amountText,
+  batchColumns,
+  batchRows,
+  countedRows,
+  formulaColumns,
+  ION_COLUMNS,
+  markdownRow,
+  markdownTable,
+  SATURATION_COLUMNS,
+  SPECIES_COLUMNS,
+  textTable,
+} from './columns';
 import type { AnalysedDocument, BatchOccurrence, FormulaOccurrence } from './document';
 import { percent, plural, sig, volumeText } from './format';
 import { DEFAULT_SETTINGS, type ServiceSettings } from './settings';
+import { capacityText, limitsLine, pHLine, precipitateText, solvedText } from './solution';
 
 export { amountText, sig };
 
@@ -77,7 +90,38 @@ export function batchHead(b: BatchAnalysis): string {
 
 /** The ionic-strength line of a batch, or undefined without a volume. */
 export const ionicStrengthText = (b: BatchAnalysis) =>
-  b.ionicStrengthM !== null ? `Ionic strength I = ½ Σ cᵢzᵢ² = ${sig(b.ionicStrengthM)} M; net charge ${sig(b.netChargeEqPerL ?? 0, 2)} eq/L.` : undefined;
+  b.ionicStrengthM !== null
+    ? `Ionic strength I = ½ Σ cᵢzᵢ² = ${sig(b.ionicStrengthM)} M${b.solution ? ' (nominal: full dissociation)' : ''}; net charge ${sig(b.netChargeEqPerL ?? 0, 2)} eq/L.`
+    : undefined;
+
+/** The species a table lists: those at 1 µM or more (at least the six most concentrated); the count of the rest. */
+export function tabledSpecies(s: BatchSolution): { listed: BatchSolution['species']; rest: number } {
+  const listed = s.species.filter((x, k) => k < 6 || x.concentrationM >= 1e-6);
+  return { listed, rest: s.species.length - listed.length };
+}
+
+/** The summary line of a batch's equilibrium: pH, ionic strength, buffer capacity. */
+export const solutionSummary = (b: BatchAnalysis, s: BatchSolution) =>
+  `${pHLine(b, s)} · I = ${sig(s.ionicStrengthM, 3)} M at equilibrium · buffer capacity ${capacityText(s.bufferCapacity)}`;
+
+/** Lines about the equilibrium under a batch's tables: what would come out, the solved lines, the limits. */
+export function solutionNotes(b: BatchAnalysis, s: BatchSolution): string[] {
+  const out: string[] = [];
+  for (const x of s.saturation) {
+    if (!(x.saturationIndex > 0)) break;
+    const p = precipitateText(s, x);
+    if (p) out.push(`${x.display} (${x.name}): ${p}.`);
+  }
+  for (const i of b.ingredients) {
+    if (i.buffer && i.buffer.role === 'base') continue;
+    const t = solvedText(i);
+    if (t) out.push(`${i.buffer ? '' : `${i.formula}: `}${t}.`);
+  }
+  out.push(limitsLine(s));
+  // The model's own notes that the line of limits does not already say (temperature, what is left out).
+  for (const n of s.notes) if (!/^(Davies activity coefficients|pH and precipitation are estimates|I = )/.test(n)) out.push(n);
+  return out;
+}
 
 /** Markdown tables of a batch: every line shows, counted in the table or listed as not counted with the reason. */
 export function batchTable(b: BatchAnalysis, settings: ServiceSettings = DEFAULT_SETTINGS): string {
@@ -97,6 +141,14 @@ export function batchTable(b: BatchAnalysis, settings: ServiceSettings = DEFAULT
   lines.push('');
   const strength = ionicStrengthText(b);
   if (strength) lines.push(strength);
+  const sol = b.solution;
+  if (sol && sol.converged) {
+    const { listed, rest } = tabledSpecies(sol);
+    lines.push('', `**Solution at equilibrium**: ${escapeMarkdown(solutionSummary(b, sol))}`, '', markdownTable(SPECIES_COLUMNS, listed));
+    if (rest) lines.push('', `_${rest} more species below 1 µM._`);
+    if (sol.saturation.length) lines.push('', markdownTable(SATURATION_COLUMNS, sol.saturation));
+    lines.push('', ...solutionNotes(b, sol).map((n) => `_${escapeMarkdown(n)}_`), '');
+  } else if (sol) lines.push('', `_The equilibrium did not converge: no pH is given._`, '');
   const undissociated = undissociatedOf(b).map((i) => i.formula);
   if (undissociated.length) lines.push(`Not split into ions: ${undissociated.join(', ')}.`);
   for (const n of b.notes) lines.push(`_${n}_`);
@@ -120,6 +172,14 @@ export function batchText(b: BatchAnalysis, settings: ServiceSettings = DEFAULT_
   if (b.ions.length) lines.push('', textTable(ION_COLUMNS, b.ions));
   const strength = ionicStrengthText(b);
   if (strength) lines.push('', strength);
+  const sol = b.solution;
+  if (sol && sol.converged) {
+    const { listed, rest } = tabledSpecies(sol);
+    lines.push('', `Solution at equilibrium: ${solutionSummary(b, sol)}`, '', textTable(SPECIES_COLUMNS, listed));
+    if (rest) lines.push(`  (${rest} more species below 1 µM)`);
+    if (sol.saturation.length) lines.push('', textTable(SATURATION_COLUMNS, sol.saturation));
+    lines.push('', ...solutionNotes(b, sol));
+  } else if (sol) lines.push('', 'The equilibrium did not converge: no pH is given.');
   for (const n of b.notes) lines.push(n);
   for (const d of batchWarnings(b)) lines.push(`warning: ${d.message}`);
   if (b.cautions.length) lines.push('', 'Cautions:', ...b.cautions.map((c) => `  ${c.text}`), CAUTION_FOOTNOTE);

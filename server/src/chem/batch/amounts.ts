@@ -1,7 +1,8 @@
 /**
  * Stage 2 of a batch: the amounts of each line read — moles, mass to weigh (assay included),
  * concentration in the final volume — and each counted line's two shares (of the weighed mass, of the
- * `total:`).
+ * `total:`). A `to pH` line and a buffer line are counted as pending: their amounts come from the
+ * solution stage (batch/solution.ts), and the shares are computed after it (`computeShares`).
  *
  * One rule for lines in error: a line with any error (its formula, amount, unit, assay, or a target the
  * batch cannot resolve) is not counted. It is listed in `skipped` with the reason, its findings stay on
@@ -9,7 +10,7 @@
  */
 import { cautionsFor } from '../cautions';
 import type { ChemDiagnostic, DiagnosticCode } from '../diagnostic';
-import type { BatchHeaders, IngredientLine, ReadBatch, SetAsideHeader } from './read';
+import type { BatchHeaders, BufferLine, IngredientLine, ReadBatch, SetAsideHeader } from './read';
 import { finding, hasError, type Token } from './tokens';
 import type { Ingredient, SkippedLine } from './types';
 import type { BatchUnit } from './units';
@@ -26,10 +27,18 @@ export interface CountedLine {
   concentrationM: number | null;
   massFraction: number | null;
   fractionOfTotal: number | null;
+  /** A `to pH` line: moles and mass are solved by the solution stage. */
+  pending?: boolean;
+  /** A buffer's form (filled in by the solution stage). */
+  buffer?: Ingredient['buffer'];
+  /** A `to pH` line once solved. */
+  solvedFor?: Ingredient['solvedFor'];
 }
 
 export interface BatchAmounts {
   counted: CountedLine[];
+  /** Buffer lines to design (the solution stage turns each into two counted lines). */
+  buffers: BufferLine[];
   /** Every line not counted (ingredients and headers), in the order written. */
   skipped: SkippedLine[];
   /** Grams weighed of the counted lines. */
@@ -40,10 +49,14 @@ export interface BatchAmounts {
 
 /** Compute the amounts of every line read (stage 2). */
 export function computeAmounts(read: ReadBatch): BatchAmounts {
-  const out: BatchAmounts = { counted: [], skipped: [], weighedG: 0, diagnostics: [] };
+  const out: BatchAmounts = { counted: [], buffers: [], skipped: [], weighedG: 0, diagnostics: [] };
   for (const line of read.lines) {
     if (line.kind === 'header') {
       out.skipped.push(skippedHeader(line));
+      continue;
+    }
+    if (line.kind === 'buffer') {
+      countBuffer(line, read.headers, out);
       continue;
     }
     const r = countLine(line, read.headers);
@@ -51,13 +64,35 @@ export function computeAmounts(read: ReadBatch): BatchAmounts {
     if (r.counted) out.counted.push(r.counted);
     else out.skipped.push(r.skipped);
   }
+  return out;
+}
+
+/** The weighed mass and each counted line's two shares, once every amount is known. */
+export function computeShares(out: BatchAmounts, { totalMassG }: BatchHeaders): void {
   out.weighedG = out.counted.reduce((s, c) => s + c.massG, 0);
-  const { totalMassG } = read.headers;
   for (const c of out.counted) {
     c.massFraction = out.weighedG > 0 ? c.massG / out.weighedG : null;
     c.fractionOfTotal = totalMassG !== null ? c.massG / totalMassG : null;
   }
-  return out;
+}
+
+/** A buffer line: pending where it can be designed, else not counted with its findings. */
+function countBuffer(line: BufferLine, headers: BatchHeaders, out: BatchAmounts): void {
+  let diagnostics = line.diagnostics;
+  if (!hasError(diagnostics) && headers.volumeL === null)
+    diagnostics = [
+      ...diagnostics,
+      finding('batch-no-volume', line.lineStart, line.lineEnd, `A buffer is made to a concentration in the batch's final volume: add a line 'volume: 500 mL'.`),
+    ];
+  out.diagnostics.push(...diagnostics);
+  if (hasError(diagnostics)) out.skipped.push(skippedLine(line, reasonOf(diagnostics)));
+  else out.buffers.push(line);
+}
+
+/** A line of the block not counted, from its source (a buffer line, or a `to pH` line the solution stage cannot solve). */
+export function skippedLine(line: BufferLine | IngredientLine, { reason, code }: { reason: string; code: DiagnosticCode }): SkippedLine {
+  if (line.kind === 'ingredient') return skippedIngredient(line, { reason, code });
+  return { kind: 'ingredient', text: line.source.text, lineStart: line.source.start, lineEnd: line.source.end, reason, code, cautions: [] };
 }
 
 type LineResult = { diagnostics: ChemDiagnostic[] } & ({ counted: CountedLine; skipped?: undefined } | { counted?: undefined; skipped: SkippedLine });
@@ -67,6 +102,31 @@ function countLine(line: IngredientLine, headers: BatchHeaders): LineResult {
   const a = line.analysis;
   const M = a.molarMass?.value;
   let diagnostics = line.diagnostics;
+  if (line.solveFor && !hasError(diagnostics) && a.ok && M) {
+    if (headers.volumeL === null) {
+      const d = finding(
+        'batch-no-volume',
+        line.solveFor.start,
+        line.solveFor.end,
+        `A 'to pH' amount needs the batch's final volume: add a line 'volume: 500 mL'.`,
+      );
+      diagnostics = [...diagnostics, d];
+      return { diagnostics, skipped: skippedIngredient(line, reasonOf(diagnostics)) };
+    }
+    const amount = line.amount as Token;
+    const counted: CountedLine = {
+      line,
+      molarMass: M,
+      moles: 0,
+      massG: 0,
+      amount: { value: line.solveFor.pH, unit: 'to pH', text: amount.text, start: amount.start, end: amount.end },
+      concentrationM: 0,
+      massFraction: null,
+      fractionOfTotal: null,
+      pending: true,
+    };
+    return { diagnostics, counted };
+  }
   const target = line.unitInfo && !hasError(diagnostics) && a.ok && M ? amountsOf(line, line.unitInfo, M, headers) : null;
   if (target && 'error' in target) diagnostics = [...diagnostics, target.error];
   else if (target) {
@@ -123,7 +183,7 @@ function amountsOf(
 }
 
 /** The reason a line is set aside: its error messages, in order. */
-function reasonOf(diagnostics: readonly ChemDiagnostic[]): { reason: string; code: DiagnosticCode } {
+export function reasonOf(diagnostics: readonly ChemDiagnostic[]): { reason: string; code: DiagnosticCode } {
   const errors = diagnostics.filter((d) => d.severity === 'error').sort((a, b) => a.start - b.start);
   const list = errors.length ? errors : diagnostics;
   return { reason: [...new Set(list.map((d) => d.message))].join(' '), code: list[0]?.code ?? 'batch-syntax' };

@@ -1,12 +1,17 @@
 /**
  * Batch arithmetic: a batch block's lines → per-ingredient moles, mass to weigh, concentration and mass
- * fraction; the ions of strong electrolytes, the ionic strength I = ½ Σ cᵢ zᵢ² and the net charge.
+ * fraction; the ions of strong electrolytes, the ionic strength I = ½ Σ cᵢ zᵢ² and the net charge; and the
+ * equilibrium of the made-up solution (pH, species, saturation).
  *
  * Lines (each may end in a `#` comment):
  *   name: Rinse buffer R-7
  *   volume: 500 mL          final volume (L, mL, µL)
  *   total: 250 g            total mass of the batch, for wt% targets
+ *   pH: 7.40                the pH the batch is expected at (a warning beyond the setting)
+ *   temperature: 40 °C      for the equilibrium constants (25 °C unless given)
  *   <formula> <number> <unit> [@ <assay>%]
+ *   <formula> to pH <value> [@ <assay>%]              the amount that brings the batch to that pH
+ *   [sodium|potassium] <system> buffer <total> to pH <value>   the acid and base forms to weigh
  * Units (units.ts): g mg µg kg (mass weighed), mol mmol µmol (amount: the tool computes the mass), M mM µM
  * (target concentration in the final volume), wt% (mass fraction of the total). An assay (`@ 99.5%`) says
  * how much of what is weighed is the substance: the mass to weigh is divided by it.
@@ -14,45 +19,89 @@
  * The analysis is a pipeline of stages with plain data between them; each stage's data keeps the line it
  * came from, so every output shows every line, counted or not (`skipped`, with the reason):
  *   1. read.ts      lines read: headers, and ingredients as formula, amount, unit, assay
- *   2. amounts.ts   moles, mass to weigh, concentration, the two shares; a line with any error is not counted
- *   3. mix.ts       dissociation, the ions of the mix, ionic strength, net charge
- *   4. checks.ts    cautions, the total, solubility (solubility.ts)
+ *   2. amounts.ts   moles, mass to weigh, concentration; a line with any error is not counted
+ *   3. solution.ts  the equilibrium (chem/solution/): `to pH` and buffer lines solved, then pH, species,
+ *                   saturation; then the two shares of each line (amounts.ts)
+ *   4. mix.ts       dissociation, the nominal ions of the mix, ionic strength, net charge
+ *   5. checks.ts    cautions, the total, solubility (solubility.ts)
  */
 import { DEFAULT_CHEM_SETTINGS, type ChemSettings } from '../settings';
-import { computeAmounts, type BatchAmounts } from './amounts';
+import { computeAmounts, computeShares, type BatchAmounts } from './amounts';
 import { checkBatch, type BatchChecks } from './checks';
 import { mixIons, type BatchMix } from './mix';
 import { readLines, type BatchHeaders } from './read';
-import type { BatchAnalysis, BatchLine, Ingredient } from './types';
+import { solutionStage, type SolutionStage } from './solution';
+import type { BatchAnalysis, BatchLine, BatchSolution, Ingredient } from './types';
 
-export type { AmountUnit, BatchAnalysis, BatchIon, BatchLine, Ingredient, IonShare, SkippedLine, SolubilityCheck } from './types';
+export type {
+  AmountUnit,
+  BatchAnalysis,
+  BatchIon,
+  BatchLine,
+  BatchSolution,
+  BufferDesign,
+  Ingredient,
+  IngredientInModel,
+  IonShare,
+  PrecipitateAmount,
+  SkippedLine,
+  SolidSaturation,
+  SolubilityCheck,
+  SolutionSpecies,
+} from './types';
 export { dissociate } from './mix';
 export { anhydrousOf } from './solubility';
 
 const MODEL_NOTE = 'Salts are taken as fully dissolved and dissociated; weak acids and bases are treated as undissociated; activities are not modelled.';
+const NOMINAL_NOTE =
+  'The ions and ionic strength above are nominal (salts fully dissociated, weak acids undissociated); pH, species and saturation are from the equilibrium, with activities.';
 
-/** Analyse a batch block's lines. Offsets in diagnostics are absolute (the lines carry their offsets). */
-export function analyseBatch(lines: BatchLine[], openName: string | null = null, settings: ChemSettings = DEFAULT_CHEM_SETTINGS): BatchAnalysis {
+/**
+ * Analyse a batch block's lines. Offsets in diagnostics are absolute (the lines carry their offsets);
+ * `openLine` is the block's opening line, where findings about the whole batch go (the first line where
+ * absent).
+ */
+export function analyseBatch(
+  lines: BatchLine[],
+  openName: string | null = null,
+  settings: ChemSettings = DEFAULT_CHEM_SETTINGS,
+  openLine?: { start: number; end: number },
+): BatchAnalysis {
   const read = readLines(lines, openName, settings);
   // Later, between reading and amounts: chem/names/ (an ingredient named instead of written as a formula)
   // and chem/reagents/ (liquids by volume with density and assay, stock dilutions, units per volume).
   const amounts = computeAmounts(read);
+  const first = lines[0] ? { start: lines[0].start, end: lines[0].start + lines[0].text.length } : { start: 0, end: 0 };
+  const solution = solutionStage(amounts, read.headers, settings, openLine ?? first);
+  computeShares(amounts, read.headers);
   const mix = mixIons(amounts.counted, read.headers.volumeL);
-  // Later, after the nominal mix: chem/solution/ (the equilibrium of the made-up solution: pH, species,
-  // saturation indices; `batch-precipitation`, solved `to pH` lines).
   const checks = checkBatch(amounts, read.headers);
   // Later, beside the checks: chem/safety/ (incompatible pairs, heat of making up; `batch-incompatible`,
   // `batch-heat`).
-  return assemble(read.headers, amounts, mix, checks, [...read.diagnostics, ...amounts.diagnostics, ...mix.diagnostics, ...checks.diagnostics]);
+  return assemble(read.headers, amounts, solution, mix, checks, [
+    ...read.diagnostics,
+    ...amounts.diagnostics,
+    ...solution.diagnostics.filter((d) => !amounts.diagnostics.includes(d)),
+    ...mix.diagnostics,
+    ...checks.diagnostics,
+  ]);
 }
 
 /** The stages' data as the batch's result: one ingredient per counted line, the findings in text order. */
-function assemble(headers: BatchHeaders, amounts: BatchAmounts, mix: BatchMix, checks: BatchChecks, diagnostics: BatchAnalysis['diagnostics']): BatchAnalysis {
+function assemble(
+  headers: BatchHeaders,
+  amounts: BatchAmounts,
+  solution: SolutionStage,
+  mix: BatchMix,
+  checks: BatchChecks,
+  diagnostics: BatchAnalysis['diagnostics'],
+): BatchAnalysis {
   const ingredients = amounts.counted.map((c, k): Ingredient => {
     const { line } = c;
     const d = mix.dissociations[k];
     const solubility = checks.solubility[k];
-    return {
+    // One object shape, the optional fields assigned after: no object spreads in this loop (a hot one).
+    const out: Ingredient = {
       formulaText: line.formula.text,
       formula: line.analysis.display,
       analysis: line.analysis,
@@ -69,17 +118,22 @@ function assemble(headers: BatchHeaders, amounts: BatchAmounts, mix: BatchMix, c
       massFraction: c.massFraction,
       fractionOfTotal: c.fractionOfTotal,
       ions: d.ions,
-      ...(d.undissociated ? { undissociated: d.undissociated } : {}),
       cautions: checks.cautions[k],
-      ...(solubility ? { solubility } : {}),
     };
+    if (d.undissociated) out.undissociated = d.undissociated;
+    if (solubility) out.solubility = solubility;
+    if (c.solvedFor) out.solvedFor = c.solvedFor;
+    if (c.buffer) out.buffer = c.buffer;
+    return out;
   });
-  const notes = [MODEL_NOTE];
-  if (headers.volumeL === null && ingredients.length) notes.push('No final volume given: concentrations and ionic strength are not computed.');
+  const notes = [solution.solution ? NOMINAL_NOTE : MODEL_NOTE];
+  if (headers.volumeL === null && ingredients.length) notes.push('No final volume given: concentrations, ionic strength and pH are not computed.');
+  else if (!solution.solution && solution.noSolution) notes.push(`No equilibrium: ${solution.noSolution}.`);
+  const lazy = typeof solution.solution === 'function' ? solution.solution : null;
   diagnostics.sort((x, y) => x.start - y.start);
   const { name, volumeL, totalMassG } = headers;
   const { ions, ionicStrengthM, netChargeEqPerL } = mix;
-  return {
+  const out: BatchAnalysis = {
     name,
     volumeL,
     totalMassG,
@@ -92,5 +146,15 @@ function assemble(headers: BatchHeaders, amounts: BatchAmounts, mix: BatchMix, c
     diagnostics,
     cautions: checks.batchCautions,
     notes,
+    temperatureC: headers.temperatureC,
+    statedPH: headers.pH?.value ?? null,
+    solution: lazy ? null : (solution.solution as BatchSolution | null),
+    ...(solution.noSolution ? { noSolution: solution.noSolution } : {}),
   };
+  if (lazy) {
+    // Made on first read, then kept (an analysis is shared and read-only otherwise).
+    let made: BatchSolution | undefined;
+    Object.defineProperty(out, 'solution', { enumerable: true, configurable: true, get: () => (made ??= lazy()) });
+  }
+  return out;
 }

@@ -1,7 +1,9 @@
 /**
- * Stage 1 of a batch: its lines read, each a header (`name:`, `volume:`, `total:`) or an ingredient
- * (formula, amount, unit, assay), with the findings of what cannot be read on their exact characters.
- * Nothing is computed yet: the volume and total a target needs are known only once every line is read.
+ * Stage 1 of a batch: its lines read, each a header (`name:`, `volume:`, `total:`, `pH:`,
+ * `temperature:`), an ingredient (formula, amount, unit, assay, or `to pH <value>`: an amount to solve for)
+ * or a buffer to design (`phosphate buffer 0.1 M to pH 7.40`), with the findings of what cannot be read on
+ * their exact characters. Nothing is computed yet: the volume and total a target needs are known only once
+ * every line is read.
  *
  * A header given twice: the first one that can be read counts; a later one is set aside with a warning.
  */
@@ -9,6 +11,7 @@ import { analyseFormula, type FormulaAnalysis } from '../analyse';
 import { shiftDiagnostic, type ChemDiagnostic } from '../diagnostic';
 import { joinSpacedAdduct } from '../formula/spaced';
 import type { ChemSettings } from '../settings';
+import { bufferNamed, BUFFER_NAMES, type BufferSystem } from '../solution/buffers';
 import { finding, tokens, type Token } from './tokens';
 import type { BatchLine } from './types';
 import { unitIn, unitList, unitSpelled, type BatchUnit } from './units';
@@ -38,7 +41,24 @@ export interface IngredientLine {
   value: number;
   /** Fraction 0–1 of what is weighed that is the substance. */
   assay: number;
+  /** `to pH <value>`: the amount is solved for this pH (the range of `to pH <value>`). */
+  solveFor?: { pH: number; start: number; end: number };
   /** This line's findings (absolute offsets). */
+  diagnostics: ChemDiagnostic[];
+}
+
+/** A buffer line: `[sodium|potassium] <system> buffer <total> <M|mM> to pH <value>`. */
+export interface BufferLine {
+  kind: 'buffer';
+  source: SourceLine;
+  lineStart: number;
+  lineEnd: number;
+  /** The words naming the system (`potassium phosphate`). */
+  name: Token;
+  buffer?: { system: BufferSystem; counterIon: 'Na' | 'K' };
+  /** Total concentration of the system's forms, M, and where it is written. */
+  total?: { valueM: number; text: string; start: number; end: number };
+  target?: { pH: number; start: number; end: number };
   diagnostics: ChemDiagnostic[];
 }
 
@@ -55,21 +75,31 @@ export interface BatchHeaders {
   totalMassG: number | null;
   /** Where the `total:` value is written, for a finding about it. */
   totalRange: { start: number; end: number } | null;
+  /** `pH:` — the pH the batch is expected at, and where it is written. */
+  pH: { value: number; start: number; end: number } | null;
+  /** `temperature:` in °C (25 unless given). */
+  temperatureC: number;
+  temperatureGiven: boolean;
 }
 
 export interface ReadBatch {
   headers: BatchHeaders;
   /** The ingredient lines and the headers set aside, in the order written (counted headers are in `headers`). */
-  lines: Array<IngredientLine | SetAsideHeader>;
+  lines: Array<IngredientLine | BufferLine | SetAsideHeader>;
   /** The findings of the headers set aside. */
   diagnostics: ChemDiagnostic[];
 }
 
 const NUMBER = /^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?$/;
 const MAX_AMOUNT = 1e9;
-const HEADER = /^(name|volume|total)\s*:\s*(.*)$/i;
+const HEADER = /^(name|volume|total|ph|temperature)\s*:\s*(.*)$/i;
 
-type HeaderKey = 'name' | 'volume' | 'total';
+type HeaderKey = 'name' | 'volume' | 'total' | 'ph' | 'temperature';
+
+/** The pH a header or a line may ask for (a pH meter's range and a little beyond). */
+const PH_RANGE = [-1, 15] as const;
+/** Temperatures of the model: liquid water at 1 atm. */
+const TEMPERATURE_RANGE = [0, 100] as const;
 
 /** A non-blank line: what it says (its comment cut off), where, and as written. */
 interface Located {
@@ -93,7 +123,7 @@ function locate({ text: raw, start }: BatchLine): Located | null {
 
 /** Read a batch block's lines (stage 1). */
 export function readLines(lines: readonly BatchLine[], openName: string | null, settings: ChemSettings): ReadBatch {
-  const headers: BatchHeaders = { name: openName, volumeL: null, totalMassG: null, totalRange: null };
+  const headers: BatchHeaders = { name: openName, volumeL: null, totalMassG: null, totalRange: null, pH: null, temperatureC: 25, temperatureGiven: false };
   const counted = new Set<HeaderKey>(openName ? ['name'] : []);
   const out: ReadBatch = { headers, lines: [], diagnostics: [] };
   for (const line of lines) {
@@ -101,7 +131,7 @@ export function readLines(lines: readonly BatchLine[], openName: string | null, 
     if (!at) continue;
     const header = HEADER.exec(at.trimmed);
     if (!header) {
-      out.lines.push(readIngredient(at, settings));
+      out.lines.push(bufferWord(at) ? readBuffer(at) : readIngredient(at, settings));
       continue;
     }
     const setAside = readHeader(headers, counted, openName, header, at);
@@ -120,7 +150,7 @@ function readHeader(headers: BatchHeaders, counted: Set<HeaderKey>, openName: st
     const message =
       key === 'name' && headers.name === openName && openName !== null
         ? `This batch is already named '${openName}' on its opening line; the first name counts.`
-        : `'${key}:' is given twice; the first one counts.`;
+        : `'${key === 'ph' ? 'pH' : key}:' is given twice; the first one counts.`;
     return finding('batch-header', at.lineStart, at.lineEnd, message, 'warning');
   }
   if (key === 'name') {
@@ -132,6 +162,17 @@ function readHeader(headers: BatchHeaders, counted: Set<HeaderKey>, openName: st
     return null;
   }
   const valueStart = at.lineStart + at.trimmed.length - header[2].length;
+  if (key === 'ph' || key === 'temperature') {
+    const v = key === 'ph' ? readPHHeader(header[2], valueStart, at) : readTemperature(header[2], valueStart, at);
+    if ('error' in v) return v.error;
+    counted.add(key);
+    if (key === 'ph') headers.pH = { value: v.value, start: valueStart, end: valueStart + header[2].trimEnd().length };
+    else {
+      headers.temperatureC = v.value;
+      headers.temperatureGiven = true;
+    }
+    return null;
+  }
   const read = readHeaderValue(key, header[2], valueStart, at.lineStart, at.lineEnd);
   if ('error' in read) return read.error;
   counted.add(key);
@@ -141,6 +182,51 @@ function readHeader(headers: BatchHeaders, counted: Set<HeaderKey>, openName: st
     headers.totalRange = { start: valueStart, end: valueStart + header[2].trimEnd().length };
   }
   return null;
+}
+
+const readNumber = (t: string) => (NUMBER.test(t) ? Number(t) : NaN);
+
+/** A `pH:` value: one number in the range of a pH. */
+function readPHHeader(value: string, valueStart: number, at: Located): { value: number } | { error: ChemDiagnostic } {
+  const tk = tokens(value, valueStart);
+  if (tk.length === 0) return { error: finding('batch-amount', at.lineStart, at.lineEnd, `'pH:' needs a number, e.g. 'pH: 7.40'.`) };
+  const v = readNumber(tk[0].text);
+  if (!Number.isFinite(v) || v < PH_RANGE[0] || v > PH_RANGE[1])
+    return { error: finding('batch-amount', tk[0].start, tk[0].end, `'${tk[0].text}' is not a pH (a number from ${PH_RANGE[0]} to ${PH_RANGE[1]}).`) };
+  if (tk.length > 1) {
+    const extra = tk.slice(1);
+    return { error: finding('batch-syntax', extra[0].start, extra[extra.length - 1].end, `Unexpected '${extra.map((t) => t.text).join(' ')}' after the pH.`) };
+  }
+  return { value: v };
+}
+
+/** A `temperature:` value in °C or K, from 0 to 100 °C. */
+function readTemperature(value: string, valueStart: number, at: Located): { value: number } | { error: ChemDiagnostic } {
+  const tk = tokens(value, valueStart);
+  if (tk.length === 0)
+    return { error: finding('batch-amount', at.lineStart, at.lineEnd, `'temperature:' needs a number and a unit, e.g. 'temperature: 40 °C'.`) };
+  const glued = /^([+-]?[0-9.eE+-]*[0-9.])(°C|°|C|degC|K)$/.exec(tk[0].text);
+  const num = glued ? glued[1] : tk[0].text;
+  const unit = glued ? glued[2] : tk[1]?.text;
+  const rest = tk.slice(glued ? 1 : 2);
+  const v = readNumber(num);
+  if (!Number.isFinite(v)) return { error: finding('batch-amount', tk[0].start, tk[0].end, `'${tk[0].text}' is not a temperature.`) };
+  if (unit === undefined || !/^(°C|°|C|degC|K)$/.test(unit)) {
+    const t = tk[1] ?? tk[0];
+    return {
+      error: finding('batch-unit', t.start, t.end, unit ? `Unknown unit '${unit}' for temperature; use °C or K.` : `'temperature:' needs a unit: °C or K.`),
+    };
+  }
+  if (rest.length)
+    return {
+      error: finding('batch-syntax', rest[0].start, rest[rest.length - 1].end, `Unexpected '${rest.map((t) => t.text).join(' ')}' after the temperature.`),
+    };
+  const c = unit === 'K' ? v - 273.15 : v;
+  if (c < TEMPERATURE_RANGE[0] || c > TEMPERATURE_RANGE[1])
+    return {
+      error: finding('batch-amount', tk[0].start, (tk[1] ?? tk[0]).end, `${value.trim()} is outside the model's range of 0 to 100 °C (liquid water at 1 atm).`),
+    };
+  return { value: Math.round(c * 1e6) / 1e6 };
 }
 
 /** A `volume:` or `total:` value, or the finding that says why it cannot be read. */
@@ -197,7 +283,104 @@ function readIngredient(at: Located, settings: ChemSettings): IngredientLine {
   };
   if (!amount)
     diagnostics.push(finding('batch-amount', formula.start, formula.end, `'${formula.text}' needs an amount and a unit, e.g. '${formula.text} 5.0 g'.`));
+  else if (amount.text.toLowerCase() === 'to' && unit && /^ph/i.test(unit.text)) readPHTarget(line, amount, unit, rest);
   else readQuantity(line, amount, unit, rest);
+  return line;
+}
+
+/** `to pH <value> [@ assay%]`: the pH the amount is solved for, into `line`. */
+function readPHTarget(line: IngredientLine, to: Token, ph: Token, rest: Token[]): void {
+  const target = readPH(to, ph, rest, line.diagnostics);
+  if (!target) return;
+  line.solveFor = target.at;
+  line.amount = { text: `to pH ${target.text}`, start: to.start, end: target.at.end };
+  if (target.rest.length) readAssay(line, target.rest);
+}
+
+/** `to pH <value>` from its tokens (the value may be glued: `pH7.0`); the findings into `diagnostics`. */
+function readPH(
+  to: Token,
+  ph: Token,
+  rest: Token[],
+  diagnostics: ChemDiagnostic[],
+): { at: { pH: number; start: number; end: number }; text: string; rest: Token[] } | null {
+  const glued = /^ph(.+)$/i.exec(ph.text);
+  let valueTok: Token | undefined;
+  let more = rest;
+  if (glued) valueTok = { text: glued[1], start: ph.start + 2, end: ph.end };
+  else if (ph.text.toLowerCase() === 'ph') [valueTok, ...more] = rest;
+  if (!valueTok) {
+    diagnostics.push(finding('batch-amount', to.start, ph.end, `'to pH' needs the pH, e.g. 'to pH 7.00'.`));
+    return null;
+  }
+  const v = readNumber(valueTok.text);
+  if (!Number.isFinite(v) || v < PH_RANGE[0] || v > PH_RANGE[1]) {
+    diagnostics.push(finding('batch-amount', valueTok.start, valueTok.end, `'${valueTok.text}' is not a pH (a number from ${PH_RANGE[0]} to ${PH_RANGE[1]}).`));
+    return null;
+  }
+  return { at: { pH: v, start: to.start, end: valueTok.end }, text: valueTok.text, rest: more };
+}
+
+/** Whether a line is a buffer line: the word `buffer` after at least one other word. */
+function bufferWord(at: Located): boolean {
+  return /^\S.*?\s+buffer(\s|$)/i.test(at.trimmed);
+}
+
+/** A buffer line: the system, its total concentration, the target pH. */
+function readBuffer(at: Located): BufferLine {
+  const tk = tokens(at.text, at.base);
+  const k = tk.findIndex((t, i) => i > 0 && t.text.toLowerCase() === 'buffer');
+  const words = tk.slice(0, k);
+  const name = { text: words.map((t) => t.text).join(' '), start: words[0].start, end: words[words.length - 1].end };
+  const line: BufferLine = { kind: 'buffer', source: at.source, lineStart: at.lineStart, lineEnd: at.lineEnd, name, diagnostics: [] };
+  const d = line.diagnostics;
+  const named = bufferNamed(name.text);
+  if (named) line.buffer = { system: named.buffer, counterIon: named.counterIon };
+  else
+    d.push(
+      finding(
+        'batch-buffer',
+        name.start,
+        name.end,
+        `'${name.text}' is no buffer system of the tables; one of: ${BUFFER_NAMES.join(', ')} (with 'sodium' or 'potassium' before it for the counter-ion).`,
+      ),
+    );
+  let rest = tk.slice(k + 1);
+  const example = `'${name.text} buffer 0.1 M to pH 7.40'`;
+  if (rest.length === 0) {
+    d.push(finding('batch-buffer', tk[k].start, tk[k].end, `A buffer line needs its total concentration and pH: ${example}.`));
+    return line;
+  }
+  // The total: `0.1 M`, `100 mM`, `0.1M`.
+  let amount = rest[0];
+  let unit: Token | undefined = rest[1];
+  const glued = /^((?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?)([A-Za-zµ/]+)$/.exec(amount.text);
+  if (glued) {
+    unit = { text: glued[2], start: amount.start + glued[1].length, end: amount.end };
+    amount = { text: glued[1], start: amount.start, end: amount.start + glued[1].length };
+    rest = [amount, unit, ...rest.slice(1)];
+  }
+  const value = readNumber(amount.text);
+  const u = unit ? unitIn('ingredient', unit.text) : undefined;
+  if (!(value > 0) || value > MAX_AMOUNT) d.push(finding('batch-amount', amount.start, amount.end, `'${amount.text}' is not a positive concentration.`));
+  else if (!u || u.kind !== 'concentration') {
+    const at2 = unit ?? amount;
+    d.push(finding('batch-unit', at2.start, at2.end, `A buffer's total is a concentration: M, mM or µM (as in ${example}).`));
+  } else line.total = { valueM: value * u.factor, text: `${amount.text} ${u.unit}`, start: amount.start, end: (unit as Token).end };
+  const after = rest.slice(2);
+  if (after.length < 2 || after[0].text.toLowerCase() !== 'to' || !/^ph/i.test(after[1].text)) {
+    const from = after[0] ?? unit ?? amount;
+    const to = after[after.length - 1] ?? from;
+    d.push(finding('batch-buffer', from.start, to.end, `A buffer line ends in the pH it is made to: ${example}.`));
+    return line;
+  }
+  const target = readPH(after[0], after[1], after.slice(2), d);
+  if (!target) return line;
+  line.target = target.at;
+  if (target.rest.length) {
+    const r = target.rest;
+    d.push(finding('batch-syntax', r[0].start, r[r.length - 1].end, `Unexpected '${r.map((t) => t.text).join(' ')}' after the pH.`));
+  }
   return line;
 }
 

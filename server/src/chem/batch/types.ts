@@ -4,9 +4,11 @@ import type { Caution } from '../cautions';
 import type { SolubilityRow } from '../data/solubility';
 import type { ChemDiagnostic, DiagnosticCode } from '../diagnostic';
 import type { IonShare } from '../ions/dissociation';
+import type { BatchSolution, BufferDesign } from '../solution/types';
 import type { AmountUnit } from './units';
 
 export type { AmountUnit } from './units';
+export type { BatchSolution, BufferDesign, IngredientInModel, PrecipitateAmount, SolidSaturation, SolutionSpecies } from '../solution/types';
 export type { IonShare } from '../ions/dissociation';
 
 export interface BatchLine {
@@ -35,7 +37,8 @@ export interface Ingredient {
   lineEnd: number;
   formulaStart: number;
   formulaEnd: number;
-  amount: { value: number; unit: AmountUnit; text: string; start: number; end: number };
+  /** As written: a number and a unit (`2.5 g`), `to pH 7.00` (solved), or a buffer's total (`0.1 M`). */
+  amount: { value: number; unit: AmountUnit | 'to pH'; text: string; start: number; end: number };
   /** Fraction 0–1 of what is weighed that is the substance. */
   assay: number;
   molarMass: number;
@@ -53,6 +56,10 @@ export interface Ingredient {
   cautions: Caution[];
   /** Where the substance is in the solubility table and the batch has a final volume. */
   solubility?: SolubilityCheck;
+  /** A `to pH` line: the pH its amount was solved for, and the pH reached. */
+  solvedFor?: { targetPH: number; pH: number };
+  /** One of a buffer line's two forms, with the line's design. */
+  buffer?: { role: 'acid' | 'base'; design: BufferDesign };
 }
 
 /** A line of the block that is not counted, and why. */
@@ -99,4 +106,11 @@ export interface BatchAnalysis {
   diagnostics: ChemDiagnostic[];
   cautions: Caution[];
   notes: string[];
+  /** `temperature:` (25 °C unless given) and `pH:` (the pH the batch is expected at; null where not given). */
+  temperatureC: number;
+  statedPH: number | null;
+  /** The equilibrium of the made-up solution; null without a final volume or where nothing is aqueous. */
+  solution: BatchSolution | null;
+  /** Why there is no solution, where there is none. */
+  noSolution?: string;
 }

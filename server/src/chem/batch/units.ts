@@ -63,8 +63,15 @@ export function unitIn(place: UnitPlace, text: string): BatchUnit | undefined {
   return u && u.places.includes(place) ? u : undefined;
 }
 
-/** The units a message offers for `place`, in the table's order: `g, mg, kg, … or wt%`. */
+const LISTS = new Map<UnitPlace, string>();
+
+/** The units a message offers for `place`, in the table's order: `g, mg, kg, … or wt%` (made once per place). */
 export function unitList(place: UnitPlace): string {
-  const names = (BATCH_UNITS as readonly BatchUnit[]).filter((u) => u.listed.includes(place)).map((u) => u.unit);
-  return names.length > 1 ? `${names.slice(0, -1).join(', ')} or ${names[names.length - 1]}` : names.join('');
+  let list = LISTS.get(place);
+  if (list === undefined) {
+    const names = (BATCH_UNITS as readonly BatchUnit[]).filter((u) => u.listed.includes(place)).map((u) => u.unit);
+    list = names.length > 1 ? `${names.slice(0, -1).join(', ')} or ${names[names.length - 1]}` : names.join('');
+    LISTS.set(place, list);
+  }
+  return list;
 }

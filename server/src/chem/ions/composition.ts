@@ -16,7 +16,8 @@ import { parseFormula } from '../formula/parse';
 import { ionOptions, metalCharges, type Segment } from '../charge/segments';
 import { SALT_STATES } from '../data/states';
 
-const keyOfAtoms = (atoms: AtomCounts) =>
+/** A composition as a key: elements in alphabetical order with their counts (`C2H3O2`, `O4S`). */
+export const keyOfAtoms = (atoms: AtomCounts) =>
   Object.keys(atoms)
     .sort()
     .map((el) => `${el}${cleanCount(atoms[el])}`)
