@@ -31,11 +31,12 @@ import { checkBatch, type BatchChecks } from './checks';
 import { mixIons, type BatchMix } from './mix';
 import { readLines, type BatchHeaders } from './read';
 import { solutionStage, type SolutionStage } from './solution';
-import type { BatchAnalysis, BatchLine, BatchSolution, Ingredient } from './types';
+import type { BatchAnalysis, BatchContext, BatchLine, BatchSolution, Ingredient } from './types';
 
 export type {
   AmountUnit,
   BatchAnalysis,
+  BatchContext,
   BatchIon,
   BatchLine,
   BatchSolution,
@@ -48,6 +49,7 @@ export type {
   SolidSaturation,
   SolubilityCheck,
   SolutionSpecies,
+  StockBatch,
 } from './types';
 export { dissociate } from './mix';
 export { anhydrousOf } from './solubility';
@@ -66,8 +68,9 @@ export function analyseBatch(
   openName: string | null = null,
   settings: ChemSettings = DEFAULT_CHEM_SETTINGS,
   openLine?: { start: number; end: number },
+  context: BatchContext = {},
 ): BatchAnalysis {
-  const read = readLines(lines, openName, settings);
+  const read = readLines(lines, openName, settings, context);
   // Later, between reading and amounts: chem/names/ (an ingredient named instead of written as a formula)
   // and chem/reagents/ (liquids by volume with density and assay, stock dilutions, units per volume).
   const amounts = computeAmounts(read);

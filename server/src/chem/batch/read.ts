@@ -13,7 +13,7 @@ import { joinSpacedAdduct } from '../formula/spaced';
 import type { ChemSettings } from '../settings';
 import { bufferNamed, BUFFER_NAMES, type BufferSystem } from '../solution/buffers';
 import { finding, tokens, type Token } from './tokens';
-import type { BatchLine } from './types';
+import type { BatchContext, BatchLine } from './types';
 import { unitIn, unitList, unitSpelled, type BatchUnit } from './units';
 
 /** A line as written (the blanks around it trimmed), with its absolute offsets. */
@@ -122,7 +122,7 @@ function locate({ text: raw, start }: BatchLine): Located | null {
 }
 
 /** Read a batch block's lines (stage 1). */
-export function readLines(lines: readonly BatchLine[], openName: string | null, settings: ChemSettings): ReadBatch {
+export function readLines(lines: readonly BatchLine[], openName: string | null, settings: ChemSettings, _context: BatchContext = {}): ReadBatch {
   const headers: BatchHeaders = { name: openName, volumeL: null, totalMassG: null, totalRange: null, pH: null, temperatureC: 25, temperatureGiven: false };
   const counted = new Set<HeaderKey>(openName ? ['name'] : []);
   const out: ReadBatch = { headers, lines: [], diagnostics: [] };

@@ -5,6 +5,7 @@ import type { SolubilityRow } from '../data/solubility';
 import type { ChemDiagnostic, DiagnosticCode } from '../diagnostic';
 import type { IonShare } from '../ions/dissociation';
 import type { BatchSolution, BufferDesign } from '../solution/types';
+import type { Shelf } from '../reagents';
 import type { AmountUnit } from './units';
 
 export type { AmountUnit } from './units';
@@ -113,4 +114,22 @@ export interface BatchAnalysis {
   solution: BatchSolution | null;
   /** Why there is no solution, where there is none. */
   noSolution?: string;
+}
+
+/** A batch of the same document that a line may take a stock from (`NiSO4 0.1 M from batch "Nickel stock"`). */
+export interface StockBatch {
+  name: string;
+  volumeL: number | null;
+  /** The stock's computed concentrations, by Hill formula of the substance (hydrate water excluded) and as written. */
+  ingredients: ReadonlyArray<{ formula: string; hill: string; anhydrousHill: string; concentrationM: number | null }>;
+}
+
+/**
+ * What a batch is read with besides its own lines: the lab's shelf (labels a line may name) and the other
+ * batches of the document (stocks a line may be diluted from). Both optional; without them a label or a
+ * stock reference is a finding on the line.
+ */
+export interface BatchContext {
+  shelf?: Shelf;
+  stockOf?: (name: string) => StockBatch | undefined;
 }
