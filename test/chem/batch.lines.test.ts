@@ -18,18 +18,18 @@ const NH4HF2 = 14.007 + 5 * 1.008 + 2 * 18.998;
 const Fe2SO43 = 2 * 55.845 + 3 * (32.06 + 4 * 15.999);
 
 /** An invented desmut bath whose two acid lines are written by volume, which this batch syntax cannot weigh. */
-const DESMUT = ['name: Desmut D-4', 'volume: 2 L', 'HNO3 120 mL @ 68%   # nitric, by volume', '(NH4)HF2 30 g', 'H2SO4 80 mL', 'Fe2(SO4)3 33 g'].join('\n');
+const DESMUT = ['name: Desmut D-4', 'volume: 2 L', 'HNO3 120 gal @ 68%   # nitric, by volume', '(NH4)HF2 30 g', 'H2SO4 80 gal', 'Fe2(SO4)3 33 g'].join('\n');
 
 describe('a desmut bath with two acid lines in error', () => {
   const b = batch(DESMUT);
 
   it('counts the two weighed salts and lists the two acid lines as not counted, with the reason', () => {
     expect(b.ingredients.map((i) => i.formulaText)).toEqual(['(NH4)HF2', 'Fe2(SO4)3']);
-    expect(b.skipped.map((s) => s.text)).toEqual(['HNO3 120 mL @ 68%   # nitric, by volume', 'H2SO4 80 mL']);
+    expect(b.skipped.map((s) => s.text)).toEqual(['HNO3 120 gal @ 68%   # nitric, by volume', 'H2SO4 80 gal']);
     for (const s of b.skipped) {
       expect(s.kind).toBe('ingredient');
       expect(s.code).toBe('batch-unit');
-      expect(s.reason).toContain("Unknown unit 'mL'");
+      expect(s.reason).toContain("Unknown unit 'gal'");
       expect(DESMUT.slice(s.lineStart, s.lineEnd)).toBe(s.text);
     }
     // 30 g + 33 g is what is weighed; the shares are of those 63 g only.
@@ -40,7 +40,7 @@ describe('a desmut bath with two acid lines in error', () => {
 
   it('keeps the diagnostics on the exact characters of each unit', () => {
     const units = b.diagnostics.filter((d) => d.code === 'batch-unit');
-    expect(units.map((d) => DESMUT.slice(d.start, d.end))).toEqual(['mL', 'mL']);
+    expect(units.map((d) => DESMUT.slice(d.start, d.end))).toEqual(['gal', 'gal']);
     expect(units.every((d) => d.severity === 'error')).toBe(true);
   });
 

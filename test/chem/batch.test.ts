@@ -128,7 +128,8 @@ describe('diagnostics on batch lines, on exact ranges', () => {
     ['NaCl 2 wt%', 'batch-no-total', '2 wt%'],
     ['volume: 1 L\nNaCl 5 g @ 120%', 'batch-amount', '@ 120%'],
     ['volume: 1 L\nNaCl 5 g extra', 'batch-syntax', 'extra'],
-    ['volume: 1 L\nH2SO4 10 mL', 'batch-unit', 'mL'],
+    ['volume: 1 L\nNaCl 10 mL', 'reagent-density', '10 mL'],
+    ['volume: 1 L\nNaCl 10 furlongs', 'batch-unit', 'furlongs'],
   ])('%j → %s on %j', (block, code, text) => {
     expect(at(block, code)).toBe(text);
   });

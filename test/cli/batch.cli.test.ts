@@ -20,9 +20,9 @@ const NOTE = [
   '```batch',
   'name: Desmut D-4',
   'volume: 2 L',
-  'HNO3 120 mL @ 68%',
+  'HNO3 120 gal @ 68%',
   '(NH4)HF2 30 g',
-  'H2SO4 80 mL',
+  'H2SO4 80 gal',
   'Fe2(SO4)3 33 g',
   '```',
   '',
@@ -43,8 +43,8 @@ describe('ionwright batch', () => {
     const r = cli(['batch', 'desmut.md'], dir);
     expect(r.status).toBe(1);
     expect(r.stdout).toContain('Desmut D-4, final volume 2 L — INCOMPLETE: 2 lines not counted');
-    expect(r.stdout).toContain("not counted: HNO3 120 mL @ 68% — Unknown unit 'mL'");
-    expect(r.stdout).toContain("not counted: H2SO4 80 mL — Unknown unit 'mL'");
+    expect(r.stdout).toContain("not counted: HNO3 120 gal @ 68% — Unknown unit 'gal'");
+    expect(r.stdout).toContain("not counted: H2SO4 80 gal — Unknown unit 'gal'");
     expect(r.stdout).toContain('HNO₃ (line not counted), H₂SO₄ (line not counted): strong acid');
     expect(r.stdout).toMatch(
       /^Ingredient +Amount +Molar mass \(g\/mol\) +To weigh \(g\) +Moles \(mol\) +Concentration \(M\) +Share of weighed mass +Share of total$/m,
@@ -55,10 +55,10 @@ describe('ionwright batch', () => {
     const r = cli(['batch', 'desmut.md', '--json'], dir);
     const [desmut, seal] = JSON.parse(r.stdout);
     expect(desmut.skipped.map((s: { line: number; text: string }) => [s.line, s.text])).toEqual([
-      [5, 'HNO3 120 mL @ 68%'],
-      [7, 'H2SO4 80 mL'],
+      [5, 'HNO3 120 gal @ 68%'],
+      [7, 'H2SO4 80 gal'],
     ]);
-    expect(desmut.skipped[0].reason).toContain("Unknown unit 'mL'");
+    expect(desmut.skipped[0].reason).toContain("Unknown unit 'gal'");
     expect(desmut.incomplete).toBe(true);
     expect(desmut.ingredients.map((i: { formula: string }) => i.formula)).toEqual(['(NH4)HF2', 'Fe2(SO4)3']);
     expect(desmut.ingredients[0].massFraction).toBeCloseTo(30 / 63, 9);
@@ -76,7 +76,7 @@ describe('ionwright table and check on the same notes', () => {
   it('table shows the same lines not counted', () => {
     const r = cli(['table', 'desmut.md'], dir);
     expect(r.stdout).toContain('**incomplete: 2 lines not counted**');
-    expect(r.stdout).toContain("- `H2SO4 80 mL` — Unknown unit 'mL'");
+    expect(r.stdout).toContain("- `H2SO4 80 gal` — Unknown unit 'gal'");
   });
 
   it('check reports a solubility warning on the amount', () => {

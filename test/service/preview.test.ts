@@ -166,7 +166,7 @@ describe('a batch block', () => {
 });
 
 describe('a batch with lines in error (an invented desmut bath whose acids are written by volume)', () => {
-  const src = '```batch\nname: Desmut D-4\nvolume: 2 L\nHNO3 120 mL @ 68%\n(NH4)HF2 30 g\nH2SO4 80 mL\nFe2(SO4)3 33 g\n```\n';
+  const src = '```batch\nname: Desmut D-4\nvolume: 2 L\nHNO3 120 gal @ 68%\n(NH4)HF2 30 g\nH2SO4 80 gal\nFe2(SO4)3 33 g\n```\n';
   const $ = dom(src);
   const fig = $('figure.iw-batch');
   const rows = fig.find('table.iw-table').first().find('tbody tr');
@@ -175,8 +175,8 @@ describe('a batch with lines in error (an invented desmut bath whose acids are w
     expect(fig.find('figcaption').text()).toContain('incomplete: 2 lines not counted');
     expect(rows.length).toBe(4);
     expect(rows.map((_, r) => $(r).hasClass('iw-skipped')).get()).toEqual([true, false, true, false]);
-    expect(rows.eq(0).find('td').first().text()).toMatch(/^HNO3 120 mL @ 68%/);
-    expect(rows.eq(0).find('td.iw-reason').text()).toMatch(/^not counted: Unknown unit 'mL'/);
+    expect(rows.eq(0).find('td').first().text()).toMatch(/^HNO3 120 gal @ 68%/);
+    expect(rows.eq(0).find('td.iw-reason').text()).toMatch(/^not counted: Unknown unit 'gal'/);
     expect(rows.eq(1).find('td').first().text()).toBe('(NH4)HF2');
     // 30 g of 63 g weighed.
     expect(parseFloat(rows.eq(1).find('td').last().text())).toBeCloseTo((30 / 63) * 100, 1);

@@ -62,11 +62,11 @@ describe('the HTML report', () => {
   });
 
   it('shows a batch with lines in error as incomplete, with every line, and keeps the caution of an acid not counted', () => {
-    const text = '# Desmut line\n\n```batch\nname: Desmut D-4\nvolume: 2 L\nHNO3 120 mL @ 68%\n(NH4)HF2 30 g\nFe2(SO4)3 33 g\n```\n';
+    const text = '# Desmut line\n\n```batch\nname: Desmut D-4\nvolume: 2 L\nHNO3 120 gal @ 68%\n(NH4)HF2 30 g\nFe2(SO4)3 33 g\n```\n';
     const page = load(reportHtml(analyseDocument(text, 'markdown'), { title: 'desmut.md', css: CSS, markdownIt: () => new MarkdownIt() }));
     const fig = page('#batches ~ figure.iw-batch').first();
     expect(fig.find('figcaption').text()).toContain('incomplete: 1 line not counted');
-    expect(fig.find('tr.iw-skipped td.iw-reason').text()).toMatch(/^not counted: Unknown unit 'mL'/);
+    expect(fig.find('tr.iw-skipped td.iw-reason').text()).toMatch(/^not counted: Unknown unit 'gal'/);
     expect(page('#cautions + .iw-cautions').text()).toContain('strong acid');
     const formulas = page('#formulas + table tbody tr .iw-formula')
       .map((_, e) => page(e).text())

@@ -112,31 +112,31 @@ describe('hover', () => {
 });
 
 describe('a batch with lines in error (an invented desmut bath whose acids are written by volume)', () => {
-  const DESMUT = '# Desmut\n\n```batch\nname: Desmut D-4\nvolume: 2 L\nHNO3 120 mL @ 68%\n(NH4)HF2 30 g\nH2SO4 80 mL\nFe2(SO4)3 33 g\n```\n';
+  const DESMUT = '# Desmut\n\n```batch\nname: Desmut D-4\nvolume: 2 L\nHNO3 120 gal @ 68%\n(NH4)HF2 30 g\nH2SO4 80 gal\nFe2(SO4)3 33 g\n```\n';
   const doc = analyseDocument(DESMUT, 'markdown');
 
   it('the summary hover counts what is counted, lists what is not with the reason, and keeps the acid caution', () => {
     const md = hoverAt(DESMUT.replace('```batch', '```ba|tch'))!;
     expect(md).toMatch(/^\*\*Desmut D-4\*\* · 2 ingredients, 2 lines not counted — incomplete · 63 g to weigh · 2 L/);
-    expect(md).toContain("- `HNO3 120 mL @ 68%` — Unknown unit 'mL'");
-    expect(md).toContain("- `H2SO4 80 mL` — Unknown unit 'mL'");
+    expect(md).toContain("- `HNO3 120 gal @ 68%` — Unknown unit 'gal'");
+    expect(md).toContain("- `H2SO4 80 gal` — Unknown unit 'gal'");
     expect(md).toContain('⚠ HNO₃ (line not counted), H₂SO₄ (line not counted): strong acid');
   });
 
   it('a hover on a line not counted says so, why, and its cautions, over the exact line', () => {
     const { doc: d, offset } = at(DESMUT.replace('H2SO4 80', 'H2S|O4 80'));
     const h = hover(d, offset)!;
-    expect(h.markdown).toMatch(/^`H2SO4 80 mL` — \*\*not counted\*\*/);
-    expect(h.markdown).toContain("Unknown unit 'mL'");
+    expect(h.markdown).toMatch(/^`H2SO4 80 gal` — \*\*not counted\*\*/);
+    expect(h.markdown).toContain("Unknown unit 'gal'");
     expect(h.markdown).toContain('strong acid');
-    expect(h.range).toEqual({ start: { line: 7, character: 0 }, end: { line: 7, character: 11 } });
+    expect(h.range).toEqual({ start: { line: 7, character: 0 }, end: { line: 7, character: 12 } });
   });
 
   it('the same in .fnote, indented, with the range on the line as written', () => {
-    const { doc: d, offset } = at('batch Desmut D-4\n  volume: 2 L\n  HN|O3 120 mL\nend\n', 'fnote');
+    const { doc: d, offset } = at('batch Desmut D-4\n  volume: 2 L\n  HN|O3 120 gal\nend\n', 'fnote');
     const h = hover(d, offset)!;
     expect(h.markdown).toContain('**not counted**');
-    expect(h.range).toEqual({ start: { line: 2, character: 2 }, end: { line: 2, character: 13 } });
+    expect(h.range).toEqual({ start: { line: 2, character: 2 }, end: { line: 2, character: 14 } });
   });
 
   it('the code lens and the outline say the batch is incomplete', () => {
@@ -150,7 +150,7 @@ describe('a batch with lines in error (an invented desmut bath whose acids are w
     const act = codeActions(doc, DESMUT.indexOf('(NH4)'), DESMUT.indexOf('(NH4)'), ['refactor']).find((a) => a.kind === 'refactor.rewrite')!;
     const out = applyEdits(DESMUT, act.edits);
     expect(out).toContain('**Desmut D-4, final volume 2 L** — **incomplete: 2 lines not counted** (computed by Ionwright)');
-    expect(out).toContain("- `HNO3 120 mL @ 68%` — Unknown unit 'mL'");
+    expect(out).toContain("- `HNO3 120 gal @ 68%` — Unknown unit 'gal'");
     expect(out).toContain('- HNO₃ (line not counted), H₂SO₄ (line not counted): strong acid');
   });
 

@@ -124,6 +124,31 @@ const CATALOGUE = {
     raisedBy: ['chem/solution'],
     description: 'A batch whose equilibrium the solver did not converge on: no pH or species are given.',
   },
+  'batch-name': {
+    severity: 'error',
+    raisedBy: ['chem/batch'],
+    description: 'An ingredient named in words that the tool cannot read as one substance, or reads only as a near name, which is never taken.',
+  },
+  'batch-stock': {
+    severity: 'error',
+    raisedBy: ['chem/batch'],
+    description: 'A dilution from a stock that cannot be made: a stock batch not found, without the substance or its concentration, or weaker than the target.',
+  },
+  'reagent-assay': {
+    severity: 'warning',
+    raisedBy: ['chem/batch'],
+    description: 'A reagent sold as a solution (hydrochloric acid, ammonia, bleach) given without its assay, or an assay the density table does not cover.',
+  },
+  'reagent-density': {
+    severity: 'error',
+    raisedBy: ['chem/batch'],
+    description: 'A liquid measured by volume whose density the tool does not know and the line or shelf does not give.',
+  },
+  'reagent-basis': {
+    severity: 'warning',
+    raisedBy: ['chem/batch'],
+    description: 'An amount whose meaning rests on a basis the line does not state (ppm as mg/L or mg/kg where they differ).',
+  },
   'batch-incompatible': {
     severity: 'warning',
     raisedBy: ['chem/safety'],

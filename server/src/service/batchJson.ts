@@ -53,8 +53,17 @@ export function batchJson(doc: AnalysedDocument, b: BatchOccurrence) {
       molarMass: r(i.molarMass, 6),
       moles: r(i.moles),
       massG: r(i.massG),
-      /** Volume of the reagent as supplied, for liquids measured by volume; every ingredient is weighed so far. */
-      volumeML: null,
+      /** Volume of the reagent as supplied to pour (liquids), or of the stock to take; null where weighed. */
+      volumeML: r(i.volumeML, 6),
+      measure: i.measure,
+      via: i.via,
+      ...(i.name ? { name: i.name } : {}),
+      ...(i.shelf ? { shelf: i.shelf } : {}),
+      ...(i.density ? { density: i.density } : {}),
+      ...(i.basis ? { basis: i.basis } : {}),
+      ...(i.stock ? { stock: i.stock } : {}),
+      ...(i.notes.length ? { notes: i.notes } : {}),
+      ...(i.handling.length ? { handling: i.handling } : {}),
       concentrationM: r(i.concentrationM),
       /** Share of the weighed mass (the counted ingredients), with or without `total:`. */
       massFraction: r(i.massFraction),

@@ -155,7 +155,21 @@ export function formulaColumns(s: ServiceSettings): Column<FormulaAnalysis>[] {
 // ── batches ───────────────────────────────────────────────────────────────
 
 /** An ingredient's amount as written, with its assay (`2.5 g @ 98 %`). */
-export const amountText = (i: Ingredient) => i.amount.text + (i.assay < 1 ? ` @ ${sig(i.assay * 100)} %` : '');
+export const amountText = (i: Ingredient) => i.amount.text + (i.assay < 1 ? ` @ ${sig(i.assay * 100)} %` : '') + (i.stock ? ` ${i.stock}` : '');
+
+/** What to measure out, in one phrase: `weigh 12.5 g`, `pour 10.0 mL (18.36 g)`, `take 33.3 mL of the stock`. */
+export function measureText(i: Ingredient): string {
+  if (i.measure === 'stock' && i.volumeML !== null) return `take ${mlText(i.volumeML)} of the stock`;
+  if (i.measure === 'pour' && i.volumeML !== null) return `pour ${mlText(i.volumeML)} (${sig(i.massG)} g)`;
+  return `weigh ${sig(i.massG)} g`;
+}
+
+/** A volume to pour, mL (µL below 0.1 mL, L from 10 L). */
+export function mlText(mL: number): string {
+  if (mL >= 10_000) return `${sig(mL / 1000)} L`;
+  if (mL < 0.1) return `${sig(mL * 1000)} µL`;
+  return `${sig(mL)} mL`;
+}
 
 /** A line of a batch in a table: a counted ingredient or a line not counted. */
 export type BatchRow = { ingredient: Ingredient; skipped?: undefined } | { skipped: SkippedLine; ingredient?: undefined };
@@ -192,17 +206,20 @@ export function batchColumns(b: BatchAnalysis, s: ServiceSettings, cell?: (i: In
     },
     { key: 'amount', head: 'Amount', align: 'left', text: n(amountText) },
     { key: 'molarMass', head: 'Molar mass (g/mol)', align: 'right', text: n((i) => molarMassText(i.molarMass, s)) },
-    { key: 'weigh', head: 'To weigh (g)', align: 'right', text: n((i) => sig(i.massG)) },
+    { key: 'weigh', head: 'To weigh (g)', align: 'right', text: n((i) => (i.measure === 'weigh' ? sig(i.massG) : `(${sig(i.massG)})`)) },
     { key: 'moles', head: 'Moles (mol)', short: 'mol', align: 'right', text: n((i) => sig(i.moles)) },
     { key: 'concentration', head: 'Concentration (M)', short: 'M', align: 'right', text: n((i) => sig(i.concentrationM)) },
     { key: 'share', head: 'Share of weighed mass', align: 'right', text: n((i) => percent(i.massFraction)) },
   ];
+  // Liquids poured and stocks taken: the volume to measure, in a column of its own where any line has one.
+  if (b.ingredients.some((i) => i.volumeML !== null))
+    cols.splice(4, 0, { key: 'pour', head: 'To pour (mL)', align: 'right', text: n((i) => (i.volumeML === null ? '' : sig(i.volumeML))) });
   if (b.totalMassG !== null) cols.push({ key: 'shareOfTotal', head: 'Share of total', align: 'right', text: n((i) => percent(i.fractionOfTotal)) });
   return cols;
 }
 
 /** The keys of the hover's compact batch table. */
-export const COMPACT_BATCH = ['ingredient', 'weigh', 'moles', 'concentration', 'share', 'shareOfTotal'] as const;
+export const COMPACT_BATCH = ['ingredient', 'weigh', 'pour', 'moles', 'concentration', 'share', 'shareOfTotal'] as const;
 
 /** The ions of a batch: each ion, its charge (true minus sign) and its concentration. */
 export const ION_COLUMNS: Columns<BatchIon> = [

@@ -8,7 +8,7 @@ import { element, isMetal } from '../chem/data/elements';
 import type { ReactionAnalysis } from '../chem/equation';
 import { nameOf } from '../chem/names';
 import { designationText, statesText, undeterminedText } from './card';
-import { COMPACT_BATCH, batchColumns, countedRows, markdownTable, pick } from './columns';
+import { COMPACT_BATCH, batchColumns, countedRows, markdownTable, mlText, pick } from './columns';
 import type { AnalysedDocument } from './document';
 import { chargeWords, energy, formulaText, massText, molarMassText, oxidationText, percent, perLitreText, sig, signed, volumeText } from './format';
 import { targetAt } from './lookup';
@@ -182,15 +182,29 @@ function bufferMarkdown(i: Ingredient, b: BatchAnalysis, s: ServiceSettings): st
 
 function ingredientMarkdown(i: Ingredient, b: BatchAnalysis, s: ServiceSettings): string {
   if (i.buffer) return bufferMarkdown(i, b, s);
-  const name = nameOf(i.analysis);
-  const lines = [`**${esc(i.formula)}**${name ? ` · ${esc(name)}` : ''} · ${esc(amountText(i))}`, ''];
-  const bits = [`weigh **${massText(i.massG)}**`, `${sig(i.moles)} mol`];
+  const name = i.name ?? nameOf(i.analysis);
+  const label = i.shelf ? `shelf: ${i.shelf.label} · ` : '';
+  const lines = [`${esc(label)}**${esc(i.formula)}**${name ? ` · ${esc(name)}` : ''} · ${esc(amountText(i))}`, ''];
+  const bits =
+    i.measure === 'pour' && i.volumeML !== null
+      ? [`pour **${esc(mlText(i.volumeML))}**${i.assay < 1 ? ` of the ${sig(i.assay * 100)} % reagent` : ''} (${massText(i.massG)})`, `${sig(i.moles)} mol`]
+      : i.measure === 'stock' && i.volumeML !== null
+        ? [`take **${esc(mlText(i.volumeML))}** of the stock (${esc(i.stock ?? '')})`, `${sig(i.moles)} mol`]
+        : [`weigh **${massText(i.massG)}**`, `${sig(i.moles)} mol`];
   if (i.concentrationM !== null) bits.push(`**${sig(i.concentrationM)} M** in ${volumeText(b.volumeL as number)}`);
   if (i.massFraction !== null) bits.push(`${fractionText(i.massFraction)} of the weighed mass`);
   if (i.fractionOfTotal !== null && b.totalMassG !== null) bits.push(`${fractionText(i.fractionOfTotal)} of the total ${sig(b.totalMassG)} g`);
   lines.push(bits.join(' · '), '');
   const solved = solvedText(i);
   if (solved) lines.push(esc(solved), '');
+  if (i.basis) lines.push(`Worked out: ${esc(i.basis)}`, '');
+  if (i.density) lines.push(`Density used: ${esc(i.density)}; the label's value wins where it differs.`, '');
+  if (i.shelf)
+    lines.push(
+      `Shelf entry **${esc(i.shelf.label)}**: ${esc(i.shelf.substance)}${i.shelf.assayPercent !== undefined ? ` · assay ${sig(i.shelf.assayPercent)} %` : ''}${i.shelf.densityGPerML !== undefined ? ` · density ${sig(i.shelf.densityGPerML)} g/mL` : ''}${i.shelf.lot ? ` · lot ${esc(i.shelf.lot)}` : ''}${i.shelf.supplier ? ` · ${esc(i.shelf.supplier)}` : ''}`,
+      '',
+    );
+  for (const note of i.notes) lines.push(`_${esc(note)}_`, '');
   const pl = perLitre(i, b.volumeL);
   if (pl) {
     // The metal only where it says something the salt does not (not for a metal weighed as the element).
@@ -221,6 +235,7 @@ function ingredientMarkdown(i: Ingredient, b: BatchAnalysis, s: ServiceSettings)
       '',
       `_The batch is incomplete: ${notCountedText(b)} (hover the batch's opening line for the list); shares and totals are of the counted lines._`,
     );
+  if (i.handling.length) lines.push('', ...i.handling.map((h) => `⚠ ${esc(h)}`));
   if (i.cautions.length) lines.push('', ...cautionBlock(i.cautions));
   return lines.join('\n').trimEnd();
 }

@@ -10,6 +10,7 @@
  */
 import { cautionsFor } from '../cautions';
 import type { ChemDiagnostic, DiagnosticCode } from '../diagnostic';
+import { amountIn, dilution, handlingCautions, liquidOf, volumeFor, type ReagentFinding } from '../reagents';
 import type { BatchHeaders, BufferLine, IngredientLine, ReadBatch, SetAsideHeader } from './read';
 import { finding, hasError, type Token } from './tokens';
 import type { Ingredient, SkippedLine } from './types';
@@ -33,6 +34,20 @@ export interface CountedLine {
   buffer?: Ingredient['buffer'];
   /** A `to pH` line once solved. */
   solvedFor?: Ingredient['solvedFor'];
+  /** How it is measured out: weighed, poured (a liquid by volume), or taken from a stock. */
+  measure: 'weigh' | 'pour' | 'stock';
+  /** Volume of the reagent as supplied to pour, mL (a liquid), or of the stock to take. */
+  volumeML: number | null;
+  /** The density used for a liquid, and its source, in one line. */
+  density?: string;
+  /** How the amount was worked out, in one line (`25 g/L × 0.5 L = 12.5 g`). */
+  basis?: string;
+  /** What the amount rests on and the reading assumed, for the hover. */
+  notes: string[];
+  /** Handling cautions of a concentrated acid, base or solvent poured. */
+  handling: string[];
+  /** Findings a later look at the line adds (taken into the line's findings, then dropped). */
+  diagnosticsAdded?: ChemDiagnostic[];
 }
 
 export interface BatchAmounts {
@@ -124,14 +139,25 @@ function countLine(line: IngredientLine, headers: BatchHeaders): LineResult {
       massFraction: null,
       fractionOfTotal: null,
       pending: true,
+      measure: 'weigh',
+      volumeML: null,
+      notes: [...line.notes],
+      handling: [],
     };
     return { diagnostics, counted };
   }
-  const target = line.unitInfo && !hasError(diagnostics) && a.ok && M ? amountsOf(line, line.unitInfo, M, headers) : null;
+  const readable = !hasError(diagnostics) && a.ok && M;
+  let target: Measured | { error: ChemDiagnostic } | null = null;
+  if (readable && line.stock) target = fromStock(line, M, headers);
+  else if (readable && line.unitInfo) target = amountsOf(line, line.unitInfo, M, headers);
+  else if (readable && line.reagentUnit) target = reagentAmount(line, headers);
   if (target && 'error' in target) diagnostics = [...diagnostics, target.error];
   else if (target) {
     const amount = line.amount as Token;
     const unit = line.unit as Token;
+    const extra = target.findings ?? [];
+    if (extra.length) diagnostics = [...diagnostics, ...extra];
+    if (hasError(extra)) return { diagnostics, skipped: skippedIngredient(line, reasonOf(diagnostics)) };
     const counted: CountedLine = {
       line,
       molarMass: M as number,
@@ -141,7 +167,19 @@ function countLine(line: IngredientLine, headers: BatchHeaders): LineResult {
       concentrationM: headers.volumeL ? target.moles / headers.volumeL : null,
       massFraction: null,
       fractionOfTotal: null,
+      measure: target.measure ?? 'weigh',
+      volumeML: target.volumeML ?? null,
+      notes: [...line.notes, ...(target.notes ?? [])],
+      handling: target.handling ?? [],
     };
+    if (target.density) counted.density = target.density;
+    if (target.basis) counted.basis = target.basis;
+    if (counted.measure === 'weigh' && counted.volumeML === null) liquidVolume(counted);
+    else if (counted.measure === 'weigh') counted.measure = 'pour';
+    if (counted.diagnosticsAdded) {
+      diagnostics = [...diagnostics, ...counted.diagnosticsAdded];
+      delete counted.diagnosticsAdded;
+    }
     return { diagnostics, counted };
   }
   if (hasError(diagnostics)) return { diagnostics, skipped: skippedIngredient(line, reasonOf(diagnostics)) };
@@ -151,12 +189,7 @@ function countLine(line: IngredientLine, headers: BatchHeaders): LineResult {
 }
 
 /** Moles and mass to weigh of a line, once the volume and total are known; a target that cannot be met is an error on the line. */
-function amountsOf(
-  line: IngredientLine,
-  unit: BatchUnit,
-  M: number,
-  { volumeL, totalMassG }: BatchHeaders,
-): { moles: number; massG: number } | { error: ChemDiagnostic } {
+function amountsOf(line: IngredientLine, unit: BatchUnit, M: number, { volumeL, totalMassG }: BatchHeaders): Measured | { error: ChemDiagnostic } {
   const amount = line.amount as Token;
   const unitEnd = (line.unit as Token).end;
   if (unit.kind === 'mass') {
@@ -209,3 +242,173 @@ function skippedIngredient(line: IngredientLine, { reason, code }: { reason: str
 function skippedHeader({ source, finding: d }: SetAsideHeader): SkippedLine {
   return { kind: 'header', text: source.text, lineStart: source.start, lineEnd: source.end, reason: d.message, code: d.code, cautions: [] };
 }
+
+/** A line's amounts as measured out, with what they rest on. */
+interface Measured {
+  moles: number;
+  /** Mass of the reagent as supplied (the assay's share is the substance). */
+  massG: number;
+  measure?: CountedLine['measure'];
+  volumeML?: number;
+  density?: string;
+  basis?: string;
+  notes?: string[];
+  handling?: string[];
+  /** Findings on the line (warnings count it; an error sets it aside). */
+  findings?: ChemDiagnostic[];
+}
+
+/** The catalogue code of a reagent finding. */
+function codeOf(f: ReagentFinding): DiagnosticCode {
+  switch (f.kind) {
+    case 'unknown-liquid':
+      return 'reagent-density';
+    case 'assay-needed':
+      return 'reagent-assay';
+    case 'assay-range':
+    case 'measuring-precision':
+      return 'batch-amount';
+    case 'ppm-basis':
+      return 'reagent-basis';
+    case 'basis-missing':
+      return /total mass/.test(f.message) && !/final volume/.test(f.message) ? 'batch-no-total' : 'batch-no-volume';
+    case 'dilution-impossible':
+      return 'batch-stock';
+    case 'normality-role':
+      return 'batch-unit';
+    default:
+      return 'batch-amount';
+  }
+}
+
+/** The reagent findings as the line's findings (on `start`–`end`) and notes (the information ones). */
+function mapFindings(findings: readonly ReagentFinding[], start: number, end: number): { diagnostics: ChemDiagnostic[]; notes: string[]; handling: string[] } {
+  const out = { diagnostics: [] as ChemDiagnostic[], notes: [] as string[], handling: [] as string[] };
+  for (const f of findings) {
+    if (f.kind === 'handling') out.handling.push(f.message);
+    else if (f.severity === 'information') out.notes.push(f.message);
+    else out.diagnostics.push(finding(codeOf(f), start, end, f.message, f.severity));
+  }
+  return out;
+}
+
+/** An amount in a unit of chem/reagents (g/L, %w/v, %v/v, ppm, mol/kg, N, mL …). */
+function reagentAmount(line: IngredientLine, { volumeL, totalMassG }: BatchHeaders): Measured | { error: ChemDiagnostic } {
+  const amount = line.amount as Token;
+  const unit = line.unit as Token;
+  const u = line.reagentUnit as NonNullable<IngredientLine['reagentUnit']>;
+  const r = amountIn({
+    value: line.value,
+    unit: u.unit,
+    analysis: line.analysis,
+    batch: { volumeL, totalMassG, aqueous: true },
+    ...(line.role ? { role: line.role } : {}),
+    ...(line.assayPercent !== undefined ? { assayPercent: line.assayPercent } : {}),
+    ...(line.shelf?.densityGPerML !== undefined ? { densityGPerML: line.shelf.densityGPerML } : {}),
+  });
+  const mapped = mapFindings(r.findings, amount.start, unit.end);
+  if (!('moles' in r)) {
+    const error =
+      mapped.diagnostics.find((d) => d.severity === 'error') ?? finding('batch-unit', amount.start, unit.end, `${u.unit} cannot be read for this line.`);
+    return { error };
+  }
+  const poured = r.volumeML !== undefined && r.density;
+  // Poured: the mass of the reagent as supplied is its volume × density; weighed: the substance ÷ assay.
+  const massG = poured && r.density ? (r.volumeML as number) * r.density.gPerML : r.massG / line.assay;
+  const out: Measured = {
+    moles: r.moles,
+    massG,
+    basis: r.basis,
+    notes: mapped.notes,
+    handling: [...mapped.handling, ...(poured && r.density ? handlingCautions(line.analysis, r.density.assayPercent) : [])],
+    findings: mapped.diagnostics,
+  };
+  if (poured && r.density) {
+    out.measure = 'pour';
+    out.volumeML = r.volumeML as number;
+    out.density = r.density.text;
+  }
+  return out;
+}
+
+/** `from 1.5 M` / `from batch "…"`: the stock volume to take for the line's target. */
+function fromStock(line: IngredientLine, M: number, { volumeL }: BatchHeaders): Measured | { error: ChemDiagnostic } {
+  const stock = line.stock as NonNullable<IngredientLine['stock']>;
+  const unit = line.unit as Token;
+  const amount = line.amount as Token;
+  if (stock.kind === 'batch' && (stock.error || stock.value === null))
+    return { error: finding('batch-stock', stock.start, stock.end, stock.error ?? `The stock batch '${stock.batch}' gives no concentration.`) };
+  if (volumeL === null)
+    return {
+      error: finding(
+        'batch-no-volume',
+        amount.start,
+        stock.end,
+        `A dilution is made to the batch's final volume: add a line 'volume: 500 mL' or 'water to 500 mL'.`,
+      ),
+    };
+  const kind = line.unitInfo?.kind ?? line.reagentUnit?.kind;
+  if (kind !== 'concentration' && kind !== 'massPerVolume' && kind !== 'weightPerVolumePercent' && kind !== 'normality' && kind !== 'volumePercent')
+    return {
+      error: finding('batch-stock', amount.start, stock.end, `A dilution is made to a concentration (M, mM, g/L, %w/v, N); '${unit.text}' is not one.`),
+    };
+  const from = stock.kind === 'batch' ? { value: stock.value as number, unit: 'M' } : { value: stock.value, unit: stock.unit };
+  const r = dilution({ value: line.value, unit: unit.text }, from, volumeL, M);
+  const mapped = mapFindings(r.findings, stock.start, stock.end);
+  if (!('stockVolumeML' in r)) return { error: mapped.diagnostics[0] ?? finding('batch-stock', stock.start, stock.end, 'This dilution cannot be made.') };
+  const moles = r.moles ?? 0;
+  const notes = [...mapped.notes];
+  if (stock.kind === 'batch') notes.push(`Stock: batch '${stock.batch}' at ${Number(from.value.toPrecision(4))} M (its computed concentration).`);
+  return {
+    moles,
+    // The substance's mass in the stock taken: nothing is weighed.
+    massG: moles * M,
+    measure: 'stock',
+    volumeML: r.stockVolumeML,
+    basis: r.basis,
+    notes,
+    handling: [],
+    findings: mapped.diagnostics,
+  };
+}
+
+/**
+ * A line weighed, or a target, of a liquid reagent (an acid or base solution with its assay, a pure
+ * liquid): the volume to pour as well, with the density used. A reagent sold only as a solution and given
+ * without its assay gets a warning (its volume cannot be given); a solid (NaOH pellets) gets nothing.
+ */
+export function liquidVolume(c: CountedLine): void {
+  const { line } = c;
+  const m = liquidOf(line.analysis);
+  if (!m) return;
+  const given = line.assayPercent;
+  const solutionOnly = m.kind === 'aqueous' && !m.table.pureLiquid;
+  if (given === undefined && solutionOnly) {
+    if (line.solutionName || GAS_SOLUTIONS.has(m.table.id))
+      (c.diagnosticsAdded ??= []).push(
+        finding(
+          'reagent-assay',
+          line.formula.start,
+          (line.unit ?? line.formula).end,
+          `${line.name ?? line.analysis.display} is supplied as a solution in water: give its assay from the label (e.g. '@ ${TYPICAL[m.table.id] ?? '10'}%') to get the volume to pour; the amount is counted as the pure substance.`,
+          'warning',
+        ),
+      );
+    return;
+  }
+  const v = volumeFor(line.analysis, c.moles, given, line.shelf?.densityGPerML);
+  if (!('volumeML' in v)) return;
+  c.volumeML = v.volumeML;
+  c.density = v.density.text;
+  c.massG = v.solutionMassG;
+  c.measure = 'pour';
+  c.handling = [...c.handling, ...v.cautions];
+  const mapped = mapFindings(v.findings, line.formula.start, line.formula.end);
+  c.notes.push(...mapped.notes);
+  c.handling.push(...mapped.handling);
+}
+
+/** Reagents that are gases or unstable as pure substances: sold only as solutions (their assay matters). */
+const GAS_SOLUTIONS = new Set(['hydrochloric', 'ammonia', 'hydrofluoric', 'hydrogen-peroxide']);
+/** The usual assay of the concentrated reagent, for a message's example (common practice). */
+const TYPICAL: Record<string, string> = { hydrochloric: '37', ammonia: '25', hydrofluoric: '48', 'hydrogen-peroxide': '30' };

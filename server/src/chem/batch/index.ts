@@ -122,11 +122,29 @@ function assemble(
       fractionOfTotal: c.fractionOfTotal,
       ions: d.ions,
       cautions: checks.cautions[k],
+      measure: c.measure,
+      volumeML: c.volumeML,
+      via: line.via,
+      notes: c.notes,
+      handling: c.handling,
     };
     if (d.undissociated) out.undissociated = d.undissociated;
     if (solubility) out.solubility = solubility;
     if (c.solvedFor) out.solvedFor = c.solvedFor;
     if (c.buffer) out.buffer = c.buffer;
+    if (line.name) out.name = line.name;
+    if (line.shelf) {
+      const e = line.shelf;
+      const shelf: NonNullable<Ingredient['shelf']> = { label: e.label, substance: e.substance.text };
+      if (e.assayPercent !== undefined) shelf.assayPercent = e.assayPercent;
+      if (e.densityGPerML !== undefined) shelf.densityGPerML = e.densityGPerML;
+      if (e.lot) shelf.lot = e.lot;
+      if (e.supplier) shelf.supplier = e.supplier;
+      out.shelf = shelf;
+    }
+    if (c.density) out.density = c.density;
+    if (c.basis) out.basis = c.basis;
+    if (line.stock) out.stock = line.stock.text;
     return out;
   });
   const notes = [solution.solution ? NOMINAL_NOTE : MODEL_NOTE];

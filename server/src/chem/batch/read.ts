@@ -7,14 +7,16 @@
  *
  * A header given twice: the first one that can be read counts; a later one is set aside with a warning.
  */
-import { analyseFormula, type FormulaAnalysis } from '../analyse';
-import { shiftDiagnostic, type ChemDiagnostic } from '../diagnostic';
-import { joinSpacedAdduct } from '../formula/spaced';
+import type { FormulaAnalysis } from '../analyse';
+import type { ChemDiagnostic } from '../diagnostic';
+import { reagentUnit, REAGENT_UNITS, type EquivalentRole, type ReagentUnit, type ShelfEntry } from '../reagents';
 import type { ChemSettings } from '../settings';
 import { bufferNamed, BUFFER_NAMES, type BufferSystem } from '../solution/buffers';
 import { finding, tokens, type Token } from './tokens';
 import type { BatchContext, BatchLine } from './types';
-import { unitIn, unitList, unitSpelled, type BatchUnit } from './units';
+import { anhydrousOf } from './solubility';
+import { readSubstance } from './substance';
+import { unitIn, unitList, type BatchUnit } from './units';
 
 /** A line as written (the blanks around it trimmed), with its absolute offsets. */
 export interface SourceLine {
@@ -45,7 +47,30 @@ export interface IngredientLine {
   solveFor?: { pH: number; start: number; end: number };
   /** This line's findings (absolute offsets). */
   diagnostics: ChemDiagnostic[];
+  /** How the substance was written: a formula, a name, a shelf label. */
+  via: 'formula' | 'name' | 'shelf';
+  /** A name read exactly: the name as the tool writes it. */
+  name?: string;
+  /** A shelf label: its entry (formula, assay, density, lot). */
+  shelf?: ShelfEntry;
+  /** A name of a solution (bleach): the assay must be given. */
+  solutionName?: { typical: string };
+  /** What the reading of the substance assumed. */
+  notes: string[];
+  /** The assay as given (`@ 37%` or the shelf's), in percent; undefined where none was given. */
+  assayPercent?: number;
+  /** A unit of chem/reagents (g/L, %w/v, N, mL …) where the batch units do not have it. */
+  reagentUnit?: ReagentUnit;
+  /** Normality: the role its equivalents are counted by (`0.1 N acid`). */
+  role?: EquivalentRole;
+  /** `from <value> <unit>` or `from batch "<name>"`: a dilution of a stock. */
+  stock?: StockRef;
 }
+
+/** Where a line's stock comes from. */
+export type StockRef =
+  | { kind: 'value'; value: number; unit: string; text: string; start: number; end: number }
+  | { kind: 'batch'; batch: string; value: number | null; error?: string; text: string; start: number; end: number };
 
 /** A buffer line: `[sodium|potassium] <system> buffer <total> <M|mM> to pH <value>`. */
 export interface BufferLine {
@@ -122,16 +147,25 @@ function locate({ text: raw, start }: BatchLine): Located | null {
 }
 
 /** Read a batch block's lines (stage 1). */
-export function readLines(lines: readonly BatchLine[], openName: string | null, settings: ChemSettings, _context: BatchContext = {}): ReadBatch {
+export function readLines(lines: readonly BatchLine[], openName: string | null, settings: ChemSettings, context: BatchContext = {}): ReadBatch {
   const headers: BatchHeaders = { name: openName, volumeL: null, totalMassG: null, totalRange: null, pH: null, temperatureC: 25, temperatureGiven: false };
   const counted = new Set<HeaderKey>(openName ? ['name'] : []);
   const out: ReadBatch = { headers, lines: [], diagnostics: [] };
   for (const line of lines) {
     const at = locate(line);
     if (!at) continue;
+    const makeUp = MAKE_UP.exec(at.trimmed);
+    if (makeUp) {
+      const setAside = readMakeUp(headers, counted, makeUp, at);
+      if (setAside) {
+        out.diagnostics.push(setAside);
+        out.lines.push({ kind: 'header', source: at.source, finding: setAside });
+      }
+      continue;
+    }
     const header = HEADER.exec(at.trimmed);
     if (!header) {
-      out.lines.push(bufferWord(at) ? readBuffer(at) : readIngredient(at, settings));
+      out.lines.push(bufferWord(at) ? readBuffer(at) : readIngredient(at, settings, context));
       continue;
     }
     const setAside = readHeader(headers, counted, openName, header, at);
@@ -141,6 +175,34 @@ export function readLines(lines: readonly BatchLine[], openName: string | null, 
     }
   }
   return out;
+}
+
+/**
+ * `water to 1 L`, `make up to 500 mL with water`: the final volume, as a `volume:` header says it. Where a
+ * `volume:` is given as well, the two must agree.
+ */
+const MAKE_UP =
+  /^(?:(?:(?:DI|deionised|deionized|distilled|purified|demineralised|demineralized)\s+)?water\s+to|make\s+up\s+to|made\s+up\s+to|top\s+up\s+to|fill\s+to)\s+(.*?)(\s+with\s+\S.*)?$/i;
+
+function readMakeUp(headers: BatchHeaders, counted: Set<HeaderKey>, m: RegExpExecArray, at: Located): ChemDiagnostic | null {
+  const valueText = m[1];
+  const valueStart = at.lineStart + at.trimmed.indexOf(valueText, at.trimmed.length - valueText.length - (m[2]?.length ?? 0));
+  if (!valueText.trim()) return finding('batch-amount', at.lineStart, at.lineEnd, `'${at.trimmed}' needs the volume to make up to, e.g. 'water to 1 L'.`);
+  const read = readHeaderValue('volume', valueText, valueStart, at.lineStart, at.lineEnd);
+  if ('error' in read) return read.error;
+  if (counted.has('volume')) {
+    if (headers.volumeL !== null && Math.abs(read.value - headers.volumeL) <= 1e-9 * headers.volumeL) return null;
+    return finding(
+      'batch-header',
+      at.lineStart,
+      at.lineEnd,
+      `The batch is made up to ${valueText.trim()} here, but its final volume is already ${headers.volumeL} L; the first one counts.`,
+      'warning',
+    );
+  }
+  counted.add('volume');
+  headers.volumeL = read.value;
+  return null;
 }
 
 /** Take a header into `headers` where it is the first readable one of its key; else the finding that sets it aside. */
@@ -263,13 +325,11 @@ function readHeaderValue(
   return { value: v * u.factor };
 }
 
-/** An ingredient line: its formula (always analysed, for its findings and cautions), amount, unit and assay. */
-function readIngredient(at: Located, settings: ChemSettings): IngredientLine {
-  // A hydrate written with spaces around its dot (`CuSO4 · 5H2O`) is one formula, as on a card.
-  const [formula, amount, unit, ...rest] = joinSpacedAdduct(tokens(at.text, at.base), at.text, at.base);
-  const analysis = analyseFormula(formula.text, settings);
-  const diagnostics: ChemDiagnostic[] = [];
-  for (const d of analysis.diagnostics) if (d.severity !== 'information') diagnostics.push(shiftDiagnostic(d, formula.start));
+/** An ingredient line: its substance (always analysed, for its findings and cautions), amount, unit and what follows. */
+function readIngredient(at: Located, settings: ChemSettings, context: BatchContext): IngredientLine {
+  const sub = readSubstance(at.text, at.base, settings, context);
+  const { formula, analysis } = sub;
+  const [amount, unit, ...rest] = sub.rest;
   const line: IngredientLine = {
     kind: 'ingredient',
     source: at.source,
@@ -279,22 +339,34 @@ function readIngredient(at: Located, settings: ChemSettings): IngredientLine {
     analysis,
     value: NaN,
     assay: 1,
-    diagnostics,
+    diagnostics: sub.diagnostics,
+    via: sub.via,
+    notes: sub.notes,
   };
+  if (sub.name) line.name = sub.name;
+  if (sub.solution) line.solutionName = sub.solution;
+  if (sub.shelf) {
+    line.shelf = sub.shelf;
+    if (sub.shelf.assayPercent !== undefined) {
+      line.assayPercent = sub.shelf.assayPercent;
+      line.assay = sub.shelf.assayPercent / 100;
+    }
+  }
+  const diagnostics = line.diagnostics;
   if (!amount)
     diagnostics.push(finding('batch-amount', formula.start, formula.end, `'${formula.text}' needs an amount and a unit, e.g. '${formula.text} 5.0 g'.`));
-  else if (amount.text.toLowerCase() === 'to' && unit && /^ph/i.test(unit.text)) readPHTarget(line, amount, unit, rest);
-  else readQuantity(line, amount, unit, rest);
+  else if (amount.text.toLowerCase() === 'to' && unit && /^ph/i.test(unit.text)) readPHTarget(line, amount, unit, rest, context);
+  else readQuantity(line, amount, unit, rest, context);
   return line;
 }
 
 /** `to pH <value> [@ assay%]`: the pH the amount is solved for, into `line`. */
-function readPHTarget(line: IngredientLine, to: Token, ph: Token, rest: Token[]): void {
+function readPHTarget(line: IngredientLine, to: Token, ph: Token, rest: Token[], context: BatchContext): void {
   const target = readPH(to, ph, rest, line.diagnostics);
   if (!target) return;
   line.solveFor = target.at;
   line.amount = { text: `to pH ${target.text}`, start: to.start, end: target.at.end };
-  if (target.rest.length) readAssay(line, target.rest);
+  if (target.rest.length) readTail(line, target.rest, context, false);
 }
 
 /** `to pH <value>` from its tokens (the value may be glued: `pH7.0`); the findings into `diagnostics`. */
@@ -385,13 +457,13 @@ function readBuffer(at: Located): BufferLine {
 }
 
 /** The amount, unit and assay after the formula, into `line` (its findings too). */
-function readQuantity(line: IngredientLine, amount: Token, unitTok: Token | undefined, rest: Token[]): void {
+function readQuantity(line: IngredientLine, amount: Token, unitTok: Token | undefined, rest: Token[], context: BatchContext): void {
   const { formula, diagnostics } = line;
   let amountTok = amount;
   let unit = unitTok;
   // `5g`, `2wt%`: the number and the unit written together.
-  const glued = /^((?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?)((?:wt)?%|[A-Za-zµ/]+)$/.exec(amount.text);
-  if (glued && (!unitTok || unitTok.text.startsWith('@'))) {
+  const glued = /^((?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?)((?:wt)?%(?:[wv]\/[wv])?|[A-Za-zµ/]+)$/.exec(amount.text);
+  if (glued && (!unitTok || unitTok.text.startsWith('@') || /^(?:from|acid|base|redox|ion|as)$/i.test(unitTok.text))) {
     amountTok = { text: glued[1], start: amount.start, end: amount.start + glued[1].length };
     unit = { text: glued[2], start: amountTok.end, end: amount.end };
     if (unitTok) rest.unshift(unitTok);
@@ -423,37 +495,160 @@ function readQuantity(line: IngredientLine, amount: Token, unitTok: Token | unde
     return;
   }
   line.value = value;
-  if (readUnit(line, amountTok, unit) && rest.length) readAssay(line, rest);
+  // A unit of two words (`% w/v`, `ppm w/w`).
+  if (unit && rest.length && !unitIn('ingredient', unit.text) && !reagentUnit(unit.text) && reagentUnit(`${unit.text} ${rest[0].text}`)) {
+    const second = rest.shift() as Token;
+    unit = { text: `${unit.text} ${second.text}`, start: unit.start, end: second.end };
+  }
+  if (readUnit(line, amountTok, unit) && rest.length) readTail(line, rest, context, true);
 }
+
+/** Every unit an ingredient line may be given in, for the messages (made once). */
+let INGREDIENT_UNITS: string | undefined;
+const ingredientUnits = () =>
+  (INGREDIENT_UNITS ??= `${unitList('ingredient').replace(' or ', ', ')}, ${REAGENT_UNITS.filter(
+    (u) => !u.unit.includes(' ') && u.unit !== 'kg/L' && u.unit !== 'µg/L',
+  )
+    .map((u) => u.unit)
+    .join(', ')}`);
 
 /** The unit after the amount, into `line`; false where it is missing or not a unit of an ingredient. */
 function readUnit(line: IngredientLine, amount: Token, unit: Token | undefined): boolean {
-  const units = unitList('ingredient');
   if (!unit) {
-    line.diagnostics.push(finding('batch-unit', amount.start, amount.end, `'${amount.text}' needs a unit: ${units}.`));
+    line.diagnostics.push(finding('batch-unit', amount.start, amount.end, `'${amount.text}' needs a unit: ${ingredientUnits()}.`));
     return false;
   }
   const u = unitIn('ingredient', unit.text);
-  if (!u) {
-    const hint = unitSpelled(unit.text)?.kind === 'volume' ? ' A volume of a liquid needs its density; give the mass or the amount instead.' : '';
-    line.diagnostics.push(finding('batch-unit', unit.start, unit.end, `Unknown unit '${unit.text}'; use ${units}.${hint}`));
-    return false;
+  if (u) {
+    line.unit = { text: u.unit, start: unit.start, end: unit.end };
+    line.unitInfo = u;
+    return true;
   }
-  line.unit = { text: u.unit, start: unit.start, end: unit.end };
-  line.unitInfo = u;
-  return true;
+  const r = reagentUnit(unit.text);
+  if (r) {
+    line.unit = { text: r.unit, start: unit.start, end: unit.end };
+    line.reagentUnit = r;
+    return true;
+  }
+  line.diagnostics.push(finding('batch-unit', unit.start, unit.end, `Unknown unit '${unit.text}'; use ${ingredientUnits()}.`));
+  return false;
 }
 
-/** An assay (`@ 99.5%`) after the unit, into `line`; anything else there is a finding. */
-function readAssay(line: IngredientLine, rest: Token[]): void {
-  const restText = rest.map((r) => r.text).join(' ');
-  const m = /^@\s*((?:\d+(?:\.\d*)?|\.\d+))\s*%$/.exec(restText);
-  const first = rest[0];
-  const last = rest[rest.length - 1];
-  if (!m) line.diagnostics.push(finding('batch-syntax', first.start, last.end, `Unexpected '${restText}' after the amount; an assay is written '@ 99.5%'.`));
-  else {
-    const pct = Number(m[1]);
-    if (!(pct > 0 && pct <= 100)) line.diagnostics.push(finding('batch-amount', first.start, last.end, `Assay ${m[1]} % must be above 0 and at most 100.`));
-    else line.assay = pct / 100;
+const ROLES = new Set(['acid', 'base', 'redox', 'ion']);
+
+/**
+ * What may follow the amount, in any order: an assay (`@ 96%`), a stock to dilute (`from 1.5 M`,
+ * `from batch "Acid stock"`), and for a normality the role its equivalents are counted by (`acid`,
+ * `as base`). Anything else is a finding on its characters.
+ */
+function readTail(line: IngredientLine, rest: Token[], context: BatchContext, stockAllowed: boolean): void {
+  const d = line.diagnostics;
+  let i = 0;
+  const unexpected = (from: number, what: string) => {
+    const r = rest.slice(from);
+    d.push(finding('batch-syntax', r[0].start, r[r.length - 1].end, `Unexpected '${r.map((t) => t.text).join(' ')}' after the amount; ${what}.`));
+  };
+  while (i < rest.length) {
+    const t = rest[i];
+    const word = t.text.toLowerCase();
+    if (t.text.startsWith('@')) {
+      // `@ 96%`, `@96%`, `@ 96 %`
+      let j = i;
+      let text = t.text;
+      while (!/%$/.test(text) && j + 1 < rest.length && j - i < 2) text += rest[++j].text;
+      const m = /^@((?:\d+(?:\.\d*)?|\.\d+))%$/.exec(text);
+      if (!m) {
+        d.push(finding('batch-syntax', t.start, rest[j].end, `An assay is written '@ 99.5%'.`));
+        return;
+      }
+      const pct = Number(m[1]);
+      if (!(pct > 0 && pct <= 100)) d.push(finding('batch-amount', t.start, rest[j].end, `Assay ${m[1]} % must be above 0 and at most 100.`));
+      else {
+        if (line.shelf?.assayPercent !== undefined && line.shelf.assayPercent !== pct)
+          line.notes.push(`The line's assay (${pct} %) is used, not the shelf entry's (${line.shelf.assayPercent} %).`);
+        line.assay = pct / 100;
+        line.assayPercent = pct;
+      }
+      i = j + 1;
+      continue;
+    }
+    if (word === 'from' && stockAllowed) {
+      const used = readStock(line, rest, i, context);
+      if (used < 0) return;
+      i = used;
+      continue;
+    }
+    if (line.reagentUnit?.kind === 'normality' && (ROLES.has(word) || (word === 'as' && ROLES.has(rest[i + 1]?.text.toLowerCase() ?? '')))) {
+      if (word === 'as') i++;
+      line.role = rest[i].text.toLowerCase() as EquivalentRole;
+      i++;
+      continue;
+    }
+    unexpected(i, stockAllowed ? `after it may come an assay ('@ 96%') or a stock ('from 1.5 M', 'from batch "Acid stock"')` : `an assay is written '@ 99.5%'`);
+    return;
   }
+}
+
+/** `from <value> <unit>` or `from batch "<name>"` at `rest[i]`; the index after it, or −1 after a finding. */
+function readStock(line: IngredientLine, rest: Token[], i: number, context: BatchContext): number {
+  const d = line.diagnostics;
+  const from = rest[i];
+  const next = rest[i + 1];
+  if (!next) {
+    d.push(finding('batch-stock', from.start, from.end, `'from' needs the stock: 'from 1.5 M' or 'from batch "Acid stock"'.`));
+    return -1;
+  }
+  if (next.text.toLowerCase() === 'batch') {
+    // The name in quotes, which may hold blanks: joined from the tokens up to the closing quote.
+    let j = i + 2;
+    let text = rest[j]?.text ?? '';
+    while (j + 1 < rest.length && !(text.length > 1 && /["”»']$/.test(text))) text += ' ' + rest[++j].text;
+    const m = /^["“«']([^"”»']+)["”»']$/.exec(text);
+    if (!m) {
+      d.push(finding('batch-stock', from.start, (rest[j] ?? next).end, `A stock batch is named in quotes: 'from batch "Acid stock"'.`));
+      return -1;
+    }
+    const name = m[1].trim();
+    const start = from.start;
+    const end = rest[j].end;
+    const stock = context.stockOf?.(name);
+    const ref: StockRef = { kind: 'batch', batch: name, value: null, text: `from batch "${name}"`, start, end };
+    line.stock = ref;
+    if (!stock) ref.error = `No batch named '${name}' in this document to take the stock from.`;
+    else if (stock.volumeL === null) ref.error = `The stock batch '${name}' has no final volume, so it has no concentration to dilute from.`;
+    else {
+      const hill = line.analysis.hill;
+      const anhydrous = anhydrousHillOf(line.analysis);
+      const found = stock.ingredients.find((s) => s.hill === hill || s.anhydrousHill === anhydrous);
+      if (!found || found.concentrationM === null)
+        ref.error = `The stock batch '${name}' has no ${line.analysis.display}${stock.ingredients.length ? ` (it has ${stock.ingredients.map((s) => s.formula).join(', ')})` : ''}.`;
+      else ref.value = found.concentrationM;
+    }
+    return j + 1;
+  }
+  // `from 1.5 M`, `from 1.5M`, `from 250 g/L`
+  let num = next;
+  let unit = rest[i + 2];
+  let used = i + 3;
+  const glued = /^((?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?)([A-Za-zµ/%]+)$/.exec(next.text);
+  if (glued) {
+    num = { text: glued[1], start: next.start, end: next.start + glued[1].length };
+    unit = { text: glued[2], start: num.end, end: next.end };
+    used = i + 2;
+  }
+  const value = NUMBER.test(num.text) ? Number(num.text) : NaN;
+  if (!(value > 0) || !unit) {
+    d.push(finding('batch-stock', from.start, (unit ?? next).end, `'from' needs the stock's concentration: 'from 1.5 M' or 'from 250 g/L'.`));
+    return -1;
+  }
+  let unitText = unit.text;
+  if (unitText === '%' && rest[used] && /^[wv]\/v$/.test(rest[used].text)) unitText += rest[used++].text;
+  const u = unitIn('ingredient', unitText)?.unit ?? reagentUnit(unitText)?.unit ?? unitText;
+  line.stock = { kind: 'value', value, unit: u, text: `from ${num.text} ${u}`, start: from.start, end: rest[used - 1].end };
+  return used;
+}
+
+/** The Hill formula without water of crystallisation (what a stock's concentration is of). */
+function anhydrousHillOf(a: FormulaAnalysis): string {
+  return anhydrousOf(a)?.hill ?? a.hill;
 }

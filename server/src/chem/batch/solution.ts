@@ -15,7 +15,7 @@ import { DEFAULT_PH_TOLERANCE, type ChemSettings } from '../settings';
 import { batchSolution, componentsOf, designBuffer, oversaturated, solveForPH, type SolutionIngredient } from '../solution/batch';
 import { formsASolid } from '../solution/system';
 import type { BatchSolution } from '../solution/types';
-import { reasonOf, skippedLine, type BatchAmounts, type CountedLine } from './amounts';
+import { liquidVolume, reasonOf, skippedLine, type BatchAmounts, type CountedLine } from './amounts';
 import type { BatchHeaders, BufferLine, IngredientLine } from './read';
 import { finding } from './tokens';
 
@@ -110,6 +110,12 @@ export function solutionStage(amounts: BatchAmounts, headers: BatchHeaders, sett
       c.concentrationM = r.moles / V;
       c.pending = false;
       c.solvedFor = { targetPH: target.pH, pH: r.pH };
+      // A liquid reagent solved for (NaOH @ 50%, HCl @ 37%): the volume to pour too.
+      liquidVolume(c);
+      if (c.diagnosticsAdded) {
+        for (const d of c.diagnosticsAdded) diagnostics.push(d);
+        delete c.diagnosticsAdded;
+      }
       fixed.push({ analysis: c.line.analysis, moles: r.moles });
       return;
     }
@@ -148,6 +154,8 @@ export function solutionStage(amounts: BatchAmounts, headers: BatchHeaders, sett
         value: total.valueM,
         assay: 1,
         diagnostics: [],
+        via: 'formula',
+        notes: [],
       };
       amounts.counted.push({
         line,
@@ -159,6 +167,10 @@ export function solutionStage(amounts: BatchAmounts, headers: BatchHeaders, sett
         massFraction: null,
         fractionOfTotal: null,
         buffer: { role, design },
+        measure: 'weigh',
+        volumeML: null,
+        notes: [],
+        handling: [],
       });
       fixed.push({ analysis, moles: form.moles });
     }

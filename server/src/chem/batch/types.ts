@@ -61,6 +61,26 @@ export interface Ingredient {
   solvedFor?: { targetPH: number; pH: number };
   /** One of a buffer line's two forms, with the line's design. */
   buffer?: { role: 'acid' | 'base'; design: BufferDesign };
+  /** How it is measured out: weighed, poured (a liquid by volume), or taken from a stock. */
+  measure: 'weigh' | 'pour' | 'stock';
+  /** Volume of the reagent as supplied to pour (a liquid), or of the stock to take, mL; null where weighed. */
+  volumeML: number | null;
+  /** How the substance was written on the line: a formula, a name, a shelf label. */
+  via: 'formula' | 'name' | 'shelf';
+  /** The name the line gave, as the tool writes it (a name read exactly). */
+  name?: string;
+  /** The shelf entry a label named. */
+  shelf?: { label: string; substance: string; assayPercent?: number; densityGPerML?: number; lot?: string; supplier?: string };
+  /** The density used for a liquid and its source, in one line. */
+  density?: string;
+  /** How the amount was worked out, in one line. */
+  basis?: string;
+  /** A dilution: the stock it is taken from (`from 1.5 M`, `from batch "Acid stock"`). */
+  stock?: string;
+  /** What the reading and the amount rest on (assumptions, the role of a normality, lookalike names). */
+  notes: string[];
+  /** Handling cautions of a concentrated reagent poured. */
+  handling: string[];
 }
 
 /** A line of the block that is not counted, and why. */
