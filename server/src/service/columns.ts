@@ -157,6 +157,9 @@ export function formulaColumns(s: ServiceSettings): Column<FormulaAnalysis>[] {
 /** An ingredient's amount as written, with its assay (`2.5 g @ 98 %`). */
 export const amountText = (i: Ingredient) => i.amount.text + (i.assay < 1 ? ` @ ${sig(i.assay * 100)} %` : '') + (i.stock ? ` ${i.stock}` : '');
 
+/** A name or shelf label as the line wrote it, after the formula it was read as (` (borax)`); empty for a formula. */
+export const asWritten = (i: Ingredient) => (i.via === 'formula' ? '' : ` (${i.formulaText})`);
+
 /** What to measure out, in one phrase: `weigh 12.5 g`, `pour 10.0 mL (18.36 g)`, `take 33.3 mL of the stock`. */
 export function measureText(i: Ingredient): string {
   if (i.measure === 'stock' && i.volumeML !== null) return `take ${mlText(i.volumeML)} of the stock`;
@@ -198,10 +201,10 @@ export function batchColumns(b: BatchAnalysis, s: ServiceSettings, cell?: (i: In
       key: 'ingredient',
       head: 'Ingredient',
       align: 'left',
-      text: (r) => (r.ingredient ? r.ingredient.formula : r.skipped.text),
+      text: (r) => (r.ingredient ? r.ingredient.formula + asWritten(r.ingredient) : r.skipped.text),
       html: (r) =>
         r.ingredient
-          ? html`${r.ingredient.analysis.ok ? formulaSpan(r.ingredient.analysis, s) : r.ingredient.formulaText}${cell?.(r.ingredient)}`
+          ? html`${r.ingredient.analysis.ok ? formulaSpan(r.ingredient.analysis, s) : r.ingredient.formulaText}${asWritten(r.ingredient)}${cell?.(r.ingredient)}`
           : html`<code>${r.skipped.text}</code>`,
     },
     { key: 'amount', head: 'Amount', align: 'left', text: n(amountText) },

@@ -304,7 +304,7 @@ function reagentAmount(line: IngredientLine, { volumeL, totalMassG }: BatchHeade
     batch: { volumeL, totalMassG, aqueous: true },
     ...(line.role ? { role: line.role } : {}),
     ...(line.assayPercent !== undefined ? { assayPercent: line.assayPercent } : {}),
-    ...(line.shelf?.densityGPerML !== undefined ? { densityGPerML: line.shelf.densityGPerML } : {}),
+    ...(line.densityGPerML !== undefined ? { densityGPerML: line.densityGPerML } : {}),
   });
   const mapped = mapFindings(r.findings, amount.start, unit.end);
   if (!('moles' in r)) {
@@ -396,7 +396,7 @@ export function liquidVolume(c: CountedLine): void {
       );
     return;
   }
-  const v = volumeFor(line.analysis, c.moles, given, line.shelf?.densityGPerML);
+  const v = volumeFor(line.analysis, c.moles, given, line.densityGPerML);
   if (!('volumeML' in v)) return;
   c.volumeML = v.volumeML;
   c.density = v.density.text;

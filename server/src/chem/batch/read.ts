@@ -65,6 +65,8 @@ export interface IngredientLine {
   role?: EquivalentRole;
   /** `from <value> <unit>` or `from batch "<name>"`: a dilution of a stock. */
   stock?: StockRef;
+  /** `d 1.21 g/mL` on the line (the label's density), or the shelf entry's. */
+  densityGPerML?: number;
 }
 
 /** Where a line's stock comes from. */
@@ -347,6 +349,7 @@ function readIngredient(at: Located, settings: ChemSettings, context: BatchConte
   if (sub.solution) line.solutionName = sub.solution;
   if (sub.shelf) {
     line.shelf = sub.shelf;
+    if (sub.shelf.densityGPerML !== undefined) line.densityGPerML = sub.shelf.densityGPerML;
     if (sub.shelf.assayPercent !== undefined) {
       line.assayPercent = sub.shelf.assayPercent;
       line.assay = sub.shelf.assayPercent / 100;
@@ -496,7 +499,7 @@ function readQuantity(line: IngredientLine, amount: Token, unitTok: Token | unde
   }
   line.value = value;
   // A unit of two words (`% w/v`, `ppm w/w`).
-  if (unit && rest.length && !unitIn('ingredient', unit.text) && !reagentUnit(unit.text) && reagentUnit(`${unit.text} ${rest[0].text}`)) {
+  if (unit && rest.length && reagentUnit(`${unit.text} ${rest[0].text}`)) {
     const second = rest.shift() as Token;
     unit = { text: `${unit.text} ${second.text}`, start: unit.start, end: second.end };
   }
@@ -570,6 +573,20 @@ function readTail(line: IngredientLine, rest: Token[], context: BatchContext, st
         line.assayPercent = pct;
       }
       i = j + 1;
+      continue;
+    }
+    if (word === 'd' || word === 'density' || word === 'ρ') {
+      // `d 1.21 g/mL`, `d 1.21`, `density 1.21 g/cm3`: the label's density, which wins over the table's.
+      const num = rest[i + 1];
+      const v = num && NUMBER.test(num.text) ? Number(num.text) : NaN;
+      if (!(v > 0.3 && v < 3)) {
+        d.push(finding('batch-amount', t.start, (num ?? t).end, `A density is written 'd 1.21 g/mL' (g/mL, between 0.3 and 3).`));
+        return;
+      }
+      let j = i + 2;
+      if (rest[j] && /^(?:g\/mL|g\/ml|g\/cm3|g\/cm³|kg\/L|kg\/l)$/.test(rest[j].text)) j++;
+      line.densityGPerML = v;
+      i = j;
       continue;
     }
     if (word === 'from' && stockAllowed) {

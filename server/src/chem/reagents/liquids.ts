@@ -116,7 +116,7 @@ export function reagentDensity(a: FormulaAnalysis, assayPercent?: number, labelD
             finding(
               'assay-needed',
               'error',
-              `${t.name} is a solution: give its assay (\`@ 37%\`, commercial ${t.commercial}); a liquid without one is taken as the pure substance, which ${label} is not as supplied.`,
+              `${t.name} is a solution: give its assay from the label (commercial ${t.commercial}, e.g. \`@ ${t.commercial.match(/\d+(?:\.\d+)?/)?.[0] ?? '37'}%\`); a liquid without one is taken as the pure substance, which ${label} is not as supplied.`,
             ),
           ],
         };
@@ -151,7 +151,16 @@ export function reagentDensity(a: FormulaAnalysis, assayPercent?: number, labelD
       );
     return { density: reading(labelDensity, assayPercent ?? table?.assayPercent ?? 100, 'label', 'the label', undefined), findings };
   }
-  if (!table) return { findings: [finding('unknown-liquid', 'error', `No density is known for ${label} as a liquid: give it (\`d 1.23 g/mL\`) or weigh it.`)] };
+  if (!table)
+    return {
+      findings: [
+        finding(
+          'unknown-liquid',
+          'error',
+          `No density is known for ${label} as a liquid: give it from the label after the amount (\`@ 12.5% d 1.21 g/mL\`) or weigh it.`,
+        ),
+      ],
+    };
   return { density: table, findings };
 }
 
