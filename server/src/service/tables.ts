@@ -34,7 +34,8 @@ export const fractionText = (x: number | null) => percent(x);
 export const undissociatedOf = (b: BatchAnalysis) => b.ingredients.filter((i) => i.undissociated && i.ions.length === 0);
 
 /** The mass to weigh of the counted ingredients, g. */
-export const weighedMass = (b: BatchAnalysis) => b.ingredients.reduce((s, i) => s + (i.massG ?? 0), 0);
+/** Grams weighed out (the lines poured or taken from a stock are measured by volume, not weighed). */
+export const weighedMass = (b: BatchAnalysis) => b.ingredients.reduce((s, i) => s + (i.measure === 'weigh' ? (i.massG ?? 0) : 0), 0);
 
 /** '2 lines not counted' (the batch is incomplete), or '' when every line counts. */
 export const notCountedText = (b: BatchAnalysis) => (b.skipped.length ? `${plural(b.skipped.length, 'line')} not counted` : '');

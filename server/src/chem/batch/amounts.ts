@@ -84,9 +84,10 @@ export function computeAmounts(read: ReadBatch): BatchAmounts {
 
 /** The weighed mass and each counted line's two shares, once every amount is known. */
 export function computeShares(out: BatchAmounts, { totalMassG }: BatchHeaders): void {
-  out.weighedG = out.counted.reduce((s, c) => s + c.massG, 0);
+  // A stock taken by volume is not weighed: its substance is no share of the weighed mass.
+  out.weighedG = out.counted.reduce((s, c) => s + (c.measure === 'stock' ? 0 : c.massG), 0);
   for (const c of out.counted) {
-    c.massFraction = out.weighedG > 0 ? c.massG / out.weighedG : null;
+    c.massFraction = out.weighedG > 0 && c.measure !== 'stock' ? c.massG / out.weighedG : null;
     c.fractionOfTotal = totalMassG !== null ? c.massG / totalMassG : null;
   }
 }
