@@ -7,6 +7,7 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { analyseBatch } from '../../server/src/chem/batch';
 import { BATCH_UNITS } from '../../server/src/chem/batch/units';
+import { REAGENT_UNITS } from '../../server/src/chem/reagents';
 import { headerKeys } from '../../server/src/service/completion';
 import { readSettings } from '../../server/src/service/config';
 import { createLanguageService, type NoteSummary } from '../../server/src/service/languageService';
@@ -77,9 +78,14 @@ describe('completion', () => {
   });
 
   it('offers the units an ingredient line accepts after its amount, and those of volume: and total:', () => {
-    const ingredient = BATCH_UNITS.filter((u) => (u.places as readonly string[]).includes('ingredient')).map((u) => u.unit);
+    // The batch units of an ingredient line, then the bench's (chem/reagents: g/L, %w/v, N, mL …).
+    const ingredient = [
+      ...BATCH_UNITS.filter((u) => (u.places as readonly string[]).includes('ingredient')).map((u) => u.unit),
+      ...REAGENT_UNITS.map((u) => u.unit),
+    ];
     expect(new Set(labels(batch('NaCl 5 |')))).toEqual(new Set(ingredient));
     expect(labels(batch('NaCl 5 m|'))).toEqual(expect.arrayContaining(['mg', 'mol', 'mmol', 'mM']));
+    expect(labels(batch('NaCl 5 m|'))).toEqual(expect.arrayContaining(['mg/L', 'mL', 'mN', 'mol/kg']));
     expect(labels(batch('NaCl 5 m|'))).not.toContain('g');
     // Written together with the number.
     const { doc, position } = at(batch('NaCl 5m|'));
@@ -87,6 +93,25 @@ describe('completion', () => {
     expect(mg.textEdit.range).toEqual({ start: { line: 6, character: 6 }, end: { line: 6, character: 7 } });
     expect(labels('```batch\nvolume: 500 |\n```\n')).toEqual(['L', 'mL', 'µL']);
     expect(labels('```batch\ntotal: 250 |\n```\n')).toEqual(['g', 'kg', 'mg']);
+  });
+
+  it('offers the trade names the batch reader reads, inserted as written', () => {
+    const { doc, position } = at(batch('bor|'));
+    const items = ls.completion(doc, position)!.items;
+    const borax = items.find((i) => i.label === 'borax')!;
+    expect(borax.textEdit.newText).toBe('borax ');
+    // Na2B4O7·10H2O: the decahydrate, as the reader takes borax (the shelf-name table).
+    expect(borax.detail).toMatch(/Na₂B₄O₇·10H₂O/);
+    expect(labels(batch('caustic s|'))).toContain('caustic soda');
+  });
+
+  it('offers the other batches of the note after `from batch "`', () => {
+    const text =
+      '```batch\nname: Nickel stock\nvolume: 1 L\nNiSO4 1.5 M\n```\n\n```batch\nname: Nickel strike\nvolume: 2 L\nNiSO4 0.1 M from batch "Ni|\n```\n';
+    const { doc, position } = at(text);
+    const items = ls.completion(doc, position)!.items;
+    expect(items.map((i) => i.label)).toEqual(['Nickel stock']);
+    expect(items[0].textEdit.newText).toBe('"Nickel stock"');
   });
 
   it('offers pH after `to `', () => {
@@ -183,15 +208,33 @@ describe('inlay hints', () => {
   it('show the mass to weigh beside each target line, at the end of its content', () => {
     const hints = ls.inlayHints(doc, whole);
     // 0.1 mol/L × 0.5 L × 58.44 g/mol = 2.922 g; 0.010 mol × 101.10 g/mol / 0.995 = 1.016 g (CIAAW 2021).
-    expect(hints.map((h) => [h.position, h.label])).toEqual([
+    expect(hints.slice(1).map((h) => [h.position, h.label])).toEqual([
       [{ line: 3, character: 10 }, '⇒ 2.922 g'],
       [{ line: 5, character: 20 }, '⇒ 1.016 g'],
     ]);
-    expect(hints[1].tooltip.value).toContain('divided by the assay, 99.5 %');
+    expect(hints[2].tooltip.value).toContain('divided by the assay, 99.5 %');
+  });
+
+  it('show the batch pH after the opening line: neutral salts in water are at about pH 7 (common practice)', () => {
+    const [ph] = ls.inlayHints(doc, whole);
+    expect(ph.position).toEqual({ line: 0, character: 8 });
+    expect(Number(ph.label.replace('pH ≈ ', ''))).toBeCloseTo(7, 0);
+    expect(ph.tooltip.value).toMatch(/estimate/);
+  });
+
+  it('show the volume to pour beside a liquid target and the stock volume beside a dilution', () => {
+    const d = ls.analyse('```batch\nvolume: 500 mL\nHCl 0.5 M @ 37%\nNiSO4 0.1 M from 1.5 M\nH2SO4 10 mL @ 96%\n```\n', 'markdown');
+    const labels = ls.inlayHints(d, whole).map((h) => h.label);
+    // 0.25 mol HCl ÷ about 12 M (37 %, CRC from memory) ≈ 20.8 mL; 0.1 M × 500 mL ÷ 1.5 M = 33.33 mL.
+    expect(labels).toContain('⇒ 20.81 mL');
+    expect(labels).toContain('⇒ 33.33 mL');
+    // A line that is itself a volume gets no volume hint, and nothing poured gets a mass to weigh.
+    expect(labels.filter((l) => l.startsWith('⇒'))).toHaveLength(2);
   });
 
   it('leave out what lies outside the range asked for', () => {
     expect(ls.inlayHints(doc, { start: { line: 4, character: 0 }, end: { line: 5, character: 30 } }).map((h) => h.label)).toEqual(['⇒ 1.016 g']);
+    expect(ls.inlayHints(doc, { start: { line: 0, character: 0 }, end: { line: 0, character: 30 } }).map((h) => h.label)).toHaveLength(1);
   });
 
   it('show nothing where nothing was computed (a concentration without a volume)', () => {

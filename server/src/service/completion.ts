@@ -18,7 +18,8 @@ import { analyseFormula } from '../chem/analyse';
 import { analyseBatch } from '../chem/batch';
 import { BATCH_UNITS, type BatchUnit, type UnitKind, type UnitPlace } from '../chem/batch/units';
 import { SOLUBILITY } from '../chem/data/solubility';
-import { nameOf } from '../chem/names';
+import { nameOf, namesByPrefix } from '../chem/names';
+import { REAGENT_UNITS, type ReagentUnitKind } from '../chem/reagents';
 import type { AnalysedDocument } from './document';
 import { molarMassText } from './format';
 import type { Range } from './positions';
@@ -104,7 +105,8 @@ type Slot =
   | { kind: 'start'; word: string; from: number }
   | { kind: 'name'; words: string; from: number }
   | { kind: 'unit'; place: UnitPlace; typed: string; from: number }
-  | { kind: 'to'; typed: string; from: number };
+  | { kind: 'to'; typed: string; from: number }
+  | { kind: 'stock'; typed: string; from: number };
 
 function slotOf(before: string, base: number): Slot | undefined {
   if (before.includes('#')) return undefined; // a comment
@@ -121,6 +123,9 @@ function slotOf(before: string, base: number): Slot | undefined {
     if (glued) return { kind: 'unit', place, typed: glued[2], from: base + before.length - glued[2].length };
     return undefined;
   }
+  // `from batch "Acid st|`: the names of the other batches of the note.
+  const stock = /\sfrom\s+batch\s+"([^"]*)$/.exec(text);
+  if (stock) return { kind: 'stock', typed: stock[1], from: base + before.length - stock[1].length - 1 };
   if (/^[A-Za-z][A-Za-z(),' -]*$/.test(text) && !/^\S+\s+to(\s|$)/.test(text)) return { kind: 'name', words: text, from };
   const parts = text.split(/\s+/);
   const last = parts[parts.length - 1];
@@ -219,6 +224,28 @@ export function completion(doc: AnalysedDocument, offset: number, settings: Serv
       if (!matches(filterText, slot.typed)) continue;
       push({ label: u.unit, kind: CompletionKind.Unit, detail: UNIT_DETAIL[u.kind], filterText, newText: u.unit });
     }
+    // The bench's units on an ingredient line (chem/reagents): per volume, normality, a liquid's volume.
+    if (slot.place === 'ingredient')
+      for (const u of REAGENT_UNITS) {
+        const filterText = [u.unit, ...u.aliases].join(' ');
+        if (!matches(filterText, slot.typed)) continue;
+        push({ label: u.unit, kind: CompletionKind.Unit, detail: REAGENT_UNIT_DETAIL[u.kind], filterText, newText: u.unit });
+      }
+    return { isIncomplete: false, items };
+  }
+  if (slot.kind === 'stock') {
+    for (const other of doc.batches) {
+      const name = other.analysis.name;
+      if (name === batch.analysis.name || !name || name.includes('"') || !matches(name, slot.typed)) continue;
+      const n = other.analysis.ingredients.length;
+      push({
+        label: name,
+        kind: CompletionKind.Value,
+        detail: `a batch of this note: ${n} ingredient${n === 1 ? '' : 's'}`,
+        filterText: name,
+        newText: `"${name}"`,
+      });
+    }
     return { isIncomplete: false, items };
   }
   if (slot.kind === 'to') {
@@ -265,5 +292,32 @@ export function completion(doc: AnalysedDocument, offset: number, settings: Serv
         newText: `${c.text} `,
       });
   }
+  // The trade's and the systematic names the batch reader reads (borax, caustic soda), inserted as written:
+  // the line reads the name, and the hover says what it was read as.
+  if (typed.length >= 3 && /^[A-Za-z]/.test(typed))
+    for (const e of namesByPrefix(typed, 20)) {
+      if (!matches(e.name, typed) || items.some((x) => x.label === e.name)) continue;
+      const a = analyseFormula(e.formula);
+      const { mass } = shownOf(a, settings);
+      push({
+        label: e.name,
+        kind: CompletionKind.Text,
+        detail: `${a.display} · ${mass}`,
+        labelDetails: { description: `${a.display} · ${mass}` },
+        documentation: `The ${e.kind === 'shelf' ? 'shelf' : e.kind} name ${e.name}, read as ${a.display} (${mass}).`,
+        filterText: e.name,
+        newText: `${e.name} `,
+      });
+    }
   return { isIncomplete: more, items };
 }
+
+const REAGENT_UNIT_DETAIL: Record<ReagentUnitKind, string> = {
+  massPerVolume: 'mass per final volume (the mass to weigh is computed)',
+  weightPerVolumePercent: 'grams per 100 mL of final volume',
+  volumePercent: 'millilitres of the liquid per 100 mL of final volume',
+  ppm: 'parts per million: mg/L by final volume, mg/kg by total mass',
+  molality: 'moles per kilogram of solvent',
+  normality: 'equivalents per litre (the role is said in the hover)',
+  volume: 'a liquid poured as supplied (its density and assay give the amount)',
+};

@@ -3,14 +3,17 @@
  * was computed for, so that a chemist reads the amount to weigh without opening a hover or a table.
  *
  * The hints of a batch come from hint makers, one per stage of the batch pipeline whose results belong
- * beside a line (`HINT_MAKERS`). Today: the mass to weigh beside each line given as a target (an amount,
- * a concentration or a mass fraction). The later stages add their maker there: the reagents stage the
- * volume to pour beside a liquid's target line, the solution stage the solved amount beside a `to pH`
- * line and the batch's computed pH after its first line. A maker returns nothing where its stage computed
- * nothing: no hint shows a value that was not computed.
+ * beside a line (`HINT_MAKERS`): the mass to weigh beside each line weighed to a target (an amount, a
+ * concentration, a mass fraction, a unit per volume, or `to pH`: the solved amount); the volume to pour
+ * beside a liquid's target line and the stock volume beside a dilution; the batch's computed pH after its
+ * opening line. A maker returns nothing where its stage computed nothing: no hint shows a value that was
+ * not computed.
  */
 import type { Ingredient } from '../chem/batch';
 import { unitSpelled } from '../chem/batch/units';
+import { reagentUnit } from '../chem/reagents';
+import { mlText } from './columns';
+import { pHText } from './solution';
 import { shiftBatch, type AnalysedDocument, type BatchOccurrence } from './document';
 import { massText, molarMassText, percent, sig } from './format';
 import type { Position } from './positions';
@@ -38,13 +41,13 @@ export interface InlayHint {
 }
 
 /** A line given as a target: any unit but a mass (chem/batch/units.ts), whose line already says what to weigh. */
-const isTarget = (i: Ingredient) => unitSpelled(i.amount.unit)?.kind !== 'mass';
+const isTarget = (i: Ingredient) => unitSpelled(i.amount.unit)?.kind !== 'mass' && reagentUnit(i.amount.unit)?.kind !== 'volume';
 
 /** The mass to weigh beside each target line. */
 export const massToWeigh: HintMaker = (batch, settings) => {
   const out: BatchLineHint[] = [];
   for (const i of batch.analysis.ingredients) {
-    if (!isTarget(i) || i.massG === null) continue;
+    if (!isTarget(i) || i.massG === null || i.measure !== 'weigh') continue;
     const parts = [`${massText(i.massG)} of ${i.formula} to weigh`];
     if (i.moles !== null) parts.push(`${sig(i.moles)} mol × ${molarMassText(i.molarMass, settings)} g/mol`);
     if (i.assay < 1) parts.push(`divided by the assay, ${percent(i.assay, 1)}`);
@@ -53,11 +56,36 @@ export const massToWeigh: HintMaker = (batch, settings) => {
   return out;
 };
 
-/**
- * The hint makers, in the order their hints are shown. The later stages of the batch pipeline add theirs
- * here (see the header).
- */
-export const HINT_MAKERS: readonly HintMaker[] = [massToWeigh];
+/** The volume to pour beside a liquid's target line, and the stock volume beside a dilution. */
+export const volumeToMeasure: HintMaker = (batch) => {
+  const out: BatchLineHint[] = [];
+  for (const i of batch.analysis.ingredients) {
+    if (i.volumeML === null || !isTarget(i)) continue;
+    const what = i.measure === 'stock' ? `of the stock (${i.stock ?? ''})` : `of ${i.formula}${i.assay < 1 ? ` at ${percent(i.assay, 1)}` : ''} to pour`;
+    const parts = [`${mlText(i.volumeML)} ${what}`];
+    if (i.basis) parts.push(i.basis);
+    if (i.density) parts.push(`density ${i.density}`);
+    out.push({ offset: i.lineEnd, label: `⇒ ${mlText(i.volumeML)}`, tooltip: parts.join('; ') + '.' });
+  }
+  return out;
+};
+
+/** The batch's computed pH after its opening line (an equilibrium estimate; only where it converged). */
+export const batchPH: HintMaker = (batch) => {
+  const s = batch.analysis.solution;
+  if (!s || !s.converged) return [];
+  const stated = batch.analysis.statedPH !== null ? `; the batch states pH ${pHText(batch.analysis.statedPH)}` : '';
+  return [
+    {
+      offset: batch.ref.open.end,
+      label: `pH ≈ ${pHText(s.pH)}`,
+      tooltip: `The pH of the made-up batch at ${s.temperatureC} °C, an equilibrium estimate (${s.activityModel} activities)${stated}; measure it.`,
+    },
+  ];
+};
+
+/** The hint makers, in the order their hints are shown. */
+export const HINT_MAKERS: readonly HintMaker[] = [batchPH, massToWeigh, volumeToMeasure];
 
 /** Every hint of one batch, from every maker, in the order of the text. */
 export function batchLineHints(batch: BatchOccurrence, settings: ServiceSettings): BatchLineHint[] {

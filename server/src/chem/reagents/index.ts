@@ -52,7 +52,7 @@ export {
   type LiquidMatch,
   type Poured,
 } from './liquids';
-export { amountIn, reagentUnit, REAGENT_UNITS, type AmountRequest, type BatchBasis, type ReagentAmount, type ReagentUnit } from './units';
+export { amountIn, reagentUnit, REAGENT_UNITS, type AmountRequest, type BatchBasis, type ReagentAmount, type ReagentUnit, type ReagentUnitKind } from './units';
 export { equivalentsOf, type EquivalentRole, type Equivalents } from './equivalents';
 export { dilution, type Concentration, type Dilution } from './dilution';
 export { substituteForm, type FormChange } from './forms';
