@@ -102,9 +102,16 @@ export function formActions(doc: AnalysedDocument, start: number, end: number): 
 /** A size line of the batch: `volume: 500 mL`, `total: 2 kg`, `water to 1 L`, with the value's offsets. */
 interface SizeLine {
   kind: 'volume' | 'total';
+  /** The size as written, in L or g. */
+  base: number;
+  /** The whole line, and where its value and unit are. */
+  lineStart: number;
+  lineEnd: number;
   start: number;
   end: number;
 }
+
+const SIZE_UNITS: Record<string, number> = { ml: 1e-3, l: 1, µl: 1e-6, ul: 1e-6, kg: 1000, g: 1, mg: 1e-3 };
 
 const SIZE_LINE = /^(\s*)(?:(volume|total)\s*:\s*|(water\s+to)\s+)((?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?\s*(?:mL|ml|L|l|µL|uL|kg|g|mg))\s*(?:#.*)?$/i;
 
@@ -114,8 +121,18 @@ function sizeLines(b: BatchOccurrence): SizeLine[] {
     const m = SIZE_LINE.exec(l.text);
     if (!m) continue;
     const at = l.text.indexOf(m[4], m[1].length);
-    const key = (m[2] ?? 'volume').toLowerCase() as 'volume' | 'total';
-    out.push({ kind: key === 'total' ? 'total' : 'volume', start: l.start + at, end: l.start + at + m[4].length });
+    const [, num, unit] = /^(\S+?)\s*([a-zA-Zµ]+)$/.exec(m[4]) as RegExpExecArray;
+    const kind = /^[mµu]?[lL]$/.test(unit) ? 'volume' : 'total';
+    if (m[2] && m[2].toLowerCase() === 'volume' && kind !== 'volume') continue;
+    if (m[2] && m[2].toLowerCase() === 'total' && kind !== 'total') continue;
+    out.push({
+      kind,
+      base: Number(num) * SIZE_UNITS[unit.toLowerCase()],
+      lineStart: l.start,
+      lineEnd: l.end,
+      start: l.start + at,
+      end: l.start + at + m[4].length,
+    });
   }
   return out;
 }
@@ -152,7 +169,9 @@ export function parseScaleTarget(text: string): ScaleTarget | { reason: string }
 /** The edits that scale batch `b` to `target`, or why it cannot be scaled. */
 export function scaleEdits(doc: AnalysedDocument, b: BatchOccurrence, target: ScaleTarget): ScaleOutcome {
   const a: BatchAnalysis = b.analysis;
-  const unread = a.skipped.filter((s) => s.kind === 'ingredient');
+  const sizes = sizeLines(b);
+  // A size line (`water to 1 L`) is rewritten below, whether or not the reading counted it.
+  const unread = a.skipped.filter((s) => s.kind === 'ingredient' && !sizes.some((z) => z.lineStart <= s.lineStart && s.lineEnd <= z.lineEnd));
   if (unread.length)
     return {
       reason: `${unread.length === 1 ? 'a line' : `${unread.length} lines`} of this batch could not be read (${unread[0].text}); fix ${unread.length === 1 ? 'it' : 'them'} first, so that nothing is left at the old size`,
@@ -188,10 +207,7 @@ export function scaleEdits(doc: AnalysedDocument, b: BatchOccurrence, target: Sc
     const text = s.rounded ? s.rounded.text : `${s.value} ${s.unit}`;
     if (text !== i.amount.text) edits.push({ range: doc.lines.range(i.amount.start, i.amount.end), newText: text });
   });
-  for (const sl of sizeLines(b)) {
-    const base = sl.kind === 'volume' ? to.volumeL : to.totalMassG;
-    if (base) edits.push({ range: doc.lines.range(sl.start, sl.end), newText: sizeText(sl.kind, base) });
-  }
+  for (const sl of sizes) edits.push({ range: doc.lines.range(sl.start, sl.end), newText: sizeText(sl.kind, sl.base * scaled.factor) });
   edits.sort((x, y) => x.range.start.line - y.range.start.line || x.range.start.character - y.range.start.character);
   const size = to.volumeL && from.volumeL ? sizeText('volume', to.volumeL) : to.totalMassG && a.totalMassG ? sizeText('total', to.totalMassG) : undefined;
   const name = a.name ? `'${a.name}'` : 'the batch';
