@@ -1,4 +1,4 @@
-import { describe, expect, it, vi } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { analyseFormula } from '../../server/src/chem/analyse';
 import { COMMON_HYDRATES } from '../../server/src/chem/data/hydrates';
 import { createLanguageService, type TextEdit } from '../../server/src/service/languageService';
