@@ -11,7 +11,7 @@ import type { MarkdownIt } from 'markdown-it';
 import { readPreviewOptions } from '../../server/src/service/config';
 import { ionwrightPreview, type PreviewOptions } from '../../server/src/service/preview';
 import { WORKSPACE_REQUESTS } from '../../server/src/shared/commands';
-import { CLIENT_COMMANDS, NOTES_LANGUAGES, planCommand, resultMessage, SERVER_COMMANDS, type EditorState } from './commands';
+import { CLIENT_COMMANDS, NOTES_LANGUAGES, checkScaleTarget, planCommand, resultMessage, SERVER_COMMANDS, withTarget, type EditorState } from './commands';
 import { ServerLifecycle } from './lifecycle';
 
 let lifecycleOfClient: ServerLifecycle | undefined;
@@ -84,10 +84,22 @@ export function activateIonwright(context: vscode.ExtensionContext, makeClient: 
   lifecycleOfClient = lifecycle;
 
   const runServerCommand = (command: string) => async () => {
-    const plan = planCommand(command, editorState());
-    if (plan.kind === 'error') {
+    let plan = planCommand(command, editorState());
+    if (plan.kind !== 'server') {
       void vscode.window.showWarningMessage(plan.message);
       return;
+    }
+    if (command === CLIENT_COMMANDS.scaleBatch) {
+      const target = await vscode.window.showInputBox({
+        title: 'Scale batch',
+        prompt: 'A factor (×2, 0.5) or the new final volume or total mass (2 L, 500 mL, 5 kg); concentrations are kept',
+        placeHolder: '2 L',
+        validateInput: (text) => checkScaleTarget(text),
+      });
+      if (target === undefined) return;
+      const planned = withTarget(plan, target);
+      if (planned.kind !== 'server') return;
+      plan = planned;
     }
     try {
       await lifecycle.ensureRunning();
@@ -120,6 +132,7 @@ export function activateIonwright(context: vscode.ExtensionContext, makeClient: 
     vscode.commands.registerCommand(CLIENT_COMMANDS.insertTable, runServerCommand(CLIENT_COMMANDS.insertTable)),
     vscode.commands.registerCommand(CLIENT_COMMANDS.insertSectionTable, runServerCommand(CLIENT_COMMANDS.insertSectionTable)),
     vscode.commands.registerCommand(CLIENT_COMMANDS.copyCard, runServerCommand(CLIENT_COMMANDS.copyCard)),
+    vscode.commands.registerCommand(CLIENT_COMMANDS.scaleBatch, runServerCommand(CLIENT_COMMANDS.scaleBatch)),
     vscode.commands.registerCommand(CLIENT_COMMANDS.copyWeighingList, copyWeighingList),
     vscode.commands.registerCommand(CLIENT_COMMANDS.restartServer, async () => {
       output.info('Restarting the Ionwright server.');

@@ -27,6 +27,8 @@ export function planCommand(command: string, editor: EditorState | undefined): P
       return { kind: 'server', command: SERVER_COMMANDS.insertSectionTable, args: [{ uri, position: selection.start }] };
     case CLIENT_COMMANDS.copyCard:
       return { kind: 'server', command: SERVER_COMMANDS.cardMarkdown, args: [{ uri, position: selection.start }] };
+    case CLIENT_COMMANDS.scaleBatch:
+      return { kind: 'server', command: SERVER_COMMANDS.scaleBatch, args: [{ uri, position: selection.start }] };
     default:
       return { kind: 'error', message: `Unknown command ${command}.` };
   }
@@ -37,7 +39,22 @@ export function resultMessage(command: string, result: unknown): string | undefi
   if (command === CLIENT_COMMANDS.copyWeighingList) return typeof result === 'string' ? 'Ionwright weighing list copied as plain text.' : 'No batch here.';
   if (command === CLIENT_COMMANDS.copyCard) return typeof result === 'string' ? 'Ionwright card copied as Markdown.' : 'No formula under the cursor.';
   const r = result as { applied?: boolean; reason?: string } | null;
-  if (!r) return 'Nothing to tabulate here.';
+  if (!r) return command === CLIENT_COMMANDS.scaleBatch ? 'No batch here.' : 'Nothing to tabulate here.';
   if (r.applied === false) return r.reason ? `Ionwright: ${r.reason}.` : 'The edit was not applied.';
   return undefined;
+}
+
+/** What the input box of "Scale batch…" accepts; undefined when it is fine, else the message to show. */
+export function checkScaleTarget(text: string): string | undefined {
+  const t = text.trim().replace(/,/g, '.');
+  if (/^(?:[×x*]\s*)?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?\s*(?:[×x])?$/.test(t))
+    return Number(t.replace(/[^\d.eE+-]/g, '')) > 0 ? undefined : 'The factor must be above zero.';
+  if (/^(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?\s*(?:µL|uL|mL|ml|L|l|mg|g|kg)$/.test(t)) return undefined;
+  return 'A factor (×2, 0.5) or a new size (2 L, 500 mL, 5 kg).';
+}
+
+/** The server command's arguments with the target the user typed. */
+export function withTarget(plan: Plan, target: string): Plan {
+  if (plan.kind !== 'server') return plan;
+  return { ...plan, args: [{ ...(plan.args[0] as object), target: target.trim() }] };
 }

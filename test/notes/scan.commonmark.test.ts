@@ -32,7 +32,7 @@ function reference(src: string) {
 /** The same as our scanner sees them. */
 function ours(src: string) {
   const scan = scanMarkdown(src, { prose: 'off' });
-  const spans = scan.items.filter((i) => i.kind !== 'batch' && i.source === 'code').map((i) => (i as { text: string }).text);
+  const spans = scan.items.filter((i) => (i.kind === 'formula' || i.kind === 'reaction') && i.source === 'code').map((i) => (i as { text: string }).text);
   const fences = markdownBlocks(src)
     .filter((b) => b.kind === 'fence')
     .map((b) => ({ info: b.fence!.info, content: b.fence!.lines.map((l) => src.slice(l.start, l.end) + '\n').join('') }));

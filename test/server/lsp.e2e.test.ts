@@ -103,7 +103,7 @@ describe('LSP over stdio', () => {
 
   it('answers a hover with the card', async () => {
     const h = await conn.sendRequest(HoverRequest.type, { textDocument: { uri: URI }, position: { line: 2, character: line2.indexOf('NaCl') + 1 } });
-    expect((h!.contents as { value: string }).value).toMatch(/^\*\*NaCl\*\* · sodium chloride · \*\*58\.44 g\/mol\*\*/);
+    expect((h!.contents as { value: string }).value).toMatch(/^\*\*NaCl\*\* · sodium chloride \(common salt\) · \*\*58\.44 g\/mol\*\*/);
     expect(h!.range!.start).toEqual({ line: 2, character: line2.indexOf('NaCl') });
   });
 

@@ -174,7 +174,7 @@ describe.skipIf(!NVIM)('Neovim built-in LSP client against dist/server.js', () =
     expect(h.kind).toBe('markdown');
     // Na 22.98977 + Cl 35.45 = 58.44 g/mol
     // Identity first: formula, name, molar mass.
-    expect(h.markdown).toMatch(/^\*\*NaCl\*\* · sodium chloride · \*\*58\.44 g\/mol\*\*/);
+    expect(h.markdown).toMatch(/^\*\*NaCl\*\* · sodium chloride \(common salt\) · \*\*58\.44 g\/mol\*\*/);
     expect(h.range).toEqual(span);
   });
 

@@ -37,7 +37,8 @@ describe('hover', () => {
   it('shows the card of a formula in a code span: formula, molar mass, balance, bonding, lattice energy', () => {
     const md = hoverAt('Weighed `Na|Cl` for the rinse.')!;
     // Identity first: formula, name, molar mass.
-    expect(md).toMatch(/^\*\*NaCl\*\* · sodium chloride · \*\*58\.44 g\/mol\*\*/);
+    // The trade's name beside the systematic one (common salt).
+    expect(md).toMatch(/^\*\*NaCl\*\* · sodium chloride \(common salt\) · \*\*58\.44 g\/mol\*\*/);
     expect(md).toContain('Na⁺ + Cl⁻');
     expect(md).toContain('Bonding: **ionic**');
     expect(md).toContain('Lattice energy');

@@ -20,6 +20,7 @@ export type RaisedBy =
   | 'chem/batch'
   | 'chem/solution'
   | 'chem/safety'
+  | 'chem/reagents'
   | 'service/document'
   | 'service/diagnostics'
   | 'cli';
@@ -161,7 +162,28 @@ const CATALOGUE = {
     reserved: true,
     description: 'An estimated temperature change on making up the batch above the setting.',
   },
-  'batch-unclosed': { severity: 'warning', raisedBy: ['service/document'], description: 'A batch block that is never closed.' },
+  'batch-unclosed': { severity: 'warning', raisedBy: ['service/document'], description: 'A batch or shelf block that is never closed.' },
+  // ── the shelf ──
+  'shelf-syntax': {
+    severity: 'error',
+    raisedBy: ['chem/reagents'],
+    description: "A shelf line that cannot be read: no ':' after the label, a field that is not a shelf field, or a value that is not one.",
+  },
+  'shelf-substance': {
+    severity: 'error',
+    raisedBy: ['chem/reagents'],
+    description: 'A shelf substance that is not read exactly (an unknown, near or ambiguous name), or a solution reagent without its assay.',
+  },
+  'shelf-assay-needed': {
+    severity: 'warning',
+    raisedBy: ['chem/reagents'],
+    description: 'A shelf reagent sold as a solution (hydrochloric acid, ammonia, the hydroxides) whose assay is not given.',
+  },
+  'shelf-duplicate': {
+    severity: 'warning',
+    raisedBy: ['chem/reagents', 'service/document'],
+    description: 'A label that is on the shelf twice; batch lines take the first.',
+  },
   // ── notes and files ──
   'long-paragraph': {
     severity: 'information',

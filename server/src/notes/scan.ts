@@ -19,6 +19,7 @@ import {
   type ScanOptions,
   type ScanResult,
   type SectionRef,
+  type ShelfRef,
 } from './types';
 
 export interface Line {
@@ -340,6 +341,19 @@ export function scanMarkdownBlock(text: string, b: MdBlock, options: ScanOptions
         ...(name ? { openName: { text: name, start: nameStart + lead, end: nameStart + lead + name.length } } : {}),
       };
       out.push(batch);
+    } else if (word === 'shelf' && f.info.trim().toLowerCase() === 'shelf') {
+      const first = f.lines[0];
+      const last = f.lines[f.lines.length - 1];
+      const bodyStart = first ? first.start : f.open.next;
+      const bodyEnd = last ? last.end : bodyStart;
+      out.push({
+        kind: 'shelf',
+        start: b.start,
+        end: b.end,
+        open: lineRef(text, f.open),
+        body: { text: text.slice(bodyStart, bodyEnd), start: bodyStart, end: bodyEnd },
+        closed: f.closed,
+      });
     } else if (word === 'reaction' || word === 'reactions') {
       for (const l of f.lines) {
         const r = reactionLine(text, l.start, l.end);
@@ -384,6 +398,11 @@ export function scanMarkdown(text: string, options: ScanOptions = DEFAULT_SCAN_O
 /** Keywords are lower case; `section`, `reaction` and `formula` take a colon, `batch` and `end` stand first on their line. */
 const FNOTE_KEYWORD = /^(?:(section|reaction|formulas?):|(batch|end)(?=[\s:]|$):?)/;
 
+/** Does this `.fnote` line (leading space removed) open a shelf block: `shelf` (or `shelf:`) alone on its line? */
+export function opensFnoteShelf(body: string): boolean {
+  return /^shelf:?\s*$/.test(body);
+}
+
 /** Does this `.fnote` line (leading space removed) open a batch block? */
 export function opensFnoteBatch(body: string): boolean {
   return FNOTE_KEYWORD.exec(body)?.[2] === 'batch';
@@ -402,6 +421,7 @@ export function closesFnoteBatch(body: string): boolean {
  *   formula: NaCl, KH2PO4             formulas to analyse, separated by commas or spaces
  *   reaction: 2 H2 + O2 -> 2 H2O      an equation
  *   batch Rinse A  …  end             a batch block (same lines as a Markdown batch block)
+ *   shelf  …  end                     the lab's reagents, one a line (`shelf` alone on its line)
  * Any other line is prose: `code spans` and bare formulas are read in it.
  */
 export function scanFnote(text: string, options: ScanOptions = DEFAULT_SCAN_OPTIONS): ScanResult {
@@ -409,11 +429,36 @@ export function scanFnote(text: string, options: ScanOptions = DEFAULT_SCAN_OPTI
   const heads: Array<{ title: string; level: number; start: number; headingEnd: number }> = [];
   const lines = splitLines(text);
   let batch: BatchRef | undefined;
+  let shelf: { ref: ShelfRef; first?: Line; last?: Line } | undefined;
+  const closeShelf = (closed: boolean) => {
+    const s = shelf as NonNullable<typeof shelf>;
+    const bodyStart = s.first ? s.first.start : s.ref.open.end;
+    const bodyEnd = s.last ? s.last.end : bodyStart;
+    s.ref.body = { text: text.slice(bodyStart, bodyEnd), start: bodyStart, end: bodyEnd };
+    s.ref.closed = closed;
+    items.push(s.ref);
+    shelf = undefined;
+  };
   for (const l of lines) {
     const { at } = indentOf(text, l);
     const body = text.slice(at, l.end);
     const kw = FNOTE_KEYWORD.exec(body);
     const keyword = kw ? (kw[1] ?? kw[2]) : '';
+    if (shelf) {
+      if (closesFnoteBatch(body)) {
+        shelf.ref.end = l.end;
+        closeShelf(true);
+      } else {
+        shelf.first ??= l;
+        shelf.last = l;
+        shelf.ref.end = l.end;
+      }
+      continue;
+    }
+    if (!batch && opensFnoteShelf(body)) {
+      shelf = { ref: { kind: 'shelf', start: l.start, end: l.end, open: lineRef(text, l), body: { text: '', start: l.end, end: l.end }, closed: false } };
+      continue;
+    }
     if (batch) {
       if (closesFnoteBatch(body)) {
         batch.end = l.end;
@@ -453,5 +498,6 @@ export function scanFnote(text: string, options: ScanOptions = DEFAULT_SCAN_OPTI
     }
   }
   if (batch) items.push(batch);
+  if (shelf) closeShelf(false);
   return { language: 'fnote', items, sections: headingsToSections(text, heads) };
 }

@@ -47,7 +47,22 @@ export interface BatchRef {
   closed: boolean;
 }
 
-export type NoteItem = FormulaRef | ReactionRef | BatchRef;
+/**
+ * A shelf block: the lab's reagents as they stand (```` ```shelf ```` in Markdown, `shelf` … `end` in
+ * `.fnote`). Its body is handed to the shelf parser with its offset.
+ */
+export interface ShelfRef {
+  kind: 'shelf';
+  /** Start of the opening line; end of the closing line (or of the document when unclosed). */
+  start: number;
+  end: number;
+  open: LineRef;
+  /** The lines between the opening and the closing line, as one text (empty with its offset where there are none). */
+  body: LineRef;
+  closed: boolean;
+}
+
+export type NoteItem = FormulaRef | ReactionRef | BatchRef | ShelfRef;
 
 export interface SectionRef {
   title: string;

@@ -10,6 +10,7 @@ import { formulasIn, targetAt } from './lookup';
 import type { Range } from './positions';
 import { formulaText } from './format';
 import { batchTable, formulaTable, sectionsOf, sectionTables } from './tables';
+import { formActions, scaleActions } from './batchEdits';
 
 export interface TextEdit {
   range: Range;
@@ -207,10 +208,11 @@ export function sectionTableEdit(doc: AnalysedDocument, offset: number): EditOut
 export function codeActions(doc: AnalysedDocument, start: number, end: number, only?: string[]): CodeAction[] {
   const want = (kind: string) => !only || only.length === 0 || only.some((o) => kind === o || kind.startsWith(o + '.'));
   const out: CodeAction[] = [];
-  if (want('quickfix')) out.push(...quickFixes(doc, start, end));
+  if (want('quickfix')) out.push(...quickFixes(doc, start, end), ...formActions(doc, start, end));
   if (want('refactor.rewrite')) {
     const t = tableEditAt(doc, start);
     if ('edit' in t) out.push({ title: t.title ?? 'Insert a table', kind: 'refactor.rewrite', edits: [t.edit] });
+    out.push(...scaleActions(doc, start));
   }
   return out;
 }

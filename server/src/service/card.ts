@@ -3,7 +3,7 @@
  * "copy card").
  */
 import type { FormulaAnalysis } from '../chem/analyse';
-import { nameOf } from '../chem/names';
+import { nameOf, namesOf } from '../chem/names';
 import { toLsp, type LspDiagnostic } from './diagnostics';
 import { LineIndex } from './positions';
 import { energy, fixed, formulaText, percent, signed } from './format';
@@ -13,6 +13,8 @@ export interface CardJson {
   input: string;
   /** The IUPAC 2005 name where the reading makes it plain (`copper(II) sulfate pentahydrate`); null otherwise. */
   name: string | null;
+  /** The trade's names beside the systematic one, the usual first (`blue vitriol`); empty where there is none. */
+  commonNames: string[];
   formula: string;
   formulaAscii: string;
   hill: string;
@@ -74,6 +76,7 @@ export function cardJson(a: FormulaAnalysis): CardJson {
     molarMassUncertainty: a.molarMass?.uncertainty == null ? null : round(a.molarMass.uncertainty, 6),
     composition: a.composition.map((c) => ({ element: c.element, count: c.count, massFraction: round(c.massFraction, 6) })),
     name: nameOf(a) ?? null,
+    commonNames: namesOf(a).common,
     oxidationStates: a.charges?.oxidationStates ?? null,
     oxidationStatesBySite: (a.charges?.sites ?? []).map((x) => ({ element: x.element, state: round(x.state, 4), count: x.count, site: x.site })),
     oxidationStatesUndetermined: a.charges?.undetermined ?? [],

@@ -7,12 +7,25 @@
  * `updateDocument` re-splits only the blocks around an edit and shifts the ones after it.
  */
 import { analyseFormula, type FormulaAnalysis } from '../chem/analyse';
-import { analyseBatch, type BatchAnalysis } from '../chem/batch';
+import { analyseBatch, type BatchAnalysis, type BatchContext, type StockBatch } from '../chem/batch';
+import { anhydrousOf } from '../chem/batch';
+import { parseShelf, type Shelf, type ShelfEntry } from '../chem/reagents';
+import { squash } from '../chem/names/words';
 import { shiftDiagnostic, type ChemDiagnostic } from '../chem/diagnostic';
 import { analyseReaction, type ReactionAnalysis } from '../chem/equation';
 import { BoundedCache, detach } from '../chem/cache';
-import { closesFnoteBatch, markdownBlocksFrom, opensFnoteBatch, readLine, scanDocument, scanMarkdownBlock, shiftMdBlock, type MdBlock } from '../notes/scan';
-import type { BatchRef, FormulaRef, LineRef, NoteItem, NotesLanguage, ReactionRef, SectionRef } from '../notes/types';
+import {
+  closesFnoteBatch,
+  markdownBlocksFrom,
+  opensFnoteBatch,
+  opensFnoteShelf,
+  readLine,
+  scanDocument,
+  scanMarkdownBlock,
+  shiftMdBlock,
+  type MdBlock,
+} from '../notes/scan';
+import type { BatchRef, FormulaRef, LineRef, NoteItem, NotesLanguage, ReactionRef, SectionRef, ShelfRef } from '../notes/types';
 import { LineIndex } from './positions';
 import { DEFAULT_SETTINGS, type ServiceSettings } from './settings';
 
@@ -31,6 +44,21 @@ export interface BatchOccurrence {
   analysis: BatchAnalysis;
 }
 
+export interface ShelfOccurrence {
+  ref: ShelfRef;
+  shelf: Shelf;
+}
+
+/**
+ * What a block's batches were read with besides their own text: the shelf (by its key; '' for none) and
+ * the stocks they asked for (by name, with the key of the stock batch found, '' where none was). A block
+ * result is valid for a document only while these still hold there.
+ */
+export interface BlockDeps {
+  shelf: string;
+  stocks: Array<[string, string]>;
+}
+
 /** The analysis of one block, at offsets relative to the block's start (shared between equal blocks). */
 export interface BlockResult {
   formulas: FormulaOccurrence[];
@@ -38,6 +66,34 @@ export interface BlockResult {
   batches: BatchOccurrence[];
   diagnostics: ChemDiagnostic[];
   heading?: { title: string; level: number; start: number; headingEnd: number };
+  /** Shelf blocks of the block. */
+  shelves?: ShelfOccurrence[];
+  /** Where the block has batches: what they were read with, and the block as split (relative), to read it again. */
+  deps?: BlockDeps;
+  span?: Span;
+}
+
+/**
+ * The context of a document's batches: its shelf (its own shelf blocks, else the workspace's) and the
+ * document's batches by name as stocks.
+ */
+export interface DocumentContext {
+  shelf?: Shelf;
+  /** Identifies the shelf's content ('' without a shelf). */
+  shelfKey: string;
+  /** A stock batch by name, with a key identifying its content ('' where there is none). */
+  stock(name: string): { batch?: StockBatch; key: string };
+}
+
+/** A shelf from outside the document (the workspace's `shelf.md`): used where the document has none of its own. */
+export interface WorkspaceShelf {
+  shelf: Shelf;
+  /** Where it was read (a URI or a path), for the hover. */
+  source: string;
+}
+
+export interface DocumentOptions {
+  workspaceShelf?: WorkspaceShelf;
 }
 
 /** A block placed in a document: moving it is O(1); its items are shifted only when read. */
@@ -66,6 +122,11 @@ export interface AnalysedDocument {
   blocks: PlacedBlock[];
   /** The block containing `offset` (or ending right at it), if any. */
   blockAt(offset: number): PlacedBlock | undefined;
+  /** The document's shelf blocks, absolute offsets. */
+  readonly shelves: ShelfOccurrence[];
+  /** The shelf its batches are read with: its own (all its shelf blocks), else the workspace's, else none. */
+  readonly shelf: { shelf: Shelf; source: 'document' | string } | undefined;
+  readonly options: DocumentOptions;
 }
 
 export function languageOf(fileName: string): NotesLanguage | undefined {
@@ -80,12 +141,37 @@ export function languageOf(fileName: string): NotesLanguage | undefined {
 const EMPTY: BlockResult = Object.freeze({ formulas: [], reactions: [], batches: [], diagnostics: [] }) as never;
 
 /** Analyse the scanned items of a block (offsets relative to the block). */
-function analyseItems(items: readonly NoteItem[], language: NotesLanguage, settings: ServiceSettings, heading?: BlockResult['heading']): BlockResult {
+function analyseItems(
+  items: readonly NoteItem[],
+  language: NotesLanguage,
+  settings: ServiceSettings,
+  ctx: DocumentContext,
+  heading?: BlockResult['heading'],
+): BlockResult {
   const formulas: FormulaOccurrence[] = [];
   const reactions: ReactionOccurrence[] = [];
   const batches: BatchOccurrence[] = [];
   const diagnostics: ChemDiagnostic[] = [];
+  let shelves: ShelfOccurrence[] | undefined;
+  let deps: BlockDeps | undefined;
   for (const item of items) {
+    if (item.kind === 'shelf') {
+      const shelf = parseShelf(item.body.text, item.body.start);
+      (shelves ??= []).push({ ref: item, shelf });
+      for (const f of shelf.findings) diagnostics.push(shelfDiagnostic(f, item));
+      if (!item.closed)
+        diagnostics.push({
+          code: 'batch-unclosed',
+          severity: 'warning',
+          start: item.open.start,
+          end: item.open.end,
+          message:
+            language === 'fnote'
+              ? "This shelf has no 'end' line; it runs to the end of the file."
+              : 'This shelf block is never closed; it runs to the end of the document.',
+        });
+      continue;
+    }
     if (item.kind === 'formula') {
       const analysis = analyseFormula(item.text, settings.chem);
       formulas.push({ ref: item, analysis });
@@ -98,7 +184,16 @@ function analyseItems(items: readonly NoteItem[], language: NotesLanguage, setti
       reactions.push({ ref: item, analysis });
       for (const d of analysis.diagnostics) diagnostics.push(shiftDiagnostic(d, item.start));
     } else {
-      const analysis = analyseBatch(item.lines, item.openName?.text ?? null, settings.chem, item.open);
+      const d: BlockDeps = (deps ??= { shelf: ctx.shelfKey, stocks: [] });
+      const context: BatchContext = {
+        stockOf: (name: string) => {
+          const found = ctx.stock(name);
+          if (!d.stocks.some(([n]) => n === squash(name))) d.stocks.push([squash(name), found.key]);
+          return found.batch;
+        },
+      };
+      if (ctx.shelf) context.shelf = ctx.shelf;
+      const analysis = analyseBatch(item.lines, item.openName?.text ?? null, settings.chem, item.open, context);
       batches.push({ ref: item, analysis });
       diagnostics.push(...analysis.diagnostics);
       if (!item.closed) {
@@ -116,25 +211,47 @@ function analyseItems(items: readonly NoteItem[], language: NotesLanguage, setti
     }
   }
   if (diagnostics.length > 1) diagnostics.sort((a, b) => a.start - b.start || a.end - b.end);
-  return heading ? { formulas, reactions, batches, diagnostics, heading } : { formulas, reactions, batches, diagnostics };
+  const r: BlockResult = heading ? { formulas, reactions, batches, diagnostics, heading } : { formulas, reactions, batches, diagnostics };
+  if (shelves) r.shelves = shelves;
+  if (deps) r.deps = deps;
+  return r;
+}
+
+/** The codes of the shelf's findings; `shelf-syntax` for any other kind. */
+const SHELF_CODES: Record<string, ChemDiagnostic['code']> = {
+  'shelf-syntax': 'shelf-syntax',
+  'shelf-substance': 'shelf-substance',
+  'shelf-duplicate': 'shelf-duplicate',
+  'assay-needed': 'shelf-assay-needed',
+};
+
+function shelfDiagnostic(
+  f: { kind: string; severity: ChemDiagnostic['severity']; message: string; start?: number; end?: number },
+  item: ShelfRef,
+): ChemDiagnostic {
+  const start = f.start ?? item.open.start;
+  const code = SHELF_CODES[f.kind] ?? 'shelf-syntax';
+  // A near or ambiguous name is not taken, like an unknown one: the line's entry is left off the shelf.
+  const severity = code === 'shelf-substance' ? 'error' : f.severity;
+  return { code, severity, start, end: Math.max(f.end ?? item.open.end, start), message: f.message };
 }
 
 /**
  * Scan and analyse one block on its own text (`own`, a flat copy of the block): every slice the result
  * keeps points into that copy, never into the document, so a cached result holds only its block.
  */
-function analyseBlock(own: string, b: Span, language: NotesLanguage, settings: ServiceSettings): BlockResult {
+function analyseBlock(own: string, b: Span, language: NotesLanguage, settings: ServiceSettings, ctx: DocumentContext): BlockResult {
   const options = { prose: settings.prose };
   let r: BlockResult;
   if (b.kind === 'chunk') {
     // A later piece of a long block: prose.
     const items: NoteItem[] = [];
     scanMarkdownBlock(own, { kind: 'paragraph', start: 0, end: own.length }, options, items);
-    r = analyseItems(items, language, settings);
+    r = analyseItems(items, language, settings, ctx);
   } else if (language === 'fnote') {
     const scan = scanDocument(own, 'fnote', options);
     const h = scan.sections[0];
-    r = analyseItems(scan.items, language, settings, h ? { title: h.title, level: h.level, start: h.start, headingEnd: h.headingEnd } : undefined);
+    r = analyseItems(scan.items, language, settings, ctx, h ? { title: h.title, level: h.level, start: h.start, headingEnd: h.headingEnd } : undefined);
   } else {
     const md: MdBlock =
       b.kind === 'chunk-first'
@@ -146,9 +263,16 @@ function analyseBlock(own: string, b: Span, language: NotesLanguage, settings: S
       md.kind === 'heading'
         ? { title: own.slice(md.titleStart, md.titleEnd).replace(/\s+/g, ' '), level: md.level as number, start: 0, headingEnd: own.length }
         : undefined;
-    r = analyseItems(items, language, settings, heading);
+    r = analyseItems(items, language, settings, ctx, heading);
   }
   if (b.kind === 'chunk-first' || b.kind === 'heading-long') r.diagnostics.unshift(longBlockNotice(own));
+  if (r.deps)
+    r.span =
+      b.start === 0
+        ? b
+        : language === 'markdown' && (b as MdBlock).fence
+          ? { ...shiftMdBlock(b as MdBlock, -b.start, detach), kind: b.kind }
+          : { ...b, start: 0, end: b.end - b.start };
   return r;
 }
 
@@ -220,17 +344,205 @@ export function newBlockCache(textLength: number): BlockCache {
 const resultBytes = (own: string, r: BlockResult) =>
   2 * own.length + 256 * (r.formulas.length + r.reactions.length + r.diagnostics.length) + 4096 * r.batches.length;
 
-function blockResult(text: string, b: Span, language: NotesLanguage, settings: ServiceSettings, cache: BlockCache): PlacedBlock {
+/** Do the block's batches still hold in this context (the shelf and every stock they asked for unchanged)? */
+function depsHold(deps: BlockDeps | undefined, ctx: DocumentContext): boolean {
+  if (!deps) return true;
+  if (deps.shelf !== ctx.shelfKey) return false;
+  for (const [name, key] of deps.stocks) if (ctx.stock(name).key !== key) return false;
+  return true;
+}
+
+function blockResult(text: string, b: Span, language: NotesLanguage, settings: ServiceSettings, cache: BlockCache, ctx: DocumentContext): PlacedBlock {
   const { start, end, kind } = b;
   if (kind === 'code' || kind === 'html') return place(b, EMPTY);
   const sub = text.slice(start, end);
   const hit = cache.get(sub);
-  if (hit && hit.kind === kind) return place(b, hit.rel);
+  if (hit && hit.kind === kind && depsHold(hit.rel.deps, ctx)) return place(b, hit.rel);
   const own = detach(sub);
-  const rel = analyseBlock(own, b, language, settings);
+  const rel = analyseBlock(own, b, language, settings, ctx);
   cache.set(own, { kind, rel }, resultBytes(own, rel));
   return place(b, rel);
 }
+
+/** Is this span a shelf block (analysed first: the document's batches are read with its shelf)? */
+function isShelfSpan(text: string, b: Span): boolean {
+  if (b.kind === 'shelf') return true;
+  const f = (b as MdBlock).fence;
+  return b.kind === 'fence' && !!f && f.info.trim().toLowerCase() === 'shelf';
+}
+
+// ── the context: shelf and stocks ─────────────────────────────────────────
+
+/** The shelf's content as a key: what a batch line reads of it (offsets left out). */
+function shelfKeyOf(shelf: Shelf | undefined, source: string): string {
+  if (!shelf) return '';
+  const rows = shelf.entries.map((e) =>
+    [
+      e.label,
+      e.substance.formula,
+      e.substance.solution ? 's' : '',
+      e.assayPercent ?? '',
+      e.densityGPerML ?? '',
+      e.lot ?? '',
+      e.supplier ?? '',
+      e.grade ?? '',
+      e.note ?? '',
+    ].join('\u0001'),
+  );
+  return source + '\u0002' + rows.join('\u0002');
+}
+
+const shiftSpan = (x: { start: number; end: number }, by: number) => ({ start: x.start + by, end: x.end + by });
+const shiftEntry = (e: ShelfEntry, by: number): ShelfEntry =>
+  by === 0
+    ? e
+    : { ...e, labelSpan: shiftSpan(e.labelSpan, by), span: shiftSpan(e.span, by), substance: { ...e.substance, span: shiftSpan(e.substance.span, by) } };
+const shiftShelfRef = (r: ShelfRef, by: number): ShelfRef => ({
+  kind: 'shelf',
+  start: r.start + by,
+  end: r.end + by,
+  open: shiftLine(r.open, by),
+  body: shiftLine(r.body, by),
+  closed: r.closed,
+});
+const shiftShelf = (o: ShelfOccurrence, by: number): ShelfOccurrence =>
+  by === 0
+    ? o
+    : {
+        ref: shiftShelfRef(o.ref, by),
+        shelf: {
+          entries: o.shelf.entries.map((e) => shiftEntry(e, by)),
+          findings: o.shelf.findings.map((f) => (f.start === undefined ? f : { ...f, start: f.start + by, end: (f.end as number) + by })),
+        },
+      };
+
+/** The stock a batch offers others, by analysis (analyses are shared and read-only). */
+const stockMemo = new WeakMap<BatchAnalysis, { batch: StockBatch; key: string }>();
+
+function stockOfAnalysis(a: BatchAnalysis): { batch: StockBatch; key: string } {
+  let hit = stockMemo.get(a);
+  if (!hit) {
+    const batch: StockBatch = {
+      name: a.name ?? '',
+      volumeL: a.volumeL,
+      ingredients: a.ingredients.map((i) => ({
+        formula: i.formula,
+        hill: i.analysis.hill,
+        anhydrousHill: anhydrousOf(i.analysis)?.hill ?? i.analysis.hill,
+        concentrationM: i.concentrationM,
+      })),
+    };
+    const key = [batch.name, batch.volumeL ?? '', ...batch.ingredients.map((i) => `${i.formula}=${i.concentrationM ?? ''}`)].join('\u0001');
+    stockMemo.set(a, (hit = { batch, key }));
+  }
+  return hit;
+}
+
+/**
+ * The context of a document's batches from its placed blocks: the shelf of its shelf blocks (else the
+ * workspace's) and a lookup of its batches by name (the first of a name; built on first use).
+ */
+function contextOf(blocks: readonly PlacedBlock[], options: DocumentOptions): { ctx: DocumentContext; shelves: ShelfOccurrence[]; extra: ChemDiagnostic[] } {
+  const shelves: ShelfOccurrence[] = [];
+  for (const b of blocks) if (b.rel.shelves) for (const o of b.rel.shelves) shelves.push(shiftShelf(o, b.start));
+  const extra: ChemDiagnostic[] = [];
+  let shelf: Shelf | undefined;
+  let source = 'document';
+  if (shelves.length === 1) shelf = shelves[0].shelf;
+  else if (shelves.length > 1) {
+    // Several shelf blocks make one shelf; a label already on an earlier block is reported where repeated.
+    const entries: ShelfEntry[] = [];
+    const seen = new Map<string, number>();
+    shelves.forEach((o, k) => {
+      const own = new Set<string>();
+      for (const e of o.shelf.entries) {
+        const key = squash(e.label);
+        const first = seen.get(key);
+        if (first !== undefined && first !== k && !own.has(key))
+          extra.push({
+            code: 'shelf-duplicate',
+            severity: 'warning',
+            start: e.labelSpan.start,
+            end: e.labelSpan.end,
+            message: `The label '${e.label}' is on an earlier shelf block of this document: batch lines take the first.`,
+          });
+        if (first === undefined) seen.set(key, k);
+        own.add(key);
+        entries.push(e);
+      }
+    });
+    shelf = { entries, findings: shelves.flatMap((o) => o.shelf.findings) };
+  } else if (options.workspaceShelf) {
+    shelf = options.workspaceShelf.shelf;
+    source = options.workspaceShelf.source;
+  }
+  let byName: Map<string, BatchAnalysis> | undefined;
+  const ctx: DocumentContext = {
+    shelfKey: shelfKeyOf(shelf, source),
+    stock(name) {
+      if (!byName) {
+        byName = new Map();
+        for (const b of blocks)
+          for (const o of b.rel.batches) if (o.analysis.name && !byName.has(squash(o.analysis.name))) byName.set(squash(o.analysis.name), o.analysis);
+      }
+      const a = byName.get(squash(name));
+      return a ? stockOfAnalysis(a) : { key: '' };
+    },
+  };
+  if (shelf) ctx.shelf = shelf;
+  return { ctx, shelves, extra };
+}
+
+/** Rounds of re-reading where a stock's batch changed (a chain of stocks up to this long settles). */
+const CONTEXT_ROUNDS = 8;
+
+/**
+ * Place every block, analysing the shelf blocks first, then the rest with the document's shelf and
+ * stocks; then re-read any block whose batches were read with a shelf or a stock that no longer holds
+ * (a stock further down the document, or one that another re-reading changed), until none is left.
+ */
+function assemble(
+  text: string,
+  language: NotesLanguage,
+  settings: ServiceSettings,
+  cache: BlockCache,
+  options: DocumentOptions,
+  spans: Span[],
+  before: PlacedBlock[],
+  after: PlacedBlock[],
+): { blocks: PlacedBlock[]; shelves: ShelfOccurrence[]; extra: ChemDiagnostic[] } {
+  const fresh: Array<PlacedBlock | undefined> = spans.map((b) =>
+    isShelfSpan(text, b) ? blockResult(text, b, language, settings, cache, NO_CONTEXT) : undefined,
+  );
+  const known = before.concat(
+    fresh.filter((x): x is PlacedBlock => !!x),
+    after,
+  );
+  let { ctx } = contextOf(known, options);
+  spans.forEach((b, k) => {
+    if (!fresh[k]) fresh[k] = blockResult(text, b, language, settings, cache, ctx);
+  });
+  const blocks = before.concat(fresh as PlacedBlock[], after);
+  let out = contextOf(blocks, options);
+  for (let round = 0; round < CONTEXT_ROUNDS; round++) {
+    ctx = out.ctx;
+    let changed = false;
+    for (let k = 0; k < blocks.length; k++) {
+      const b = blocks[k];
+      if (!b.rel.deps || depsHold(b.rel.deps, ctx)) continue;
+      const own = detach(text.slice(b.start, b.end));
+      const rel = analyseBlock(own, b.rel.span as Span, language, settings, ctx);
+      cache.set(own, { kind: (b.rel.span as Span).kind, rel }, resultBytes(own, rel));
+      blocks[k] = { start: b.start, end: b.end, rel, cont: b.cont, open: b.open };
+      changed = true;
+    }
+    if (!changed) break;
+    out = contextOf(blocks, options);
+  }
+  return { blocks, shelves: out.shelves, extra: out.extra };
+}
+
+const NO_CONTEXT: DocumentContext = { shelfKey: '', stock: () => ({ key: '' }) };
 
 function place(b: Span, rel: BlockResult): PlacedBlock {
   const fence = (b as MdBlock).fence as { closed?: boolean } | undefined;
@@ -333,7 +645,7 @@ interface Span {
   open?: boolean;
 }
 
-/** `.fnote` blocks: one per line, except a `batch` … `end` block, which is one. */
+/** `.fnote` blocks: one per line, except a `batch` … `end` or `shelf` … `end` block, which is one. */
 function fnoteBlocksFrom(text: string, from: number, stopAt?: (pos: number) => boolean): { blocks: Span[]; stoppedAt: number | null } {
   const blocks: Span[] = [];
   let pos = from;
@@ -341,7 +653,8 @@ function fnoteBlocksFrom(text: string, from: number, stopAt?: (pos: number) => b
     if (stopAt && pos > from && stopAt(pos)) return { blocks, stoppedAt: pos };
     const l = readLine(text, pos);
     const body = text.slice(l.start, l.end).trimStart();
-    if (opensFnoteBatch(body)) {
+    const shelf = opensFnoteShelf(body);
+    if (shelf || opensFnoteBatch(body)) {
       let last = l;
       let closed = false;
       while (last.next < text.length) {
@@ -352,7 +665,8 @@ function fnoteBlocksFrom(text: string, from: number, stopAt?: (pos: number) => b
           break;
         }
       }
-      blocks.push(closed ? { start: l.start, end: last.end, kind: 'batch' } : { start: l.start, end: last.end, kind: 'batch', open: true });
+      const kind = shelf ? 'shelf' : 'batch';
+      blocks.push(closed ? { start: l.start, end: last.end, kind } : { start: l.start, end: last.end, kind, open: true });
       pos = last.next;
     } else {
       if (body.trim() !== '') blocks.push({ start: l.start, end: l.end, kind: 'line' });
@@ -379,7 +693,17 @@ class Doc implements AnalysedDocument {
     readonly blocks: PlacedBlock[],
     readonly lines: LineIndex,
     readonly blockCache: BlockCache,
+    readonly options: DocumentOptions,
+    readonly shelves: ShelfOccurrence[],
+    private readonly extra: ChemDiagnostic[],
   ) {}
+
+  get shelf(): { shelf: Shelf; source: string } | undefined {
+    if (this.shelves.length === 1) return { shelf: this.shelves[0].shelf, source: 'document' };
+    if (this.shelves.length > 1)
+      return { shelf: { entries: this.shelves.flatMap((o) => o.shelf.entries), findings: this.shelves.flatMap((o) => o.shelf.findings) }, source: 'document' };
+    return this.options.workspaceShelf ? { shelf: this.options.workspaceShelf.shelf, source: this.options.workspaceShelf.source } : undefined;
+  }
 
   get sections(): SectionRef[] {
     if (this.cache.s) return this.cache.s;
@@ -405,7 +729,13 @@ class Doc implements AnalysedDocument {
     return (this.cache.b ??= this.collect((r) => r.batches, shiftBatch));
   }
   get diagnostics() {
-    return (this.cache.d ??= this.collect((r) => r.diagnostics, shiftDiagnostic));
+    if (this.cache.d) return this.cache.d;
+    const all = this.collect((r) => r.diagnostics, shiftDiagnostic);
+    if (this.extra.length) {
+      all.push(...this.extra);
+      all.sort((a, b) => a.start - b.start || a.end - b.end);
+    }
+    return (this.cache.d = all);
   }
 
   blockAt(offset: number): PlacedBlock | undefined {
@@ -433,10 +763,11 @@ export function analyseDocument(
   language: NotesLanguage,
   settings: ServiceSettings = DEFAULT_SETTINGS,
   cache: BlockCache = newBlockCache(text.length),
+  options: DocumentOptions = {},
 ): AnalysedDocument {
   const { blocks } = split(text, language, 0);
-  const results = blocks.map((b) => blockResult(text, b, language, settings, cache));
-  return new Doc(text, language, settings, results, new LineIndex(text), cache);
+  const a = assemble(text, language, settings, cache, options, blocks, [], []);
+  return new Doc(text, language, settings, a.blocks, new LineIndex(text), cache, options, a.shelves, a.extra);
 }
 
 /** Where two versions of a text differ: [start, oldEnd) in the old text became [start, newEnd) in the new. */
@@ -472,7 +803,12 @@ const precededByBlank = (text: string, pos: number): boolean => {
  * around it are split and analysed again (from the block cache where their text is known), and the blocks
  * after it are moved. The result equals `analyseDocument(text, …)`; the tests check that.
  */
-export function updateDocument(prev: AnalysedDocument, text: string, hint: ChangeHint = diffRegion(prev.text, text)): AnalysedDocument {
+export function updateDocument(
+  prev: AnalysedDocument,
+  text: string,
+  hint: ChangeHint = diffRegion(prev.text, text),
+  options: DocumentOptions = prev.options,
+): AnalysedDocument {
   const { language, settings } = prev;
   const old = prev.blocks;
   const delta = text.length - prev.text.length;
@@ -514,12 +850,12 @@ export function updateDocument(prev: AnalysedDocument, text: string, hint: Chang
   };
   const { blocks, stoppedAt } = split(text, language, from, stopAt);
   const cache = (prev as Doc).blockCache ?? newBlockCache(text.length);
-  const fresh = blocks.map((b) => blockResult(text, b, language, settings, cache));
   const kept = old.slice(0, i0);
   const moved =
     stoppedAt !== null && resumeAt >= 0
       ? old.slice(resumeAt).map((b) => (delta === 0 ? b : { start: b.start + delta, end: b.end + delta, rel: b.rel, cont: b.cont, open: b.open }))
       : [];
+  const a = assemble(text, language, settings, cache, options, blocks, kept, moved);
   const lines = prev.lines.update(text, hint.start, hint.oldEnd, hint.newEnd);
-  return new Doc(text, language, settings, kept.concat(fresh, moved), lines, cache);
+  return new Doc(text, language, settings, a.blocks, lines, cache, options, a.shelves, a.extra);
 }

@@ -1,12 +1,13 @@
 /**
  * Hover cards in Markdown: the headline numbers first, then the method, inputs and sources.
  */
-import type { FormulaAnalysis } from '../chem/analyse';
+import { analyseFormula, type FormulaAnalysis } from '../chem/analyse';
+import type { ShelfEntry } from '../chem/reagents';
 import type { BatchAnalysis, Ingredient, SkippedLine } from '../chem/batch';
 import { CAUTION_FOOTNOTE, cautionsFor, type Caution } from '../chem/cautions';
 import { element, isMetal } from '../chem/data/elements';
 import type { ReactionAnalysis } from '../chem/equation';
-import { nameOf } from '../chem/names';
+import { nameOf, namesOf } from '../chem/names';
 import { designationText, statesText, undeterminedText } from './card';
 import { COMPACT_BATCH, batchColumns, countedRows, markdownTable, mlText, pick } from './columns';
 import type { AnalysedDocument } from './document';
@@ -112,7 +113,8 @@ export function formulaCardMarkdown(a: FormulaAnalysis, s: ServiceSettings): str
   }
   const mm = a.molarMass;
   const name = nameOf(a);
-  const head = `**${esc(a.display)}**${name ? ` · ${esc(name)}` : ''} · **${molarMassText(mm.value, s)} g/mol**${a.charge ? ` · ${chargeWords(a.charge)}` : ''}`;
+  const common = namesOf(a).common;
+  const head = `**${esc(a.display)}**${name ? ` · ${esc(name)}` : ''}${common.length ? ` (${esc(common.join(', '))})` : ''} · **${molarMassText(mm.value, s)} g/mol**${a.charge ? ` · ${chargeWords(a.charge)}` : ''}`;
   const lines = [head, ''];
   const c = a.charges;
   if (c) {
@@ -183,8 +185,12 @@ function bufferMarkdown(i: Ingredient, b: BatchAnalysis, s: ServiceSettings): st
 function ingredientMarkdown(i: Ingredient, b: BatchAnalysis, s: ServiceSettings): string {
   if (i.buffer) return bufferMarkdown(i, b, s);
   const name = i.name ?? nameOf(i.analysis);
+  const common = namesOf(i.analysis).common.filter((c) => c !== name);
   const label = i.shelf ? `shelf: ${i.shelf.label} · ` : '';
-  const lines = [`${esc(label)}**${esc(i.formula)}**${name ? ` · ${esc(name)}` : ''} · ${esc(amountText(i))}`, ''];
+  const lines = [
+    `${esc(label)}**${esc(i.formula)}**${name ? ` · ${esc(name)}` : ''}${common.length ? ` (${esc(common.join(', '))})` : ''} · ${esc(amountText(i))}`,
+    '',
+  ];
   const bits =
     i.measure === 'pour' && i.volumeML !== null
       ? [`pour **${esc(mlText(i.volumeML))}**${i.assay < 1 ? ` of the ${sig(i.assay * 100)} % reagent` : ''} (${massText(i.massG)})`, `${sig(i.moles)} mol`]
@@ -333,7 +339,37 @@ export function reactionMarkdown(r: ReactionAnalysis): string {
   return lines.join('\n');
 }
 
+/** A shelf line as read: the substance, its formula, assay, density, lot and the rest. */
+function shelfEntryMarkdown(e: ShelfEntry, s: ServiceSettings): string {
+  const a = analyseFormula(e.substance.formula, s.chem);
+  const name = nameOf(a);
+  const lines = [
+    `**${esc(e.label)}** — shelf`,
+    '',
+    `Substance: **${esc(a.display)}**${name ? ` · ${esc(name)}` : ''}${e.substance.via === 'name' ? ` (read from the name '${esc(e.substance.text)}')` : ''}`,
+  ];
+  if (a.molarMass) lines.push('', `Molar mass: ${molarMassText(a.molarMass.value, s)} g/mol`);
+  lines.push(
+    '',
+    `Assay: ${e.assayPercent !== undefined ? `${e.assayPercent} %` : e.substance.solution ? 'not given (a solution: give it)' : 'not given (taken as 100 %)'}`,
+  );
+  if (e.densityGPerML !== undefined) lines.push('', `Density: ${e.densityGPerML} g/mL (from the label)`);
+  for (const [k, v] of [
+    ['Lot', e.lot],
+    ['Supplier', e.supplier],
+    ['Grade', e.grade],
+    ['Note', e.note],
+  ] as const)
+    if (v !== undefined) lines.push('', `${k}: ${esc(v)}`);
+  return lines.join('\n');
+}
+
 export function hover(doc: AnalysedDocument, offset: number): HoverResult | null {
+  for (const o of doc.shelves) {
+    if (offset < o.ref.start || offset > o.ref.end) continue;
+    const e = o.shelf.entries.find((x) => x.span.start <= offset && offset <= x.span.end);
+    return e ? { markdown: shelfEntryMarkdown(e, doc.settings), range: doc.lines.range(e.span.start, e.span.end) } : null;
+  }
   const t = targetAt(doc, offset);
   if (!t) return null;
   const s = doc.settings;

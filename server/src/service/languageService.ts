@@ -12,6 +12,7 @@ import { analyseReaction, type ReactionAnalysis } from '../chem/equation';
 import type { NotesLanguage } from '../notes/types';
 import { codeActions, sectionTableEdit, tableEditAt, tableEditForSelection, type CodeAction, type EditOutcome, type TextEdit } from './actions';
 import { batchJson } from './batchJson';
+import { batchAt, parseScaleTarget, scaleEdits, type ScaleOutcome } from './batchEdits';
 import { cardJson, cardText, type CardJson } from './card';
 import { documentDiagnostics, editorDiagnostics, type LspDiagnostic } from './diagnostics';
 import { analyseDocument, updateDocument, type AnalysedDocument, type ChangeHint } from './document';
@@ -43,6 +44,7 @@ export type {
   LspDiagnostic,
   NoteSummary,
   Position,
+  ScaleOutcome,
   Range,
   TextEdit,
   Vocabulary,
@@ -103,6 +105,11 @@ export interface LanguageService {
   workspaceSymbols(notes: Iterable<NoteSummary>, query: string): WorkspaceSymbol[];
   /** Where what is under the cursor is defined (a batch's name → the batch), in the notes given (this one's included). */
   definition(doc: AnalysedDocument, position: Position, notes: readonly NoteSummary[]): Location[];
+  /**
+   * The edits that scale the batch at the cursor to `target` (what the user typed: `×2`, `0.5`, `2 L`,
+   * `5 kg`), every concentration kept and the amounts rounded for the bench; or why not.
+   */
+  scaleBatchEdit(doc: AnalysedDocument, position: Position, target: string): ScaleOutcome;
   /** The batch at the cursor as a weighing list (plain text a technician can print), or null. */
   weighingListAt(doc: AnalysedDocument, position: Position): string | null;
 }
@@ -167,6 +174,12 @@ export function createLanguageService(settings: ServiceSettings = DEFAULT_SETTIN
     noteSummary: (doc, uri) => noteSummary(doc, uri),
     workspaceSymbols: (notes, query) => workspaceSymbols(notes, query),
     definition: (doc, position, notes) => definition({ doc, offset: offset(doc, position), notes }),
+    scaleBatchEdit: (doc, position, target) => {
+      const b = batchAt(doc, offset(doc, position));
+      if (!b) return { reason: 'there is no batch at the cursor' };
+      const t = parseScaleTarget(target);
+      return 'reason' in t ? t : scaleEdits(doc, b, t);
+    },
     weighingListAt: (doc, position) => {
       const t = targetAt(doc, offset(doc, position));
       return t && (t.kind === 'batch-line' || t.kind === 'batch-header') ? batchText(t.occ.analysis, settings) : null;

@@ -11,6 +11,8 @@ export const CLIENT_COMMANDS = {
   showOutput: 'ionwright.showOutput',
   /** The code lens above a batch: copy it as a weighing list (arguments: `{uri, position}`). */
   copyWeighingList: 'ionwright.copyWeighingList',
+  /** Scale the batch at the cursor to a new size (asked for in an input box). */
+  scaleBatch: 'ionwright.scaleBatch',
 } as const;
 
 export const SERVER_COMMANDS = {
@@ -20,6 +22,8 @@ export const SERVER_COMMANDS = {
   cardMarkdown: 'ionwright.server.cardMarkdown',
   /** The batch at `{uri, position}` as a weighing list (plain text), or null. */
   weighingList: 'ionwright.server.weighingList',
+  /** Scale the batch at `{uri, position}` to `{target}` (`×2`, `2 L`, `5 kg`): applies the edit, `{applied, reason?}`. */
+  scaleBatch: 'ionwright.server.scaleBatch',
 } as const;
 
 /** The languages the server serves, as VS Code names them. */
