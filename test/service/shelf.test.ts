@@ -108,6 +108,31 @@ describe('batches read with the shelf and the stocks', () => {
   });
 });
 
+describe('dilution from another batch, through the real reader', () => {
+  it('takes the stock batch’s computed concentration, and follows it when the stock changes (c₁V₁ = c₂V₂ by hand)', () => {
+    const dil = '```batch\nname: Rinse\nvolume: 1 L\nH2SO4 0.01 M from batch "Acid stock"\n```\n\n';
+    const stock = (m: string) => `\`\`\`batch\nname: Acid stock\nvolume: 1 L\nH2SO4 ${m} M\n\`\`\`\n`;
+    const stockML = (d: ReturnType<typeof analyseDocument>) => d.batches[0].analysis.ingredients[0]?.volumeML ?? null;
+    const doc1 = analyseDocument(dil + stock('1'), 'markdown');
+    // 0.01 M × 1000 mL ÷ 1 M = 10 mL; ÷ 2 M = 5 mL.
+    expect(stockML(doc1)).toBeCloseTo(10, 9);
+    const doc2 = updateDocument(doc1, dil + stock('2'));
+    expect(stockML(doc2)).toBeCloseTo(5, 9);
+    expect(stockML(analyseDocument(dil + stock('2'), 'markdown'))).toBeCloseTo(5, 9);
+    const doc3 = updateDocument(doc2, dil);
+    expect(stockML(doc3)).toBeNull();
+    expect(doc3.diagnostics.some((d) => d.code === 'batch-stock')).toBe(true);
+  });
+
+  it('reads a shelf label on a batch line with the entry’s assay and density', () => {
+    const doc = analyseDocument('```shelf\nAcid A: H2SO4 @ 96 %; density 1.84 g/mL\n```\n\n```batch\nvolume: 1 L\nAcid A 10 mL\n```\n', 'markdown');
+    const [i] = doc.batches[0].analysis.ingredients;
+    expect(i.via).toBe('shelf');
+    // 10 mL × 1.84 g/mL (the label's density) = 18.4 g.
+    expect(i.massG).toBeCloseTo(18.4, 9);
+  });
+});
+
 describe('cards name the trade’s names', () => {
   it('beside the systematic name, in JSON commonNames', () => {
     // Blue vitriol for copper(II) sulfate pentahydrate (Merck Index; from memory).
