@@ -35,6 +35,7 @@ export interface SubstanceReading {
 
 const hasErrors = (a: FormulaAnalysis) => a.diagnostics.some((d) => d.severity === 'error');
 const list = (cs: readonly NameCandidate[]) => cs.map((c) => `${c.name} (${c.formula})`).join(', ');
+const NAME_NOTES = new WeakMap<readonly NameCandidate[], string[]>();
 /** A word that is written as a word (lower case, or a capital and lower case), not a formula. */
 const WORDY = /^[A-Za-z][a-z]{2,}(?:[-'][A-Za-z]+)*$/;
 
@@ -68,8 +69,14 @@ export function readSubstance(text: string, base: number, settings: ChemSettings
   const span = { text: text.slice(n.start, n.end), start: base + n.start, end: base + n.end };
   if (n.status === 'exact' && n.formula) {
     const named = analyseFormula(n.formula, settings);
-    const notes = [...n.notes];
-    if (n.lookalikes.length) notes.push(`Read as ${n.name} (${n.formula}); not ${list(n.lookalikes)}.`);
+    // The notes of a reading, written once per cached reading (its arrays are shared between lines).
+    let base = NAME_NOTES.get(n.lookalikes);
+    if (!base) {
+      base = [...n.notes];
+      if (n.lookalikes.length) base.push(`Read as ${n.name} (${n.formula}); not ${list(n.lookalikes)}.`);
+      NAME_NOTES.set(n.lookalikes, base);
+    }
+    const notes = base.slice();
     const out: SubstanceReading = {
       formula: span,
       analysis: named,
