@@ -20,6 +20,7 @@ export type RaisedBy =
   | 'chem/batch'
   | 'chem/solution'
   | 'chem/safety'
+  | 'chem/upkeep'
   | 'service/document'
   | 'service/diagnostics'
   | 'cli';
@@ -135,6 +136,44 @@ const CATALOGUE = {
     raisedBy: ['chem/safety'],
     reserved: true,
     description: 'An estimated temperature change on making up the batch above the setting.',
+  },
+  // ── bath upkeep (titrations and additions) ──
+  'titre-syntax': {
+    severity: 'error',
+    raisedBy: ['chem/upkeep'],
+    description: "A titre line that cannot be read: no ':' after the analyte, a part that is no sample, titre, blank, ratio or reaction, or one missing.",
+  },
+  'titre-amount': {
+    severity: 'error',
+    raisedBy: ['chem/upkeep'],
+    description:
+      'A volume or concentration of a titre line that is missing, not a positive number, in an unknown unit, or impossible (an aliquot larger than its dilution).',
+  },
+  'titre-analyte': {
+    severity: 'error',
+    raisedBy: ['chem/upkeep'],
+    description: "An analyte or titrant of a titre line that cannot be read, or an 'as' species that is not part of the analyte.",
+  },
+  'titre-ratio': {
+    severity: 'error',
+    raisedBy: ['chem/upkeep'],
+    description:
+      'A titre line whose mole ratio is not written and does not follow from the titrant, or whose reaction does not join the analyte and the titrant.',
+  },
+  'titre-implausible': {
+    severity: 'warning',
+    raisedBy: ['chem/upkeep'],
+    description: "A titrated concentration above the salt's solubility, or beyond three times or below a third of the batch's target.",
+  },
+  'upkeep-tank': {
+    severity: 'error',
+    raisedBy: ['chem/upkeep'],
+    description: "A 'tank:' header that cannot be read, or additions asked for without a tank volume.",
+  },
+  'upkeep-target': {
+    severity: 'information',
+    raisedBy: ['chem/upkeep'],
+    description: 'A titrated substance with no target in the batch, or a target with no titre (taken as at target).',
   },
   'batch-unclosed': { severity: 'warning', raisedBy: ['service/document'], description: 'A batch block that is never closed.' },
   // ── notes and files ──
