@@ -170,6 +170,12 @@ const CATALOGUE = {
     raisedBy: ['chem/upkeep'],
     description: "A 'tank:' header that cannot be read, or additions asked for without a tank volume.",
   },
+  'upkeep-reagent': {
+    severity: 'error',
+    raisedBy: ['chem/upkeep'],
+    description:
+      "A target or reagent of an addition that cannot be used: no target concentration or molar mass, an assay outside 0–100 %, or a reagent that is not a form of the batch's substance.",
+  },
   'upkeep-target': {
     severity: 'information',
     raisedBy: ['chem/upkeep'],

@@ -650,7 +650,8 @@ export function readTitre(text: string, offset: number): TitreRead {
       tried.blank = true;
       const v = readVolume(ps, 1, 'blank', f, ps[0]);
       if (v && v.next < ps.length) f.add('titre-syntax', ps[v.next].start, part.end, 'Unexpected text after the blank volume.');
-      if (v) blank ? twice('blank', part) : (blank = v.volume);
+      if (v && blank) twice('blank', part);
+      else if (v) blank = v.volume;
       continue;
     }
     const sampleAt = ps.findIndex((p) => /^(sample|aliquot)$/i.test(p.text));
@@ -680,7 +681,8 @@ export function readTitre(text: string, offset: number): TitreRead {
     if (takenAt === 2 && ps.length === 3) {
       words();
       const v = readVolume(ps, 0, 'aliquot taken', f, ps[0]);
-      if (v) taken ? twice('aliquot taken', part) : (taken = v.volume);
+      if (v && taken) twice('aliquot taken', part);
+      else if (v) taken = v.volume;
       continue;
     }
     if (NUMBER.test(ps[0].text)) {
