@@ -152,7 +152,8 @@ const CATALOGUE = {
   'titre-analyte': {
     severity: 'error',
     raisedBy: ['chem/upkeep'],
-    description: "An analyte or titrant of a titre line that cannot be read, or an 'as' species that is not part of the analyte.",
+    description:
+      "An analyte or titrant of a titre line that cannot be read, an 'as' species that is not part of the analyte, or a 'less' substance with no titre of its own.",
   },
   'titre-ratio': {
     severity: 'error',

@@ -25,6 +25,9 @@ import { liquidOf, volumeFor } from '../reagents';
 import { anhydrousOf } from '../batch/solubility';
 import { fmt } from './titration';
 
+/** A mass for a basis: kilograms from 1000 g up. */
+const grams = (g: number) => (g >= 1000 ? `${fmt(g / 1000)} kg` : `${fmt(g)} g`);
+
 // ---------------------------------------------------------------------------------------------------
 // The tank header.
 
@@ -357,7 +360,7 @@ export function planAdditions(input: AdditionsInput): AdditionsPlan {
     const assayText = r.assay < 1 ? ` ÷ ${fmt(r.assay * 100)} % assay` : '';
     const had = measured === null ? `not analysed, taken as at target ${fmt(c)} mol/L` : `analysed ${fmt(c)} mol/L${r.n > 1 ? ` (mean of ${r.n})` : ''}`;
     const need = `${fmt(r.t.targetM)} mol/L × ${fmt(finalL)} L − ${fmt(c)} mol/L × ${fmt(kept)} L = ${fmt(addMol)} mol`;
-    let basis = `${r.a.display}: ${had}; target ${fmt(r.t.targetM)} mol/L. Add ${need}; × ${fmt(mm)} g/mol (${r.reagent.display})${assayText} = ${fmt(massG)} g`;
+    let basis = `${r.a.display}: ${had}; target ${fmt(r.t.targetM)} mol/L. Add ${need}; × ${fmt(mm)} g/mol (${r.reagent.display})${assayText} = ${grams(massG)}`;
     if (addMol === 0) basis += governing === r ? ' (brought to target by the dilution)' : '';
     const add: Addition = {
       formula: r.t.formula,
@@ -381,7 +384,7 @@ export function planAdditions(input: AdditionsInput): AdditionsPlan {
       if ('volumeML' in p) {
         add.volumeML = p.volumeML;
         add.density = p.density.text;
-        add.basis += `; at ${p.density.text}: ${fmt(p.volumeML)} mL to pour`;
+        add.basis += `; at ${p.density.text}: ${p.volumeML >= 1000 ? `${fmt(p.volumeML / 1000)} L` : `${fmt(p.volumeML)} mL`} to pour`;
       }
     }
     if (measured === null) {
@@ -389,7 +392,7 @@ export function planAdditions(input: AdditionsInput): AdditionsPlan {
         info(
           r.t.start,
           r.t.end,
-          `${r.a.display} was not analysed: taken as at target${addMol > 0 ? `, so only what the ${fmt(plan.waterL)} L of water dilutes is added back (${fmt(massG)} g)` : ''}. Analyse it to be sure.`,
+          `${r.a.display} was not analysed: taken as at target${addMol > 0 ? `, so only what the ${fmt(plan.waterL)} L of water dilutes is added back (${grams(massG)})` : ''}. Analyse it to be sure.`,
           where,
         ),
       );

@@ -52,7 +52,7 @@
 import type { ChemDiagnostic } from '../diagnostic';
 import { analyseFormula } from '../analyse';
 import { planAdditions, readTank, substanceKey, type AdditionsPlan, type TankVolume, type UpkeepTarget } from './additions';
-import { computeTitre, readTitre, type TitreFailure, type TitreResult } from './titration';
+import { computeTitre, readTitre, type TitreFailure, type TitreOptions, type TitreReading, type TitreResult } from './titration';
 
 export {
   computeTitre,
@@ -120,15 +120,29 @@ export function analyseUpkeep(input: UpkeepInput): Upkeep {
     const k = substance(t.formula);
     if (k && !targetOf.has(k)) targetOf.set(k, t);
   }
-  const titres = input.titreLines.map((line): TitreResult | TitreFailure => {
-    const r = readTitre(line.text, line.start);
+  // Two passes: a titre with `less <substance>` takes off what that substance's own titre found (a titre
+  // that itself takes something off is not used for another: no chains).
+  const read = input.titreLines.map((line) => readTitre(line.text, line.start));
+  const optionsOf = (r: TitreReading) => {
+    const key = substance(r.analyte.formula);
+    const t = key ? targetOf.get(key) : undefined;
+    return t ? { targetM: t.targetM, targetText: `${t.formula} in the batch` } : {};
+  };
+  const first = new Map<string, number[]>();
+  for (const r of read) {
+    if (!r.ok || r.less) continue;
+    const key = substance(r.analyte.formula);
+    if (key) first.set(key, [...(first.get(key) ?? []), computeTitre(r, optionsOf(r)).concentrationM]);
+  }
+  const mean = (xs: number[] | undefined) => (xs && xs.length ? xs.reduce((x, y) => x + y, 0) / xs.length : undefined);
+  const titres = read.map((r): TitreResult | TitreFailure => {
     if (!r.ok) {
       diagnostics.push(...r.diagnostics);
       return r;
     }
-    const key = substance(r.analyte.formula);
-    const t = key ? targetOf.get(key) : undefined;
-    const result = computeTitre(r, t ? { targetM: t.targetM, targetText: `${t.formula} in the batch` } : {});
+    const options: TitreOptions = optionsOf(r);
+    if (r.less) options.lessM = r.less.map((l) => mean(first.get(substance(l.formula) ?? '')) ?? NaN);
+    const result = computeTitre(r, options);
     diagnostics.push(...result.diagnostics);
     return result;
   });
@@ -138,7 +152,8 @@ export function analyseUpkeep(input: UpkeepInput): Upkeep {
     if (r.ok) tank = r.tank;
     else diagnostics.push(...r.diagnostics);
   }
-  const done = titres.filter((t): t is TitreResult => 'reading' in t);
+  // A titre with an error (a `less` substance without its titre) is shown but makes no addition.
+  const done = titres.filter((t): t is TitreResult => 'reading' in t && !t.diagnostics.some((d) => d.severity === 'error'));
   let additions: AdditionsPlan | null = null;
   if (!done.length) {
     if (titres.length) notes.push('No titre could be read: no additions are computed.');

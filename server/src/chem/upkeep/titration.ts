@@ -14,6 +14,8 @@
  *   `<V> <unit> taken` (or `aliquot`): the part of the diluted sample titrated (only after `diluted to`)
  *   `<V> <unit> [of] <c> <M|mM|mol/L> <titrant>`: the titre, the titrant's concentration and the titrant
  *   `blank <V> <unit>`: a blank titre, taken off the titre
+ *   `less <substance>`: the titre also counts the ion of another substance of the bath, found by its own
+ *     titre line (EDTA takes all the nickel of a Watts bath, the chloride's too): that is taken off
  *   `<a>:<b>`: a mol of analyte react with b mol of titrant; `<n> eq`: n mol of titrant per mol of analyte
  *   a reaction with an arrow (`Ni2+ + EDTA4- -> NiEDTA2-`): read by chem/equation and balanced there
  * A `#` starts a comment. `EDTA` in a titrant or a reaction is ethylenediaminetetraacetate (the formula
@@ -105,6 +107,8 @@ export interface TitreReading {
   dilution?: { to: WrittenVolume; taken: WrittenVolume };
   titre: WrittenVolume;
   blank?: WrittenVolume;
+  /** `less <substance>`: other substances whose share of the carrier is taken off, each with how many of the carrier it holds. */
+  less?: Array<{ text: string; start: number; end: number; formula: string; analysis: FormulaAnalysis; carrierCount: number }>;
   titrant: { text: string; start: number; end: number; display: string; analysis: FormulaAnalysis | null; edta: boolean };
   titrantM: { value: number; text: string; start: number; end: number };
   ratio: TitreRatio;
@@ -588,6 +592,7 @@ export function readTitre(text: string, offset: number): TitreRead {
   let taken: WrittenVolume | null = null;
   let titre: WrittenVolume | null = null;
   let blank: WrittenVolume | null = null;
+  const lessPieces: Array<{ piece: Piece; analysis: FormulaAnalysis; formula: string }> = [];
   let titrantPiece: Piece | null = null;
   let titrantM: TitreReading['titrantM'] | null = null;
   let writtenRatio: { value: number; text: string; start: number; end: number } | null = null;
@@ -645,6 +650,19 @@ export function readTitre(text: string, offset: number): TitreRead {
     const words = (list: Piece[] = ps) => {
       for (const p of list) tok(NUMBER.test(p.text) ? 'number' : VOLUME_UNITS[p.text] || CONCENTRATION_UNITS[p.text] ? 'unit' : 'word', p);
     };
+    if (first === 'less' || first === 'minus') {
+      tok('word', ps[0]);
+      if (ps.length < 2) {
+        f.add('titre-syntax', ps[0].start, ps[0].end, `'${ps[0].text}' needs the substance whose share is taken off (\`less NiCl2·6H2O\`).`);
+        continue;
+      }
+      const sp = { text: part.text.slice(ps[1].start - part.start), start: ps[1].start, end: part.end };
+      tok('species', sp);
+      const sub = readSubstance(sp, 'species');
+      if ('findings' in sub) f.list.push(...sub.findings);
+      else lessPieces.push({ piece: sp, analysis: sub.analysis, formula: sub.formula });
+      continue;
+    }
     if (first === 'blank') {
       words();
       tried.blank = true;
@@ -812,6 +830,22 @@ export function readTitre(text: string, offset: number): TitreRead {
     carrier = c;
     carrierNote = undefined;
   }
+  const less: NonNullable<TitreReading['less']> = [];
+  for (const l of lessPieces) {
+    const n = carrier ? carrierCountIn(l.analysis, carrier) : 0;
+    if (!carrier || !n) {
+      f.add(
+        'titre-analyte',
+        l.piece.start,
+        l.piece.end,
+        carrier
+          ? `${l.analysis.display} holds no ${carrier.display}: nothing of it can be taken off.`
+          : `No ion carries this analysis, so nothing of ${l.analysis.display} can be taken off.`,
+      );
+      return fail();
+    }
+    less.push({ ...l.piece, formula: l.formula, analysis: l.analysis, carrierCount: n });
+  }
   if (hash >= 0) tok('comment', { text: text.slice(hash), start: offset + hash, end: offset + text.length });
   tokens.sort((x, y) => x.start - y.start);
   const reading: TitreReading = {
@@ -831,8 +865,18 @@ export function readTitre(text: string, offset: number): TitreRead {
   if (asSpecies) reading.as = { text: asSpecies.text, start: asSpecies.start, end: asSpecies.end };
   if (dilutedTo && taken) reading.dilution = { to: dilutedTo, taken };
   if (blank) reading.blank = blank;
+  if (less.length) reading.less = less;
   if (carrierNote) reading.carrierNote = carrierNote;
   return reading;
+}
+
+/** How many of the carrier one formula unit of `a` holds (by ion, or by element for an element carrier). */
+function carrierCountIn(a: FormulaAnalysis, c: Carrier): number {
+  const atoms = atomsOfKey(c.key);
+  if (!atoms) return 0;
+  const els = Object.keys(atoms);
+  if (!/[+-]$/.test(c.key) && els.length === 1) return a.atoms[els[0]] ?? 0;
+  return speciesOf(a).find((s) => s.key === c.key)?.count ?? 0;
 }
 
 /** `as Ni` (an element of the analyte, counted by atoms) or `as Cl-` (one of its ions). */
@@ -862,6 +906,8 @@ export interface TitreOptions {
   targetM?: number;
   /** Where the target is written, for the message. */
   targetText?: string;
+  /** For each `less` substance of the reading, in order: its concentration in the bath (mol/L), from its own titre. */
+  lessM?: readonly number[];
 }
 
 export interface TitreResult {
@@ -872,8 +918,10 @@ export interface TitreResult {
   analyteMol: number;
   /** Bath volume per volume titrated: 1, or (diluted to ÷ sample) for a diluted sample. */
   dilutionFactor: number;
-  /** The bath's concentration of the analyte, mol/L. */
+  /** The bath's concentration of the analyte, mol/L (after any `less`). */
   concentrationM: number;
+  /** Before the `less` substances were taken off, where any were. */
+  totalM?: number;
   /** g/L of the analyte as written (a hydrate with its water). */
   saltGPerL: number;
   /** g/L of the ion or element that carries the analysis; null where none does (with `carrierNote`). */
@@ -910,7 +958,31 @@ export function computeTitre(reading: TitreReading, options: TitreOptions = {}):
   const analyteMol = titrantMol / ratio.titrantPerAnalyte;
   const titratedL = reading.dilution ? reading.dilution.taken.litres : reading.sample.litres;
   const dilutionFactor = reading.dilution ? reading.dilution.to.litres / reading.sample.litres : 1;
-  const concentrationM = (analyteMol / titratedL) * dilutionFactor;
+  const totalM = (analyteMol / titratedL) * dilutionFactor;
+  const lessFindings: ChemDiagnostic[] = [];
+  let concentrationM = totalM;
+  const lessLines: string[] = [];
+  if (reading.less && carrier) {
+    let carrierM = totalM * carrier.perAnalyte;
+    reading.less.forEach((l, k) => {
+      const m = options.lessM?.[k];
+      if (m === undefined || !(m >= 0)) {
+        lessFindings.push({
+          code: 'titre-analyte',
+          severity: 'error',
+          start: l.start,
+          end: l.end,
+          message: `No titre of ${l.analysis.display} in this batch to take off: the figure is all the ${carrier.display} the titrant found.`,
+        });
+        return;
+      }
+      carrierM -= m * l.carrierCount;
+      lessLines.push(
+        `less ${l.analysis.display}: ${fmt(m)} mol/L × ${l.carrierCount} ${carrier.display} = ${fmt(m * l.carrierCount)} mol/L of ${carrier.display} taken off`,
+      );
+    });
+    concentrationM = carrierM / carrier.perAnalyte;
+  }
   const mm = a.molarMass?.value ?? NaN;
   const saltGPerL = concentrationM * mm;
   const carrierGPerL = carrier ? concentrationM * carrier.perAnalyte * carrier.molarMass : null;
@@ -927,6 +999,11 @@ export function computeTitre(reading: TitreReading, options: TitreOptions = {}):
   basis.push(
     `bath: ${fmt(analyteMol * 1000)} mmol ÷ ${ml(titratedL)} mL${dilutionFactor !== 1 ? ` × ${fmt(dilutionFactor)}` : ''} = ${fmt(concentrationM)} mol/L`,
   );
+  if (lessLines.length && carrier) {
+    basis.push(`${carrier.display} found: ${fmt(totalM)} × ${carrier.perAnalyte} = ${fmt(totalM * carrier.perAnalyte)} mol/L`);
+    basis.push(...lessLines);
+    basis.push(`${a.display}: what is left ÷ ${carrier.perAnalyte} = ${fmt(concentrationM)} mol/L`);
+  }
   basis.push(`${a.display}: ${fmt(concentrationM)} mol/L × ${fmt(mm)} g/mol = ${fmt(saltGPerL)} g/L`);
   if (carrier && carrierGPerL !== null)
     basis.push(
@@ -942,8 +1019,18 @@ export function computeTitre(reading: TitreReading, options: TitreOptions = {}):
     saltGPerL,
     carrierGPerL,
     basis,
-    diagnostics: [...reading.diagnostics],
+    diagnostics: [...reading.diagnostics, ...lessFindings],
   };
+  if (concentrationM !== totalM) out.totalM = totalM;
+  if (concentrationM <= 0) {
+    out.diagnostics.push({
+      code: 'titre-implausible',
+      severity: 'warning',
+      start: reading.start,
+      end: reading.end,
+      message: `Nothing of ${a.display} is left once the other substances are taken off (${fmt(concentrationM)} mol/L): check both titres.`,
+    });
+  }
 
   // Above the solubility (an estimate, as the batch's own check: water ≈ 1000 g/L less the dissolved salt).
   const an = anhydrousOf(a);
