@@ -156,7 +156,7 @@ export function analyseUpkeep(input: UpkeepInput): Upkeep {
   const done = titres.filter((t): t is TitreResult => 'reading' in t && !t.diagnostics.some((d) => d.severity === 'error'));
   let additions: AdditionsPlan | null = null;
   if (!done.length) {
-    if (titres.length) notes.push('No titre could be read: no additions are computed.');
+    if (titres.length) notes.push('No titre counts (each has an error): no additions are computed.');
   } else if (!tank)
     notes.push(
       input.tankLine
