@@ -254,6 +254,7 @@ describe('a batch with titres and a tank, all together', () => {
     expect(ok.map((t) => ('reading' in t ? Number(t.concentrationM.toFixed(6)) : 0))).toEqual([0.72, 0.18, 0.62]);
     expect(ok[0]).toMatchObject({ totalM: expect.closeTo(0.9, 9) });
     expect((ok[0] as { basis: string[] }).basis.join('\n')).toMatch(/less NiCl₂·6H₂O: 0\.18 mol\/L × 1 Ni²⁺/);
+    expect((ok[0] as { basis: string[] }).basis.join('\n')).toMatch(/= 0\.9 mol\/L\nNi²⁺ found: 0\.9 × 1 = 0\.9 mol\/L\nless/);
     const add = Object.fromEntries(u.additions!.additions.map((a) => [a.formula, a.addMol]));
     expect(add['NiSO4·6H2O']).toBeCloseTo(152, 9);
     expect(add['NiCl2·6H2O']).toBeCloseTo(8, 9);

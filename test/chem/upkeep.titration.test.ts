@@ -238,3 +238,15 @@ describe('the plausibility flags', () => {
     expect(c.diagnostics.every((d) => d.start >= r.start && d.end <= r.end)).toBe(true);
   });
 });
+
+describe('the examples of docs/upkeep.md', () => {
+  it('read as the page says', async () => {
+    const { readFileSync } = await import('node:fs');
+    const { join } = await import('node:path');
+    const page = readFileSync(join(__dirname, '../../docs/upkeep.md'), 'utf8');
+    const block = /## A titre line\n\n```\n([\s\S]*?)```/.exec(page)![1];
+    const lines = block.trim().split('\n');
+    expect(lines.length).toBeGreaterThanOrEqual(6);
+    for (const line of lines) expect(readTitre(line, 0).ok, line).toBe(true);
+  });
+});

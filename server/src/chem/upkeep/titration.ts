@@ -996,9 +996,7 @@ export function computeTitre(reading: TitreReading, options: TitreOptions = {}):
     basis.push(
       `dilution: ${litresText(reading.sample)} made up to ${litresText(reading.dilution.to)}, ${litresText(reading.dilution.taken)} taken: × ${fmt(dilutionFactor)}`,
     );
-  basis.push(
-    `bath: ${fmt(analyteMol * 1000)} mmol ÷ ${ml(titratedL)} mL${dilutionFactor !== 1 ? ` × ${fmt(dilutionFactor)}` : ''} = ${fmt(concentrationM)} mol/L`,
-  );
+  basis.push(`bath: ${fmt(analyteMol * 1000)} mmol ÷ ${ml(titratedL)} mL${dilutionFactor !== 1 ? ` × ${fmt(dilutionFactor)}` : ''} = ${fmt(totalM)} mol/L`);
   if (lessLines.length && carrier) {
     basis.push(`${carrier.display} found: ${fmt(totalM)} × ${carrier.perAnalyte} = ${fmt(totalM * carrier.perAnalyte)} mol/L`);
     basis.push(...lessLines);
