@@ -204,6 +204,15 @@ describe('findings with exact offsets', () => {
     expect(d!.message.length).toBeGreaterThan(10);
   });
 
+  it('a long pasted line: one finding per repeated part, messages that quote a little of it', () => {
+    const r = fails('titre NiSO4: ' + '2 mL sample, '.repeat(150) + '3 mL 0.1 M EDTA');
+    expect(r.diagnostics.filter((d) => /more than once/.test(d.message))).toHaveLength(1);
+    const n = fails('titre ' + 'nickel '.repeat(250) + ': 2 mL sample, 3 mL 0.1 M EDTA');
+    expect(n.diagnostics[0].code).toBe('titre-analyte');
+    expect(n.diagnostics[0].message.length).toBeLessThan(200);
+    expect(fails('titre NiSO4: 2 mL sample, 3 mL 0.1 M EDTA, ' + 'x'.repeat(2000)).diagnostics[0].message).toMatch(/at most 2000/);
+  });
+
   it('a line that is no titre line says so', () => {
     const r = fails('NiSO4 20 g');
     expect(r.diagnostics[0].code).toBe('titre-syntax');

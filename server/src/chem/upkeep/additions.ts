@@ -23,7 +23,7 @@ import { analyseFormula, type FormulaAnalysis } from '../analyse';
 import type { ChemDiagnostic } from '../diagnostic';
 import { liquidOf, volumeFor } from '../reagents';
 import { anhydrousOf } from '../batch/solubility';
-import { fmt } from './titration';
+import { fmt, short } from './titration';
 
 /** A mass for a basis: kilograms from 1000 g up. */
 const grams = (g: number) => (g >= 1000 ? `${fmt(g / 1000)} kg` : `${fmt(g)} g`);
@@ -95,9 +95,11 @@ export function readTank(text: string, offset: number): { ok: true; tank: TankVo
     const n = ps[k];
     const u = ps[k + 1];
     if (!n) return { error: bad(start, end, `The ${what} is missing: write it as a number and a unit (L, mL, m³ or gal).`) };
-    if (!NUMBER.test(n.text)) return { error: bad(n.start, n.end, `'${n.text}' is not a volume: the ${what} is a number and a unit (L, mL, m³ or gal).`) };
+    if (!NUMBER.test(n.text))
+      return { error: bad(n.start, n.end, `'${short(n.text)}' is not a volume: the ${what} is a number and a unit (L, mL, m³ or gal).`) };
     const unit = u ? TANK_UNITS[u.text] : undefined;
-    if (!u || !unit) return { error: bad(u?.start ?? n.start, u?.end ?? n.end, `The ${what} needs a unit (L, mL, m³ or gal)${u ? `, not '${u.text}'` : ''}.`) };
+    if (!u || !unit)
+      return { error: bad(u?.start ?? n.start, u?.end ?? n.end, `The ${what} needs a unit (L, mL, m³ or gal)${u ? `, not '${short(u.text)}'` : ''}.`) };
     const litres = Number(n.text) * unit.factor;
     if (!(litres > 0) || litres > MAX_TANK_L) return { error: bad(n.start, u.end, `The ${what} must be a positive volume a tank can hold.`) };
     tokens.push({ kind: 'number', text: n.text, start: n.start, end: n.end }, { kind: 'unit', text: u.text, start: u.start, end: u.end });

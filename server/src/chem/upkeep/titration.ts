@@ -135,6 +135,9 @@ export type TitreRead = TitreReading | TitreFailure;
 // ---------------------------------------------------------------------------------------------------
 // Small readers.
 
+/** A text for a message: at most 40 characters of it. */
+export const short = (t: string) => (t.length > 40 ? `${t.slice(0, 40)}…` : t);
+
 const KEYWORD = /^(titre|titration)(?=\s|$)/i;
 const NUMBER = /^(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?$/;
 const GLUED = /^((?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?)([A-Za-zµ/]+)$/;
@@ -201,14 +204,14 @@ function readVolume(ps: Piece[], at: number, what: string, f: Findings, near: Pi
     return null;
   }
   if (!NUMBER.test(n.text)) {
-    f.add('titre-amount', n.start, n.end, `'${n.text}' is not a volume: the ${what} is a number and a unit (${volumeList}).`);
+    f.add('titre-amount', n.start, n.end, `'${short(n.text)}' is not a volume: the ${what} is a number and a unit (${volumeList}).`);
     return null;
   }
   const value = Number(n.text);
   const u = ps[at + 1];
   const unit = u ? VOLUME_UNITS[u.text] : undefined;
   if (!u || !unit) {
-    f.add('titre-amount', u?.start ?? n.start, u?.end ?? n.end, `The ${what} needs a volume unit (${volumeList})${u ? `, not '${u.text}'` : ''}.`);
+    f.add('titre-amount', u?.start ?? n.start, u?.end ?? n.end, `The ${what} needs a volume unit (${volumeList})${u ? `, not '${short(u.text)}'` : ''}.`);
     return null;
   }
   if (!(value > 0) || value > MAX_FIGURE) {
@@ -491,8 +494,8 @@ function readSubstance(
       const an = analyseFormula(n.formula);
       if (an.ok && an.molarMass) return { analysis: an, formula: n.formula, named: n.name };
     }
-    const why = n.message ?? `'${p.text}' is neither a formula nor a name the tool knows`;
-    return { findings: [{ code: 'titre-analyte', severity: 'error', start: p.start, end: p.end, message: `The ${role}: ${why}.` }] };
+    const why = p.text.length <= 60 && n.message ? n.message : `'${short(p.text)}' is neither a formula nor a name the tool knows`;
+    return { findings: [{ code: 'titre-analyte', severity: 'error', start: p.start, end: p.end, message: `The ${role}: ${why.replace(/\.$/, '')}.` }] };
   }
   const own = a.diagnostics.filter((d) => d.severity === 'error');
   if (own.length)
@@ -581,7 +584,7 @@ export function readTitre(text: string, offset: number): TitreRead {
       tok('species', speciesPieces[0]);
       const a = analyseFormula(speciesPieces[0].text);
       if (!a.ok || !a.molarMass)
-        f.add('titre-analyte', speciesPieces[0].start, speciesPieces[0].end, `'${speciesPieces[0].text}' is not an ion or element that can be read.`);
+        f.add('titre-analyte', speciesPieces[0].start, speciesPieces[0].end, `'${short(speciesPieces[0].text)}' is not an ion or element that can be read.`);
       else asSpecies = { ...speciesPieces[0], analysis: a };
     }
   }
@@ -598,7 +601,13 @@ export function readTitre(text: string, offset: number): TitreRead {
   let writtenRatio: { value: number; text: string; start: number; end: number } | null = null;
   let reactionPiece: Piece | null = null;
   const tried = { sample: false, titre: false, blank: false };
-  const twice = (what: string, p: Piece) => f.add('titre-syntax', p.start, p.end, `The ${what} is given twice; write it once.`);
+  const repeated = new Set<string>();
+  // One finding per kind of part given again (a pasted line need not give hundreds).
+  const twice = (what: string, p: Piece) => {
+    if (repeated.has(what)) return;
+    repeated.add(what);
+    f.add('titre-syntax', p.start, p.end, `The ${what} is given more than once; write it once.`);
+  };
 
   const rest = trimmed.slice(colon + 1);
   const restBase = line.start + colon + 1;
@@ -724,7 +733,7 @@ export function readTitre(text: string, offset: number): TitreRead {
           'titre-amount',
           (cu ?? c).start,
           (cu ?? c).end,
-          `The titrant's concentration needs a unit (M, mM or mol/L)${cu ? `, not '${cu.text}'` : ''}${hint}.`,
+          `The titrant's concentration needs a unit (M, mM or mol/L)${cu ? `, not '${short(cu.text)}'` : ''}${hint}.`,
         );
         continue;
       }
@@ -754,7 +763,7 @@ export function readTitre(text: string, offset: number): TitreRead {
       'titre-syntax',
       part.start,
       part.end,
-      `'${part.text.length > 40 ? part.text.slice(0, 40) + '…' : part.text}' is no part of a titre line: a sample (\`5.00 mL sample\`), a titre (\`21.30 mL 0.0500 M EDTA\`), \`<V> mL taken\`, \`blank <V> mL\`, a ratio (\`1:1\`, \`2 eq\`) or a reaction.`,
+      `'${short(part.text)}' is no part of a titre line: a sample (\`5.00 mL sample\`), a titre (\`21.30 mL 0.0500 M EDTA\`), \`<V> mL taken\`, \`blank <V> mL\`, a ratio (\`1:1\`, \`2 eq\`) or a reaction.`,
     );
   }
 
