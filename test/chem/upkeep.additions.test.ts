@@ -186,6 +186,9 @@ describe('reagents as supplied, duplicates, and what has no target', () => {
     expect(acid.volumeML).toBeCloseTo(2043.17 / 1.8355, 0);
     expect(plan.additions[0].massG).toBe(0);
     expect(plan.additions[0].volumeML).toBeUndefined();
+    // Concentrated sulfuric acid carries its handling cautions; every plan carries the standing note.
+    expect(acid.cautions?.join(' ')).toMatch(/water/i);
+    expect(plan.notes.join(' ')).toMatch(/SDS/);
   });
 
   it('needs a tank volume', () => {

@@ -180,6 +180,8 @@ export interface Addition {
   /** For a liquid reagent with a density table: millilitres to pour, and the density used. */
   volumeML?: number;
   density?: string;
+  /** The handling cautions of a concentrated liquid reagent (chem/reagents), where it has any. */
+  cautions?: string[];
   /** Concentration after the additions, recomputed from the amounts (mol/L). */
   afterM: number;
   /** The arithmetic, for the hover. */
@@ -206,8 +208,14 @@ export interface AdditionsPlan {
   unmatched: Array<{ formula: string; concentrationM: number; reason: string }>;
   /** The arithmetic of the whole plan, line by line, for the hover. */
   basis: string[];
+  /** What the plan is and is not: an estimate from the analysis, to be checked against the SDS and practice. */
+  notes: string[];
   diagnostics: ChemDiagnostic[];
 }
+
+/** The plan's standing note (shown with it, in the hover and the table). */
+export const ADDITIONS_NOTE =
+  'Estimates from the analysis: re-titrate after the additions have dissolved and mixed. Follow the SDS of each reagent, the shop’s own procedure and local rules; wear the protection they name, and add concentrated acids slowly to the bath, never water to the acid.';
 
 /** The key two forms of one substance share: the anhydrous Hill formula (hydrates of a salt are one substance). */
 export function substanceKey(a: FormulaAnalysis): string | null {
@@ -241,6 +249,7 @@ export function planAdditions(input: AdditionsInput): AdditionsPlan {
     additions: [],
     unmatched: [],
     basis: [],
+    notes: [ADDITIONS_NOTE],
     diagnostics,
   };
   if (!(V > 0) || !Number.isFinite(V)) {
@@ -386,6 +395,7 @@ export function planAdditions(input: AdditionsInput): AdditionsPlan {
       if ('volumeML' in p) {
         add.volumeML = p.volumeML;
         add.density = p.density.text;
+        if (p.cautions.length) add.cautions = p.cautions;
         add.basis += `; at ${p.density.text}: ${p.volumeML >= 1000 ? `${fmt(p.volumeML / 1000)} L` : `${fmt(p.volumeML)} mL`} to pour`;
       }
     }

@@ -32,8 +32,10 @@
  *      - batch JSON (`batch --json`, the contract's batch object): `upkeep: upkeepJson(result)`, i.e.
  *        `{ tank: { litres, capacityL } | null, titres: [{ line, analyte, as, concentrationM,
  *        saltGPerL, carrier, carrierGPerL, ofTarget, basis }], water: { drawOffL, waterL, finalL,
- *        dilutionFactor, governing } | null, additions: [{ formula, reagent, measuredM, targetM,
- *        assumed, addMol, massG, volumeML?, afterM, basis }], notes }`. A new key: nothing existing moves.
+ *        dilutionFactor, governing, basis, notes } | null, additions: [{ formula, reagent, assay,
+ *        measuredM, targetM, assumed, addMol, massG, volumeML?, cautions?, afterM, basis }], notes }`.
+ *        A new key: nothing existing moves. `water.notes` (ADDITIONS_NOTE: an estimate; the SDS and the
+ *        shop's procedure) and an addition's `cautions` belong wherever the additions are shown.
  *      - hover on a titre line: the analyte's mol/L, g/L of the salt and of the carrier, then `basis`
  *        one line each (they are the hand calculation), then the line's findings; on an ingredient
  *        line with an addition: the addition's `massG` (and `volumeML`), then its `basis`; on `tank:`
@@ -72,6 +74,7 @@ export {
   type WrittenVolume,
 } from './titration';
 export {
+  ADDITIONS_NOTE,
   isTankHeader,
   planAdditions,
   readTank,
@@ -204,6 +207,7 @@ export function upkeepJson(u: Upkeep) {
           dilutionFactor: u.additions.dilutionFactor,
           governing: u.additions.governing,
           basis: u.additions.basis,
+          notes: u.additions.notes,
         }
       : null,
     additions: (u.additions?.additions ?? []).map((a) => ({
@@ -216,6 +220,7 @@ export function upkeepJson(u: Upkeep) {
       addMol: a.addMol,
       massG: a.massG,
       ...(a.volumeML !== undefined ? { volumeML: a.volumeML } : {}),
+      ...(a.cautions ? { cautions: a.cautions } : {}),
       afterM: a.afterM,
       basis: a.basis,
     })),
