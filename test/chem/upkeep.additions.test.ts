@@ -305,3 +305,17 @@ describe('a titre with an error', () => {
     expect(u.notes).toEqual(['No titre counts (each has an error): no additions are computed.']);
   });
 });
+
+describe('a titre and a target in two hydrates of one salt', () => {
+  it('are one substance: compared and added by mol', () => {
+    // 18.40 mL × 0.0500 M EDTA ÷ 2.00 mL = 0.460 M NiSO₄ (as the hexahydrate); the batch sets
+    // NiSO₄·7H₂O 0.500 M: (0.500 − 0.460) × 100 L = 4.00 mol × 280.854 = 1 123.4 g of the heptahydrate.
+    const u = analyseUpkeep({
+      titreLines: [{ text: 'titre NiSO4·6H2O: 2.00 mL sample, 18.40 mL 0.0500 M EDTA', start: 0 }],
+      tankLine: { text: 'tank: 100 L', start: 70 },
+      targets: [{ formula: 'NiSO4·7H2O', targetM: 0.5 }],
+    });
+    expect(u.titres[0]).toMatchObject({ ofTarget: expect.closeTo(0.92, 9) });
+    expect(u.additions!.additions[0].massG).toBeCloseTo(4 * MM['NiSO4·7H2O'], 6);
+  });
+});
