@@ -21,6 +21,7 @@ export type RaisedBy =
   | 'chem/solution'
   | 'chem/safety'
   | 'chem/reagents'
+  | 'chem/upkeep'
   | 'service/document'
   | 'service/diagnostics'
   | 'cli';
@@ -183,6 +184,51 @@ const CATALOGUE = {
     severity: 'warning',
     raisedBy: ['chem/reagents', 'service/document'],
     description: 'A label that is on the shelf twice; batch lines take the first.',
+  },
+  // ── bath upkeep (titrations and additions) ──
+  'titre-syntax': {
+    severity: 'error',
+    raisedBy: ['chem/upkeep'],
+    description: "A titre line that cannot be read: no ':' after the analyte, a part that is no sample, titre, blank, ratio or reaction, or one missing.",
+  },
+  'titre-amount': {
+    severity: 'error',
+    raisedBy: ['chem/upkeep'],
+    description:
+      'A volume or concentration of a titre line that is missing, not a positive number, in an unknown unit, or impossible (an aliquot larger than its dilution).',
+  },
+  'titre-analyte': {
+    severity: 'error',
+    raisedBy: ['chem/upkeep'],
+    description:
+      "An analyte or titrant of a titre line that cannot be read, an 'as' species that is not part of the analyte, or a 'less' substance with no titre of its own.",
+  },
+  'titre-ratio': {
+    severity: 'error',
+    raisedBy: ['chem/upkeep'],
+    description:
+      'A titre line whose mole ratio is not written and does not follow from the titrant, or whose reaction does not join the analyte and the titrant.',
+  },
+  'titre-implausible': {
+    severity: 'warning',
+    raisedBy: ['chem/upkeep'],
+    description: "A titrated concentration above the salt's solubility, or beyond three times or below a third of the batch's target.",
+  },
+  'upkeep-tank': {
+    severity: 'error',
+    raisedBy: ['chem/upkeep'],
+    description: "A 'tank:' header that cannot be read, or additions asked for without a tank volume.",
+  },
+  'upkeep-reagent': {
+    severity: 'error',
+    raisedBy: ['chem/upkeep'],
+    description:
+      "A target or reagent of an addition that cannot be used: no target concentration or molar mass, an assay outside 0–100 %, or a reagent that is not a form of the batch's substance.",
+  },
+  'upkeep-target': {
+    severity: 'information',
+    raisedBy: ['chem/upkeep'],
+    description: 'A titrated substance with no target in the batch, or a target with no titre (taken as at target).',
   },
   // ── notes and files ──
   'long-paragraph': {
