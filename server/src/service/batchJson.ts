@@ -1,5 +1,6 @@
 /** The contract's JSON for a batch block (`ionwright batch --json`). */
 import type { BatchSolution } from '../chem/batch';
+import { upkeepJson } from '../chem/upkeep';
 import { round } from './card';
 import { toLsp } from './diagnostics';
 import type { AnalysedDocument, BatchOccurrence } from './document';
@@ -117,6 +118,8 @@ export function batchJson(doc: AnalysedDocument, b: BatchOccurrence) {
     temperatureC: a.temperatureC,
     statedPH: a.statedPH,
     solution: solutionJson(a.solution),
+    /** Bath upkeep: titres, the tank and the additions (null where the batch has no titre line or tank). */
+    upkeep: a.upkeep ? upkeepJson(a.upkeep) : null,
     notes: a.notes,
     cautions: a.cautions.map((c) => c.text),
     diagnostics: a.diagnostics.map((d) => toLsp(doc.lines, d)),

@@ -13,6 +13,7 @@ import { COMPACT_BATCH, batchColumns, countedRows, markdownTable, mlText, pick }
 import type { AnalysedDocument } from './document';
 import { chargeWords, energy, formulaText, massText, molarMassText, oxidationText, percent, perLitreText, sig, signed, volumeText } from './format';
 import { targetAt } from './lookup';
+import { titreMarkdown, upkeepMarkdown } from './upkeep';
 import type { Range } from './positions';
 import type { ServiceSettings } from './settings';
 import { capacityText, concText, limitsLine, majorSpecies, nearSaturation, pHLine, precipitateText, siText, solvedText } from './solution';
@@ -300,6 +301,7 @@ export function batchSummaryMarkdown(b: BatchAnalysis, s: ServiceSettings): stri
     lines.push(`Nominal ionic strength ${sig(b.ionicStrengthM)} M (full dissociation) · net charge ${sig(b.netChargeEqPerL ?? 0, 2)} eq/L`, '');
   if (b.ions.length) lines.push(b.ions.map((x) => `${x.ion} ${sig(x.concentrationM)} M`).join(' · '), '');
   lines.push(markdownTable(pick(batchColumns(b, s), COMPACT_BATCH), countedRows(b), { short: true }));
+  if (b.upkeep) lines.push('', ...upkeepMarkdown(b.upkeep, esc));
   if (b.skipped.length)
     lines.push('', `**Not counted** (left out of the figures above):`, '', ...b.skipped.map((l) => `- ${codeSpan(l.text)} — ${esc(l.reason)}`));
   const warnings = batchWarnings(b);
@@ -380,6 +382,14 @@ export function hover(doc: AnalysedDocument, offset: number): HoverResult | null
   else {
     const line = t.occ.analysis.skipped.find((l) => offset >= l.lineStart && offset <= l.lineEnd);
     if (line) return { markdown: skippedMarkdown(line, s), range: doc.lines.range(line.lineStart, line.lineEnd) };
+    const titre = t.occ.analysis.upkeep?.titres.find((x) => {
+      const r = 'reading' in x ? x.reading : x;
+      return offset >= r.start && offset <= r.end;
+    });
+    if (titre) {
+      const r = 'reading' in titre ? titre.reading : titre;
+      return { markdown: titreMarkdown(titre, esc), range: doc.lines.range(r.start, r.end) };
+    }
     markdown = batchSummaryMarkdown(t.occ.analysis, s);
   }
   return { markdown, range: doc.lines.range(t.start, t.end) };

@@ -20,7 +20,9 @@ import {
   SPECIES_COLUMNS,
   textTable,
 } from './columns';
+import { ADDITIONS_NOTE } from '../chem/upkeep';
 import type { AnalysedDocument, BatchOccurrence, FormulaOccurrence } from './document';
+import { additionLines, titreLine } from './upkeep';
 import { percent, plural, sig, volumeText } from './format';
 import { DEFAULT_SETTINGS, type ServiceSettings } from './settings';
 import { capacityText, limitsLine, pHLine, precipitateText, solvedText } from './solution';
@@ -150,6 +152,16 @@ export function batchTable(b: BatchAnalysis, settings: ServiceSettings = DEFAULT
     if (sol.saturation.length) lines.push('', markdownTable(SATURATION_COLUMNS, sol.saturation));
     lines.push('', ...solutionNotes(b, sol).map((n) => `_${escapeMarkdown(n)}_`), '');
   } else if (sol) lines.push('', `_The equilibrium did not converge: no pH is given._`, '');
+  if (b.upkeep) {
+    lines.push(
+      '**Upkeep** (estimate)',
+      '',
+      ...b.upkeep.titres.map((t) => `- Titre: ${escapeMarkdown(titreLine(t))}`),
+      ...additionLines(b.upkeep).map((a) => `- ${escapeMarkdown(a)}`),
+    );
+    if (b.upkeep.additions) lines.push('', `_${escapeMarkdown(ADDITIONS_NOTE)}_`);
+    lines.push('');
+  }
   const undissociated = undissociatedOf(b).map((i) => i.formula);
   if (undissociated.length) lines.push(`Not split into ions: ${undissociated.join(', ')}.`);
   for (const n of b.notes) lines.push(`_${n}_`);
@@ -181,6 +193,10 @@ export function batchText(b: BatchAnalysis, settings: ServiceSettings = DEFAULT_
     if (sol.saturation.length) lines.push('', textTable(SATURATION_COLUMNS, sol.saturation));
     lines.push('', ...solutionNotes(b, sol));
   } else if (sol) lines.push('', 'The equilibrium did not converge: no pH is given.');
+  if (b.upkeep) {
+    lines.push('', 'Upkeep (estimate):', ...b.upkeep.titres.map((t) => `  titre: ${titreLine(t)}`), ...additionLines(b.upkeep).map((a) => `  ${a}`));
+    if (b.upkeep.additions) lines.push(`  ${ADDITIONS_NOTE}`);
+  }
   for (const n of b.notes) lines.push(n);
   for (const d of batchWarnings(b)) lines.push(`warning: ${d.message}`);
   if (b.cautions.length) lines.push('', 'Cautions:', ...b.cautions.map((c) => `  ${c.text}`), CAUTION_FOOTNOTE);

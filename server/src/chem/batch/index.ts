@@ -31,6 +31,9 @@ import { checkBatch, type BatchChecks } from './checks';
 import { mixIons, type BatchMix } from './mix';
 import { readLines, type BatchHeaders } from './read';
 import { solutionStage, type SolutionStage } from './solution';
+import { analyseUpkeep, type Upkeep } from '../upkeep';
+import type { BatchAmounts as Amounts } from './amounts';
+import type { ReadBatch } from './read';
 import type { BatchAnalysis, BatchContext, BatchLine, BatchSolution, Ingredient } from './types';
 
 export type {
@@ -79,15 +82,26 @@ export function analyseBatch(
   computeShares(amounts, read.headers);
   const mix = mixIons(amounts.counted, read.headers.volumeL);
   const checks = checkBatch(amounts, read.headers);
+  // Bath upkeep (chem/upkeep): titre lines against the batch's targets, and the additions for the tank.
+  const upkeep = read.titres.length || read.tankLine ? upkeepStage(read, amounts, openLine ?? first) : null;
   // Later, beside the checks: chem/safety/ (incompatible pairs, heat of making up; `batch-incompatible`,
   // `batch-heat`).
-  return assemble(read.headers, amounts, solution, mix, checks, [
-    ...read.diagnostics,
-    ...amounts.diagnostics,
-    ...solution.diagnostics.filter((d) => !amounts.diagnostics.includes(d)),
-    ...mix.diagnostics,
-    ...checks.diagnostics,
-  ]);
+  return assemble(
+    read.headers,
+    amounts,
+    solution,
+    mix,
+    checks,
+    [
+      ...read.diagnostics,
+      ...amounts.diagnostics,
+      ...solution.diagnostics.filter((d) => !amounts.diagnostics.includes(d)),
+      ...mix.diagnostics,
+      ...checks.diagnostics,
+      ...(upkeep?.diagnostics ?? []),
+    ],
+    upkeep,
+  );
 }
 
 /** The stages' data as the batch's result: one ingredient per counted line, the findings in text order. */
@@ -98,6 +112,7 @@ function assemble(
   mix: BatchMix,
   checks: BatchChecks,
   diagnostics: BatchAnalysis['diagnostics'],
+  upkeep: Upkeep | null,
 ): BatchAnalysis {
   const ingredients = amounts.counted.map((c, k): Ingredient => {
     const { line } = c;
@@ -172,10 +187,21 @@ function assemble(
     solution: lazy ? null : (solution.solution as BatchSolution | null),
     ...(solution.noSolution ? { noSolution: solution.noSolution } : {}),
   };
+  if (upkeep) out.upkeep = upkeep;
   if (lazy) {
     // Made on first read, then kept (an analysis is shared and read-only otherwise).
     let made: BatchSolution | undefined;
     Object.defineProperty(out, 'solution', { enumerable: true, configurable: true, get: () => (made ??= lazy()) });
   }
   return out;
+}
+
+/** The upkeep of a batch: its titres against the counted lines' concentrations, and the tank's additions. */
+function upkeepStage(read: ReadBatch, amounts: Amounts, at: { start: number; end: number }): Upkeep {
+  const targets = [];
+  for (const c of amounts.counted) {
+    if (c.concentrationM === null || !(c.concentrationM > 0) || c.buffer) continue;
+    targets.push({ formula: c.line.analysis.ascii, targetM: c.concentrationM, assay: c.line.assay, start: c.line.lineStart, end: c.line.lineEnd });
+  }
+  return analyseUpkeep({ titreLines: read.titres, tankLine: read.tankLine, targets, at });
 }

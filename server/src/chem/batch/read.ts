@@ -15,6 +15,7 @@ import { bufferNamed, BUFFER_NAMES, type BufferSystem } from '../solution/buffer
 import { finding, tokens, type Token } from './tokens';
 import type { BatchContext, BatchLine } from './types';
 import { anhydrousOf } from './solubility';
+import { isTankHeader, isTitreLine } from '../upkeep';
 import { readSubstance } from './substance';
 import { unitIn, unitList, type BatchUnit } from './units';
 
@@ -111,6 +112,10 @@ export interface BatchHeaders {
 
 export interface ReadBatch {
   headers: BatchHeaders;
+  /** Titre lines (bath upkeep, chem/upkeep), as written with their absolute starts: no ingredients. */
+  titres: Array<{ text: string; start: number }>;
+  /** The `tank:` header (the litres of bath in the tank now), where given. */
+  tankLine: { text: string; start: number } | null;
   /** The ingredient lines and the headers set aside, in the order written (counted headers are in `headers`). */
   lines: Array<IngredientLine | BufferLine | SetAsideHeader>;
   /** The findings of the headers set aside. */
@@ -152,10 +157,22 @@ function locate({ text: raw, start }: BatchLine): Located | null {
 export function readLines(lines: readonly BatchLine[], openName: string | null, settings: ChemSettings, context: BatchContext = {}): ReadBatch {
   const headers: BatchHeaders = { name: openName, volumeL: null, totalMassG: null, totalRange: null, pH: null, temperatureC: 25, temperatureGiven: false };
   const counted = new Set<HeaderKey>(openName ? ['name'] : []);
-  const out: ReadBatch = { headers, lines: [], diagnostics: [] };
+  const out: ReadBatch = { headers, titres: [], tankLine: null, diagnostics: [] as ChemDiagnostic[], lines: [] };
   for (const line of lines) {
     const at = locate(line);
     if (!at) continue;
+    if (isTitreLine(at.trimmed)) {
+      out.titres.push({ text: line.text, start: line.start });
+      continue;
+    }
+    if (isTankHeader(at.trimmed)) {
+      if (out.tankLine) {
+        const d = finding('batch-header', at.lineStart, at.lineEnd, `'tank:' is given twice; the first one counts.`, 'warning');
+        out.diagnostics.push(d);
+        out.lines.push({ kind: 'header', source: at.source, finding: d });
+      } else out.tankLine = { text: line.text, start: line.start };
+      continue;
+    }
     const makeUp = MAKE_UP.exec(at.trimmed);
     if (makeUp) {
       const setAside = readMakeUp(headers, counted, makeUp, at);

@@ -6,6 +6,7 @@ import type { ChemDiagnostic, DiagnosticCode } from '../diagnostic';
 import type { IonShare } from '../ions/dissociation';
 import type { BatchSolution, BufferDesign } from '../solution/types';
 import type { Shelf } from '../reagents';
+import type { Upkeep } from '../upkeep';
 import type { AmountUnit } from './units';
 
 export type { AmountUnit } from './units';
@@ -134,6 +135,8 @@ export interface BatchAnalysis {
   solution: BatchSolution | null;
   /** Why there is no solution, where there is none. */
   noSolution?: string;
+  /** Bath upkeep (titre lines, `tank:`, additions): only where the batch has a titre line or a tank. */
+  upkeep?: Upkeep;
 }
 
 /** A batch of the same document that a line may take a stock from (`NiSO4 0.1 M from batch "Nickel stock"`). */
