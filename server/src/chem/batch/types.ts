@@ -6,6 +6,7 @@ import type { ChemDiagnostic, DiagnosticCode } from '../diagnostic';
 import type { IonShare } from '../ions/dissociation';
 import type { BatchSolution, BufferDesign } from '../solution/types';
 import type { Shelf } from '../reagents';
+import type { Hazard, HeatReading } from '../safety';
 import type { AmountUnit } from './units';
 
 export type { AmountUnit } from './units';
@@ -114,6 +115,10 @@ export interface BatchAnalysis {
   solution: BatchSolution | null;
   /** Why there is no solution, where there is none. */
   noSolution?: string;
+  /** Ingredients (counted or not) that react dangerously together, each raised as `batch-incompatible` on the later line; empty when none. */
+  hazards: Hazard[];
+  /** The heat of making up (dissolution, dilution, neutralisation) and its temperature change, an estimate; null where no ingredient's heat is known. */
+  heat: HeatReading | null;
 }
 
 /** A batch of the same document that a line may take a stock from (`NiSO4 0.1 M from batch "Nickel stock"`). */
