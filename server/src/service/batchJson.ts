@@ -54,7 +54,7 @@ export function hazardsJson(doc: AnalysedDocument, a: BatchAnalysis) {
 }
 
 /** The contract's `heat`: `{kJ, temperatureRiseK, method}` (an estimate), with its steps, limits and advice; null where no heat is known. */
-export function heatJson(a: BatchAnalysis) {
+export function heatJson(doc: AnalysedDocument, a: BatchAnalysis) {
   const h = a.heat;
   if (!h) return null;
   return {
@@ -71,6 +71,8 @@ export function heatJson(a: BatchAnalysis) {
     steps: h.steps.map((st) => ({
       kind: st.kind,
       ingredient: st.ingredient,
+      /** 0-based document line of the ingredient; null for a neutralisation between ingredients. */
+      line: st.line === null ? null : doc.lines.positionAt(st.line).line,
       kJ: sigs(st.kJ),
       ...(st.kJPerMol !== undefined ? { kJPerMol: sigs(st.kJPerMol) } : {}),
       method: st.method,
@@ -156,7 +158,7 @@ export function batchJson(doc: AnalysedDocument, b: BatchOccurrence) {
     statedPH: a.statedPH,
     solution: solutionJson(a.solution),
     hazards: hazardsJson(doc, a),
-    heat: heatJson(a),
+    heat: heatJson(doc, a),
     notes: a.notes,
     cautions: a.cautions.map((c) => c.text),
     diagnostics: a.diagnostics.map((d) => toLsp(doc.lines, d)),

@@ -23,11 +23,11 @@ import type { BatchAmounts } from './amounts';
 import type { BatchHeaders } from './read';
 import type { SolutionStage } from './solution';
 import { finding } from './tokens';
-import type { BatchSolution } from './types';
+import type { BatchHeat, BatchHeatStep, BatchSolution } from './types';
 
 export interface BatchSafety {
   hazards: Hazard[];
-  heat: HeatReading | null;
+  heat: BatchHeat | null;
   diagnostics: ChemDiagnostic[];
 }
 
@@ -97,7 +97,9 @@ export function safetyStage(
     const at = placed[h.at];
     diagnostics.push(finding('batch-incompatible', at.start, at.end, h.message, 'warning'));
   }
-  const heat = reading.heat;
+  const heat = reading.heat as BatchHeat | null;
+  // Each step keeps its ingredient's line (the outputs pair a step with its line, not with an index).
+  if (heat) for (const st of heat.steps as BatchHeatStep[]) st.line = st.index === null ? null : placed[st.index].start;
   if (heat && heat.exceeds) {
     const at = hottest(heat, placed) ?? openLine;
     diagnostics.push(finding('batch-heat', at.start, at.end, heatMessage(heat), 'warning'));

@@ -6,7 +6,7 @@ import type { ChemDiagnostic, DiagnosticCode } from '../diagnostic';
 import type { IonShare } from '../ions/dissociation';
 import type { BatchSolution, BufferDesign } from '../solution/types';
 import type { Shelf } from '../reagents';
-import type { Hazard, HeatReading } from '../safety';
+import type { Hazard, HeatReading, HeatStep } from '../safety';
 import type { AmountUnit } from './units';
 
 export type { AmountUnit } from './units';
@@ -118,7 +118,17 @@ export interface BatchAnalysis {
   /** Ingredients (counted or not) that react dangerously together, each raised as `batch-incompatible` on the later line; empty when none. */
   hazards: Hazard[];
   /** The heat of making up (dissolution, dilution, neutralisation) and its temperature change, an estimate; null where no ingredient's heat is known. */
-  heat: HeatReading | null;
+  heat: BatchHeat | null;
+}
+
+/** A step of the heat of making up, with the line of its ingredient (its `lineStart`; null for a neutralisation between ingredients). */
+export interface BatchHeatStep extends HeatStep {
+  line: number | null;
+}
+
+/** The heat of making up a batch, each step with its line. */
+export interface BatchHeat extends HeatReading {
+  steps: BatchHeatStep[];
 }
 
 /** A batch of the same document that a line may take a stock from (`NiSO4 0.1 M from batch "Nickel stock"`). */
