@@ -72,7 +72,7 @@ export function heatJson(doc: AnalysedDocument, a: BatchAnalysis) {
       kind: st.kind,
       ingredient: st.ingredient,
       /** 0-based document line of the ingredient; null for a neutralisation between ingredients. */
-      line: st.line === null ? null : doc.lines.positionAt(st.line).line,
+      line: st.ingredientIndex === null ? null : doc.lines.positionAt(a.ingredients[st.ingredientIndex].lineStart).line,
       kJ: sigs(st.kJ),
       ...(st.kJPerMol !== undefined ? { kJPerMol: sigs(st.kJPerMol) } : {}),
       method: st.method,

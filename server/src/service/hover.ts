@@ -327,15 +327,16 @@ function safetySection(b: BatchAnalysis): string[] {
 /** A batch line's part of the safety reading: the pairs it is in, and the heat of dissolving it. */
 function ingredientSafety(i: Ingredient, b: BatchAnalysis): string[] {
   const hazards = hazardsOf(b, i);
-  const step = b.heat?.steps.find((st) => st.line === i.lineStart && st.kind !== 'not-counted');
+  const k = b.ingredients.indexOf(i);
+  const step = b.heat?.steps.find((st) => st.ingredientIndex === k && st.kind !== 'not-counted');
   if (!hazards.length && !step) return [];
-  const out: string[] = [''];
-  if (hazards.length) out.push(hazards.map(hazardLine).join('  \n'), '');
+  const out: string[] = [];
+  if (hazards.length) out.push('', hazards.map(hazardLine).join('  \n'));
   if (step) {
     const per = step.kJPerMol !== undefined ? ` (${signed(Number(step.kJPerMol.toPrecision(3)))} kJ/mol)` : '';
-    out.push(`Heat of ${esc(stepKindText[step.kind])}: ΔH ≈ ${esc(stepKJText(step))} kJ${per} — estimate; ${esc(step.method)}.`, '');
+    out.push('', `Heat of ${esc(stepKindText[step.kind])}: ΔH ≈ ${esc(stepKJText(step))} kJ${per} — estimate; ${esc(step.method)}.`);
   }
-  if (hazards.length) out.push(`_${esc(SAFETY_NOTICE)}_`, '');
+  if (hazards.length) out.push('', `_${esc(SAFETY_NOTICE)}_`);
   return out;
 }
 

@@ -43,6 +43,8 @@ interface Placed {
   ingredient: SafetyIngredient;
   start: number;
   end: number;
+  /** Its place among the counted lines; null for a line not counted. */
+  counted: number | null;
 }
 
 /** The volume measured out of a liquid, where the amounts stage gives one (a later stage of reading does). */
@@ -64,9 +66,10 @@ export function safetyStage(
 ): BatchSafety {
   if (!enabled) return { hazards: [], heat: null, diagnostics: [] };
   const placed: Placed[] = [];
-  for (const c of amounts.counted) {
+  for (const [k, c] of amounts.counted.entries()) {
     const { line } = c;
     placed.push({
+      counted: k,
       ingredient: { analysis: line.analysis, moles: c.moles, massG: c.massG, assay: line.assay, volumeML: volumeOf(c), line: line.lineStart },
       start: line.lineStart,
       end: line.lineEnd,
@@ -74,7 +77,12 @@ export function safetyStage(
   }
   for (const s of amounts.skipped) {
     if (s.kind !== 'ingredient' || !s.analysis || !s.analysis.ok) continue;
-    placed.push({ ingredient: { analysis: s.analysis, moles: null, massG: null, assay: 1, line: s.lineStart }, start: s.lineStart, end: s.lineEnd });
+    placed.push({
+      ingredient: { analysis: s.analysis, moles: null, massG: null, assay: 1, line: s.lineStart },
+      start: s.lineStart,
+      end: s.lineEnd,
+      counted: null,
+    });
   }
   if (placed.length === 0) return { hazards: [], heat: null, diagnostics: [] };
   const notCounted = placed.length > amounts.counted.length;
@@ -98,8 +106,8 @@ export function safetyStage(
     diagnostics.push(finding('batch-incompatible', at.start, at.end, h.message, 'warning'));
   }
   const heat = reading.heat as BatchHeat | null;
-  // Each step keeps its ingredient's line (the outputs pair a step with its line, not with an index).
-  if (heat) for (const st of heat.steps as BatchHeatStep[]) st.line = st.index === null ? null : placed[st.index].start;
+  // Each step keeps its ingredient's place in the batch's `ingredients` (the reading's indices count the lines not counted too).
+  if (heat) for (const st of heat.steps as BatchHeatStep[]) st.ingredientIndex = st.index === null ? null : placed[st.index].counted;
   if (heat && heat.exceeds) {
     const at = hottest(heat, placed) ?? openLine;
     diagnostics.push(finding('batch-heat', at.start, at.end, heatMessage(heat), 'warning'));

@@ -115,15 +115,18 @@ export interface BatchAnalysis {
   solution: BatchSolution | null;
   /** Why there is no solution, where there is none. */
   noSolution?: string;
-  /** Ingredients (counted or not) that react dangerously together, each raised as `batch-incompatible` on the later line; empty when none. */
+  /**
+   * Ingredients (counted or not) that react dangerously together, each raised as `batch-incompatible` on the
+   * later line; empty when none. `lines` are the `lineStart` offsets of the lines named (shifted with the batch).
+   */
   hazards: Hazard[];
   /** The heat of making up (dissolution, dilution, neutralisation) and its temperature change, an estimate; null where no ingredient's heat is known. */
   heat: BatchHeat | null;
 }
 
-/** A step of the heat of making up, with the line of its ingredient (its `lineStart`; null for a neutralisation between ingredients). */
+/** A step of the heat of making up, with its ingredient's place in `ingredients` (null for a neutralisation between ingredients). */
 export interface BatchHeatStep extends HeatStep {
-  line: number | null;
+  ingredientIndex: number | null;
 }
 
 /** The heat of making up a batch, each step with its line. */
