@@ -126,6 +126,15 @@ describe('the batch hover', () => {
     expect(sanitiser.match(/chlorine gas/g)).toHaveLength(1);
   });
 
+  it('on a line not counted: the pair it is still in', () => {
+    const text = ['```batch', 'volume: 10 L', 'NaOCl 50 g @ 12.5%', 'HCl 200 parsecs', '```', ''].join('\n');
+    const d = ls.analyse(text, 'markdown');
+    const md = ls.hover(d, { line: 3, character: 1 })?.markdown ?? '';
+    expect(md).toContain('**not counted**');
+    expect(md).toContain('**chlorine** from NaOCl + HCl');
+    expect(md).toContain(SAFETY_NOTICE);
+  });
+
   it('on the later line: the hazard it is in; on the caustic line: the heat of dissolving it', () => {
     expect(hoverAt('HCl 20 g @ 36%')).toContain('**chlorine** from NaOCl + HCl');
     expect(hoverAt('NaOH 200 g')).toMatch(/Heat of dissolution: ΔH ≈ −2\d\d\.\d kJ \(−4\d\.\d kJ\/mol\) — estimate/);

@@ -257,12 +257,14 @@ function ingredientMarkdown(i: Ingredient, b: BatchAnalysis, s: ServiceSettings)
   return lines.join('\n').trimEnd();
 }
 
-/** A line of a batch that is not counted: what it says, why, and the cautions of its formula. */
-function skippedMarkdown(l: SkippedLine, s: ServiceSettings): string {
+/** A line of a batch that is not counted: what it says, why, the pairs it is still in, and the cautions of its formula. */
+function skippedMarkdown(l: SkippedLine, b: BatchAnalysis, s: ServiceSettings): string {
   const a = l.analysis;
   const lines = [`${codeSpan(l.text)} — **not counted**`, '', esc(l.reason), ''];
   if (a?.molarMass) lines.push(`${esc(a.display)}: molar mass ${molarMassText(a.molarMass.value, s)} g/mol`, '');
   lines.push("_Nothing on this line is in the batch's figures until it is fixed._", '');
+  const hazards = b.hazards.filter((h) => h.lines.includes(l.lineStart));
+  if (hazards.length) lines.push(hazards.map(hazardLine).join('  \n'), '', `_${esc(SAFETY_NOTICE)}_`, '');
   lines.push(...cautionBlock(l.cautions));
   return lines.join('\n').trimEnd();
 }
@@ -400,7 +402,7 @@ export function hover(doc: AnalysedDocument, offset: number): HoverResult | null
   else if (t.kind === 'batch-line') markdown = ingredientMarkdown(t.ingredient, t.occ.analysis, s);
   else {
     const line = t.occ.analysis.skipped.find((l) => offset >= l.lineStart && offset <= l.lineEnd);
-    if (line) return { markdown: skippedMarkdown(line, s), range: doc.lines.range(line.lineStart, line.lineEnd) };
+    if (line) return { markdown: skippedMarkdown(line, t.occ.analysis, s), range: doc.lines.range(line.lineStart, line.lineEnd) };
     markdown = batchSummaryMarkdown(t.occ.analysis, s);
   }
   return { markdown, range: doc.lines.range(t.start, t.end) };
