@@ -33,6 +33,13 @@ export interface BatchSafety {
 
 let enabled = true;
 
+/** The stage's result where there is nothing to read (shared, read-only). */
+const EMPTY: BatchSafety = Object.freeze({
+  hazards: Object.freeze([]) as unknown as Hazard[],
+  heat: null,
+  diagnostics: Object.freeze([]) as unknown as ChemDiagnostic[],
+});
+
 /** Switch the safety reading off or on (the benchmark measures `check` with and without it in the same run). */
 export function setSafetyStage(on: boolean): void {
   enabled = on;
@@ -64,35 +71,40 @@ export function safetyStage(
   settings: ChemSettings,
   openLine: { start: number; end: number },
 ): BatchSafety {
-  if (!enabled) return { hazards: [], heat: null, diagnostics: [] };
+  if (!enabled) return EMPTY;
+  // One object shape per line and per batch, no spreads: the stage runs on every batch of every check.
   const placed: Placed[] = [];
-  for (const [k, c] of amounts.counted.entries()) {
-    const { line } = c;
-    placed.push({
-      counted: k,
-      ingredient: { analysis: line.analysis, moles: c.moles, massG: c.massG, assay: line.assay, volumeML: volumeOf(c), line: line.lineStart },
-      start: line.lineStart,
-      end: line.lineEnd,
-    });
+  const counted = amounts.counted;
+  for (let k = 0; k < counted.length; k++) {
+    const c = counted[k];
+    const line = c.line;
+    const ingredient: SafetyIngredient = {
+      analysis: line.analysis,
+      moles: c.moles,
+      massG: c.massG,
+      assay: line.assay,
+      volumeML: volumeOf(c),
+      line: line.lineStart,
+    };
+    placed.push({ ingredient, start: line.lineStart, end: line.lineEnd, counted: k });
   }
+  let notCounted = false;
   for (const s of amounts.skipped) {
     if (s.kind !== 'ingredient' || !s.analysis || !s.analysis.ok) continue;
-    placed.push({
-      ingredient: { analysis: s.analysis, moles: null, massG: null, assay: 1, line: s.lineStart },
-      start: s.lineStart,
-      end: s.lineEnd,
-      counted: null,
-    });
+    const ingredient: SafetyIngredient = { analysis: s.analysis, moles: null, massG: null, assay: 1, volumeML: null, line: s.lineStart };
+    placed.push({ ingredient, start: s.lineStart, end: s.lineEnd, counted: null });
+    notCounted = true;
   }
-  if (placed.length === 0) return { hazards: [], heat: null, diagnostics: [] };
-  const notCounted = placed.length > amounts.counted.length;
-  placed.sort((x, y) => x.start - y.start);
+  if (placed.length === 0) return EMPTY;
+  if (notCounted) placed.sort((x, y) => x.start - y.start);
+  const ingredients: SafetyIngredient[] = new Array(placed.length);
+  for (let k = 0; k < placed.length; k++) ingredients[k] = placed[k].ingredient;
   const pH = pHReader(solution, notCounted);
   const batch = {
-    ingredients: placed.map((p) => p.ingredient),
+    ingredients,
     volumeL: headers.volumeL,
     waterG: null,
-    ...(headers.temperatureGiven ? { temperatureC: headers.temperatureC } : {}),
+    temperatureC: headers.temperatureGiven ? headers.temperatureC : undefined,
     // Read only where a rule asks (chem/safety/context.ts reads it on first use).
     get pH() {
       return pH();
