@@ -60,6 +60,12 @@ const volumeOf = (c: object): number | null => {
   return typeof v === 'number' && Number.isFinite(v) ? v : null;
 };
 
+/** The name a line gave its substance, where the reading keeps one (a line that names instead of writing a formula). */
+const nameOf = (line: object): string | undefined => {
+  const n = (line as { name?: unknown }).name;
+  return typeof n === 'string' && n ? n : undefined;
+};
+
 /**
  * Read the batch's safety (after the solution stage and the checks). A lazy equilibrium in `solution` is
  * memoised in place, so that the pH read here and the batch's `solution` read later are one solve.
@@ -86,6 +92,8 @@ export function safetyStage(
       volumeML: volumeOf(c),
       line: line.lineStart,
     };
+    const name = nameOf(line);
+    if (name) ingredient.name = name;
     placed.push({ ingredient, start: line.lineStart, end: line.lineEnd, counted: k });
   }
   let notCounted = false;
