@@ -153,15 +153,13 @@ const CATALOGUE = {
   },
   'batch-incompatible': {
     severity: 'warning',
-    raisedBy: ['chem/safety'],
-    reserved: true,
+    raisedBy: ['chem/batch', 'chem/safety'],
     description: 'Ingredients of a batch that react dangerously together.',
   },
   'batch-heat': {
     severity: 'warning',
-    raisedBy: ['chem/safety'],
-    reserved: true,
-    description: 'An estimated temperature change on making up the batch above the setting.',
+    raisedBy: ['chem/batch', 'chem/safety'],
+    description: 'An estimated temperature change on making up the batch above the setting (batch.heatThresholdK).',
   },
   'batch-unclosed': { severity: 'warning', raisedBy: ['service/document'], description: 'A batch or shelf block that is never closed.' },
   // ── the shelf ──

@@ -1,5 +1,5 @@
 /** The contract's JSON for a batch block (`ionwright batch --json`). */
-import type { BatchSolution } from '../chem/batch';
+import type { BatchAnalysis, BatchSolution } from '../chem/batch';
 import { upkeepJson } from '../chem/upkeep';
 import { round } from './card';
 import { toLsp } from './diagnostics';
@@ -33,6 +33,55 @@ export function solutionJson(s: BatchSolution | null) {
     outOfRange: s.outOfRange,
     ingredients: s.ingredients.map((i) => ({ formula: i.formula, as: i.as, ...(i.leftOut ? { leftOut: i.leftOut } : {}) })),
     notes: s.notes,
+  };
+}
+
+/**
+ * The contract's `hazards`: `[{kind, message, ingredients}]`, with the harm, the 0-based lines of the
+ * ingredients named, the rule, its source and the pH a pH-dependent rule used.
+ */
+export function hazardsJson(doc: AnalysedDocument, a: BatchAnalysis) {
+  return a.hazards.map((h) => ({
+    kind: h.kind,
+    message: h.message,
+    ingredients: h.ingredients,
+    harm: h.harm,
+    /** 0-based document lines of the ingredients, in the same order; the warning is on the last. */
+    lines: h.lines.map((offset) => doc.lines.positionAt(offset).line),
+    rule: h.rule,
+    source: h.source,
+    ...(h.pH ? { pH: { value: round(h.pH.value, 2), from: h.pH.from } } : {}),
+  }));
+}
+
+/** The contract's `heat`: `{kJ, temperatureRiseK, method}` (an estimate), with its steps, limits and advice; null where no heat is known. */
+export function heatJson(doc: AnalysedDocument, a: BatchAnalysis) {
+  const h = a.heat;
+  if (!h) return null;
+  return {
+    kJ: sigs(h.kJ),
+    /** Negative: the batch cools. Null where the batch's water is not known. */
+    temperatureRiseK: h.temperatureRiseK === null ? null : sigs(h.temperatureRiseK),
+    method: h.method,
+    estimate: true,
+    uncertaintyK: sigs(h.uncertaintyK),
+    startC: h.startC,
+    finalC: h.finalC === null ? null : round(h.finalC, 2),
+    thresholdK: h.thresholdK,
+    exceeds: h.exceeds,
+    steps: h.steps.map((st) => ({
+      kind: st.kind,
+      ingredient: st.ingredient,
+      /** 0-based document line of the ingredient; null for a neutralisation between ingredients. */
+      line: st.ingredientIndex === null ? null : doc.lines.positionAt(a.ingredients[st.ingredientIndex].lineStart).line,
+      kJ: sigs(st.kJ),
+      ...(st.kJPerMol !== undefined ? { kJPerMol: sigs(st.kJPerMol) } : {}),
+      method: st.method,
+      ...(st.source ? { source: st.source } : {}),
+      ...(st.uncertaintyKJ !== undefined ? { uncertaintyKJ: sigs(st.uncertaintyKJ) } : {}),
+    })),
+    advice: h.advice,
+    notes: h.notes,
   };
 }
 
@@ -120,6 +169,8 @@ export function batchJson(doc: AnalysedDocument, b: BatchOccurrence) {
     solution: solutionJson(a.solution),
     /** Bath upkeep: titres, the tank and the additions (null where the batch has no titre line or tank). */
     upkeep: a.upkeep ? upkeepJson(a.upkeep) : null,
+    hazards: hazardsJson(doc, a),
+    heat: heatJson(doc, a),
     notes: a.notes,
     cautions: a.cautions.map((c) => c.text),
     diagnostics: a.diagnostics.map((d) => toLsp(doc.lines, d)),

@@ -7,6 +7,8 @@ import { nameOf, namesOf } from '../chem/names';
 import { toLsp, type LspDiagnostic } from './diagnostics';
 import { LineIndex } from './positions';
 import { energy, fixed, formulaText, percent, signed } from './format';
+import type { GhsReading, SolutionEnthalpy } from '../chem/safety';
+import { ghsFoot, ghsHead, ghsOf, ghsStatements, solutionEnthalpyOf, solutionEnthalpyText } from './safety';
 import { DEFAULT_SETTINGS, type ServiceSettings } from './settings';
 
 export interface CardJson {
@@ -54,6 +56,13 @@ export interface CardJson {
   } | null;
   /** Why `latticeEnergy` is null, where the substance is molecular: `{reason, text, stateAt25C, …}`; null otherwise. */
   latticeEnergyNote: { reason: string; text: string; stateAt25C: string | null; meltingPointC: number | null; boilingPointC: number | null } | null;
+  /**
+   * The GHS classification where Ionwright's table has one (from memory: check the supplier's SDS):
+   * `{substance, signalWord, statements: [{code, text}], pictograms: [{code, name}], basis, notes, fromMemory, sds}`; null otherwise.
+   */
+  ghs: GhsReading | null;
+  /** The enthalpy of solution at infinite dilution where known: `{kJPerMol, basis, method, source, typicalErrorKJ?, why?}`; null otherwise. */
+  enthalpyOfSolution: SolutionEnthalpy | null;
   diagnostics: LspDiagnostic[];
 }
 
@@ -115,10 +124,41 @@ export function cardJson(a: FormulaAnalysis): CardJson {
             boilingPointC: a.latticeWithheld.boilingPointC ?? null,
           }
         : null,
+    ghs: ghsJson(a),
+    enthalpyOfSolution: solutionEnthalpyJson(a),
     diagnostics: (() => {
       const lines = new LineIndex(a.input);
       return a.diagnostics.map((d) => toLsp(lines, d));
     })(),
+  };
+}
+
+function ghsJson(a: FormulaAnalysis): GhsReading | null {
+  const g = ghsOf(a);
+  if (!g) return null;
+  const { substance, signalWord, statements, pictograms, basis, notes, fromMemory, sds } = g;
+  return {
+    substance,
+    signalWord,
+    statements: statements.map((x) => ({ ...x })),
+    pictograms: pictograms.map((x) => ({ ...x })),
+    basis,
+    notes: [...notes],
+    fromMemory,
+    sds,
+  };
+}
+
+function solutionEnthalpyJson(a: FormulaAnalysis): SolutionEnthalpy | null {
+  const e = solutionEnthalpyOf(a);
+  if (!e) return null;
+  return {
+    kJPerMol: round(e.kJPerMol, 3),
+    basis: e.basis,
+    method: e.method,
+    source: e.source,
+    ...(e.typicalErrorKJ !== undefined ? { typicalErrorKJ: round(e.typicalErrorKJ, 2) } : {}),
+    ...(e.why ? { why: e.why } : {}),
   };
 }
 
@@ -205,6 +245,17 @@ export function cardText(a: FormulaAnalysis, settings: ServiceSettings = DEFAULT
     if (L.meltingPointC !== undefined) out.push(`  melting point   ${L.meltingPointC} °C (${L.meltingPointSource})`);
   } else if (a.latticeWithheld)
     out.push(`  lattice energy  none — ${a.latticeWithheld.text.replace(/^No lattice energy(?: \(([^)]*)\))?: /, (_, x) => (x ? `${x}: ` : ''))}`);
+  const g = ghsOf(a);
+  if (g) {
+    out.push(`  GHS             ${ghsHead(g)}`);
+    for (const x of ghsStatements(g)) out.push(`                  ${x}`);
+    out.push(`                  ${ghsFoot(g)}`);
+  }
+  const e = solutionEnthalpyOf(a);
+  if (e) {
+    out.push(`  ΔsolH           ${solutionEnthalpyText(e)}`);
+    if (e.why) out.push(`                  ${e.why}`);
+  }
   for (const d of a.diagnostics) out.push(`  ${d.severity} [${d.code}]: ${d.message}`);
   return out.join('\n');
 }

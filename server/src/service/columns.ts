@@ -4,16 +4,19 @@
  * renderers write any of them as Markdown (the tables "insert table" and `ionwright table` write, the
  * hover), HTML (the preview and the report) and plain text (aligned columns for a terminal).
  *
- * Tables: formulas, a batch's ingredients (every line, counted or not), a batch's ions, findings.
+ * Tables: formulas, a batch's ingredients (every line, counted or not), a batch's ions, its equilibrium,
+ * its safety reading (dangerous pairs, the steps of the heat of making up), findings.
  */
 import type { FormulaAnalysis } from '../chem/analyse';
 import type { BatchAnalysis, BatchIon, Ingredient, SkippedLine, SolidSaturation, SolutionSpecies } from '../chem/batch';
 import { cautionsFor } from '../chem/cautions';
+import type { Hazard, HeatStep } from '../chem/safety';
 import type { LspDiagnostic } from './diagnostics';
 import { chargeNumber, DASH, energy, molarMassText, oxidationText, percent, shortMethod, sig } from './format';
 import { formulaText } from './format';
 import { html, type Html, type HtmlValue, join, toHtml } from './html';
 import type { ServiceSettings } from './settings';
+import { hazardIngredients, hazardKindText, hazardText, stepKindText, stepKJText } from './safety';
 import { saturationWord, siText } from './solution';
 import { formulaSpan, typesetDisplay } from './typeset';
 
@@ -258,6 +261,46 @@ export const SATURATION_COLUMNS: Columns<SolidSaturation> = [
     text: (x) => saturationWord(x.saturationIndex),
     html: (x) => (x.saturationIndex > 0 ? html`<span class="iw-warning">${saturationWord(x.saturationIndex)}</span>` : saturationWord(x.saturationIndex)),
   },
+];
+
+// ── safety ────────────────────────────────────────────────────────────────
+
+/** A batch's dangerous pairs: what forms, from which ingredients, the harm, and what to know. */
+export const HAZARD_COLUMNS: Columns<Hazard> = [
+  {
+    key: 'forms',
+    head: 'Forms',
+    align: 'left',
+    text: hazardKindText,
+    html: (h) => html`<span class="iw-warning">${hazardKindText(h)}</span>`,
+  },
+  {
+    key: 'ingredients',
+    head: 'From',
+    align: 'left',
+    text: hazardIngredients,
+    html: (h) =>
+      join(
+        h.ingredients.map((f) => typesetDisplay(f)),
+        ' + ',
+      ),
+  },
+  { key: 'harm', head: 'Harm', align: 'left', text: (h) => h.harm },
+  { key: 'message', head: 'What to know', align: 'left', text: hazardText },
+];
+
+/** The steps of a batch's heat of making up: the step, the ingredient, its ΔH and how it was obtained. */
+export const HEAT_STEP_COLUMNS: Columns<HeatStep> = [
+  { key: 'step', head: 'Step', align: 'left', text: (st) => stepKindText[st.kind] },
+  {
+    key: 'ingredient',
+    head: 'Ingredient',
+    align: 'left',
+    text: (st) => st.ingredient ?? 'between ingredients',
+    html: (st) => (st.ingredient ? typesetDisplay(st.ingredient) : 'between ingredients'),
+  },
+  { key: 'kJ', head: 'ΔH (kJ)', align: 'right', text: stepKJText },
+  { key: 'method', head: 'How', align: 'left', text: (st) => (st.source ? `${st.method} — ${st.source}` : st.method) },
 ];
 
 // ── findings ──────────────────────────────────────────────────────────────

@@ -45,12 +45,14 @@ export function readSettings(raw: unknown): ServerSettings {
     ionicAbove,
     latticePreference: oneOf(lattice.method, ['best', 'kapustinskii', 'born-lande', 'born-mayer', 'born-haber'] as const, d.chem.latticePreference),
     phTolerance: num(batch.phTolerance, 0.01, 3, d.chem.phTolerance as number),
+    heatThresholdK: num(batch.heatThresholdK, 1, 100, d.chem.heatThresholdK as number),
   };
   const sameChem =
     chem.nonpolarBelow === d.chem.nonpolarBelow &&
     chem.ionicAbove === d.chem.ionicAbove &&
     chem.latticePreference === d.chem.latticePreference &&
-    chem.phTolerance === d.chem.phTolerance;
+    chem.phTolerance === d.chem.phTolerance &&
+    chem.heatThresholdK === d.chem.heatThresholdK;
   const service: ServiceSettings = {
     prose: oneOf(r.proseDetection, ['off', 'conservative', 'eager'] as const, d.prose),
     decimals: Math.round(num(r.decimalPlaces, 0, 6, d.decimals)),

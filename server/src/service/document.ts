@@ -320,6 +320,7 @@ export function shiftBatch(b: BatchOccurrence, by: number): BatchOccurrence {
         lineEnd: l.lineEnd + by,
         ...(l.formulaStart !== undefined ? { formulaStart: l.formulaStart + by, formulaEnd: (l.formulaEnd as number) + by } : {}),
       })),
+      hazards: a.hazards.length ? a.hazards.map((h) => ({ ...h, lines: h.lines.map((x) => x + by) })) : a.hazards,
     },
   };
 }

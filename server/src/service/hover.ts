@@ -8,6 +8,7 @@ import { CAUTION_FOOTNOTE, cautionsFor, type Caution } from '../chem/cautions';
 import { element, isMetal } from '../chem/data/elements';
 import type { ReactionAnalysis } from '../chem/equation';
 import { nameOf, namesOf } from '../chem/names';
+import type { Hazard } from '../chem/safety';
 import { designationText, statesText, undeterminedText } from './card';
 import { COMPACT_BATCH, batchColumns, countedRows, markdownTable, mlText, pick } from './columns';
 import type { AnalysedDocument } from './document';
@@ -16,6 +17,20 @@ import { targetAt } from './lookup';
 import { titreMarkdown, upkeepMarkdown } from './upkeep';
 import type { Range } from './positions';
 import type { ServiceSettings } from './settings';
+import { ghsFoot, ghsHead, ghsOf, ghsStatements, solutionEnthalpyOf, solutionEnthalpyText } from './safety';
+import {
+  hasSafety,
+  hazardIngredients,
+  hazardKindText,
+  hazardsOf,
+  hazardText,
+  heatAdvice,
+  heatSummary,
+  NO_HEAT,
+  SAFETY_NOTICE,
+  stepKindText,
+  stepKJText,
+} from './safety';
 import { capacityText, concText, limitsLine, majorSpecies, nearSaturation, pHLine, precipitateText, siText, solvedText } from './solution';
 import { amountText, batchWarnings, codeSpan, countsText, escapeMarkdown, fractionText, notCountedText, weighedMass } from './tables';
 
@@ -81,6 +96,21 @@ function latticeInputs(a: FormulaAnalysis, s: ServiceSettings): string[] {
   return out;
 }
 
+/** The card's GHS classification (statements, pictograms, the note to check the SDS) and enthalpy of solution with why, where known. */
+function cardSafety(a: FormulaAnalysis): string[] {
+  const out: string[] = [];
+  const g = ghsOf(a);
+  if (g) {
+    out.push(`GHS: **${esc(ghsHead(g))}**`, '', ghsStatements(g).map(esc).join('  \n'), '', `_${esc(ghsFoot(g))}_`, '');
+  }
+  const e = solutionEnthalpyOf(a);
+  if (e) {
+    out.push(`Enthalpy of solution ${esc(solutionEnthalpyText(e))}`, '');
+    if (e.why) out.push(`_${esc(e.why)}_`, '');
+  }
+  return out;
+}
+
 /** Suggestions for a formula that does not balance, in Unicode: `Ca(NO₃)₂`. */
 const tryText = (suggestions: readonly string[]) => (suggestions.length ? ` Try ${suggestions.map((x) => `**${esc(formulaText(x))}**`).join(', ')}.` : '');
 
@@ -135,6 +165,7 @@ export function formulaCardMarkdown(a: FormulaAnalysis, s: ServiceSettings): str
   const lat = latticeLine(a, s);
   if (lat) lines.push(lat, '');
   else if (a.latticeWithheld) lines.push(esc(a.latticeWithheld.text), '');
+  lines.push(...cardSafety(a));
   lines.push(...cautionBlock(cautionsFor(a)));
   lines.push('---', '');
   const detail: string[] = [];
@@ -243,16 +274,19 @@ function ingredientMarkdown(i: Ingredient, b: BatchAnalysis, s: ServiceSettings)
       `_The batch is incomplete: ${notCountedText(b)} (hover the batch's opening line for the list); shares and totals are of the counted lines._`,
     );
   if (i.handling.length) lines.push('', ...i.handling.map((h) => `⚠ ${esc(h)}`));
+  lines.push(...ingredientSafety(i, b));
   if (i.cautions.length) lines.push('', ...cautionBlock(i.cautions));
   return lines.join('\n').trimEnd();
 }
 
-/** A line of a batch that is not counted: what it says, why, and the cautions of its formula. */
-function skippedMarkdown(l: SkippedLine, s: ServiceSettings): string {
+/** A line of a batch that is not counted: what it says, why, the pairs it is still in, and the cautions of its formula. */
+function skippedMarkdown(l: SkippedLine, b: BatchAnalysis, s: ServiceSettings): string {
   const a = l.analysis;
   const lines = [`${codeSpan(l.text)} — **not counted**`, '', esc(l.reason), ''];
   if (a?.molarMass) lines.push(`${esc(a.display)}: molar mass ${molarMassText(a.molarMass.value, s)} g/mol`, '');
   lines.push("_Nothing on this line is in the batch's figures until it is fixed._", '');
+  const hazards = b.hazards.filter((h) => h.lines.includes(l.lineStart));
+  if (hazards.length) lines.push(hazards.map(hazardLine).join('  \n'), '', `_${esc(SAFETY_NOTICE)}_`, '');
   lines.push(...cautionBlock(l.cautions));
   return lines.join('\n').trimEnd();
 }
@@ -291,6 +325,45 @@ function solutionMarkdown(b: BatchAnalysis): string[] {
   return out;
 }
 
+/** A hazard in a hover: what forms, from what, the harm, and what to know. */
+const hazardLine = (h: Hazard) => `⚠ **${esc(hazardKindText(h))}** from ${esc(hazardIngredients(h))} (${esc(h.harm)}): ${esc(hazardText(h))}`;
+
+/**
+ * The batch hover's safety section: every dangerous pair, the heat of making up with its ΔT (an estimate,
+ * with its method), the advice where it is over the setting, and the notice.
+ */
+function safetySection(b: BatchAnalysis): string[] {
+  if (!hasSafety(b)) return [];
+  const out = ['', '**Safety** — an aid, not a safety assessment', ''];
+  if (b.hazards.length) out.push(b.hazards.map(hazardLine).join('  \n'), '');
+  else out.push("No dangerous pair of ingredients in Ionwright's tables.", '');
+  const h = b.heat;
+  if (h) {
+    out.push(`${h.exceeds ? '⚠ ' : ''}${esc(heatSummary(h))}.`, '');
+    const advice = heatAdvice(h);
+    if (advice.length) out.push(advice.map((a) => `- ${esc(a)}`).join('\n'), '');
+    out.push(`_${esc(h.method)}._`, '');
+  } else out.push(NO_HEAT, '');
+  out.push(`_${esc(SAFETY_NOTICE)}_`);
+  return out;
+}
+
+/** A batch line's part of the safety reading: the pairs it is in, and the heat of dissolving it. */
+function ingredientSafety(i: Ingredient, b: BatchAnalysis): string[] {
+  const hazards = hazardsOf(b, i);
+  const k = b.ingredients.indexOf(i);
+  const step = b.heat?.steps.find((st) => st.ingredientIndex === k && st.kind !== 'not-counted');
+  if (!hazards.length && !step) return [];
+  const out: string[] = [];
+  if (hazards.length) out.push('', hazards.map(hazardLine).join('  \n'));
+  if (step) {
+    const per = step.kJPerMol !== undefined ? ` (${signed(Number(step.kJPerMol.toPrecision(3)))} kJ/mol)` : '';
+    out.push('', `Heat of ${esc(stepKindText[step.kind])}: ΔH ≈ ${esc(stepKJText(step))} kJ${per} — estimate; ${esc(step.method)}.`);
+  }
+  if (hazards.length) out.push('', `_${esc(SAFETY_NOTICE)}_`);
+  return out;
+}
+
 export function batchSummaryMarkdown(b: BatchAnalysis, s: ServiceSettings): string {
   const lines = [
     `**${esc(b.name ?? 'Batch')}** · ${esc(countsText(b))} · ${sig(weighedMass(b))} g to weigh${b.volumeL !== null ? ` · ${volumeText(b.volumeL)}` : ''}${b.totalMassG !== null ? ` · total ${sig(b.totalMassG)} g` : ''}`,
@@ -306,6 +379,7 @@ export function batchSummaryMarkdown(b: BatchAnalysis, s: ServiceSettings): stri
     lines.push('', `**Not counted** (left out of the figures above):`, '', ...b.skipped.map((l) => `- ${codeSpan(l.text)} — ${esc(l.reason)}`));
   const warnings = batchWarnings(b);
   if (warnings.length) lines.push('', ...warnings.map((d) => `⚠ ${esc(d.message)}`));
+  lines.push(...safetySection(b));
   lines.push('', ...b.notes.map((n) => `_${n}_`));
   if (b.cautions.length) lines.push('', ...cautionBlock(b.cautions));
   return lines.join('\n').trimEnd();
@@ -381,7 +455,7 @@ export function hover(doc: AnalysedDocument, offset: number): HoverResult | null
   else if (t.kind === 'batch-line') markdown = ingredientMarkdown(t.ingredient, t.occ.analysis, s);
   else {
     const line = t.occ.analysis.skipped.find((l) => offset >= l.lineStart && offset <= l.lineEnd);
-    if (line) return { markdown: skippedMarkdown(line, s), range: doc.lines.range(line.lineStart, line.lineEnd) };
+    if (line) return { markdown: skippedMarkdown(line, t.occ.analysis, s), range: doc.lines.range(line.lineStart, line.lineEnd) };
     const titre = t.occ.analysis.upkeep?.titres.find((x) => {
       const r = 'reading' in x ? x.reading : x;
       return offset >= r.start && offset <= r.end;

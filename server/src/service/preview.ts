@@ -21,10 +21,21 @@ import type { ChemDiagnostic } from '../chem/diagnostic';
 import { analyseReaction, findArrow, type ReactionAnalysis } from '../chem/equation';
 import type { FormulaRef } from '../notes/types';
 import { scanProse } from '../notes/prose';
-import { batchColumns, batchRows, htmlTable, ION_COLUMNS, SATURATION_COLUMNS, SPECIES_COLUMNS, type BatchRow } from './columns';
+import {
+  batchColumns,
+  batchRows,
+  HAZARD_COLUMNS,
+  HEAT_STEP_COLUMNS,
+  htmlTable,
+  ION_COLUMNS,
+  SATURATION_COLUMNS,
+  SPECIES_COLUMNS,
+  type BatchRow,
+} from './columns';
+import { hasSafety, heatAdvice, heatSummary, NO_HEAT, SAFETY_NOTICE } from './safety';
 import { analyseDocument, type BlockResult } from './document';
 import { plural, sig, volumeText } from './format';
-import { Html, html, join, toHtml, trusted } from './html';
+import { Html, html, join, toHtml, trusted, type HtmlValue } from './html';
 import { DEFAULT_SETTINGS, type ServiceSettings } from './settings';
 import { notCountedText, solutionNotes, solutionSummary, tabledSpecies, undissociatedOf } from './tables';
 import { formulaSpan, formulaTitle, typesetDisplay, typesetEquation } from './typeset';
@@ -197,6 +208,28 @@ function analyseFence(info: 'batch' | 'reaction', content: string, settings: Ser
   return { doc, contentLine };
 }
 
+/**
+ * A batch's safety reading as HTML: the dangerous pairs as a table, the heat of making up with its ΔT (an
+ * estimate, its method; on the report its steps too), the advice where it is over the setting, the notice.
+ */
+export function safetyHtml(b: BatchAnalysis, steps: boolean): Html | null {
+  if (!hasSafety(b)) return null;
+  const parts: HtmlValue[] = [html`<strong>Safety</strong> <span class="iw-by">an aid, not a safety assessment</span>`];
+  if (b.hazards.length) parts.push(htmlTable(HAZARD_COLUMNS, b.hazards, { cls: 'iw-hazards' }));
+  else parts.push(html`<p>No dangerous pair of ingredients in Ionwright's tables.</p>`);
+  const h = b.heat;
+  if (h) {
+    parts.push(html`<p class="iw-summary${h.exceeds ? ' iw-heat-over' : ''}">${h.exceeds ? '⚠ ' : ''}${heatSummary(h)}.</p>`);
+    const advice = heatAdvice(h);
+    if (advice.length) parts.push(html`<ul class="iw-advice">${advice.map((a) => html`<li>${a}</li>`)}</ul>`);
+    if (steps) parts.push(htmlTable(HEAT_STEP_COLUMNS, h.steps, { cls: 'iw-heat-steps' }));
+    parts.push(html`<p class="iw-note">${h.method}.</p>`);
+    if (steps) for (const n of h.notes) parts.push(html`<p class="iw-note">${n}</p>`);
+  } else parts.push(html`<p class="iw-note">${NO_HEAT}</p>`);
+  parts.push(html`<p>${SAFETY_NOTICE}</p>`);
+  return html`<div class="iw-safety" role="note">${parts}</div>`;
+}
+
 /** A batch without findings renders the same every time: memoised per analysis and settings object. */
 const batches = new WeakMap<BatchAnalysis, { settings: ServiceSettings; weighed: boolean; html: Html }>();
 
@@ -277,6 +310,8 @@ function batchHtmlUncached(
   const undissociated = undissociatedOf(b).map((i) => typesetDisplay(i.formula));
   if (undissociated.length) parts.push(html`<p class="iw-note">Not split into ions: ${join(undissociated, ', ')}.</p>`);
   for (const n of b.notes) parts.push(html`<p class="iw-note">${n}</p>`);
+  const safety = safetyHtml(b, !!o.weighedColumn);
+  if (safety) parts.push(safety);
   if (b.cautions.length) {
     parts.push(
       html`<div class="iw-cautions" role="note"><strong>Cautions</strong><ul>${b.cautions.map((c) => html`<li>${c.text}</li>`)}</ul><p>${CAUTION_FOOTNOTE}</p></div>`,

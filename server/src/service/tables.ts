@@ -1,6 +1,7 @@
 /**
  * The computed tables Ionwright inserts into a report, as Markdown: one for the formulas of a section and
- * one per batch (ingredients, then ions and ionic strength, with the model's notes and the cautions).
+ * one per batch (ingredients, then ions and ionic strength, with the model's notes, the safety reading and
+ * the cautions).
  * The columns are defined once in columns.ts; the same definitions give the preview's and the report's
  * HTML and the plain text (`batchText`).
  */
@@ -13,6 +14,7 @@ import {
   batchRows,
   countedRows,
   formulaColumns,
+  HAZARD_COLUMNS,
   ION_COLUMNS,
   markdownRow,
   markdownTable,
@@ -25,6 +27,7 @@ import type { AnalysedDocument, BatchOccurrence, FormulaOccurrence } from './doc
 import { additionLines, titreLine } from './upkeep';
 import { percent, plural, sig, volumeText } from './format';
 import { DEFAULT_SETTINGS, type ServiceSettings } from './settings';
+import { hasSafety, hazardIngredients, hazardKindText, hazardText, heatAdvice, heatSummary, NO_HEAT, SAFETY_NOTICE } from './safety';
 import { capacityText, limitsLine, pHLine, precipitateText, solvedText } from './solution';
 
 export { amountText, sig };
@@ -48,9 +51,42 @@ export function countsText(b: BatchAnalysis): string {
   return b.skipped.length ? `${n}, ${notCountedText(b)} — incomplete` : n;
 }
 
-/** The batch's warnings on counted lines or on the batch (solubility, charge, formulas counted as written); a line not counted shows its reason instead. */
+/** Codes whose findings the safety section shows instead of the list of warnings. */
+const SAFETY_CODES: ReadonlySet<string> = new Set(['batch-incompatible', 'batch-heat']);
+
+/**
+ * The batch's warnings on counted lines or on the batch (solubility, charge, formulas counted as written); a
+ * line not counted shows its reason instead, and the safety section shows the safety reading's.
+ */
 export const batchWarnings = (b: BatchAnalysis) =>
-  b.diagnostics.filter((d) => d.severity === 'warning' && !b.skipped.some((s) => d.start >= s.lineStart && d.start <= s.lineEnd));
+  b.diagnostics.filter((d) => d.severity === 'warning' && !SAFETY_CODES.has(d.code) && !b.skipped.some((s) => d.start >= s.lineStart && d.start <= s.lineEnd));
+
+/** The safety section of a batch's Markdown: the dangerous pairs as a table, the heat estimate, the advice, the notice. */
+export function safetyMarkdown(b: BatchAnalysis): string[] {
+  if (!hasSafety(b)) return [];
+  const out = ['', '**Safety** (an aid, not a safety assessment)'];
+  if (b.hazards.length) out.push('', markdownTable(HAZARD_COLUMNS, b.hazards));
+  else out.push('', "No dangerous pair of ingredients in Ionwright's tables.");
+  if (b.heat) {
+    out.push('', escapeMarkdown(heatSummary(b.heat)) + '.');
+    for (const a of heatAdvice(b.heat)) out.push(`- ⚠ ${escapeMarkdown(a)}`);
+    out.push('', `_${escapeMarkdown(b.heat.method)}._`);
+  } else out.push('', NO_HEAT);
+  out.push('', `_${escapeMarkdown(SAFETY_NOTICE)}_`);
+  return out;
+}
+
+/** The safety section of a batch as plain text. */
+export function safetyText(b: BatchAnalysis): string[] {
+  if (!hasSafety(b)) return [];
+  const out = ['', 'Safety (an aid, not a safety assessment):'];
+  if (b.hazards.length) out.push(...b.hazards.map((h) => `  ⚠ ${hazardIngredients(h)} → ${hazardKindText(h)} (${h.harm}): ${hazardText(h)}`));
+  else out.push("  No dangerous pair of ingredients in Ionwright's tables.");
+  if (b.heat) out.push(`  ${heatSummary(b.heat)}.`, ...heatAdvice(b.heat).map((a) => `  ⚠ ${a}`), `  ${b.heat.method}.`);
+  else out.push(`  ${NO_HEAT}`);
+  out.push(SAFETY_NOTICE);
+  return out;
+}
 
 /** Escape text for Markdown prose (messages may quote what the user wrote): the one Markdown escaper. */
 export const escapeMarkdown = (t: string) => t.replace(/([\\`*_[\]<>|])/g, '\\$1');
@@ -167,6 +203,7 @@ export function batchTable(b: BatchAnalysis, settings: ServiceSettings = DEFAULT
   for (const n of b.notes) lines.push(`_${n}_`);
   const warnings = batchWarnings(b);
   if (warnings.length) lines.push('', '**Warnings**', ...warnings.map((d) => `- ${escapeMarkdown(d.message)}`));
+  lines.push(...safetyMarkdown(b));
   if (b.cautions.length) {
     lines.push('', '**Cautions**', ...b.cautions.map((c) => `- ${c.text}`), '', `_${CAUTION_FOOTNOTE}_`);
   }
@@ -199,6 +236,7 @@ export function batchText(b: BatchAnalysis, settings: ServiceSettings = DEFAULT_
   }
   for (const n of b.notes) lines.push(n);
   for (const d of batchWarnings(b)) lines.push(`warning: ${d.message}`);
+  lines.push(...safetyText(b));
   if (b.cautions.length) lines.push('', 'Cautions:', ...b.cautions.map((c) => `  ${c.text}`), CAUTION_FOOTNOTE);
   return lines.join('\n');
 }

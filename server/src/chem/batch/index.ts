@@ -24,12 +24,14 @@
  *                   saturation; then the two shares of each line (amounts.ts)
  *   4. mix.ts       dissociation, the nominal ions of the mix, ionic strength, net charge
  *   5. checks.ts    cautions, the total, solubility (solubility.ts)
+ *   6. safety.ts    beside the checks: dangerous pairs and the heat of making up (chem/safety/)
  */
 import { DEFAULT_CHEM_SETTINGS, type ChemSettings } from '../settings';
 import { computeAmounts, computeShares, type BatchAmounts } from './amounts';
 import { checkBatch, type BatchChecks } from './checks';
 import { mixIons, type BatchMix } from './mix';
 import { readLines, type BatchHeaders } from './read';
+import { safetyStage, type BatchSafety } from './safety';
 import { solutionStage, type SolutionStage } from './solution';
 import { analyseUpkeep, type Upkeep } from '../upkeep';
 import type { BatchAmounts as Amounts } from './amounts';
@@ -84,20 +86,21 @@ export function analyseBatch(
   const checks = checkBatch(amounts, read.headers);
   // Bath upkeep (chem/upkeep): titre lines against the batch's targets, and the additions for the tank.
   const upkeep = read.titres.length || read.tankLine ? upkeepStage(read, amounts, openLine ?? first) : null;
-  // Later, beside the checks: chem/safety/ (incompatible pairs, heat of making up; `batch-incompatible`,
-  // `batch-heat`).
+  const safety = safetyStage(amounts, read.headers, solution, settings, openLine ?? first);
   return assemble(
     read.headers,
     amounts,
     solution,
     mix,
     checks,
+    safety,
     [
       ...read.diagnostics,
       ...amounts.diagnostics,
       ...solution.diagnostics.filter((d) => !amounts.diagnostics.includes(d)),
       ...mix.diagnostics,
       ...checks.diagnostics,
+      ...safety.diagnostics,
       ...(upkeep?.diagnostics ?? []),
     ],
     upkeep,
@@ -111,6 +114,7 @@ function assemble(
   solution: SolutionStage,
   mix: BatchMix,
   checks: BatchChecks,
+  safety: BatchSafety,
   diagnostics: BatchAnalysis['diagnostics'],
   upkeep: Upkeep | null,
 ): BatchAnalysis {
@@ -185,6 +189,8 @@ function assemble(
     temperatureC: headers.temperatureC,
     statedPH: headers.pH?.value ?? null,
     solution: lazy ? null : (solution.solution as BatchSolution | null),
+    hazards: safety.hazards,
+    heat: safety.heat,
     ...(solution.noSolution ? { noSolution: solution.noSolution } : {}),
   };
   if (upkeep) out.upkeep = upkeep;

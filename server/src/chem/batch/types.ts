@@ -7,6 +7,7 @@ import type { IonShare } from '../ions/dissociation';
 import type { BatchSolution, BufferDesign } from '../solution/types';
 import type { Shelf } from '../reagents';
 import type { Upkeep } from '../upkeep';
+import type { Hazard, HeatReading, HeatStep } from '../safety';
 import type { AmountUnit } from './units';
 
 export type { AmountUnit } from './units';
@@ -137,6 +138,23 @@ export interface BatchAnalysis {
   noSolution?: string;
   /** Bath upkeep (titre lines, `tank:`, additions): only where the batch has a titre line or a tank. */
   upkeep?: Upkeep;
+  /**
+   * Ingredients (counted or not) that react dangerously together, each raised as `batch-incompatible` on the
+   * later line; empty when none. `lines` are the `lineStart` offsets of the lines named (shifted with the batch).
+   */
+  hazards: Hazard[];
+  /** The heat of making up (dissolution, dilution, neutralisation) and its temperature change, an estimate; null where no ingredient's heat is known. */
+  heat: BatchHeat | null;
+}
+
+/** A step of the heat of making up, with its ingredient's place in `ingredients` (null for a neutralisation between ingredients). */
+export interface BatchHeatStep extends HeatStep {
+  ingredientIndex: number | null;
+}
+
+/** The heat of making up a batch, each step with its line. */
+export interface BatchHeat extends HeatReading {
+  steps: BatchHeatStep[];
 }
 
 /** A batch of the same document that a line may take a stock from (`NiSO4 0.1 M from batch "Nickel stock"`). */

@@ -140,9 +140,13 @@ export function batchState(batch: SafetyBatch): BatchState {
   }
   // A batch with a final volume is a solution, even where its water could not be estimated.
   const aqueous = volumeL !== null || (waterG !== null && waterG > 0);
-  const given = batch.pH != null && Number.isFinite(batch.pH) ? { value: batch.pH, from: 'solution' as const } : null;
-  // The estimate is made only when something asks for it (an acid-sensitive pair, a neutralisation).
-  let estimate: BatchState['pH'] | undefined = given ? given : undefined;
+  // The given pH and the estimate are read only when something asks for them (an acid-sensitive pair, a
+  // neutralisation): the caller's pH may be a getter over an equilibrium solved on first read.
+  const given = (): BatchState['pH'] => {
+    const pH = batch.pH;
+    return pH != null && Number.isFinite(pH) ? { value: pH, from: 'solution' as const } : null;
+  };
+  let estimate: BatchState['pH'] | undefined;
   const state: BatchState = {
     items,
     volumeL,
@@ -151,7 +155,7 @@ export function batchState(batch: SafetyBatch): BatchState {
     massG,
     aqueous,
     get pH() {
-      if (estimate === undefined) estimate = aqueous ? estimatePH(items, estimateVolumeL(volumeL, waterG)) : null;
+      if (estimate === undefined) estimate = given() ?? (aqueous ? estimatePH(items, estimateVolumeL(volumeL, waterG)) : null);
       return estimate;
     },
     pHIfUsed: () => estimate ?? null,

@@ -547,8 +547,9 @@ function neutralisation(state: BatchState): { step: HeatStep; note?: string } | 
     if (pH !== null) actives.push({ it: c.it, part: c.part, pH });
   }
   // The batch's own estimate is the same computation; the solution chemistry's pH is not (activities), so the
-  // species before and after are both taken from the ideal model.
-  const est = state.pH;
+  // species before and after are both taken from the ideal model. Only an estimate already made is reused:
+  // asking for the batch's pH here would solve an equilibrium whose pH is then not used.
+  const est = state.pHIfUsed();
   const pHFinal =
     est?.from === 'estimate'
       ? est.value
