@@ -500,6 +500,18 @@ const DANGEROUS: Case[] = [
 
 const ORDINARY: Case[] = [
   {
+    // A plating tank's pH trimmed with the concentrated acid and the 50 % caustic, each added to the bath.
+    name: 'a 200 L nickel bath trimmed with sulfuric acid and caustic',
+    lines: [
+      ['NiSO4·6H2O', 50000, 'g'],
+      ['H3BO3', 8000, 'g'],
+      ['H2SO4', 40, 'g', 0.96],
+      ['NaOH', 60, 'g', 0.5],
+    ],
+    volumeL: 200,
+    source: 'common practice (pH adjustment of a plating bath)',
+  },
+  {
     name: 'phosphate-buffered saline',
     lines: [
       ['NaCl', 8, 'g'],

@@ -141,6 +141,11 @@ const CATALOGUE = {
     raisedBy: ['chem/batch'],
     description: 'A reagent sold as a solution (hydrochloric acid, ammonia, bleach) given without its assay, or an assay the density table does not cover.',
   },
+  'reagent-no-assay': {
+    severity: 'error',
+    raisedBy: ['chem/batch'],
+    description: 'A reagent sold as a solution, measured by volume without its assay: how much substance it holds cannot be known.',
+  },
   'reagent-density': {
     severity: 'error',
     raisedBy: ['chem/batch'],

@@ -265,7 +265,7 @@ function codeOf(f: ReagentFinding): DiagnosticCode {
     case 'unknown-liquid':
       return 'reagent-density';
     case 'assay-needed':
-      return 'reagent-assay';
+      return f.severity === 'error' ? 'reagent-no-assay' : 'reagent-assay';
     case 'assay-range':
     case 'measuring-precision':
       return 'batch-amount';

@@ -40,6 +40,17 @@ function suppliedConcentrated(it: IngredientState): boolean {
   return assay >= 0.3;
 }
 
+/**
+ * Both reagents in amounts that matter for the batch: the lesser of the two at 0.25 mol/L or more of the
+ * final volume (or no final volume, or amounts unknown). A small pH adjustment of a large tank with the
+ * concentrated acid and base, each added to the water, is everyday practice, and the heat of what is
+ * added is judged by the heat warning (common practice).
+ */
+function muchOfBoth(a: IngredientState, b: IngredientState, state: BatchState): boolean {
+  if (state.volumeL === null || a.moles === null || b.moles === null) return true;
+  return Math.min(a.moles, b.moles) / state.volumeL >= 0.25;
+}
+
 /** The name of an ingredient in a message: its name (as given, or the systematic one) and its formula. */
 function label(it: IngredientState, m: GroupMember | undefined): string {
   const name = it.ing.name ?? aqueousNameOf(it.ing.analysis) ?? m?.what;
@@ -105,7 +116,7 @@ export function findHazards(state: BatchState): Hazard[] {
           const it = when.concentrated.side === 'a' ? a : b;
           if (fraction(it, state) < when.concentrated.minFraction) return false;
         }
-        if (when.bothConcentrated && !(suppliedConcentrated(a) && suppliedConcentrated(b))) return false;
+        if (when.bothConcentrated && !(suppliedConcentrated(a) && suppliedConcentrated(b) && muchOfBoth(a, b, state))) return false;
         return true;
       });
       const selfPair = rule.self && rule.b ? !!matching(a, rule.b) : false;
@@ -140,7 +151,7 @@ function pHPartners(a: IngredientState, items: readonly IngredientState[]): Arra
 
 function pairHazard(rule: PairRule, a: IngredientState, am: GroupMember, partners: Array<[IngredientState, GroupMember]>, state: BatchState): Hazard {
   const involved = [a, ...partners.map(([b]) => b)].sort((x, y) => x.ing.line - y.ing.line || x.index - y.index);
-  const who = partners.length ? `${label(a, am)} with ${list(partners.map(([b, bm]) => label(b, bm)))}` : label(a, am);
+  const who = partners.length ? `${label(a, am)} with ${list([...new Set(partners.map(([b, bm]) => label(b, bm)))])}` : label(a, am);
   let pHNote = '';
   let pH: Hazard['pH'];
   if (rule.when?.acidBelowPH !== undefined && state.pH) {
