@@ -20,6 +20,7 @@ import {
   ExecuteCommandRequest,
   ExitNotification,
   FoldingRangeRequest,
+  HoverRequest,
   InitializedNotification,
   InitializeRequest,
   InlayHintRequest,
@@ -80,6 +81,8 @@ beforeAll(async () => {
     join(folder, 'shelf', 'rinses.md'),
     '# Rinses\n\n```batch\nname: Rinse B\nvolume: 1 L\nNaHCO3 2 g\n```\n\nWe keep `NaHCO3` and `NaHCO3` at hand.\n',
   );
+  // The lab's shelf file: its labels are read in every note without a shelf of its own.
+  writeFileSync(join(folder, 'lab.shelf.md'), '# Shelf\n\n```shelf\nAcid A: H2SO4 @ 96 %; density 1.84 g/mL; lot SA-2231\n```\n');
   mkdirSync(join(folder, 'node_modules'), { recursive: true });
   writeFileSync(join(folder, 'node_modules', 'skip.md'), '```batch\nname: Not indexed\nKCl 1 g\n```\n');
   URI = pathToFileURL(join(folder, 'strike.md')).href;
@@ -107,6 +110,24 @@ afterAll(async () => {
     /* already gone */
   }
   proc.kill();
+});
+
+describe('the workspace shelf file', () => {
+  it('lets an open note name a reagent by its shelf label', async () => {
+    const uri = pathToFileURL(join(folder, 'pickle.md')).href;
+    const text = '```batch\nvolume: 1 L\nAcid A 10 mL\n```\n';
+    await conn.sendNotification(DidOpenTextDocumentNotification.type, { textDocument: { uri, languageId: 'markdown', version: 1, text } });
+    let md = '';
+    for (let t0 = Date.now(); Date.now() - t0 < 10_000 && !md.includes('shelf: Acid A'); await new Promise((r) => setTimeout(r, 50))) {
+      const h = (await conn.sendRequest(HoverRequest.type, { textDocument: { uri }, position: { line: 2, character: 2 } })) as {
+        contents: { value: string };
+      } | null;
+      md = h?.contents.value ?? '';
+    }
+    expect(md).toContain('shelf: Acid A');
+    // 10 mL × 1.84 g/mL (the shelf's density) = 18.4 g poured.
+    expect(md).toContain('18.4 g');
+  });
 });
 
 describe('typing features over stdio', () => {
@@ -142,13 +163,16 @@ describe('typing features over stdio', () => {
     expect(list.items.map((i) => i.label)).toEqual(expect.arrayContaining(['g', 'mg', 'kg', 'mol', 'mmol', 'M', 'mM', 'wt%']));
   });
 
-  it('answers inlay hints with the mass to weigh', async () => {
+  it('answers inlay hints with the mass to weigh (and the batch pH after its opening line)', async () => {
     const hints = await conn.sendRequest(InlayHintRequest.type, {
       textDocument: { uri: URI },
       range: { start: { line: 0, character: 0 }, end: { line: 12, character: 0 } },
     });
     // 0.2 mol/L × 0.5 L × 129.59 g/mol (NiCl2; CIAAW 2021: Ni 58.693 + 2 × Cl 35.45) = 12.96 g.
-    expect(hints).toEqual([expect.objectContaining({ position: { line: 7, character: 11 }, label: '⇒ 12.96 g', paddingLeft: true })]);
+    expect(hints!.filter((h) => String(h.label).startsWith('⇒'))).toEqual([
+      expect.objectContaining({ position: { line: 7, character: 11 }, label: '⇒ 12.96 g', paddingLeft: true }),
+    ]);
+    expect(hints!.filter((h) => String(h.label).startsWith('pH'))).toHaveLength(1);
   });
 
   it('answers semantic tokens at the formulas’ positions, whole and for a range', async () => {

@@ -11,7 +11,7 @@
  */
 import { relative, resolve } from 'node:path';
 import type { LspDiagnostic } from '../service/diagnostics';
-import { emptyReport, parse, readFiles, skippedLinksLine, UsageError, type CliIO, type InputReport } from './io';
+import { emptyReport, parse, readFiles, shelfSourceIn, skippedLinksLine, UsageError, type CliIO, type InputReport } from './io';
 import { checkHere, checkInWorkers, type CheckJob, type CheckOutcome } from './pool';
 import { inShard, readShard } from './shard';
 import { writeSarif } from './sarif';
@@ -93,6 +93,8 @@ export async function cmdCheck(args: string[], io: CliIO): Promise<number> {
   const mine = (path: string) => inShard(shard, path, io.cwd);
   let found = 0;
   const jobs: CheckJob[] = readFiles(positionals, io, report, (path) => (found++, mine(path)));
+  const shelf = shelfSourceIn(positionals, io, jobs);
+  if (shelf) for (const job of jobs) job.shelf = shelf;
   // What the walk reports about a path is reported by the part the path falls in.
   if (shard) {
     report.problems = report.problems.filter((p) => mine(p.path));

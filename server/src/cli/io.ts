@@ -20,7 +20,8 @@ import { basename, dirname, join, resolve, sep } from 'node:path';
 import { parseArgs } from 'node:util';
 import type { Worker } from 'node:worker_threads';
 import { languageOf, type AnalysedDocument } from '../service/document';
-import { analyseFile } from './analyse';
+import { analyseFile, type ShelfSource } from './analyse';
+import { isShelfFile } from '../service/document';
 import { startBundleWorker } from './pool';
 
 /** What is at a path: the path itself (a final symbolic link not followed) and what it leads to. */
@@ -514,7 +515,39 @@ export function readFiles(paths: string[], io: CliIO, report: InputReport, keep:
 
 /** Read and analyse files; a file that cannot be read is reported and skipped. */
 export function loadFiles(paths: string[], io: CliIO, report: InputReport): LoadedFile[] {
-  return readFiles(paths, io, report).map((f) => ({ path: f.path, doc: analyseFile(f.path, f.text) }));
+  const files = readFiles(paths, io, report);
+  const shelf = shelfSourceIn(paths, io, files);
+  return files.map((f) => ({ path: f.path, doc: analyseFile(f.path, f.text, shelf) }));
+}
+
+/**
+ * The workspace's shelf file among the files the paths name (`shelf.md`, `*.shelf.md`, `shelf.fnote`; the
+ * first in path order), read from `read` where it is there, else from disk (a shard may not hold it).
+ */
+export function shelfSourceIn(paths: string[], io: CliIO, read: readonly ReadFile[]): ShelfSource | undefined {
+  const hit = read.find((f) => isShelfFile(f.path));
+  if (hit) return { path: hit.path, text: hit.text };
+  const quiet = emptyReport();
+  for (const path of collectFiles(paths, io, quiet)) {
+    if (!isShelfFile(path)) continue;
+    try {
+      return { path, text: readNote(io, path) };
+    } catch {
+      return undefined;
+    }
+  }
+  // A file named on its own: the shelf file beside it, where there is one.
+  for (const f of read)
+    for (const name of ['shelf.md', 'shelf.markdown', 'shelf.fnote']) {
+      const path = join(dirname(f.path), name);
+      try {
+        if (io.isDirectory(path)) continue;
+        return { path, text: readNote(io, path) };
+      } catch {
+        // none there
+      }
+    }
+  return undefined;
 }
 
 export const emptyReport = (): InputReport => ({ problems: [], links: [] });

@@ -13,18 +13,20 @@
  */
 import { isMainThread, parentPort, Worker, workerData } from 'node:worker_threads';
 import type { LspDiagnostic } from '../service/diagnostics';
-import { checkText } from './analyse';
+import { checkText, type ShelfSource } from './analyse';
 
 export const WORKER_ROLE = 'ionwright-check';
 
 export interface CheckJob {
   path: string;
   text: string;
+  /** The workspace's shelf file (its path and text), for notes without a shelf of their own. */
+  shelf?: ShelfSource;
 }
 
 export type CheckOutcome = { diagnostics: LspDiagnostic[] } | { failure: string };
 
-type ToWorker = { id: number; path: string; text: string };
+type ToWorker = { id: number; path: string; text: string; shelf?: ShelfSource };
 type FromWorker = { ready: true } | { id: number; diagnostics: LspDiagnostic[] } | { id: number; failure: string };
 
 /** Files sent to one worker ahead of its results, so that it never waits for the next one. */
@@ -40,7 +42,7 @@ export const oneLine = (e: unknown): string => {
 /** One file checked in this thread; a throw becomes a failure, as in a worker. */
 export function checkHere(job: CheckJob): CheckOutcome {
   try {
-    return { diagnostics: checkText(job.path, job.text) };
+    return { diagnostics: checkText(job.path, job.text, job.shelf) };
   } catch (e) {
     return { failure: `analysis failed: ${oneLine(e)}` };
   }
@@ -61,7 +63,7 @@ export function serveChecks(): void {
   const port = parentPort;
   if (!port) return;
   port.on('message', (m: ToWorker) => {
-    const outcome = checkHere({ path: m.path, text: m.text });
+    const outcome = checkHere({ path: m.path, text: m.text, ...(m.shelf ? { shelf: m.shelf } : {}) });
     const reply: FromWorker = 'failure' in outcome ? { id: m.id, failure: outcome.failure } : { id: m.id, diagnostics: outcome.diagnostics };
     port.postMessage(reply);
   });
@@ -134,7 +136,7 @@ export function checkInWorkers(jobs: CheckJob[], options: PoolOptions): Promise<
         while (inFlight.length < IN_FLIGHT && queue.length) {
           const i = queue.shift() as number;
           inFlight.push(i);
-          w.postMessage({ id: i, path: jobs[i].path, text: jobs[i].text } satisfies ToWorker);
+          w.postMessage({ id: i, path: jobs[i].path, text: jobs[i].text, ...(jobs[i].shelf ? { shelf: jobs[i].shelf } : {}) } satisfies ToWorker);
         }
       };
       w.on('message', (m: FromWorker) => {

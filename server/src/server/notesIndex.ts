@@ -8,6 +8,7 @@
  * A folder note is analysed once when it is read (or changes on disk) and only its summary is kept.
  */
 import { createLanguageService, type NoteSummary, type Vocabulary } from '../service/languageService';
+import { isShelfFile } from '../service/document';
 import { languageOfDocument, type NotesWorkspace } from './workspace';
 
 /** What the host can read of a workspace folder. */
@@ -30,12 +31,20 @@ export class NotesIndex {
     const language = languageOfDocument('', uri);
     if (!language) return;
     const service = createLanguageService(this.workspace.defaults.service);
-    this.files.set(uri, service.noteSummary(service.analyse(text, language), uri));
+    const doc = service.analyse(text, language);
+    this.files.set(uri, service.noteSummary(doc, uri));
     this.generation++;
+    // The workspace's shelf file: its shelf blocks are the lab's reagents for every note without its own.
+    if (isShelfFile(uri)) {
+      const own = doc.shelves.length ? doc.shelf : undefined;
+      if (own) this.workspace.setWorkspaceShelf({ shelf: own.shelf, source: uri });
+      else if (this.workspace.workspaceShelf?.source === uri) this.workspace.setWorkspaceShelf(undefined);
+    }
   }
 
   deleteFile(uri: string) {
     if (this.files.delete(uri)) this.generation++;
+    if (this.workspace.workspaceShelf?.source === uri) this.workspace.setWorkspaceShelf(undefined);
   }
 
   get fileCount(): number {

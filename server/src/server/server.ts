@@ -90,6 +90,10 @@ export function startServer(connection: Connection, options: ServerOptions = {})
   });
 
   const index = new NotesIndex(workspace);
+  // A new or changed shelf file: the open notes' batches are read again with it.
+  workspace.onShelfChanged = () => {
+    for (const td of workspace.documents.all()) validator.schedule(td.uri, 0);
+  };
   let folders: string[] = [];
   let watchFiles = false;
   let refreshHints = false;

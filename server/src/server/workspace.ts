@@ -7,7 +7,7 @@ import { TextDocuments } from 'vscode-languageserver';
 import { TextDocument } from 'vscode-languageserver-textdocument';
 import type { NotesLanguage } from '../notes/types';
 import { readSettings, type ServerSettings } from '../service/config';
-import { createLanguageService, type AnalysedDocument, type ChangeHint, type LanguageService } from '../service/languageService';
+import { createLanguageService, type AnalysedDocument, type ChangeHint, type LanguageService, type WorkspaceShelf } from '../service/languageService';
 
 export function languageOfDocument(languageId: string, uri: string): NotesLanguage | undefined {
   // A client that opened a document under something other than a string URI gets nothing for it.
@@ -38,9 +38,13 @@ export class NotesWorkspace {
   /** Settings pushed with didChangeConfiguration, for clients that cannot be asked. */
   private pushed: ServerSettings | undefined;
   private readonly hints = new Map<string, ChangeHint | null>();
-  private readonly snapshots = new Map<string, { settings: ServerSettings; snap: Snapshot }>();
+  private readonly snapshots = new Map<string, { settings: ServerSettings; snap: Snapshot; shelf: WorkspaceShelf | undefined }>();
   private readonly settingsRequests = new Map<string, Promise<ServerSettings>>();
   private current = new Map<string, ServerSettings>();
+  /** The workspace's shelf file (`shelf.md`, `*.shelf.md`, `shelf.fnote`), for notes that have no shelf of their own. */
+  private shelf: WorkspaceShelf | undefined;
+  /** Called when the workspace's shelf changes: the open notes' batches are read again. */
+  onShelfChanged?: () => void;
 
   constructor(private readonly options: WorkspaceOptions = {}) {
     const hints = this.hints;
@@ -120,18 +124,31 @@ export class NotesWorkspace {
     if (!language) return undefined;
     const settings = this.settingsOf(uri);
     const hit = this.snapshots.get(uri);
-    if (hit && hit.snap.version === td.version && hit.settings === settings) return hit.snap;
+    const shelf = this.shelf;
+    if (hit && hit.snap.version === td.version && hit.settings === settings && hit.shelf === shelf) return hit.snap;
     const text = td.getText();
     // A client that sent something other than text for a document gets nothing for it.
     if (typeof text !== 'string') return undefined;
     const hint = this.hints.get(uri);
     this.hints.delete(uri);
     const service = createLanguageService(settings.service);
-    const doc = service.analyse(text, language, hit && hit.settings === settings ? { doc: hit.snap.doc, hint: hint ?? undefined } : undefined);
+    const options = shelf ? { workspaceShelf: shelf } : {};
+    const doc = service.analyse(text, language, hit && hit.settings === settings ? { doc: hit.snap.doc, hint: hint ?? undefined } : undefined, options);
     const snap: Snapshot = { uri, version: td.version, doc, service };
-    this.snapshots.set(uri, { settings, snap });
+    this.snapshots.set(uri, { settings, snap, shelf });
     this.options.onAnalysed?.(text.length);
     return snap;
+  }
+
+  /** Set (or clear) the workspace's shelf; the open notes are read again with it. */
+  setWorkspaceShelf(shelf: WorkspaceShelf | undefined): void {
+    if (shelf === this.shelf) return;
+    this.shelf = shelf;
+    this.onShelfChanged?.();
+  }
+
+  get workspaceShelf(): WorkspaceShelf | undefined {
+    return this.shelf;
   }
 
   /** The version of an open document now (undefined when it is not open). */

@@ -92,6 +92,10 @@ export interface WorkspaceShelf {
   source: string;
 }
 
+/** Whether a note is a workspace's shelf file: `shelf.md`, `<anything>.shelf.md`, `shelf.fnote` (any case; a path or a URI). */
+export const isShelfFile = (uriOrPath: string): boolean => SHELF_FILE.test(uriOrPath);
+const SHELF_FILE = /(?:^|[/\\.])shelf\.(?:md|markdown|fnote)$/i;
+
 export interface DocumentOptions {
   workspaceShelf?: WorkspaceShelf;
 }

@@ -15,7 +15,7 @@ import { batchJson } from './batchJson';
 import { batchAt, parseScaleTarget, scaleEdits, type ScaleOutcome } from './batchEdits';
 import { cardJson, cardText, type CardJson } from './card';
 import { documentDiagnostics, editorDiagnostics, type LspDiagnostic } from './diagnostics';
-import { analyseDocument, updateDocument, type AnalysedDocument, type ChangeHint } from './document';
+import { analyseDocument, updateDocument, type AnalysedDocument, type ChangeHint, type DocumentOptions, type WorkspaceShelf } from './document';
 import { formulaCardMarkdown, hover, type HoverResult } from './hover';
 import { targetAt } from './lookup';
 import type { Position, Range } from './positions';
@@ -32,6 +32,8 @@ import { documentVocabulary, mergeVocabularies, type Vocabulary } from './vocabu
 export type {
   AnalysedDocument,
   ChangeHint,
+  DocumentOptions,
+  WorkspaceShelf,
   CodeAction,
   CodeLens,
   CompletionList,
@@ -58,7 +60,7 @@ export type TableScope = { at: Position } | { selection: Range } | { section: Po
 export interface LanguageService {
   readonly settings: ServiceSettings;
   /** Analyse a note; given the analysis of its previous version (and the edited range, when known), only the blocks around the change are read again. */
-  analyse(text: string, language: NotesLanguage, previous?: { doc: AnalysedDocument; hint?: ChangeHint }): AnalysedDocument;
+  analyse(text: string, language: NotesLanguage, previous?: { doc: AnalysedDocument; hint?: ChangeHint }, options?: DocumentOptions): AnalysedDocument;
   /** Every finding of the note. */
   diagnostics(doc: AnalysedDocument): LspDiagnostic[];
   /** The findings an editor is sent: at most `limit` (errors first), then one that counts the rest. */
@@ -123,10 +125,10 @@ export function createLanguageService(settings: ServiceSettings = DEFAULT_SETTIN
   const offset = (doc: AnalysedDocument, p: Position) => doc.lines.offsetAt(p);
   const service: LanguageService = {
     settings,
-    analyse: (text, language, previous) =>
+    analyse: (text, language, previous, options) =>
       previous && previous.doc.language === language && previous.doc.settings === settings
-        ? updateDocument(previous.doc, text, previous.hint)
-        : analyseDocument(text, language, settings),
+        ? updateDocument(previous.doc, text, previous.hint, options ?? previous.doc.options)
+        : analyseDocument(text, language, settings, undefined, options),
     diagnostics: (doc) => documentDiagnostics(doc),
     editorDiagnostics: (doc, limit) => editorDiagnostics(doc, limit),
     hover: (doc, position) => hover(doc, offset(doc, position)),
