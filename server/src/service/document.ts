@@ -92,6 +92,20 @@ export interface WorkspaceShelf {
   source: string;
 }
 
+/** The finding on the opening line of a batch or shelf block that is never closed. */
+function unclosed(what: 'batch' | 'shelf', open: { start: number; end: number }, language: NotesLanguage): ChemDiagnostic {
+  return {
+    code: 'batch-unclosed',
+    severity: 'warning',
+    start: open.start,
+    end: open.end,
+    message:
+      language === 'fnote'
+        ? `This ${what} has no 'end' line; it runs to the end of the file.`
+        : `This ${what} block is never closed; it runs to the end of the document.`,
+  };
+}
+
 /** Whether a note is a workspace's shelf file: `shelf.md`, `<anything>.shelf.md`, `shelf.fnote` (any case; a path or a URI). */
 export const isShelfFile = (uriOrPath: string): boolean => SHELF_FILE.test(uriOrPath);
 const SHELF_FILE = /(?:^|[/\\.])shelf\.(?:md|markdown|fnote)$/i;
@@ -163,17 +177,7 @@ function analyseItems(
       const shelf = parseShelf(item.body.text, item.body.start);
       (shelves ??= []).push({ ref: item, shelf });
       for (const f of shelf.findings) diagnostics.push(shelfDiagnostic(f, item));
-      if (!item.closed)
-        diagnostics.push({
-          code: 'batch-unclosed',
-          severity: 'warning',
-          start: item.open.start,
-          end: item.open.end,
-          message:
-            language === 'fnote'
-              ? "This shelf has no 'end' line; it runs to the end of the file."
-              : 'This shelf block is never closed; it runs to the end of the document.',
-        });
+      if (!item.closed) diagnostics.push(unclosed('shelf', item.open, language));
       continue;
     }
     if (item.kind === 'formula') {
@@ -200,18 +204,7 @@ function analyseItems(
       const analysis = analyseBatch(item.lines, item.openName?.text ?? null, settings.chem, item.open, context);
       batches.push({ ref: item, analysis });
       diagnostics.push(...analysis.diagnostics);
-      if (!item.closed) {
-        diagnostics.push({
-          code: 'batch-unclosed',
-          severity: 'warning',
-          start: item.open.start,
-          end: item.open.end,
-          message:
-            language === 'fnote'
-              ? "This batch has no 'end' line; it runs to the end of the file."
-              : 'This batch block is never closed; it runs to the end of the document.',
-        });
-      }
+      if (!item.closed) diagnostics.push(unclosed('batch', item.open, language));
     }
   }
   if (diagnostics.length > 1) diagnostics.sort((a, b) => a.start - b.start || a.end - b.end);

@@ -64,6 +64,17 @@ export interface EquilibriumChartOptions {
 }
 
 /** The species distribution over pH, one panel per component. */
+/** The opening of a chart: the svg element, its title and description (for screen readers), the style, the title line. */
+function chartHead(width: number, height: number, o: { id: string; title: string }, desc: string): string[] {
+  return [
+    svgOpen(width, height, o.id),
+    `<title id="${o.id}-title">${escapeXml(o.title)}</title>`,
+    `<desc id="${o.id}-desc">${escapeXml(desc)}</desc>`,
+    `<style>${STYLE}</style>`,
+    text(PAD, PAD + 12, shorten(o.title, Math.floor((width - 2 * PAD) / 7.5)), ` font-size="${FONT.title}" font-weight="600"`),
+  ];
+}
+
 export function speciesChart(d: SpeciesDistribution, o: EquilibriumChartOptions): string {
   const width = Math.max(320, Math.round(o.width ?? 640));
   const left = 48;
@@ -79,13 +90,7 @@ export function speciesChart(d: SpeciesDistribution, o: EquilibriumChartOptions)
   const n = d.groups.length;
   const height = n ? top + n * (panelH + gap) : PAD * 2 + 44;
   const desc = describeDistribution(d);
-  const out = [
-    svgOpen(width, height, o.id),
-    `<title id="${o.id}-title">${escapeXml(o.title)}</title>`,
-    `<desc id="${o.id}-desc">${escapeXml(desc)}</desc>`,
-    `<style>${STYLE}</style>`,
-  ];
-  out.push(text(PAD, PAD + 12, shorten(o.title, Math.floor((width - 2 * PAD) / 7.5)), ` font-size="${FONT.title}" font-weight="600"`));
+  const out = chartHead(width, height, o, desc);
   if (!n) {
     out.push(text(PAD, PAD + 36, 'No component of this batch changes form between pH 0 and 14.', ` font-size="${FONT.note}"`), '</svg>');
     return out.join('');
@@ -200,13 +205,7 @@ export function saturationChart(solids: readonly SolidSaturation[], o: Equilibri
   const desc = solids.length
     ? `Saturation index log10(IAP/Ksp) of each solid: ${solids.map((s) => `${s.display} ${siText(s.saturationIndex)}`).join(', ')}. ${over.length ? `Oversaturated: ${over.map((s) => s.display).join(', ')}.` : 'None is oversaturated.'}`
     : 'No solid of the table can form from this batch.';
-  const out = [
-    svgOpen(width, height, o.id),
-    `<title id="${o.id}-title">${escapeXml(o.title)}</title>`,
-    `<desc id="${o.id}-desc">${escapeXml(desc)}</desc>`,
-    `<style>${STYLE}</style>`,
-  ];
-  out.push(text(PAD, PAD + 12, shorten(o.title, Math.floor((width - 2 * PAD) / 7.5)), ` font-size="${FONT.title}" font-weight="600"`));
+  const out = chartHead(width, height, o, desc);
   out.push(text(PAD, PAD + 28, 'right of 0: oversaturated (would come out); left: undersaturated', ` font-size="${FONT.note}" opacity="0.85"`));
   if (!solids.length) {
     out.push(text(PAD, top + 14, 'No solid of the table can form from this batch.', ` font-size="${FONT.note}"`), '</svg>');

@@ -408,6 +408,21 @@ function iterate(sys: TableauSystem, T: Float64Array, X: Float64Array, p: Float6
   let holds = 0;
   // Whether w holds the species of X at the present coefficients (the line search's last try was taken).
   let fresh = false;
+  /** Armijo backtracking on G along w.dX from X, halving from `alpha`: the step length taken. */
+  const backtrack = (slope: number, alpha: number): number => {
+    const g0 = objectiveNoTouch(sys, T, X, w, o.u0);
+    for (let tries = 0; tries < 40; tries++) {
+      for (let j = 0; j < nc; j++) w.X2[j] = X[j];
+      for (let a = 0; a < nu; a++) w.X2[a + o.u0] += alpha * w.dX[a];
+      const g = objective(sys, T, w.X2, w, o.u0);
+      if (g <= g0 + 1e-4 * alpha * slope || !(slope < 0)) {
+        fresh = true;
+        return alpha;
+      }
+      alpha *= 0.5;
+    }
+    return alpha;
+  };
   for (let it = 0; it < o.maxIterations; it++) {
     if (!fresh) species(sys, X, w);
     fresh = false;
@@ -472,17 +487,7 @@ function iterate(sys: TableauSystem, T: Float64Array, X: Float64Array, p: Float6
       // Backtracking on G (Armijo): the residuals are its gradient.
       let slope = 0;
       for (let a = 0; a < nu; a++) slope += w.R[a + o.u0] * w.dX[a];
-      const g0 = objectiveNoTouch(sys, T, X, w, o.u0);
-      for (let tries = 0; tries < 40; tries++) {
-        for (let j = 0; j < nc; j++) w.X2[j] = X[j];
-        for (let a = 0; a < nu; a++) w.X2[a + o.u0] += alpha * w.dX[a];
-        const g = objective(sys, T, w.X2, w, o.u0);
-        if (g <= g0 + 1e-4 * alpha * slope || !(slope < 0)) {
-          fresh = true;
-          break;
-        }
-        alpha *= 0.5;
-      }
+      alpha = backtrack(slope, alpha);
       for (let a = 0; a < nu; a++) X[a + o.u0] += alpha * w.dX[a];
     } else {
       // With solids: the same backtracking on G over the surface where the solids are saturated (the step
@@ -493,17 +498,7 @@ function iterate(sys: TableauSystem, T: Float64Array, X: Float64Array, p: Float6
         for (let k = 0; k < active.length; k++) g -= sys.solids[active[k]].b[a + o.u0] * p[k];
         slope += g * w.dX[a];
       }
-      const g0 = objectiveNoTouch(sys, T, X, w, o.u0);
-      for (let tries = 0; tries < 40; tries++) {
-        for (let j = 0; j < nc; j++) w.X2[j] = X[j];
-        for (let a = 0; a < nu; a++) w.X2[a + o.u0] += alpha * w.dX[a];
-        const g = objective(sys, T, w.X2, w, o.u0);
-        if (g <= g0 + 1e-4 * alpha * slope || !(slope < 0)) {
-          fresh = true;
-          break;
-        }
-        alpha *= 0.5;
-      }
+      alpha = backtrack(slope, alpha);
       for (let a = 0; a < nu; a++) X[a + o.u0] += alpha * w.dX[a];
       for (let k = 0; k < active.length; k++) p[k] += alpha * w.dX[nu + k];
     }
