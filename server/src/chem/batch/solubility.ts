@@ -17,7 +17,8 @@ const WATER_MOLAR_MASS = molarMass({ H: 2, O: 1 }).value;
 /** The solubility table by the Hill formula of each anhydrous substance (a fixed table: built on first use, never evicted). */
 let solubilityIndex: Map<string, SolubilityRow> | null = null;
 
-function solubilityRow(hill: string): SolubilityRow | undefined {
+/** The row of the solubility table for a substance by its (anhydrous) Hill formula. */
+export function solubilityRow(hill: string): SolubilityRow | undefined {
   if (!solubilityIndex) {
     solubilityIndex = new Map();
     for (const row of SOLUBILITY) {

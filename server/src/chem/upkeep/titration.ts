@@ -33,7 +33,7 @@
  * never throw: what cannot be read is a finding on its exact characters.
  */
 import { analyseFormula, type FormulaAnalysis } from '../analyse';
-import { PRACTICALLY_INSOLUBLE_BELOW, SOLUBILITY, type SolubilityRow } from '../data/solubility';
+import { PRACTICALLY_INSOLUBLE_BELOW, type SolubilityRow } from '../data/solubility';
 import type { ChemDiagnostic, DiagnosticCode, Severity } from '../diagnostic';
 import { analyseReaction, findArrow, type Species } from '../equation';
 import { formulaAtoms, hillFormula, molarMass, subscriptDigits } from '../formula/compute';
@@ -41,7 +41,7 @@ import { parseFormula } from '../formula/parse';
 import { electrolyteIons } from '../ions/dissociation';
 import { readName } from '../names';
 import { equivalentsOf } from '../reagents';
-import { anhydrousOf } from '../batch/solubility';
+import { anhydrousOf, solubilityRow } from '../batch/solubility';
 
 // ---------------------------------------------------------------------------------------------------
 // What a reading is.
@@ -942,18 +942,6 @@ export interface TitreResult {
   /** The arithmetic, line by line, for the hover. */
   basis: string[];
   diagnostics: ChemDiagnostic[];
-}
-
-let solubilityIndex: Map<string, SolubilityRow> | null = null;
-function solubilityRow(hill: string): SolubilityRow | undefined {
-  if (!solubilityIndex) {
-    solubilityIndex = new Map();
-    for (const row of SOLUBILITY) {
-      const p = parseFormula(row.formula);
-      if (p.ok && p.formula) solubilityIndex.set(hillFormula(formulaAtoms(p.formula)), row);
-    }
-  }
-  return solubilityIndex.get(hill);
 }
 
 const litresText = (v: WrittenVolume) => v.text;
