@@ -133,6 +133,26 @@ describe('dilution from another batch, through the real reader', () => {
   });
 });
 
+describe('go to the shelf entry from a label on a batch line', () => {
+  it('in the same note, and in the workspace shelf file', () => {
+    const ls = createLanguageService();
+    const text = '```shelf\nAcid A: H2SO4 @ 96 %\n```\n\n```batch\nvolume: 1 L\nAcid A 10 mL\n```\n';
+    const doc = ls.analyse(text, 'markdown');
+    const at = doc.lines.positionAt(text.lastIndexOf('Acid A') + 2);
+    expect(ls.definition(doc, at, [], 'file:///lab/monday.md')).toEqual([
+      { uri: 'file:///lab/monday.md', range: { start: { line: 1, character: 0 }, end: { line: 1, character: 6 } } },
+    ]);
+    const shelfText = '# Shelf\n\n```shelf\nAcid A: H2SO4 @ 96 %\n```\n';
+    const shelfDoc = ls.analyse(shelfText, 'markdown');
+    const ws = { shelf: shelfDoc.shelf!.shelf, source: 'file:///lab/shelf.md', rangeOf: (a: number, b: number) => shelfDoc.lines.range(a, b) };
+    const note = '```batch\nvolume: 1 L\nAcid A 10 mL\n```\n';
+    const d2 = ls.analyse(note, 'markdown', undefined, { workspaceShelf: ws });
+    expect(ls.definition(d2, { line: 2, character: 1 }, [], 'file:///lab/tuesday.md')).toEqual([
+      { uri: 'file:///lab/shelf.md', range: { start: { line: 3, character: 0 }, end: { line: 3, character: 6 } } },
+    ]);
+  });
+});
+
 describe('cards name the trade’s names', () => {
   it('beside the systematic name, in JSON commonNames', () => {
     // Blue vitriol for copper(II) sulfate pentahydrate (Merck Index; from memory).

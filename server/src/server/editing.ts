@@ -67,7 +67,7 @@ export function registerEditingFeatures(connection: Connection, workspace: Notes
       const position = positionOf(params);
       const snap = workspace.snapshot(uri);
       if (!snap) return null;
-      return snap.service.definition(snap.doc, position, index.summaries()) as never;
+      return snap.service.definition(snap.doc, position, index.summaries(), snap.uri) as never;
     }),
   );
 }

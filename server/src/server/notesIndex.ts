@@ -37,7 +37,7 @@ export class NotesIndex {
     // The workspace's shelf file: its shelf blocks are the lab's reagents for every note without its own.
     if (isShelfFile(uri)) {
       const own = doc.shelves.length ? doc.shelf : undefined;
-      if (own) this.workspace.setWorkspaceShelf({ shelf: own.shelf, source: uri });
+      if (own) this.workspace.setWorkspaceShelf({ shelf: own.shelf, source: uri, rangeOf: (start, end) => doc.lines.range(start, end) });
       else if (this.workspace.workspaceShelf?.source === uri) this.workspace.setWorkspaceShelf(undefined);
     }
   }

@@ -26,7 +26,7 @@ import {
   type MdBlock,
 } from '../notes/scan';
 import type { BatchRef, FormulaRef, LineRef, NoteItem, NotesLanguage, ReactionRef, SectionRef, ShelfRef } from '../notes/types';
-import { LineIndex } from './positions';
+import { LineIndex, type Range } from './positions';
 import { DEFAULT_SETTINGS, type ServiceSettings } from './settings';
 
 export interface FormulaOccurrence {
@@ -90,6 +90,8 @@ export interface WorkspaceShelf {
   shelf: Shelf;
   /** Where it was read (a URI or a path), for the hover. */
   source: string;
+  /** The range of offsets of the shelf file (its entries' spans), for go-to-definition; absent: not known. */
+  rangeOf?: (start: number, end: number) => Range;
 }
 
 /** The finding on the opening line of a batch or shelf block that is never closed. */

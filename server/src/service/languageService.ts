@@ -106,7 +106,7 @@ export interface LanguageService {
   /** The batches of the notes whose names match the query. */
   workspaceSymbols(notes: Iterable<NoteSummary>, query: string): WorkspaceSymbol[];
   /** Where what is under the cursor is defined (a batch's name → the batch), in the notes given (this one's included). */
-  definition(doc: AnalysedDocument, position: Position, notes: readonly NoteSummary[]): Location[];
+  definition(doc: AnalysedDocument, position: Position, notes: readonly NoteSummary[], uri?: string): Location[];
   /**
    * The edits that scale the batch at the cursor to `target` (what the user typed: `×2`, `0.5`, `2 L`,
    * `5 kg`), every concentration kept and the amounts rounded for the bench; or why not.
@@ -175,7 +175,7 @@ export function createLanguageService(settings: ServiceSettings = DEFAULT_SETTIN
     foldingRanges: (doc) => foldingRanges(doc),
     noteSummary: (doc, uri) => noteSummary(doc, uri),
     workspaceSymbols: (notes, query) => workspaceSymbols(notes, query),
-    definition: (doc, position, notes) => definition({ doc, offset: offset(doc, position), notes }),
+    definition: (doc, position, notes, uri) => definition({ doc, offset: offset(doc, position), notes, ...(uri ? { uri } : {}) }),
     scaleBatchEdit: (doc, position, target) => {
       const b = batchAt(doc, offset(doc, position));
       if (!b) return { reason: 'there is no batch at the cursor' };

@@ -6,13 +6,14 @@
  * vocabulary for completion); the caller — the server, which knows the open notes and the workspace folder —
  * hands the summaries in. Nothing here reads a file.
  *
- * Definitions come from definition sources, tried in order (`DEFINITION_SOURCES`). Today there is one: a
- * batch's name written anywhere in a note (prose, a code span, a comment, another batch) leads to the
- * batch of that name, in any note of the workspace. A name counts where it stands as a whole (not inside
- * a longer word) and the cursor is on it; names are compared exactly, as they are written in the batch.
- * The references that later rounds add to the notes syntax — `from batch "…"` lines and shelf names —
- * each add a source to that list.
+ * Definitions come from definition sources, tried in order (`DEFINITION_SOURCES`): a shelf label on a
+ * batch line leads to its entry on the shelf (the note's own shelf block, or the workspace's shelf file);
+ * a batch's name written anywhere in a note (prose, a code span, a comment, another batch, a
+ * `from batch "…"` stock reference) leads to the batch of that name, in any note of the workspace. A name
+ * counts where it stands as a whole (not inside a longer word) and the cursor is on it; names are compared
+ * exactly, as they are written in the batch.
  */
+import { shelfEntry } from '../chem/reagents';
 import type { AnalysedDocument, BatchOccurrence } from './document';
 import type { Range } from './positions';
 import { documentVocabulary, type Vocabulary } from './vocabulary';
@@ -136,6 +137,8 @@ export interface DefinitionContext {
   doc: AnalysedDocument;
   offset: number;
   notes: readonly NoteSummary[];
+  /** The note's own URI (for a definition in the same note). */
+  uri?: string;
 }
 
 export type DefinitionSource = (ctx: DefinitionContext) => Location[] | undefined;
@@ -173,8 +176,21 @@ export const batchNameDefinition: DefinitionSource = ({ doc, offset, notes }) =>
   return best?.batches.map((b) => ({ uri: b.uri, range: b.selectionRange }));
 };
 
+/** A shelf label on a batch line → its entry on the shelf (the note's own shelf block, or the workspace's shelf file). */
+export const shelfLabelDefinition: DefinitionSource = ({ doc, offset, uri }) => {
+  const b = doc.batches.find((x) => x.ref.start <= offset && offset <= x.ref.end);
+  const i = b?.analysis.ingredients.find((x) => x.via === 'shelf' && x.formulaStart <= offset && offset <= x.formulaEnd);
+  const shelf = doc.shelf;
+  if (!i?.shelf || !shelf) return undefined;
+  const entry = shelfEntry(shelf.shelf, i.shelf.label);
+  if (!entry) return undefined;
+  if (shelf.source === 'document') return uri ? [{ uri, range: doc.lines.range(entry.labelSpan.start, entry.labelSpan.end) }] : undefined;
+  const ws = doc.options.workspaceShelf;
+  return ws?.rangeOf ? [{ uri: ws.source, range: ws.rangeOf(entry.labelSpan.start, entry.labelSpan.end) }] : undefined;
+};
+
 /** The definition sources, tried in order; the first that answers wins. */
-export const DEFINITION_SOURCES: readonly DefinitionSource[] = [batchNameDefinition];
+export const DEFINITION_SOURCES: readonly DefinitionSource[] = [shelfLabelDefinition, batchNameDefinition];
 
 export function definition(ctx: DefinitionContext): Location[] {
   for (const source of DEFINITION_SOURCES) {
