@@ -7,7 +7,9 @@
 import { describe, expect, it } from 'vitest';
 import { analyseBatch } from '../../server/src/chem/batch';
 import { createLanguageService } from '../../server/src/service/languageService';
+import MarkdownIt from 'markdown-it';
 import { batchJson } from '../../server/src/service/batchJson';
+import { reportHtml } from '../../server/src/service/report';
 import { batchLines } from '../fixtures/batch';
 
 const BLOCK = [
@@ -58,5 +60,8 @@ describe('bath upkeep in a batch', () => {
     expect(summary).toContain('**Upkeep** (estimate)');
     expect(summary).toMatch(/Add .* NiSO₄·6H₂O/);
     expect(ls.tables(doc)).toContain('**Upkeep** (estimate)');
+    const page = reportHtml(doc, { title: 'w2.md', css: '', markdownIt: () => new MarkdownIt() });
+    expect(page).toContain('class="iw-upkeep"');
+    expect(page).toMatch(/Titre: NiSO₄·6H₂O 0\.46 M/);
   });
 });

@@ -33,6 +33,8 @@ import {
   type BatchRow,
 } from './columns';
 import { hasSafety, heatAdvice, heatSummary, NO_HEAT, SAFETY_NOTICE } from './safety';
+import { ADDITIONS_NOTE } from '../chem/upkeep';
+import { additionLines, titreLine } from './upkeep';
 import { analyseDocument, type BlockResult } from './document';
 import { plural, sig, volumeText } from './format';
 import { Html, html, join, toHtml, trusted, type HtmlValue } from './html';
@@ -307,6 +309,12 @@ function batchHtmlUncached(
       parts.push(htmlTable(SATURATION_COLUMNS, sol.saturation, { cls: 'iw-saturation', rowClass: (x) => (x.saturationIndex > 0 ? 'iw-over' : undefined) }));
     for (const n of solutionNotes(b, sol)) parts.push(html`<p class="iw-note">${n}</p>`);
   } else if (sol) parts.push(html`<p class="iw-note">The equilibrium did not converge: no pH is given.</p>`);
+  if (b.upkeep) {
+    const items = [...b.upkeep.titres.map((t) => html`<li>Titre: ${titreLine(t)}</li>`), ...additionLines(b.upkeep).map((a) => html`<li>${a}</li>`)];
+    parts.push(
+      html`<div class="iw-upkeep" role="note"><strong>Upkeep</strong> <span class="iw-by">an estimate</span><ul>${items}</ul>${b.upkeep.additions ? html`<p class="iw-note">${ADDITIONS_NOTE}</p>` : ''}</div>`,
+    );
+  }
   const undissociated = undissociatedOf(b).map((i) => typesetDisplay(i.formula));
   if (undissociated.length) parts.push(html`<p class="iw-note">Not split into ions: ${join(undissociated, ', ')}.</p>`);
   for (const n of b.notes) parts.push(html`<p class="iw-note">${n}</p>`);
