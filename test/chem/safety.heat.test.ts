@@ -723,3 +723,57 @@ describe('the reading as data', () => {
     expect(clone.heat!.notes).toEqual(r.heat!.notes);
   });
 });
+
+describe('the bound that puts off the heat of a batch that cannot raise the warning', () => {
+  // Random make-ups of the shelf's usual reagents (invented amounts): wherever the bound says the batch
+  // cannot exceed the threshold, the full computation agrees (no warning, |ΔT| at most the threshold).
+  const POOL: Array<[string, number?]> = [
+    ['NaOH'],
+    ['KOH'],
+    ['H2SO4', 0.96],
+    ['HCl', 0.37],
+    ['HNO3', 0.68],
+    ['H3PO4', 0.85],
+    ['CaCl2'],
+    ['NH4NO3'],
+    ['Na2CO3'],
+    ['KCl'],
+    ['MgSO4'],
+    ['CH3COOH'],
+    ['C10H14N2Na2O8·2H2O'],
+    ['NH3', 0.25],
+    ['AlCl3'],
+  ];
+  it('never hides a warning (fast-check)', async () => {
+    const fc = (await import('fast-check')).default;
+    const { batchState } = await import('../../server/src/chem/safety/context');
+    const { heatBoundedBelow, heatOfMakingUp } = await import('../../server/src/chem/safety/heat');
+    let bounded = 0;
+    fc.assert(
+      fc.property(
+        fc.array(fc.tuple(fc.integer({ min: 0, max: POOL.length - 1 }), fc.double({ min: 0.01, max: 400, noNaN: true })), { minLength: 1, maxLength: 5 }),
+        fc.double({ min: 0.05, max: 20, noNaN: true }),
+        fc.constantFrom(5, 15, 40),
+        (lines, volumeL, threshold) => {
+          const batch = {
+            volumeL,
+            ingredients: lines.map(([k, g], line) => {
+              const [f, assay] = POOL[k];
+              const a = analyseFormula(f);
+              return { analysis: a, moles: (g * (assay ?? 1)) / (a.molarMass?.value ?? 1), massG: g, assay: assay ?? 1, line };
+            }),
+          };
+          const state = batchState(batch);
+          if (!heatBoundedBelow(state, { heatThresholdK: threshold })) return;
+          bounded++;
+          const heat = heatOfMakingUp(batchState(batch), { heatThresholdK: threshold });
+          expect(heat?.exceeds ?? false).toBe(false);
+          if (heat?.temperatureRiseK != null) expect(Math.abs(heat.temperatureRiseK)).toBeLessThanOrEqual(threshold);
+        },
+      ),
+      { seed: 20261203, numRuns: 400 },
+    );
+    // Not vacuous: many batches were bounded.
+    expect(bounded).toBeGreaterThan(50);
+  });
+});

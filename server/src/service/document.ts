@@ -300,10 +300,11 @@ const shiftBatchRef = (r: BatchRef, by: number): BatchRef => {
 export function shiftBatch(b: BatchOccurrence, by: number): BatchOccurrence {
   const r = b.ref;
   const a = b.analysis;
+  // The analysis copied with its lazy parts (the equilibrium, the heat) left lazy: descriptors, not values.
+  const copy = Object.defineProperties({}, Object.getOwnPropertyDescriptors(a)) as BatchAnalysis;
   return {
     ref: shiftBatchRef(r, by),
-    analysis: {
-      ...a,
+    analysis: Object.assign(copy, {
       diagnostics: a.diagnostics.map((d) => shiftDiagnostic(d, by)),
       ingredients: a.ingredients.map((i) => ({
         ...i,
@@ -320,7 +321,7 @@ export function shiftBatch(b: BatchOccurrence, by: number): BatchOccurrence {
         ...(l.formulaStart !== undefined ? { formulaStart: l.formulaStart + by, formulaEnd: (l.formulaEnd as number) + by } : {}),
       })),
       hazards: a.hazards.length ? a.hazards.map((h) => ({ ...h, lines: h.lines.map((x) => x + by) })) : a.hazards,
-    },
+    }),
   };
 }
 

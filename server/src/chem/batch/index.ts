@@ -190,10 +190,16 @@ function assemble(
     statedPH: headers.pH?.value ?? null,
     solution: lazy ? null : (solution.solution as BatchSolution | null),
     hazards: safety.hazards,
-    heat: safety.heat,
+    heat: typeof safety.heat === 'function' ? null : safety.heat,
     ...(solution.noSolution ? { noSolution: solution.noSolution } : {}),
   };
   if (upkeep) out.upkeep = upkeep;
+  if (typeof safety.heat === 'function') {
+    // Made on first read, then kept (as the solution is).
+    const later = safety.heat;
+    let made: BatchAnalysis['heat'] | undefined;
+    Object.defineProperty(out, 'heat', { enumerable: true, configurable: true, get: () => (made === undefined ? (made = later()) : made) });
+  }
   if (lazy) {
     // Made on first read, then kept (an analysis is shared and read-only otherwise).
     let made: BatchSolution | undefined;

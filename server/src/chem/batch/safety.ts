@@ -17,7 +17,7 @@
  *   batch's opening line where no one ingredient does), with the advice of the trade.
  */
 import type { ChemDiagnostic } from '../diagnostic';
-import { DEFAULT_HEAT_THRESHOLD_K, heatMessage, readBatchSafety, type Hazard, type HeatReading, type SafetyIngredient } from '../safety';
+import { DEFAULT_HEAT_THRESHOLD_K, heatMessage, readBatchSafetyDeferred, type Hazard, type HeatReading, type SafetyIngredient } from '../safety';
 import type { ChemSettings } from '../settings';
 import type { BatchAmounts } from './amounts';
 import type { BatchHeaders } from './read';
@@ -27,7 +27,8 @@ import type { BatchHeat, BatchHeatStep, BatchSolution } from './types';
 
 export interface BatchSafety {
   hazards: Hazard[];
-  heat: BatchHeat | null;
+  /** The heat, or (where it cannot raise the warning) a function that computes it when it is shown. */
+  heat: BatchHeat | null | (() => BatchHeat | null);
   diagnostics: ChemDiagnostic[];
 }
 
@@ -119,15 +120,23 @@ export function safetyStage(
     },
   };
   const threshold = settings.heatThresholdK ?? DEFAULT_HEAT_THRESHOLD_K;
-  const reading = readBatchSafety(batch, { heatThresholdK: threshold });
+  const reading = readBatchSafetyDeferred(batch, { heatThresholdK: threshold });
   const diagnostics: ChemDiagnostic[] = [];
   for (const h of reading.hazards) {
     const at = placed[h.at];
     diagnostics.push(finding('batch-incompatible', at.start, at.end, h.message, 'warning'));
   }
-  const heat = reading.heat as BatchHeat | null;
   // Each step keeps its ingredient's place in the batch's `ingredients` (the reading's indices count the lines not counted too).
-  if (heat) for (const st of heat.steps as BatchHeatStep[]) st.ingredientIndex = st.index === null ? null : placed[st.index].counted;
+  const placeSteps = (heat: BatchHeat | null) => {
+    if (heat) for (const st of heat.steps as BatchHeatStep[]) st.ingredientIndex = st.index === null ? null : placed[st.index].counted;
+    return heat;
+  };
+  // A heat that cannot raise the warning is computed when shown (the hover, the tables, the JSON).
+  if (typeof reading.heat === 'function') {
+    const later = reading.heat;
+    return { hazards: reading.hazards, heat: () => placeSteps(later() as BatchHeat | null), diagnostics };
+  }
+  const heat = placeSteps(reading.heat as BatchHeat | null);
   if (heat && heat.exceeds) {
     const at = hottest(heat, placed) ?? openLine;
     diagnostics.push(finding('batch-heat', at.start, at.end, heatMessage(heat), 'warning'));

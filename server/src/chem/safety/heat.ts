@@ -320,6 +320,44 @@ function solubilityOf(hill: string): number | undefined {
 }
 
 /** The heat of making up a batch; null where no ingredient's heat is known. */
+/**
+ * Whether the heat of making up cannot exceed the threshold, from a bound that needs no computation of the
+ * steps: every ingredient at most |ΔsolH| (with its typical error) per mole, 100 kJ/mol more for an acid or
+ * base diluted from its concentrated form (sulfuric acid, the largest, gives about 96 kJ/mol to infinite
+ * dilution; CRC, from memory), and for neutralisation 60 kJ per mole of protons (55.84 kJ for water
+ * with room for the ionisation enthalpies of the steps) for the lesser of what the acids can give and the
+ * bases take (strong ions by their charge, each weak system up to four protons either way), against the heat capacity of the batch's water alone. A batch for which this
+ * holds cannot raise the warning; its heat is then computed only when it is shown.
+ */
+export function heatBoundedBelow(state: BatchState, options: SafetyOptions = {}): boolean {
+  const threshold = options.heatThresholdK ?? DEFAULT_HEAT_THRESHOLD_K;
+  if (state.waterG === null || !(state.waterG > 0)) return false;
+  let kJ = 0;
+  // What the ingredients can give and take of protons, mol: strong ions by their charge (a cation's
+  // counter-ion OH⁻ is base, an anion's H⁺ acid), each weak system up to four protons either way.
+  let acidEq = 0;
+  let baseEq = 0;
+  for (const it of state.items) {
+    if (it.isWater || !it.moles) continue;
+    const a = it.ing.analysis;
+    const moles = Math.abs(it.moles);
+    const sol = solutionValue(a);
+    let perMol = sol ? Math.abs(sol.kJPerMol) + (sol.typicalErrorKJ ?? 0) : 0;
+    const main = it.main;
+    if (main && !main.water && dilutionCurve(main.hill)) perMol += 100;
+    kJ += moles * perMol;
+    const share = acidBaseShare(a);
+    if (!share.active) continue;
+    let weak = 0;
+    for (const [, count] of share.systems) weak += 4 * Math.abs(count);
+    acidEq += moles * (Math.max(0, -share.fixed) + weak);
+    baseEq += moles * (Math.max(0, share.fixed) + weak);
+  }
+  // Neutralisation: at most 60 kJ per mole of protons passed, the lesser of what is given and taken.
+  kJ += 60 * Math.min(acidEq, baseEq);
+  return (kJ * 1000) / (state.waterG * WATER_CP) <= threshold;
+}
+
 export function heatOfMakingUp(state: BatchState, options: SafetyOptions = {}, startC = DEFAULT_START_C): HeatReading | null {
   const threshold = options.heatThresholdK ?? DEFAULT_HEAT_THRESHOLD_K;
   const steps: HeatStep[] = [];

@@ -44,7 +44,7 @@
  */
 import { batchState } from './context';
 import { findHazards } from './hazards';
-import { heatOfMakingUp } from './heat';
+import { heatBoundedBelow, heatOfMakingUp } from './heat';
 import type { HeatReading, SafetyBatch, SafetyOptions, SafetyReading } from './types';
 
 export type { Hazard, HeatReading, HeatStep, HeatStepKind, SafetyBatch, SafetyIngredient, SafetyOptions, SafetyReading } from './types';
@@ -68,6 +68,22 @@ export function readBatchSafety(batch: SafetyBatch, options: SafetyOptions = {})
   const hazards = findHazards(state);
   const heat = heatOfMakingUp(state, options, batch.temperatureC ?? 20);
   return { hazards, heat, pH: state.pHIfUsed() };
+}
+
+/**
+ * The safety reading with the heat put off where it cannot raise the warning (`heatBoundedBelow`): `heat`
+ * is then a function that computes it, for the outputs that show it. The hazards are always read.
+ */
+export function readBatchSafetyDeferred(
+  batch: SafetyBatch,
+  options: SafetyOptions = {},
+): { hazards: SafetyReading['hazards']; heat: HeatReading | null | (() => HeatReading | null); pH: () => SafetyReading['pH'] } {
+  const state = batchState(batch);
+  const hazards = findHazards(state);
+  const heat = heatBoundedBelow(state, options)
+    ? () => heatOfMakingUp(state, options, batch.temperatureC ?? 20)
+    : heatOfMakingUp(state, options, batch.temperatureC ?? 20);
+  return { hazards, heat, pH: () => state.pHIfUsed() };
 }
 
 /** Only the hazards of a batch. */
