@@ -212,7 +212,8 @@ function assemble(
 function upkeepStage(read: ReadBatch, amounts: Amounts, at: { start: number; end: number }): Upkeep {
   const targets = [];
   for (const c of amounts.counted) {
-    if (c.concentrationM === null || !(c.concentrationM > 0) || c.buffer) continue;
+    // A line solved for the pH or designed as a buffer has no concentration of its own to keep.
+    if (c.concentrationM === null || !(c.concentrationM > 0) || c.buffer || c.solvedFor) continue;
     targets.push({ formula: c.line.analysis.ascii, targetM: c.concentrationM, assay: c.line.assay, start: c.line.lineStart, end: c.line.lineEnd });
   }
   return analyseUpkeep({ titreLines: read.titres, tankLine: read.tankLine, targets, at });
