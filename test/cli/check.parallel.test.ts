@@ -270,7 +270,7 @@ describe('when check starts workers', () => {
     expect((await startsOn([big], 4, { IONWRIGHT_JOBS: '1' })).started).toBe(0);
     const examples = join(__dirname, '../../examples');
     expect((await startsOn([examples], 64)).started).toBe(0);
-    expect((await startsOn([examples], 2, { IONWRIGHT_JOBS: '3' })).started).toBe(2); // asked for 3, but there are two files
+    expect((await startsOn([examples], 2, { IONWRIGHT_JOBS: '4' })).started).toBe(3); // asked for 4, but there are three files
   });
 });
 

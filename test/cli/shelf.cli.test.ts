@@ -36,7 +36,14 @@ describe('the shelf file', () => {
     const r = cli(['batch', 'monday.md', '--json'], dir);
     const [b] = JSON.parse(r.stdout);
     expect(b.skipped).toEqual([]);
-    expect(b.ingredients[0]).toMatchObject({ via: 'shelf', shelf: { label: 'Acid A', lot: 'SA-2231' }, volumeML: 10 });
+    expect(b.ingredients[0]).toMatchObject({
+      formula: 'H2SO4',
+      written: 'Acid A',
+      hill: 'H2O4S',
+      via: 'shelf',
+      shelf: { label: 'Acid A', lot: 'SA-2231' },
+      volumeML: 10,
+    });
     expect(b.ingredients[0].massG).toBeCloseTo(18.4, 9);
   });
 

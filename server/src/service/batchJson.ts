@@ -94,7 +94,9 @@ export function batchJson(doc: AnalysedDocument, b: BatchOccurrence) {
     volumeL: r(a.volumeL),
     totalMassG: r(a.totalMassG),
     ingredients: a.ingredients.map((i) => ({
-      formula: i.formulaText,
+      /** The formula as written, or (for a line that named its substance or a shelf label) the formula read. */
+      formula: i.via === 'formula' ? i.formulaText : i.analysis.ascii,
+      ...(i.via !== 'formula' ? { written: i.formulaText } : {}),
       /** Hill formula of what is weighed (hydrate water included). */
       hill: i.analysis.hill,
       display: i.formula,
