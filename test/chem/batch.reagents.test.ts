@@ -43,6 +43,8 @@ describe('liquids by volume and assay', () => {
     expect((i.moles as number) / 0.01).toBeLessThan(18.5);
     expect(i.density).toMatch(/1\.83/);
     expect(i.handling.join(' ')).toMatch(/add the acid/i);
+    // Each caution once: no line repeats another or holds it whole.
+    for (const [k, h] of i.handling.entries()) for (const [j, other] of i.handling.entries()) if (j !== k) expect(other.includes(h), h).toBe(false);
   });
 
   it('a target with an assay gives the volume of the reagent to pour', () => {

@@ -286,7 +286,8 @@ function codeOf(f: ReagentFinding): DiagnosticCode {
 function mapFindings(findings: readonly ReagentFinding[], start: number, end: number): { diagnostics: ChemDiagnostic[]; notes: string[]; handling: string[] } {
   const out = { diagnostics: [] as ChemDiagnostic[], notes: [] as string[], handling: [] as string[] };
   for (const f of findings) {
-    if (f.kind === 'handling') out.handling.push(f.message);
+    // The handling cautions are taken line by line from chem/reagents (handlingCautions), not as one finding.
+    if (f.kind === 'handling') continue;
     else if (f.severity === 'information') out.notes.push(f.message);
     else out.diagnostics.push(finding(codeOf(f), start, end, f.message, f.severity));
   }
@@ -403,7 +404,7 @@ export function liquidVolume(c: CountedLine): void {
   c.density = v.density.text;
   c.massG = v.solutionMassG;
   c.measure = 'pour';
-  c.handling = [...c.handling, ...v.cautions];
+  c.handling = [...new Set([...c.handling, ...v.cautions])];
   const mapped = mapFindings(v.findings, line.formula.start, line.formula.end);
   c.notes.push(...mapped.notes);
   c.handling.push(...mapped.handling);
