@@ -285,6 +285,24 @@ describe('semantic tokens', () => {
     ]);
   });
 
+  it('mark a titre line: its keyword, the substances and the figures', () => {
+    const t = '```batch\nvolume: 1 L\nNiSO4 0.5 M\ntank: 200 L\ntitre NiSO4: 2.00 mL sample, 19.20 mL 0.0500 M EDTA\n```\n';
+    const d = ls.analyse(t, 'markdown');
+    const ls2 = t.split('\n');
+    const got = decodeTokens(ls.semanticTokens(d).data).map((x) => [ls2[x.line].slice(x.character, x.character + x.length), x.type]);
+    expect(got).toEqual(
+      expect.arrayContaining([
+        ['tank', 'property'],
+        ['titre', 'property'],
+        ['NiSO4', 'type'],
+        ['2.00', 'number'],
+        ['19.20', 'number'],
+        ['0.0500', 'number'],
+        ['EDTA', 'type'],
+      ]),
+    );
+  });
+
   it('give the same tokens for a range as for the whole note, within the range', () => {
     const range = { start: { line: 3, character: 0 }, end: { line: 4, character: 30 } };
     const part = decodeTokens(ls.semanticTokens(doc, range).data);

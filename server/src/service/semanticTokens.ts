@@ -9,7 +9,7 @@
  *   modifier    a charge (`^2-`, `²⁻`, `3+` in `Fe3+`)
  *   enumMember  a state symbol (`(aq)`, `(s)`)
  *   operator    a reaction arrow, a `+` between species, a hydrate dot
- *   property    a batch header key (`volume`)
+ *   property    a batch header key (`volume`), a titre line's keyword
  *   comment     a `#` comment in a batch
  *
  * What is a formula is decided by the analysis (the same as for hovers and diagnostics): a word of prose
@@ -19,6 +19,7 @@
  */
 import type { Formula } from '../chem/formula/ast';
 import type { Species } from '../chem/equation/parse';
+import type { TitreTokenKind } from '../chem/upkeep';
 import type { AnalysedDocument, BlockResult } from './document';
 
 export const TOKEN_TYPES = ['type', 'number', 'modifier', 'enumMember', 'operator', 'property', 'comment'] as const;
@@ -27,6 +28,16 @@ export const TOKEN_MODIFIERS: readonly string[] = [];
 export const SEMANTIC_TOKENS_LEGEND = { tokenTypes: [...TOKEN_TYPES], tokenModifiers: [...TOKEN_MODIFIERS] };
 
 const T = { type: 0, number: 1, modifier: 2, enumMember: 3, operator: 4, property: 5, comment: 6 } as const;
+
+/** The token type of each piece of a titre line (the others get none). */
+const TITRE_TYPE: Partial<Record<TitreTokenKind, number>> = {
+  keyword: T.property,
+  analyte: T.type,
+  titrant: T.type,
+  species: T.type,
+  number: T.number,
+  ratio: T.number,
+};
 
 /** Tokens as flat triples (start, length, type), offsets relative to some base. */
 type Triples = number[];
@@ -102,6 +113,12 @@ function blockTokens(rel: BlockResult): Int32Array {
     }
     for (const s of b.analysis.skipped)
       if (s.analysis?.formula && s.formulaStart !== undefined && s.formulaText === s.analysis.input) formulaTokens(s.analysis.formula, s.formulaStart, out);
+    // Titre lines (bath upkeep): the keyword as a key, the substances as formulas, the figures as numbers.
+    for (const t of b.analysis.upkeep?.titres ?? [])
+      for (const tk of 'reading' in t ? t.reading.tokens : t.tokens) {
+        const type = TITRE_TYPE[tk.kind];
+        if (type !== undefined) pushToken(out, tk.start, tk.end, type);
+      }
   }
   // Sorted by start; a token that overlaps the one before it is dropped (the protocol allows no overlaps).
   const n = out.length / 3;
