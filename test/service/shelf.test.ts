@@ -124,6 +124,15 @@ describe('dilution from another batch, through the real reader', () => {
     expect(doc3.diagnostics.some((d) => d.code === 'batch-stock')).toBe(true);
   });
 
+  it('a circle of stocks ends: each line taken from the other is a finding, never a hang', () => {
+    const text =
+      '```batch\nname: A\nNaCl 0.1 M from batch "B"\nwater to 1 L\n```\n```batch\nname: B\nNaCl 0.5 M from batch "A"\nwater to 1 L\n```\n```batch\nname: Self\nKCl 0.1 M from batch "Self"\nwater to 1 L\n```\n';
+    const doc = analyseDocument(text, 'markdown');
+    const found = doc.diagnostics.filter((d) => d.code === 'batch-stock');
+    expect(found.map((d) => text.slice(d.start, d.end))).toEqual(['from batch "B"', 'from batch "A"', 'from batch "Self"']);
+    expect(found[0].message).toMatch(/no counted NaCl/);
+  });
+
   it('reads a shelf label on a batch line with the entry’s assay and density', () => {
     const doc = analyseDocument('```shelf\nAcid A: H2SO4 @ 96 %; density 1.84 g/mL\n```\n\n```batch\nvolume: 1 L\nAcid A 10 mL\n```\n', 'markdown');
     const [i] = doc.batches[0].analysis.ingredients;

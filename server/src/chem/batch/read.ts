@@ -655,7 +655,7 @@ function readStock(line: IngredientLine, rest: Token[], i: number, context: Batc
       const anhydrous = anhydrousHillOf(line.analysis);
       const found = stock.ingredients.find((s) => s.hill === hill || s.anhydrousHill === anhydrous);
       if (!found || found.concentrationM === null)
-        ref.error = `The stock batch '${name}' has no ${line.analysis.display}${stock.ingredients.length ? ` (it has ${stock.ingredients.map((s) => s.formula).join(', ')})` : ''}.`;
+        ref.error = `The stock batch '${name}' has no counted ${line.analysis.display}${stock.ingredients.length ? ` (it has ${stock.ingredients.map((s) => s.formula).join(', ')})` : ''}; a line of it that is not counted, or a stock taken back from this batch, gives no concentration.`;
       else ref.value = found.concentrationM;
     }
     return j + 1;
