@@ -183,6 +183,13 @@ describe('names and shelf labels instead of formulas', () => {
     expect(d.message).toMatch(/chlorate|chloride/);
   });
 
+  it('a name of thousands of characters is quoted short in its finding', () => {
+    const long = 'x'.repeat(5000);
+    const d = batch(`${long} 5 g`).diagnostics.find((x) => x.code === 'batch-name')!;
+    expect(d.end - d.start).toBe(5000);
+    expect(d.message.length).toBeLessThan(200);
+  });
+
   it('an exact name a letter from another says which one it is not', () => {
     const i = only('sodium chlorite 5 g');
     expect(i.analysis.hill).toBe('ClNaO2');
@@ -212,6 +219,12 @@ describe('water to and make up to', () => {
     expect(b.ingredients[0].massG).toBeCloseTo(0.05 * (W.Na + W.Cl), 9);
     expect(batch('KCl 1 g\nmake up to 2 L with DI water').volumeL).toBe(2);
     expect(batch('KCl 1 g\nDI water to 250 mL').volumeL).toBe(0.25);
+  });
+
+  it('without a volume are a finding on the line, not a name', () => {
+    const b = batch('KCl 1 g\nmake up to');
+    expect(b.skipped.map((x) => x.code)).toEqual(['batch-amount']);
+    expect(b.skipped[0].reason).toMatch(/needs the volume to make up to/);
   });
 
   it('agree with a volume: header, or the first counts with a warning', () => {

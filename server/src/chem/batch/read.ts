@@ -201,10 +201,10 @@ export function readLines(lines: readonly BatchLine[], openName: string | null, 
  * `volume:` is given as well, the two must agree.
  */
 const MAKE_UP =
-  /^(?:(?:(?:DI|deionised|deionized|distilled|purified|demineralised|demineralized)\s+)?water\s+to|make\s+up\s+to|made\s+up\s+to|top\s+up\s+to|fill\s+to)\s+(.*?)(\s+with\s+\S.*)?$/i;
+  /^(?:(?:(?:DI|deionised|deionized|distilled|purified|demineralised|demineralized)\s+)?water\s+to|make\s+up\s+to|made\s+up\s+to|top\s+up\s+to|fill\s+to)(?:\s+(.*?))?(\s+with\s+\S.*)?$/i;
 
 function readMakeUp(headers: BatchHeaders, counted: Set<HeaderKey>, m: RegExpExecArray, at: Located): ChemDiagnostic | null {
-  const valueText = m[1];
+  const valueText = m[1] ?? '';
   const valueStart = at.lineStart + at.trimmed.indexOf(valueText, at.trimmed.length - valueText.length - (m[2]?.length ?? 0));
   if (!valueText.trim()) return finding('batch-amount', at.lineStart, at.lineEnd, `'${at.trimmed}' needs the volume to make up to, e.g. 'water to 1 L'.`);
   const read = readHeaderValue('volume', valueText, valueStart, at.lineStart, at.lineEnd);

@@ -92,10 +92,13 @@ export function readSubstance(text: string, base: number, settings: ChemSettings
   // A near or ambiguous name is never taken; an unknown one is said as a name where it reads as words.
   const words = span.text.split(/\s+/).length;
   if (n.status === 'unknown' && words === 1 && !WORDY.test(first.text)) return asFormula();
+  // A name of any length is quoted short: the finding stands on its characters.
   const message =
-    n.status === 'ambiguous' && n.candidates.length
-      ? `${n.message ?? `'${span.text}' has more than one reading`} (${list(n.candidates)})`
-      : (n.message ?? `'${span.text}' is neither a formula nor a name the tool knows.`);
+    span.text.length > 80
+      ? `'${span.text.slice(0, 60)}…' (${span.text.length} characters) is neither a formula nor a name the tool knows.`
+      : n.status === 'ambiguous' && n.candidates.length
+        ? `${n.message ?? `'${span.text}' has more than one reading`} (${list(n.candidates)})`
+        : (n.message ?? `'${span.text}' is neither a formula nor a name the tool knows.`);
   return {
     formula: span,
     analysis,

@@ -161,7 +161,7 @@ export function amountIn(req: AmountRequest): ReagentAmount | { findings: Reagen
             ),
           );
       } else {
-        if (!T) return fail('basis-missing', `${u.unit} w/w needs the batch's total mass (\`total: 1 kg\`).`);
+        if (!T) return fail('basis-missing', `${u.basis ? u.unit : `${u.unit} w/w`} needs the batch's total mass (\`total: 1 kg\`).`);
         g = req.value * u.factor * 1e-6 * T;
       }
       // Where it matters: the two readings differ by the solution's density.
