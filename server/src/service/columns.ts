@@ -163,20 +163,6 @@ export const amountText = (i: Ingredient) => i.amount.text + (i.assay < 1 ? ` @ 
 /** A name or shelf label as the line wrote it, after the formula it was read as (` (borax)`); empty for a formula. */
 export const asWritten = (i: Ingredient) => (i.via === 'formula' ? '' : ` (${i.formulaText})`);
 
-/** What to measure out, in one phrase: `weigh 12.5 g`, `pour 10.0 mL (18.36 g)`, `take 33.3 mL of the stock`. */
-export function measureText(i: Ingredient): string {
-  if (i.measure === 'stock' && i.volumeML !== null) return `take ${mlText(i.volumeML)} of the stock`;
-  if (i.measure === 'pour' && i.volumeML !== null) return `pour ${mlText(i.volumeML)} (${sig(i.massG)} g)`;
-  return `weigh ${sig(i.massG)} g`;
-}
-
-/** A volume to pour, mL (µL below 0.1 mL, L from 10 L). */
-export function mlText(mL: number): string {
-  if (mL >= 10_000) return `${sig(mL / 1000)} L`;
-  if (mL < 0.1) return `${sig(mL * 1000)} µL`;
-  return `${sig(mL)} mL`;
-}
-
 /** A line of a batch in a table: a counted ingredient or a line not counted. */
 export type BatchRow = { ingredient: Ingredient; skipped?: undefined } | { skipped: SkippedLine; ingredient?: undefined };
 

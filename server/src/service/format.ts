@@ -83,6 +83,13 @@ export function perLitreText(gPerL: number, digits = 3): string {
 
 /** A volume in litres, written in mL (the unit batch notes use): `500 mL`, `2000 mL`. */
 /** A volume as a chemist writes it: litres from 1 L up, millilitres below (`2 L`, `500 mL`, `2.5 mL`). */
+/** A volume to pour, mL (µL below 0.1 mL, L from 10 L). */
+export function mlText(mL: number): string {
+  if (mL >= 10_000) return `${sig(mL / 1000)} L`;
+  if (mL < 0.1) return `${sig(mL * 1000)} µL`;
+  return `${sig(mL)} mL`;
+}
+
 export const volumeText = (litres: number) => (litres >= 1 ? `${sig(litres)} L` : `${sig(litres * 1000)} mL`);
 
 const KCAL = 4.184;

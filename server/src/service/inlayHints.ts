@@ -12,10 +12,9 @@
 import type { Ingredient } from '../chem/batch';
 import { unitSpelled } from '../chem/batch/units';
 import { reagentUnit } from '../chem/reagents';
-import { mlText } from './columns';
 import { pHText } from './solution';
 import { shiftBatch, type AnalysedDocument, type BatchOccurrence } from './document';
-import { massText, molarMassText, percent, sig } from './format';
+import { massText, mlText, molarMassText, percent, sig } from './format';
 import type { Position } from './positions';
 import type { ServiceSettings } from './settings';
 

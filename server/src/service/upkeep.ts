@@ -5,8 +5,7 @@
  */
 import type { TitreFailure, TitreResult, Upkeep } from '../chem/upkeep';
 import { ADDITIONS_NOTE } from '../chem/upkeep';
-import { mlText } from './columns';
-import { massText, sig } from './format';
+import { massText, mlText, sig } from './format';
 
 const isResult = (t: TitreResult | TitreFailure): t is TitreResult => 'reading' in t;
 

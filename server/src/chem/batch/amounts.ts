@@ -46,8 +46,6 @@ export interface CountedLine {
   notes: string[];
   /** Handling cautions of a concentrated acid, base or solvent poured. */
   handling: string[];
-  /** Findings a later look at the line adds (taken into the line's findings, then dropped). */
-  diagnosticsAdded?: ChemDiagnostic[];
 }
 
 export interface BatchAmounts {
@@ -175,11 +173,9 @@ function countLine(line: IngredientLine, headers: BatchHeaders): LineResult {
     };
     if (target.density) counted.density = target.density;
     if (target.basis) counted.basis = target.basis;
-    if (counted.measure === 'weigh' && counted.volumeML === null) liquidVolume(counted);
-    else if (counted.measure === 'weigh') counted.measure = 'pour';
-    if (counted.diagnosticsAdded) {
-      diagnostics = [...diagnostics, ...counted.diagnosticsAdded];
-      delete counted.diagnosticsAdded;
+    if (counted.measure === 'weigh') {
+      const more = liquidVolume(counted);
+      if (more.length) diagnostics = [...diagnostics, ...more];
     }
     return { diagnostics, counted };
   }
@@ -282,13 +278,15 @@ function codeOf(f: ReagentFinding): DiagnosticCode {
   }
 }
 
-/** The reagent findings as the line's findings (on `start`–`end`) and notes (the information ones). */
-function mapFindings(findings: readonly ReagentFinding[], start: number, end: number): { diagnostics: ChemDiagnostic[]; notes: string[]; handling: string[] } {
-  const out = { diagnostics: [] as ChemDiagnostic[], notes: [] as string[], handling: [] as string[] };
+/**
+ * The reagent findings as the line's findings (on `start`–`end`) and notes (the information ones). The
+ * handling cautions are left out: they are taken line by line from chem/reagents (`handlingCautions`).
+ */
+function mapFindings(findings: readonly ReagentFinding[], start: number, end: number): { diagnostics: ChemDiagnostic[]; notes: string[] } {
+  const out = { diagnostics: [] as ChemDiagnostic[], notes: [] as string[] };
   for (const f of findings) {
-    // The handling cautions are taken line by line from chem/reagents (handlingCautions), not as one finding.
     if (f.kind === 'handling') continue;
-    else if (f.severity === 'information') out.notes.push(f.message);
+    if (f.severity === 'information') out.notes.push(f.message);
     else out.diagnostics.push(finding(codeOf(f), start, end, f.message, f.severity));
   }
   return out;
@@ -314,21 +312,20 @@ function reagentAmount(line: IngredientLine, { volumeL, totalMassG }: BatchHeade
       mapped.diagnostics.find((d) => d.severity === 'error') ?? finding('batch-unit', amount.start, unit.end, `${u.unit} cannot be read for this line.`);
     return { error };
   }
-  const poured = r.volumeML !== undefined && r.density;
   // Poured: the mass of the reagent as supplied is its volume × density; weighed: the substance ÷ assay.
-  const massG = poured && r.density ? (r.volumeML as number) * r.density.gPerML : r.massG / line.assay;
+  const density = r.volumeML !== undefined ? r.density : undefined;
   const out: Measured = {
     moles: r.moles,
-    massG,
+    massG: density ? (r.volumeML as number) * density.gPerML : r.massG / line.assay,
     basis: r.basis,
     notes: mapped.notes,
-    handling: [...mapped.handling, ...(poured && r.density ? handlingCautions(line.analysis, r.density.assayPercent) : [])],
+    handling: density ? handlingCautions(line.analysis, density.assayPercent) : [],
     findings: mapped.diagnostics,
   };
-  if (poured && r.density) {
+  if (density) {
     out.measure = 'pour';
     out.volumeML = r.volumeML as number;
-    out.density = r.density.text;
+    out.density = density.text;
   }
   return out;
 }
@@ -376,38 +373,37 @@ function fromStock(line: IngredientLine, M: number, { volumeL }: BatchHeaders): 
 
 /**
  * A line weighed, or a target, of a liquid reagent (an acid or base solution with its assay, a pure
- * liquid): the volume to pour as well, with the density used. A reagent sold only as a solution and given
- * without its assay gets a warning (its volume cannot be given); a solid (NaOH pellets) gets nothing.
+ * liquid): the volume to pour as well, with the density used, into `c`. A reagent sold only as a solution
+ * and given without its assay gets a warning (its volume cannot be given), which is returned; a solid
+ * (NaOH pellets) gets nothing.
  */
-export function liquidVolume(c: CountedLine): void {
+export function liquidVolume(c: CountedLine): ChemDiagnostic[] {
   const { line } = c;
   const m = liquidOf(line.analysis);
-  if (!m) return;
+  if (!m) return [];
   const given = line.assayPercent;
   const solutionOnly = m.kind === 'aqueous' && !m.table.pureLiquid;
   if (given === undefined && solutionOnly) {
-    if (line.solutionName || GAS_SOLUTIONS.has(m.table.id))
-      (c.diagnosticsAdded ??= []).push(
-        finding(
-          'reagent-assay',
-          line.formula.start,
-          (line.unit ?? line.formula).end,
-          `${line.name ?? line.analysis.display} is supplied as a solution in water: give its assay from the label (e.g. '@ ${TYPICAL[m.table.id] ?? '10'}%') to get the volume to pour; the amount is counted as the pure substance.`,
-          'warning',
-        ),
-      );
-    return;
+    if (!line.solutionName && !GAS_SOLUTIONS.has(m.table.id)) return [];
+    return [
+      finding(
+        'reagent-assay',
+        line.formula.start,
+        (line.unit ?? line.formula).end,
+        `${line.name ?? line.analysis.display} is supplied as a solution in water: give its assay from the label (e.g. '@ ${TYPICAL[m.table.id] ?? '10'}%') to get the volume to pour; the amount is counted as the pure substance.`,
+        'warning',
+      ),
+    ];
   }
   const v = volumeFor(line.analysis, c.moles, given, line.densityGPerML);
-  if (!('volumeML' in v)) return;
+  if (!('volumeML' in v)) return [];
   c.volumeML = v.volumeML;
   c.density = v.density.text;
   c.massG = v.solutionMassG;
   c.measure = 'pour';
   c.handling = [...new Set([...c.handling, ...v.cautions])];
-  const mapped = mapFindings(v.findings, line.formula.start, line.formula.end);
-  c.notes.push(...mapped.notes);
-  c.handling.push(...mapped.handling);
+  c.notes.push(...mapFindings(v.findings, line.formula.start, line.formula.end).notes);
+  return [];
 }
 
 /** Reagents that are gases or unstable as pure substances: sold only as solutions (their assay matters). */

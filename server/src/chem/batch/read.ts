@@ -165,21 +165,20 @@ export function readLines(lines: readonly BatchLine[], openName: string | null, 
       out.titres.push({ text: line.text, start: line.start });
       continue;
     }
+    // A header line that does not count: its finding, and the line listed as not counted.
+    const setAside = (d: ChemDiagnostic | null) => {
+      if (!d) return;
+      out.diagnostics.push(d);
+      out.lines.push({ kind: 'header', source: at.source, finding: d });
+    };
     if (isTankHeader(at.trimmed)) {
-      if (out.tankLine) {
-        const d = finding('batch-header', at.lineStart, at.lineEnd, `'tank:' is given twice; the first one counts.`, 'warning');
-        out.diagnostics.push(d);
-        out.lines.push({ kind: 'header', source: at.source, finding: d });
-      } else out.tankLine = { text: line.text, start: line.start };
+      if (out.tankLine) setAside(finding('batch-header', at.lineStart, at.lineEnd, `'tank:' is given twice; the first one counts.`, 'warning'));
+      else out.tankLine = { text: line.text, start: line.start };
       continue;
     }
     const makeUp = MAKE_UP.exec(at.trimmed);
     if (makeUp) {
-      const setAside = readMakeUp(headers, counted, makeUp, at);
-      if (setAside) {
-        out.diagnostics.push(setAside);
-        out.lines.push({ kind: 'header', source: at.source, finding: setAside });
-      }
+      setAside(readMakeUp(headers, counted, makeUp, at));
       continue;
     }
     const header = HEADER.exec(at.trimmed);
@@ -187,11 +186,7 @@ export function readLines(lines: readonly BatchLine[], openName: string | null, 
       out.lines.push(bufferWord(at) ? readBuffer(at) : readIngredient(at, settings, context));
       continue;
     }
-    const setAside = readHeader(headers, counted, openName, header, at);
-    if (setAside) {
-      out.diagnostics.push(setAside);
-      out.lines.push({ kind: 'header', source: at.source, finding: setAside });
-    }
+    setAside(readHeader(headers, counted, openName, header, at));
   }
   return out;
 }
@@ -266,6 +261,23 @@ function readHeader(headers: BatchHeaders, counted: Set<HeaderKey>, openName: st
 }
 
 const readNumber = (t: string) => (NUMBER.test(t) ? Number(t) : NaN);
+
+/** A number and a unit written together: `0.1M` (a buffer's total), `5g` / `2wt%` / `1%w/v` (an amount), `1.5M` / `250g/L` (a stock). */
+const GLUED_NUMBER = String.raw`((?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?)`;
+const GLUED_UNIT = new RegExp(`^${GLUED_NUMBER}([A-Za-zµ/]+)$`);
+const GLUED_QUANTITY = new RegExp(`^${GLUED_NUMBER}((?:wt)?%(?:[wv]\\/[wv])?|[A-Za-zµ/]+)$`);
+const GLUED_STOCK = new RegExp(`^${GLUED_NUMBER}([A-Za-zµ/%]+)$`);
+
+/** A token of a number and a unit written together, as two tokens; null where it is not one. */
+function splitGlued(tok: Token, pattern: RegExp): [Token, Token] | null {
+  const m = pattern.exec(tok.text);
+  if (!m) return null;
+  const cut = tok.start + m[1].length;
+  return [
+    { text: m[1], start: tok.start, end: cut },
+    { text: m[2], start: cut, end: tok.end },
+  ];
+}
 
 /** A `pH:` value: one number in the range of a pH. */
 function readPHHeader(value: string, valueStart: number, at: Located): { value: number } | { error: ChemDiagnostic } {
@@ -446,10 +458,9 @@ function readBuffer(at: Located): BufferLine {
   // The total: `0.1 M`, `100 mM`, `0.1M`.
   let amount = rest[0];
   let unit: Token | undefined = rest[1];
-  const glued = /^((?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?)([A-Za-zµ/]+)$/.exec(amount.text);
+  const glued = splitGlued(amount, GLUED_UNIT);
   if (glued) {
-    unit = { text: glued[2], start: amount.start + glued[1].length, end: amount.end };
-    amount = { text: glued[1], start: amount.start, end: amount.start + glued[1].length };
+    [amount, unit] = glued;
     rest = [amount, unit, ...rest.slice(1)];
   }
   const value = readNumber(amount.text);
@@ -482,10 +493,9 @@ function readQuantity(line: IngredientLine, amount: Token, unitTok: Token | unde
   let amountTok = amount;
   let unit = unitTok;
   // `5g`, `2wt%`: the number and the unit written together.
-  const glued = /^((?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?)((?:wt)?%(?:[wv]\/[wv])?|[A-Za-zµ/]+)$/.exec(amount.text);
+  const glued = splitGlued(amount, GLUED_QUANTITY);
   if (glued && (!unitTok || unitTok.text.startsWith('@') || /^(?:from|acid|base|redox|ion|as)$/i.test(unitTok.text))) {
-    amountTok = { text: glued[1], start: amount.start, end: amount.start + glued[1].length };
-    unit = { text: glued[2], start: amountTok.end, end: amount.end };
+    [amountTok, unit] = glued;
     if (unitTok) rest.unshift(unitTok);
   }
   line.amount = amountTok;
@@ -664,10 +674,9 @@ function readStock(line: IngredientLine, rest: Token[], i: number, context: Batc
   let num = next;
   let unit = rest[i + 2];
   let used = i + 3;
-  const glued = /^((?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?)([A-Za-zµ/%]+)$/.exec(next.text);
+  const glued = splitGlued(next, GLUED_STOCK);
   if (glued) {
-    num = { text: glued[1], start: next.start, end: next.start + glued[1].length };
-    unit = { text: glued[2], start: num.end, end: next.end };
+    [num, unit] = glued;
     used = i + 2;
   }
   const value = NUMBER.test(num.text) ? Number(num.text) : NaN;

@@ -111,11 +111,7 @@ export function solutionStage(amounts: BatchAmounts, headers: BatchHeaders, sett
       c.pending = false;
       c.solvedFor = { targetPH: target.pH, pH: r.pH };
       // A liquid reagent solved for (NaOH @ 50%, HCl @ 37%): the volume to pour too.
-      liquidVolume(c);
-      if (c.diagnosticsAdded) {
-        for (const d of c.diagnosticsAdded) diagnostics.push(d);
-        delete c.diagnosticsAdded;
-      }
+      diagnostics.push(...liquidVolume(c));
       fixed.push({ analysis: c.line.analysis, moles: r.moles });
       return;
     }
