@@ -30,12 +30,10 @@ import { DEFAULT_CHEM_SETTINGS, type ChemSettings } from '../settings';
 import { computeAmounts, computeShares, type BatchAmounts } from './amounts';
 import { checkBatch, type BatchChecks } from './checks';
 import { mixIons, type BatchMix } from './mix';
-import { readLines, type BatchHeaders } from './read';
+import { readLines, type BatchHeaders, type ReadBatch } from './read';
 import { safetyStage, type BatchSafety } from './safety';
 import { solutionStage, type SolutionStage } from './solution';
 import { analyseUpkeep, type Upkeep } from '../upkeep';
-import type { BatchAmounts as Amounts } from './amounts';
-import type { ReadBatch } from './read';
 import type { BatchAnalysis, BatchContext, BatchLine, BatchSolution, Ingredient } from './types';
 
 export type {
@@ -194,22 +192,30 @@ function assemble(
     ...(solution.noSolution ? { noSolution: solution.noSolution } : {}),
   };
   if (upkeep) out.upkeep = upkeep;
-  if (typeof safety.heat === 'function') {
-    // Made on first read, then kept (as the solution is).
-    const later = safety.heat;
-    let made: BatchAnalysis['heat'] | undefined;
-    Object.defineProperty(out, 'heat', { enumerable: true, configurable: true, get: () => (made === undefined ? (made = later()) : made) });
-  }
-  if (lazy) {
-    // Made on first read, then kept (an analysis is shared and read-only otherwise).
-    let made: BatchSolution | undefined;
-    Object.defineProperty(out, 'solution', { enumerable: true, configurable: true, get: () => (made ??= lazy()) });
-  }
+  if (typeof safety.heat === 'function') lazyProperty(out, 'heat', safety.heat);
+  if (lazy) lazyProperty(out, 'solution', lazy);
   return out;
 }
 
+/** A property of the analysis made on first read, then kept (an analysis is shared and read-only otherwise). */
+function lazyProperty<K extends 'heat' | 'solution'>(out: BatchAnalysis, key: K, make: () => BatchAnalysis[K]): void {
+  let made = false;
+  let value: BatchAnalysis[K];
+  Object.defineProperty(out, key, {
+    enumerable: true,
+    configurable: true,
+    get: () => {
+      if (!made) {
+        value = make();
+        made = true;
+      }
+      return value;
+    },
+  });
+}
+
 /** The upkeep of a batch: its titres against the counted lines' concentrations, and the tank's additions. */
-function upkeepStage(read: ReadBatch, amounts: Amounts, at: { start: number; end: number }): Upkeep {
+function upkeepStage(read: ReadBatch, amounts: BatchAmounts, at: { start: number; end: number }): Upkeep {
   const targets = [];
   for (const c of amounts.counted) {
     // A line solved for the pH or designed as a buffer has no concentration of its own to keep.

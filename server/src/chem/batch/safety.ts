@@ -55,18 +55,6 @@ interface Placed {
   counted: number | null;
 }
 
-/** The volume measured out of a liquid, where the amounts stage gives one (a later stage of reading does). */
-const volumeOf = (c: object): number | null => {
-  const v = (c as { volumeML?: unknown }).volumeML;
-  return typeof v === 'number' && Number.isFinite(v) ? v : null;
-};
-
-/** The name a line gave its substance, where the reading keeps one (a line that names instead of writing a formula). */
-const nameOf = (line: object): string | undefined => {
-  const n = (line as { name?: unknown }).name;
-  return typeof n === 'string' && n ? n : undefined;
-};
-
 /**
  * Read the batch's safety (after the solution stage and the checks). A lazy equilibrium in `solution` is
  * memoised in place, so that the pH read here and the batch's `solution` read later are one solve.
@@ -90,11 +78,10 @@ export function safetyStage(
       moles: c.moles,
       massG: c.massG,
       assay: line.assay,
-      volumeML: volumeOf(c),
+      volumeML: c.volumeML,
       line: line.lineStart,
     };
-    const name = nameOf(line);
-    if (name) ingredient.name = name;
+    if (line.name) ingredient.name = line.name;
     placed.push({ ingredient, start: line.lineStart, end: line.lineEnd, counted: k });
   }
   let notCounted = false;
