@@ -443,7 +443,7 @@ function stockOfAnalysis(a: BatchAnalysis): { batch: StockBatch; key: string } {
  * The context of a document's batches from its placed blocks: the shelf of its shelf blocks (else the
  * workspace's) and a lookup of its batches by name (the first of a name; built on first use).
  */
-function contextOf(blocks: readonly PlacedBlock[], options: DocumentOptions): { ctx: DocumentContext; shelves: ShelfOccurrence[]; extra: ChemDiagnostic[] } {
+function contextOf(blocks: readonly PlacedBlock[], options: DocumentOptions): AssembledContext & { ctx: DocumentContext } {
   const shelves: ShelfOccurrence[] = [];
   for (const b of blocks) if (b.rel.shelves) for (const o of b.rel.shelves) shelves.push(shiftShelf(o, b.start));
   const extra: ChemDiagnostic[] = [];
@@ -491,7 +491,14 @@ function contextOf(blocks: readonly PlacedBlock[], options: DocumentOptions): { 
     },
   };
   if (shelf) ctx.shelf = shelf;
-  return { ctx, shelves, extra };
+  return { ctx, shelves, extra, shelf: shelf ? { shelf, source } : undefined };
+}
+
+/** What the document keeps of its context: its shelf blocks, the shelf its batches were read with, the shelf findings. */
+interface AssembledContext {
+  shelves: ShelfOccurrence[];
+  shelf: { shelf: Shelf; source: string } | undefined;
+  extra: ChemDiagnostic[];
 }
 
 /** Rounds of re-reading where a stock's batch changed (a chain of stocks up to this long settles). */
@@ -511,7 +518,7 @@ function assemble(
   spans: Span[],
   before: PlacedBlock[],
   after: PlacedBlock[],
-): { blocks: PlacedBlock[]; shelves: ShelfOccurrence[]; extra: ChemDiagnostic[] } {
+): AssembledContext & { blocks: PlacedBlock[] } {
   const fresh: Array<PlacedBlock | undefined> = spans.map((b) =>
     isShelfSpan(text, b) ? blockResult(text, b, language, settings, cache, NO_CONTEXT) : undefined,
   );
@@ -540,7 +547,7 @@ function assemble(
     if (!changed) break;
     out = contextOf(blocks, options);
   }
-  return { blocks, shelves: out.shelves, extra: out.extra };
+  return { blocks, shelves: out.shelves, shelf: out.shelf, extra: out.extra };
 }
 
 const NO_CONTEXT: DocumentContext = { shelfKey: '', stock: () => ({ key: '' }) };
@@ -696,15 +703,10 @@ class Doc implements AnalysedDocument {
     readonly blockCache: BlockCache,
     readonly options: DocumentOptions,
     readonly shelves: ShelfOccurrence[],
+    /** The shelf the batches were read with: the document's shelf blocks as one, else the workspace's. */
+    readonly shelf: { shelf: Shelf; source: string } | undefined,
     private readonly extra: ChemDiagnostic[],
   ) {}
-
-  get shelf(): { shelf: Shelf; source: string } | undefined {
-    if (this.shelves.length === 1) return { shelf: this.shelves[0].shelf, source: 'document' };
-    if (this.shelves.length > 1)
-      return { shelf: { entries: this.shelves.flatMap((o) => o.shelf.entries), findings: this.shelves.flatMap((o) => o.shelf.findings) }, source: 'document' };
-    return this.options.workspaceShelf ? { shelf: this.options.workspaceShelf.shelf, source: this.options.workspaceShelf.source } : undefined;
-  }
 
   get sections(): SectionRef[] {
     if (this.cache.s) return this.cache.s;
@@ -768,7 +770,7 @@ export function analyseDocument(
 ): AnalysedDocument {
   const { blocks } = split(text, language, 0);
   const a = assemble(text, language, settings, cache, options, blocks, [], []);
-  return new Doc(text, language, settings, a.blocks, new LineIndex(text), cache, options, a.shelves, a.extra);
+  return new Doc(text, language, settings, a.blocks, new LineIndex(text), cache, options, a.shelves, a.shelf, a.extra);
 }
 
 /** Where two versions of a text differ: [start, oldEnd) in the old text became [start, newEnd) in the new. */
@@ -858,5 +860,5 @@ export function updateDocument(
       : [];
   const a = assemble(text, language, settings, cache, options, blocks, kept, moved);
   const lines = prev.lines.update(text, hint.start, hint.oldEnd, hint.newEnd);
-  return new Doc(text, language, settings, a.blocks, lines, cache, options, a.shelves, a.extra);
+  return new Doc(text, language, settings, a.blocks, lines, cache, options, a.shelves, a.shelf, a.extra);
 }
