@@ -4,7 +4,7 @@
  * named), also in worker threads. An invented lab (Tamsin Road Finishing). 10 mL × 1.84 g/mL = 18.4 g.
  */
 import { spawnSync } from 'node:child_process';
-import { writeFileSync } from 'node:fs';
+import { mkdirSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
@@ -29,6 +29,24 @@ describe('the shelf file', () => {
       expect(r.stdout, jobs).toContain('2 files checked: 0 errors, 0 warnings.');
       expect(r.status).toBe(0);
     }
+  });
+
+  it('is read in every shard, whichever shard checks it', () => {
+    // The shelf file in a folder of its own, not beside any note: only the walk finds it.
+    const dir = mkdtempSync(join(tmpdir(), 'ionwright-shards-'));
+    mkdirSync(join(dir, 'reagents'));
+    writeFileSync(join(dir, 'reagents', 'lab.shelf.md'), '```shelf\nAcid A: H2SO4 @ 96 %; density 1.84 g/mL\n```\n');
+    for (const day of ['monday', 'tuesday', 'wednesday', 'thursday', 'friday', 'saturday'])
+      writeFileSync(join(dir, `${day}.md`), '```batch\nAcid A 5 mL\nwater to 1 L\n```\n');
+    const counts: number[] = [];
+    for (const shard of ['1/2', '2/2']) {
+      const r = cli(['check', '--shard', shard, '.'], dir);
+      expect(r.stdout, shard).toMatch(/: 0 errors/);
+      expect(r.status, shard).toBe(0);
+      counts.push(Number(/^(\d+) files? checked/m.exec(r.stdout)?.[1]));
+    }
+    // Not vacuous: both shards check notes, so one of them checks notes without the shelf file.
+    expect(counts.every((n) => n > 0)).toBe(true);
   });
 
   it('is read beside a file named on its own, and its entry is in the batch JSON', () => {

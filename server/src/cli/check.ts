@@ -92,8 +92,15 @@ export async function cmdCheck(args: string[], io: CliIO): Promise<number> {
   const report = emptyReport();
   const mine = (path: string) => inShard(shard, path, io.cwd);
   let found = 0;
-  const jobs: CheckJob[] = readFiles(positionals, io, report, (path) => (found++, mine(path)));
-  const shelf = shelfSourceIn(positionals, io, jobs);
+  // The files of the other shards: the shelf file may be among them.
+  const others: string[] = [];
+  const jobs: CheckJob[] = readFiles(positionals, io, report, (path) => {
+    found++;
+    if (mine(path)) return true;
+    others.push(path);
+    return false;
+  });
+  const shelf = shelfSourceIn(jobs, io, others);
   if (shelf) for (const job of jobs) job.shelf = shelf;
   // What the walk reports about a path is reported by the part the path falls in.
   if (shard) {

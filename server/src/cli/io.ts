@@ -516,30 +516,29 @@ export function readFiles(paths: string[], io: CliIO, report: InputReport, keep:
 /** Read and analyse files; a file that cannot be read is reported and skipped. */
 export function loadFiles(paths: string[], io: CliIO, report: InputReport): LoadedFile[] {
   const files = readFiles(paths, io, report);
-  const shelf = shelfSourceIn(paths, io, files);
+  const shelf = shelfSourceIn(files, io);
   return files.map((f) => ({ path: f.path, doc: analyseFile(f.path, f.text, shelf) }));
 }
 
 /**
- * The workspace's shelf file among the files the paths name (`shelf.md`, `*.shelf.md`, `shelf.fnote`; the
- * first in path order), read from `read` where it is there, else from disk (a shard may not hold it).
+ * The workspace's shelf file (`shelf.md`, `*.shelf.md`, `shelf.fnote`): the first in path order among the
+ * files read, else among `others` (files the walk found but this run does not check, such as another
+ * shard's), else beside a file read (a file named on its own), once per folder.
  */
-export function shelfSourceIn(paths: string[], io: CliIO, read: readonly ReadFile[]): ShelfSource | undefined {
+export function shelfSourceIn(read: readonly ReadFile[], io: CliIO, others: readonly string[] = []): ShelfSource | undefined {
   const hit = read.find((f) => isShelfFile(f.path));
   if (hit) return { path: hit.path, text: hit.text };
-  const quiet = emptyReport();
-  for (const path of collectFiles(paths, io, quiet)) {
-    if (!isShelfFile(path)) continue;
+  const other = others.find(isShelfFile);
+  if (other !== undefined) {
     try {
-      return { path, text: readNote(io, path) };
+      return { path: other, text: readNote(io, other) };
     } catch {
       return undefined;
     }
   }
-  // A file named on its own: the shelf file beside it, where there is one.
-  for (const f of read)
+  for (const dir of new Set(read.map((f) => dirname(f.path))))
     for (const name of ['shelf.md', 'shelf.markdown', 'shelf.fnote']) {
-      const path = join(dirname(f.path), name);
+      const path = join(dir, name);
       try {
         if (io.isDirectory(path)) continue;
         return { path, text: readNote(io, path) };
