@@ -14,7 +14,7 @@ import { COMPACT_BATCH, batchColumns, countedRows, markdownTable, pick } from '.
 import type { AnalysedDocument } from './document';
 import { chargeWords, energy, formulaText, massText, mlText, molarMassText, oxidationText, percent, perLitreText, sig, signed, volumeText } from './format';
 import { targetAt } from './lookup';
-import { titreMarkdown, upkeepMarkdown } from './upkeep';
+import { titreMarkdown, titreSpan, upkeepMarkdown } from './upkeep';
 import type { Range } from './positions';
 import type { ServiceSettings } from './settings';
 import { ghsFoot, ghsHead, ghsOf, ghsStatements, solutionEnthalpyOf, solutionEnthalpyText } from './safety';
@@ -456,14 +456,8 @@ export function hover(doc: AnalysedDocument, offset: number): HoverResult | null
   else {
     const line = t.occ.analysis.skipped.find((l) => offset >= l.lineStart && offset <= l.lineEnd);
     if (line) return { markdown: skippedMarkdown(line, t.occ.analysis, s), range: doc.lines.range(line.lineStart, line.lineEnd) };
-    const titre = t.occ.analysis.upkeep?.titres.find((x) => {
-      const r = 'reading' in x ? x.reading : x;
-      return offset >= r.start && offset <= r.end;
-    });
-    if (titre) {
-      const r = 'reading' in titre ? titre.reading : titre;
-      return { markdown: titreMarkdown(titre, esc), range: doc.lines.range(r.start, r.end) };
-    }
+    const titre = t.occ.analysis.upkeep?.titres.find((x) => offset >= titreSpan(x).start && offset <= titreSpan(x).end);
+    if (titre) return { markdown: titreMarkdown(titre, esc), range: doc.lines.range(titreSpan(titre).start, titreSpan(titre).end) };
     markdown = batchSummaryMarkdown(t.occ.analysis, s);
   }
   return { markdown, range: doc.lines.range(t.start, t.end) };

@@ -15,6 +15,7 @@
  */
 import { shelfEntry } from '../chem/reagents';
 import type { AnalysedDocument, BatchOccurrence } from './document';
+import { targetAt } from './lookup';
 import type { Range } from './positions';
 import { documentVocabulary, type Vocabulary } from './vocabulary';
 
@@ -178,10 +179,10 @@ export const batchNameDefinition: DefinitionSource = ({ doc, offset, notes }) =>
 
 /** A shelf label on a batch line → its entry on the shelf (the note's own shelf block, or the workspace's shelf file). */
 export const shelfLabelDefinition: DefinitionSource = ({ doc, offset, uri }) => {
-  const b = doc.batches.find((x) => x.ref.start <= offset && offset <= x.ref.end);
-  const i = b?.analysis.ingredients.find((x) => x.via === 'shelf' && x.formulaStart <= offset && offset <= x.formulaEnd);
+  const t = targetAt(doc, offset);
+  const i = t?.kind === 'batch-line' ? t.ingredient : undefined;
   const shelf = doc.shelf;
-  if (!i?.shelf || !shelf) return undefined;
+  if (!i?.shelf || i.via !== 'shelf' || offset < i.formulaStart || offset > i.formulaEnd || !shelf) return undefined;
   const entry = shelfEntry(shelf.shelf, i.shelf.label);
   if (!entry) return undefined;
   if (shelf.source === 'document') return uri ? [{ uri, range: doc.lines.range(entry.labelSpan.start, entry.labelSpan.end) }] : undefined;

@@ -9,6 +9,9 @@ import { massText, mlText, sig } from './format';
 
 const isResult = (t: TitreResult | TitreFailure): t is TitreResult => 'reading' in t;
 
+/** Where a titre line stands (absolute offsets), read or not. */
+export const titreSpan = (t: TitreResult | TitreFailure): { start: number; end: number } => (isResult(t) ? t.reading : t);
+
 /** One line per titre: `NiSO₄·6H₂O 0.460 M = 120.9 g/L (27.00 g/L Ni), 92 % of target`. */
 export function titreLine(t: TitreResult | TitreFailure): string {
   if (!isResult(t)) return `${t.text.trim()} — not read: ${t.diagnostics.find((d) => d.severity === 'error')?.message ?? 'see the problems'}`;
