@@ -49,8 +49,8 @@ export function readSubstance(text: string, base: number, settings: ChemSettings
       const { entry } = label;
       const span = { text: text.slice(label.start, label.end), start: base + label.start, end: base + label.end };
       const analysis = analyseFormula(entry.substance.formula, settings);
-      const notes = [`Shelf entry '${entry.label}': ${entry.substance.text}${describeEntry(entry)}.`];
-      return { formula: span, analysis, rest: after(span.end), via: 'shelf', shelf: entry, notes, diagnostics: [] };
+      // The entry itself is on the line (`shelf`): the outputs write it from there.
+      return { formula: span, analysis, rest: after(span.end), via: 'shelf', shelf: entry, notes: [], diagnostics: [] };
     }
   }
   const first = toks[0];
@@ -107,13 +107,4 @@ export function readSubstance(text: string, base: number, settings: ChemSettings
     notes: [],
     diagnostics: [finding('batch-name', span.start, span.end, message)],
   };
-}
-
-function describeEntry(e: ShelfEntry): string {
-  const parts = [`read as ${e.substance.formula}`];
-  if (e.assayPercent !== undefined) parts.push(`assay ${e.assayPercent} %`);
-  if (e.densityGPerML !== undefined) parts.push(`density ${e.densityGPerML} g/mL`);
-  if (e.lot) parts.push(`lot ${e.lot}`);
-  if (e.supplier) parts.push(`supplier ${e.supplier}`);
-  return ` (${parts.join('; ')})`;
 }
